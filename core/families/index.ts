@@ -1,26 +1,36 @@
 /**
  * The family registry: the one public entry of core/families.
  */
+import { InputError } from '../errors.js';
 import type { Family, FamilyName } from './types.js';
+import { exponential } from './exponential.js';
+import { normal } from './normal.js';
 
 export type * from './types.js';
+export { exponential, normal };
 
 const registry = new Map<FamilyName, Family>();
 
-/** Register a family (called once by each family module's import below). */
+/** Register a family (the five built-in families are registered below, on first import). */
 export function registerFamily(f: Family): void {
   registry.set(f.name, f);
 }
 
 export function getFamily(name: FamilyName): Family {
   const f = registry.get(name);
-  if (!f) throw new Error(`unknown family ${name}`);
+  if (!f) {
+    const known = [...registry.keys()].join(', ');
+    throw new InputError(`Unknown family "${String(name)}"; known families: ${known}.`, { value: String(name) }, 'bad-option');
+  }
   return f;
 }
 
 export function allFamilies(): Family[] {
   return [...registry.values()];
 }
+
+registerFamily(normal);
+registerFamily(exponential);
 
 /** The default candidate set for a complete sample. */
 export const DEFAULT_FAMILIES: readonly FamilyName[] = ['normal', 'lognormal', 'gamma', 'weibull', 'exponential'];

@@ -1,0 +1,120 @@
+/**
+ * The normal family, parameters `mean` (location) and `sd` (scale).
+ * Tails: cdf and sf are Φ(±z) and their logs ln Φ(±z), never 1 - Φ; quantiles from Φ⁻¹.
+ * Fit: closed-form maximum likelihood, mean = x̄ and sd = √(Σ(x - x̄)²/n) (the MLE divides by n,
+ * not n - 1).
+ */
+import type { Rng } from '../random/index.js';
+import type { Sample } from '../sample.js';
+import { normalCdf, normalLogCdf, normalQuantile } from '../special/index.js';
+import { checkApplicable } from './applicability.js';
+import { POSITIVE, REAL, readParameter } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+
+const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+const SUPPORT: Interval = Object.freeze({ lower: Number.NEGATIVE_INFINITY, upper: Number.POSITIVE_INFINITY });
+const BOUNDS = Object.freeze({ mean: REAL, sd: POSITIVE });
+
+// TODO(special): switch sf/logSf/isf to normalSf / normalLogSf / normalIsf once core/special exports
+// them; until then the symmetry Φ(-z) = 1 - Φ(z) gives the upper tail directly (no subtraction).
+
+class NormalDistribution implements Distribution {
+  readonly family = 'normal' as const;
+  readonly parameters: Parameters;
+  readonly support = SUPPORT;
+  private readonly logNorm: number;
+  constructor(
+    private readonly mu: number,
+    private readonly sigma: number,
+  ) {
+    this.parameters = Object.freeze({ mean: mu, sd: sigma });
+    this.logNorm = -Math.log(sigma) - LN_SQRT_2PI;
+  }
+  logPdf(x: number): number {
+    const z = (x - this.mu) / this.sigma;
+    return this.logNorm - 0.5 * z * z;
+  }
+  pdf(x: number): number {
+    return Math.exp(this.logPdf(x));
+  }
+  cdf(x: number): number {
+    return normalCdf((x - this.mu) / this.sigma);
+  }
+  sf(x: number): number {
+    return normalCdf((this.mu - x) / this.sigma);
+  }
+  logCdf(x: number): number {
+    return normalLogCdf((x - this.mu) / this.sigma);
+  }
+  logSf(x: number): number {
+    return normalLogCdf((this.mu - x) / this.sigma);
+  }
+  quantile(p: number): number {
+    if (!(p >= 0 && p <= 1)) return Number.NaN;
+    if (p === 0) return Number.NEGATIVE_INFINITY;
+    if (p === 1) return Number.POSITIVE_INFINITY;
+    return this.mu + this.sigma * normalQuantile(p);
+  }
+  isf(q: number): number {
+    if (!(q >= 0 && q <= 1)) return Number.NaN;
+    if (q === 0) return Number.POSITIVE_INFINITY;
+    if (q === 1) return Number.NEGATIVE_INFINITY;
+    return this.mu - this.sigma * normalQuantile(q);
+  }
+  mean(): number {
+    return this.mu;
+  }
+  variance(): number {
+    return this.sigma * this.sigma;
+  }
+}
+
+function make(parameters: Parameters): Distribution {
+  const mean = readParameter('normal', parameters, 'mean', BOUNDS.mean);
+  const sd = readParameter('normal', parameters, 'sd', BOUNDS.sd);
+  return new NormalDistribution(mean, sd);
+}
+
+function applicable(sample: Sample): NotApplicable | null {
+  return checkApplicable('normal', 'normal', sample, 'real');
+}
+
+function fit(sample: Sample): FitOutcome {
+  const na = applicable(sample);
+  if (na) return na;
+  const n = sample.n;
+  const mean = sample.mean;
+  const sd = Math.sqrt(sample.sumSqDev / n);
+  // At the MLE Σ(x - mean)²/sd² = n exactly, so ln L = -n ln sd - n ln √(2π) - n/2.
+  const logLikelihood = -n * (Math.log(sd) + LN_SQRT_2PI + 0.5);
+  return {
+    ok: true,
+    family: 'normal',
+    parameters: Object.freeze({ mean, sd }),
+    logLikelihood,
+    iterations: 0,
+    converged: true,
+    method: 'closed form: mean = sample mean, sd = √(Σ(x - mean)²/n) (maximum likelihood, divisor n)',
+  };
+}
+
+function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
+  const d = make(parameters);
+  const mu = d.parameters.mean as number;
+  const sigma = d.parameters.sd as number;
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = mu + sigma * rng.normal();
+  return out;
+}
+
+export const normal: Family = Object.freeze({
+  name: 'normal',
+  label: 'normal',
+  parameterNames: Object.freeze(['mean', 'sd']),
+  parameterBounds: BOUNDS,
+  estimatedParameters: 2,
+  make,
+  applicable,
+  fit,
+  random,
+});
