@@ -1,0 +1,137 @@
+/**
+ * The lognormal family (location 0): ln X is normal with mean `meanlog` and standard deviation
+ * `sdlog`. Tails: cdf and sf are Φ(±z), z = (ln x - meanlog)/sdlog, and their logs ln Φ(±z).
+ * Fit: closed-form maximum likelihood on the logs, meanlog = mean(ln x),
+ * sdlog = √(Σ(ln x - meanlog)²/n) (divisor n), with compensated sums.
+ */
+import { CompensatedSum } from '../compensated.js';
+import type { Rng } from '../random/index.js';
+import type { Sample } from '../sample.js';
+import { normalCdf, normalLogCdf, normalQuantile } from '../special/index.js';
+import { checkApplicable } from './applicability.js';
+import { POSITIVE, REAL, readParameter } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+
+const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
+const BOUNDS = Object.freeze({ meanlog: REAL, sdlog: POSITIVE });
+
+// TODO(special): switch sf/logSf/isf to normalSf / normalLogSf / normalIsf once core/special exports
+// them; until then the symmetry Φ(-z) = 1 - Φ(z) gives the upper tail directly (no subtraction).
+
+class LognormalDistribution implements Distribution {
+  readonly family = 'lognormal' as const;
+  readonly parameters: Parameters;
+  readonly support = SUPPORT;
+  private readonly logNorm: number;
+  constructor(
+    private readonly mu: number,
+    private readonly sigma: number,
+  ) {
+    this.parameters = Object.freeze({ meanlog: mu, sdlog: sigma });
+    this.logNorm = -Math.log(sigma) - LN_SQRT_2PI;
+  }
+  logPdf(x: number): number {
+    if (x <= 0) return x === x ? Number.NEGATIVE_INFINITY : Number.NaN;
+    if (x === Number.POSITIVE_INFINITY) return Number.NEGATIVE_INFINITY;
+    const lx = Math.log(x);
+    const z = (lx - this.mu) / this.sigma;
+    return this.logNorm - lx - 0.5 * z * z;
+  }
+  pdf(x: number): number {
+    return Math.exp(this.logPdf(x));
+  }
+  private z(x: number): number {
+    // At and below the support edge z = -∞, so cdf = 0, sf = 1 and their logs fall out of Φ.
+    if (!(x > 0)) return x === x ? Number.NEGATIVE_INFINITY : Number.NaN;
+    return (Math.log(x) - this.mu) / this.sigma;
+  }
+  cdf(x: number): number {
+    return normalCdf(this.z(x));
+  }
+  sf(x: number): number {
+    return normalCdf(-this.z(x));
+  }
+  logCdf(x: number): number {
+    return normalLogCdf(this.z(x));
+  }
+  logSf(x: number): number {
+    return normalLogCdf(-this.z(x));
+  }
+  quantile(p: number): number {
+    if (!(p >= 0 && p <= 1)) return Number.NaN;
+    if (p === 0) return 0;
+    if (p === 1) return Number.POSITIVE_INFINITY;
+    return Math.exp(this.mu + this.sigma * normalQuantile(p));
+  }
+  isf(q: number): number {
+    if (!(q >= 0 && q <= 1)) return Number.NaN;
+    if (q === 0) return Number.POSITIVE_INFINITY;
+    if (q === 1) return 0;
+    return Math.exp(this.mu - this.sigma * normalQuantile(q));
+  }
+  mean(): number {
+    return Math.exp(this.mu + 0.5 * this.sigma * this.sigma);
+  }
+  variance(): number {
+    const s2 = this.sigma * this.sigma;
+    return Math.expm1(s2) * Math.exp(2 * this.mu + s2);
+  }
+}
+
+function make(parameters: Parameters): Distribution {
+  const meanlog = readParameter('lognormal', parameters, 'meanlog', BOUNDS.meanlog);
+  const sdlog = readParameter('lognormal', parameters, 'sdlog', BOUNDS.sdlog);
+  return new LognormalDistribution(meanlog, sdlog);
+}
+
+function applicable(sample: Sample): NotApplicable | null {
+  return checkApplicable('lognormal', 'lognormal', sample, 'positive');
+}
+
+function fit(sample: Sample): FitOutcome {
+  const na = applicable(sample);
+  if (na) return na;
+  const logs = sample.logs() as Float64Array; // non-null: every value is > 0
+  const n = sample.n;
+  const sumLog = sample.sumLog();
+  const meanlog = sumLog / n;
+  const ss = new CompensatedSum();
+  for (let i = 0; i < n; i++) {
+    const d = (logs[i] as number) - meanlog;
+    ss.add(d * d);
+  }
+  const sdlog = Math.sqrt(ss.value / n);
+  // At the MLE Σ(ln x - meanlog)²/sdlog² = n, so ln L = -Σ ln x - n ln sdlog - n ln √(2π) - n/2.
+  const logLikelihood = -sumLog - n * (Math.log(sdlog) + LN_SQRT_2PI + 0.5);
+  return {
+    ok: true,
+    family: 'lognormal',
+    parameters: Object.freeze({ meanlog, sdlog }),
+    logLikelihood,
+    iterations: 0,
+    converged: true,
+    method: 'closed form on ln x: meanlog = mean of ln x, sdlog = √(Σ(ln x - meanlog)²/n) (maximum likelihood, divisor n)',
+  };
+}
+
+function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
+  const d = make(parameters);
+  const mu = d.parameters.meanlog as number;
+  const sigma = d.parameters.sdlog as number;
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = Math.exp(mu + sigma * rng.normal());
+  return out;
+}
+
+export const lognormal: Family = Object.freeze({
+  name: 'lognormal',
+  label: 'lognormal',
+  parameterNames: Object.freeze(['meanlog', 'sdlog']),
+  parameterBounds: BOUNDS,
+  estimatedParameters: 2,
+  make,
+  applicable,
+  fit,
+  random,
+});
