@@ -1,0 +1,211 @@
+/**
+ * The two-parameter Weibull family (location 0), parameters `shape` (k) and `scale` (λ):
+ * S(x) = exp(-(x/λ)^k).
+ * Tails: ln S(x) = -(x/λ)^k exactly, F(x) = -expm1(-(x/λ)^k), ln F(x) = log1mexp(-(x/λ)^k) (and
+ * ln F = k ln(x/λ) - (x/λ)^k/2 where (x/λ)^k would underflow); (x/λ)^k = exp(k ln(x/λ)).
+ * Quantiles by inverting ln S: x = λ (-ln q)^(1/k), with -log1p(-p) for the lower tail.
+ *
+ * Fit (maximum likelihood): the shape is the root of the profile equation
+ *   g(c) = Σ x^c ln x / Σ x^c - 1/c - mean(ln x) = 0,
+ * solved by Newton safeguarded by a bracket. The data enter only through y = ln x - ln max(x) ≤ 0
+ * (g does not change under this shift), so the weights x^c/max^c = exp(c·y) lie in (0, 1] and
+ * cannot overflow. g is increasing (g' = weighted variance of y + 1/c²) and negative at
+ * c = -1/mean(y), which is therefore a strict lower bound. The start is Menon's (1963) moment
+ * estimate on the logs, c₀ = π/(√6·sd(ln x)) [from memory]. Then scale = (Σ x^c/n)^(1/c).
+ */
+import type { Rng } from '../random/index.js';
+import type { Sample } from '../sample.js';
+import { lnGamma, log1mexp } from '../special/index.js';
+import { checkApplicable } from './applicability.js';
+import { positiveRootNewton } from './newton.js';
+import { POSITIVE, readParameter } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+
+const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
+const BOUNDS = Object.freeze({ shape: POSITIVE, scale: POSITIVE });
+/** Below this k·ln(x/λ), (x/λ)^k < 4e-18 and ln F = k ln(x/λ) - (x/λ)^k/2 to double precision. */
+const TINY_EXPONENT = -40;
+
+class WeibullDistribution implements Distribution {
+  readonly family = 'weibull' as const;
+  readonly parameters: Parameters;
+  readonly support = SUPPORT;
+  private readonly logScale: number;
+  private readonly logShapeOverScale: number;
+  constructor(
+    private readonly k: number,
+    private readonly lambda: number,
+  ) {
+    this.parameters = Object.freeze({ shape: k, scale: lambda });
+    this.logScale = Math.log(lambda);
+    this.logShapeOverScale = Math.log(k) - this.logScale;
+  }
+  /** k ln(x/λ) for x > 0. */
+  private t(x: number): number {
+    return this.k * (Math.log(x) - this.logScale);
+  }
+  logPdf(x: number): number {
+    if (x !== x) return Number.NaN;
+    if (x < 0 || x === Number.POSITIVE_INFINITY) return Number.NEGATIVE_INFINITY;
+    if (x === 0) {
+      if (this.k < 1) return Number.POSITIVE_INFINITY;
+      return this.k === 1 ? -this.logScale : Number.NEGATIVE_INFINITY;
+    }
+    const lz = Math.log(x) - this.logScale;
+    return this.logShapeOverScale + (this.k - 1) * lz - Math.exp(this.k * lz);
+  }
+  pdf(x: number): number {
+    return Math.exp(this.logPdf(x));
+  }
+  cdf(x: number): number {
+    if (!(x > 0)) return x === x ? 0 : Number.NaN;
+    return -Math.expm1(-Math.exp(this.t(x)));
+  }
+  sf(x: number): number {
+    if (!(x > 0)) return x === x ? 1 : Number.NaN;
+    return Math.exp(-Math.exp(this.t(x)));
+  }
+  logCdf(x: number): number {
+    if (!(x > 0)) return x === x ? Number.NEGATIVE_INFINITY : Number.NaN;
+    const t = this.t(x);
+    const u = Math.exp(t);
+    return t < TINY_EXPONENT ? t - 0.5 * u : log1mexp(-u);
+  }
+  logSf(x: number): number {
+    if (!(x > 0)) return x === x ? 0 : Number.NaN;
+    return -Math.exp(this.t(x));
+  }
+  quantile(p: number): number {
+    if (!(p >= 0 && p <= 1)) return Number.NaN;
+    if (p === 0) return 0;
+    if (p === 1) return Number.POSITIVE_INFINITY;
+    return this.lambda * Math.exp(Math.log(-Math.log1p(-p)) / this.k);
+  }
+  isf(q: number): number {
+    if (!(q >= 0 && q <= 1)) return Number.NaN;
+    if (q === 0) return Number.POSITIVE_INFINITY;
+    if (q === 1) return 0;
+    return this.lambda * Math.exp(Math.log(-Math.log(q)) / this.k);
+  }
+  mean(): number {
+    return this.lambda * Math.exp(lnGamma(1 + 1 / this.k));
+  }
+  variance(): number {
+    // λ²[Γ(1+2/k) - Γ(1+1/k)²] written as λ²Γ(1+1/k)²·expm1(lnΓ(1+2/k) - 2 lnΓ(1+1/k)) to avoid
+    // cancelling two nearly equal numbers for large k.
+    const g1 = lnGamma(1 + 1 / this.k);
+    const g2 = lnGamma(1 + 2 / this.k);
+    return this.lambda * this.lambda * Math.exp(2 * g1) * Math.expm1(g2 - 2 * g1);
+  }
+}
+
+function make(parameters: Parameters): Distribution {
+  const shape = readParameter('weibull', parameters, 'shape', BOUNDS.shape);
+  const scale = readParameter('weibull', parameters, 'scale', BOUNDS.scale);
+  return new WeibullDistribution(shape, scale);
+}
+
+function applicable(sample: Sample): NotApplicable | null {
+  return checkApplicable('weibull', 'Weibull', sample, 'positive');
+}
+
+/**
+ * One pass over the logs at shape c: S0 = Σw, S1 = Σw·y, S2 = Σw·y² with w = exp(c·y),
+ * y = ln x - ln max. S0 and S1 are compensated (Neumaier); S2 feeds only the derivative.
+ */
+function weightedSums(logs: Float64Array, logMax: number, c: number, out: Float64Array): void {
+  let s0 = 0;
+  let c0 = 0;
+  let s1 = 0;
+  let c1 = 0;
+  let s2 = 0;
+  for (let i = 0; i < logs.length; i++) {
+    const y = (logs[i] as number) - logMax;
+    const w = Math.exp(c * y);
+    const wy = w * y;
+    let t = s0 + w;
+    if (Math.abs(s0) >= w) c0 += s0 - t + w;
+    else c0 += w - t + s0;
+    s0 = t;
+    t = s1 + wy;
+    if (Math.abs(s1) >= Math.abs(wy)) c1 += s1 - t + wy;
+    else c1 += wy - t + s1;
+    s1 = t;
+    s2 += wy * y;
+  }
+  out[0] = s0 + c0;
+  out[1] = s1 + c1;
+  out[2] = s2;
+}
+
+function fit(sample: Sample): FitOutcome {
+  const na = applicable(sample);
+  if (na) return na;
+  const n = sample.n;
+  const logs = sample.logs() as Float64Array; // non-null: every value is > 0
+  const sumLog = sample.sumLog();
+  const logMax = logs[n - 1] as number;
+  const meanY = sumLog / n - logMax; // < 0: the values are not all equal
+  // Menon's start needs the variance of ln x (compensated two-pass).
+  let vs = 0;
+  let vc = 0;
+  const meanLog = sumLog / n;
+  for (let i = 0; i < n; i++) {
+    const d = (logs[i] as number) - meanLog;
+    const d2 = d * d;
+    const t = vs + d2;
+    if (vs >= d2) vc += vs - t + d2;
+    else vc += d2 - t + vs;
+    vs = t;
+  }
+  const sdLog = Math.sqrt((vs + vc) / n);
+  const lower = -1 / meanY;
+  const start = Math.max(Math.PI / (Math.sqrt(6) * sdLog), 1.5 * lower);
+  const sums = new Float64Array(3);
+  const profile = (c: number, out: Float64Array): void => {
+    weightedSums(logs, logMax, c, sums);
+    const s0 = sums[0] as number;
+    const a = (sums[1] as number) / s0;
+    out[0] = a - 1 / c - meanY;
+    out[1] = Math.max((sums[2] as number) / s0 - a * a, 0) + 1 / (c * c);
+  };
+  const r = positiveRootNewton(profile, lower, Number.POSITIVE_INFINITY, start, true, 1e-12);
+  const shape = r.root;
+  weightedSums(logs, logMax, shape, sums);
+  const logScale = logMax + Math.log((sums[0] as number) / n) / shape;
+  const scale = Math.exp(logScale);
+  // At the MLE Σ(x/λ)^k = n, so ln L = n ln k - n ln λ + (k - 1)(Σ ln x - n ln λ) - n.
+  const logLikelihood = n * Math.log(shape) - n * logScale + (shape - 1) * (sumLog - n * logScale) - n;
+  return {
+    ok: true,
+    family: 'weibull',
+    parameters: Object.freeze({ shape, scale }),
+    logLikelihood,
+    iterations: r.iterations,
+    converged: r.converged,
+    method:
+      'maximum likelihood: shape by Newton (safeguarded by a bracket) on the profile equation Σx^k ln x/Σx^k - 1/k - mean(ln x) = 0, scale = (Σx^k/n)^(1/k)',
+  };
+}
+
+function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
+  const d = make(parameters);
+  const invShape = 1 / (d.parameters.shape as number);
+  const scale = d.parameters.scale as number;
+  const out = new Float64Array(n);
+  // Inversion of ln S(x) = -(x/λ)^k = ln U: x = λ E^(1/k) with E = -ln U standard exponential.
+  for (let i = 0; i < n; i++) out[i] = scale * Math.pow(rng.exponential(), invShape);
+  return out;
+}
+
+export const weibull: Family = Object.freeze({
+  name: 'weibull',
+  label: 'Weibull',
+  parameterNames: Object.freeze(['shape', 'scale']),
+  parameterBounds: BOUNDS,
+  estimatedParameters: 2,
+  make,
+  applicable,
+  fit,
+  random,
+});
