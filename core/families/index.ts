@@ -4,10 +4,13 @@
 import { InputError } from '../errors.js';
 import type { Family, FamilyName } from './types.js';
 import { exponential } from './exponential.js';
+import { gamma } from './gamma.js';
+import { lognormal } from './lognormal.js';
 import { normal } from './normal.js';
+import { weibull } from './weibull.js';
 
 export type * from './types.js';
-export { exponential, normal };
+export { exponential, gamma, lognormal, normal, weibull };
 
 const registry = new Map<FamilyName, Family>();
 
@@ -29,7 +32,11 @@ export function allFamilies(): Family[] {
   return [...registry.values()];
 }
 
+// In the order of DEFAULT_FAMILIES, so that allFamilies() lists them in that order.
 registerFamily(normal);
+registerFamily(lognormal);
+registerFamily(gamma);
+registerFamily(weibull);
 registerFamily(exponential);
 
 /** The default candidate set for a complete sample. */
