@@ -53,6 +53,11 @@ export interface AndersonDarlingReport {
   readonly statistic: number;
   /** The case-modified statistic used with the table (e.g. A* = A²(1 + 0.75/n + 2.25/n²)), if any. */
   readonly modifiedStatistic?: number;
+  /**
+   * The A² the table is entered with, when it differs from `statistic` (normal and lognormal:
+   * Table 4.9 uses the n - 1 standard deviation, `statistic` is A² at the maximum-likelihood fit).
+   */
+  readonly tableStatistic?: number;
   /** p-value; when `pValueIs` is a bound, this number is that bound. */
   readonly pValue: number;
   readonly pValueIs: 'estimate' | 'upper-bound' | 'lower-bound';
@@ -63,6 +68,8 @@ export interface AndersonDarlingReport {
   /** Bootstrap only. */
   readonly replicates?: number;
   readonly monteCarloStandardError?: number;
+  /** Bootstrap only: replicates whose refit failed (excluded from `replicates`). */
+  readonly failedReplicates?: number;
   readonly seed?: number;
   readonly alpha: number;
   readonly rejected: boolean;

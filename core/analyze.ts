@@ -1,0 +1,436 @@
+/**
+ * The whole analysis of one column: prepare the sample once, fit every candidate family by maximum
+ * likelihood, test each fit (equiprobable chi-square; Anderson–Darling with a p-value valid for
+ * estimated parameters), rank by AICc, and collect warnings and the methods used with their sources.
+ *
+ * Split in two so that the bootstrap (the only slow part) can run elsewhere, e.g. in worker threads:
+ *   planAnalysis(values, options)  → AnalysisPlan with serialisable `bootstrapJobs` (possibly none)
+ *   runBootstrapRange(job) on any thread, for any split of [0, B) (see core/gof/bootstrap.ts)
+ *   finishAnalysis(plan, counts)   → AnalysisReport
+ * `analyze` does all three in-process; `analyzeAsync` takes a runner for the middle step. The
+ * report is the same whichever way it was computed.
+ */
+import { InputError, PlumblineError } from './errors.js';
+import { DEFAULT_FAMILIES, getFamily, type Family, type FamilyName, type FitSuccess } from './families/index.js';
+import {
+  DEFAULT_BOOTSTRAP_REPLICATES,
+  andersonDarlingStatistic,
+  bootstrapPValue,
+  chiSquareTest,
+  chooseBinCount,
+  formatNumber,
+  runBootstrapRange,
+  tablePValue,
+  type AdPValue,
+  type BootstrapCounts,
+  type BootstrapJob,
+  type CancelSignal,
+} from './gof/index.js';
+import { RANKING_RULE, informationCriteria, rankCandidates, rejectedBy, verdict } from './rank.js';
+import type {
+  AnalysisReport,
+  AndersonDarlingReport,
+  CandidateReport,
+  ChiSquareReport,
+  MethodNote,
+  NotApplicableReport,
+  PMethod,
+} from './report.js';
+import { prepareSample, type Sample } from './sample.js';
+
+/** Plumbline's version as written in reports. */
+export const PLUMBLINE_VERSION = '0.1.0';
+/** Default significance level. */
+export const DEFAULT_ALPHA = 0.05;
+/** Default bootstrap seed (any fixed number; this one is the year of Anderson & Darling's test paper). */
+export const DEFAULT_SEED = 1954;
+
+export interface BootstrapProgress {
+  readonly family: FamilyName;
+  /** Replicates done for this family. */
+  readonly done: number;
+  readonly total: number;
+}
+
+export interface AnalyzeOptions {
+  /** Candidate families (default: all five). */
+  readonly families?: readonly FamilyName[];
+  /** Significance level, 0 < alpha < 1 (default 0.05). */
+  readonly alpha?: number;
+  /** User-chosen number of chi-square bins (default: Moore's rule with caps). */
+  readonly bins?: number | null;
+  /** Anderson–Darling p-values: 'table' (default; bootstrap only where no table exists) or 'bootstrap' for all. */
+  readonly pMethod?: PMethod;
+  /** Bootstrap replicates B (default 999). */
+  readonly bootstrapReplicates?: number;
+  /** Bootstrap seed (default DEFAULT_SEED). */
+  readonly seed?: number;
+  /** Bootstrap progress, per family. */
+  readonly onProgress?: (p: BootstrapProgress) => void;
+  /** Cancellation, checked between bootstrap replicates. */
+  readonly signal?: CancelSignal;
+}
+
+export interface ResolvedOptions {
+  readonly families: readonly FamilyName[];
+  readonly alpha: number;
+  readonly bins: number | null;
+  readonly pMethod: PMethod;
+  readonly bootstrapReplicates: number;
+  readonly seed: number;
+}
+
+interface FittedCandidate {
+  readonly family: Family;
+  readonly fit: FitSuccess;
+  readonly a2: number;
+  readonly chiSquare: ChiSquareReport;
+  /** Table p-value (null when the bootstrap is used). */
+  readonly table: AdPValue | null;
+  /** Why the bootstrap is used (when it is). */
+  readonly bootstrapReason: string | null;
+}
+
+/** Everything computed before the bootstrap. */
+export interface AnalysisPlan {
+  readonly options: ResolvedOptions;
+  readonly sample: Sample;
+  readonly candidates: readonly FittedCandidate[];
+  readonly notApplicable: readonly NotApplicableReport[];
+  /** One full-range job [0, B) per family that needs the bootstrap; split them freely. */
+  readonly bootstrapJobs: readonly BootstrapJob[];
+}
+
+/** Validate options and fill in defaults. Throws InputError with a clear message. */
+export function resolveOptions(options: AnalyzeOptions = {}): ResolvedOptions {
+  const alpha = options.alpha ?? DEFAULT_ALPHA;
+  if (typeof alpha !== 'number' || !(alpha > 0 && alpha < 1)) {
+    throw new InputError(`The significance level alpha must be a number between 0 and 1 (exclusive); got ${String(alpha)}.`, { value: String(alpha) }, 'bad-option');
+  }
+  const families = options.families ?? DEFAULT_FAMILIES;
+  if (families.length === 0) throw new InputError('No candidate families were given.', {}, 'bad-option');
+  const seen = new Set<FamilyName>();
+  for (const f of families) {
+    getFamily(f); // throws InputError 'bad-option' for an unknown name
+    if (seen.has(f)) throw new InputError(`Family "${f}" is listed twice.`, { value: f }, 'bad-option');
+    seen.add(f);
+  }
+  const pMethod = options.pMethod ?? 'table';
+  if (pMethod !== 'table' && pMethod !== 'bootstrap') {
+    throw new InputError(`The p-value method must be "table" or "bootstrap"; got "${String(pMethod)}".`, { value: String(pMethod) }, 'bad-option');
+  }
+  const b = options.bootstrapReplicates ?? DEFAULT_BOOTSTRAP_REPLICATES;
+  if (!Number.isInteger(b) || b < 1) {
+    throw new InputError(`The number of bootstrap replicates must be a whole number of at least 1; got ${String(b)}.`, { value: String(b) }, 'bad-option');
+  }
+  const seed = options.seed ?? DEFAULT_SEED;
+  if (!Number.isSafeInteger(seed) || seed < 0) {
+    throw new InputError(`The seed must be a whole number ≥ 0; got ${String(seed)}.`, { value: String(seed) }, 'bad-option');
+  }
+  const bins = options.bins ?? null;
+  return { families: [...families], alpha, bins, pMethod, bootstrapReplicates: b, seed };
+}
+
+function validateSample(sample: Sample, families: readonly FamilyName[]): void {
+  const n = sample.n;
+  if (n === 1) throw new InputError('Only one value: at least two different values are needed to fit a model.', {}, 'too-few-values');
+  if (sample.distinct === 1) {
+    throw new InputError(`All ${n} values are equal (${String(sample.min)}): no spread, so no continuous model can be fitted.`, { value: String(sample.min) }, 'bad-input');
+  }
+  const maxM = Math.max(...families.map((f) => getFamily(f).estimatedParameters));
+  if (n < maxM + 2) {
+    throw new InputError(
+      `Too few values (${n}): a model with ${maxM} estimated parameters needs at least ${maxM + 2} values for AICc to be defined.`,
+      {},
+      'too-few-values',
+    );
+  }
+}
+
+/** Everything up to the bootstrap. Throws InputError on bad input or options. */
+export function planAnalysis(values: ArrayLike<number>, options: AnalyzeOptions = {}): AnalysisPlan {
+  const opts = resolveOptions(options);
+  const sample = prepareSample(values);
+  validateSample(sample, opts.families);
+  if (opts.bins !== null) {
+    // Validate a user k once, up front, against the most demanding family.
+    const maxM = Math.max(...opts.families.map((f) => getFamily(f).estimatedParameters));
+    chooseBinCount(sample.n, maxM, opts.bins);
+  }
+  const candidates: FittedCandidate[] = [];
+  const notApplicable: NotApplicableReport[] = [];
+  const jobs: BootstrapJob[] = [];
+  for (const name of opts.families) {
+    const family = getFamily(name);
+    const outcome = family.fit(sample);
+    if (!outcome.ok) {
+      notApplicable.push({ family: name, reason: outcome.reason, offendingCount: outcome.offendingCount });
+      continue;
+    }
+    const dist = family.make(outcome.parameters);
+    const a2 = andersonDarlingStatistic(dist, sample.sorted);
+    const chiSquare = chiSquareTest(dist, sample.sorted, {
+      alpha: opts.alpha,
+      estimatedParameters: family.estimatedParameters,
+      bins: opts.bins,
+    });
+    let table: AdPValue | null = null;
+    let bootstrapReason: string | null = null;
+    if (opts.pMethod === 'bootstrap') bootstrapReason = 'requested';
+    else {
+      table = tablePValue(name, outcome.parameters, sample, a2);
+      if (table === null) bootstrapReason = 'no published table for this family';
+      else if (!boundDecides(table, opts.alpha)) {
+        bootstrapReason = `the table only gives a bound (p ${table.pValueIs === 'upper-bound' ? '<' : '>'} ${formatNumber(table.pValue)}), which cannot decide at α = ${formatNumber(opts.alpha)}`;
+        table = null;
+      }
+    }
+    if (bootstrapReason !== null) {
+      jobs.push({ family: name, parameters: outcome.parameters, n: sample.n, observed: a2, seed: opts.seed, start: 0, end: opts.bootstrapReplicates });
+    }
+    candidates.push({ family, fit: outcome, a2, chiSquare, table, bootstrapReason });
+  }
+  return { options: opts, sample, candidates, notApplicable, bootstrapJobs: jobs };
+}
+
+/** Whether a table result decides the test at α (an estimate always does; a bound only on one side). */
+function boundDecides(t: AdPValue, alpha: number): boolean {
+  if (t.pValueIs === 'estimate') return true;
+  if (t.pValueIs === 'upper-bound') return t.pValue <= alpha; // p < bound ≤ α: rejected
+  return t.pValue >= alpha; // p > bound ≥ α: not rejected
+}
+
+function adRejected(pValue: number, pValueIs: AndersonDarlingReport['pValueIs'], alpha: number): boolean {
+  if (pValueIs === 'upper-bound') return pValue <= alpha;
+  if (pValueIs === 'lower-bound') return pValue < alpha; // not reached: undecidable bounds go to the bootstrap
+  return pValue < alpha;
+}
+
+function adDecision(r: { statistic: number; pValue: number; pValueIs: AndersonDarlingReport['pValueIs']; rejected: boolean; alpha: number }): string {
+  const p = r.pValueIs === 'upper-bound' ? `p < ${formatNumber(r.pValue)}` : r.pValueIs === 'lower-bound' ? `p > ${formatNumber(r.pValue)}` : `p = ${formatNumber(r.pValue)}`;
+  return r.rejected
+    ? `Rejected at α = ${formatNumber(r.alpha)}: A² = ${formatNumber(r.statistic)}, ${p}.`
+    : `Not rejected at α = ${formatNumber(r.alpha)}: A² = ${formatNumber(r.statistic)}, ${p}.`;
+}
+
+function andersonDarlingReport(c: FittedCandidate, opts: ResolvedOptions, n: number, counts: BootstrapCounts | undefined): AndersonDarlingReport {
+  const alpha = opts.alpha;
+  if (c.table !== null) {
+    const rejected = adRejected(c.table.pValue, c.table.pValueIs, alpha);
+    const base = { statistic: c.a2, pValue: c.table.pValue, pValueIs: c.table.pValueIs, rejected, alpha };
+    return {
+      statistic: c.a2,
+      ...(c.table.modifiedStatistic !== undefined ? { modifiedStatistic: c.table.modifiedStatistic } : {}),
+      ...(c.table.tableStatistic !== undefined ? { tableStatistic: c.table.tableStatistic } : {}),
+      pValue: c.table.pValue,
+      pValueIs: c.table.pValueIs,
+      method: 'table',
+      methodDetail: c.table.methodDetail,
+      alpha,
+      rejected,
+      decision: adDecision(base),
+    };
+  }
+  if (!counts) throw new PlumblineError('not-computable', `Bootstrap counts for ${c.family.name} are missing.`);
+  if (counts.start !== 0 || counts.end !== opts.bootstrapReplicates) {
+    throw new PlumblineError('not-computable', `Bootstrap counts for ${c.family.name} cover [${counts.start}, ${counts.end}), expected [0, ${opts.bootstrapReplicates}).`);
+  }
+  const bp = bootstrapPValue(counts);
+  const rejected = bp.pValue < alpha;
+  const methodDetail =
+    `Parametric bootstrap (Stute, González Manteiga & Presedo Quindimil 1993 [from memory]): ${bp.replicates} samples of n = ${n} ` +
+    `drawn from the fitted ${c.family.label}, each refitted by maximum likelihood and its A² recomputed; p = (1 + #{A²* ≥ A²})/(B + 1) with Monte Carlo standard error √(p(1 - p)/B); seed ${opts.seed}, replicate i on random stream i. ` +
+    `Used because ${c.bootstrapReason ?? 'requested'}.` +
+    (bp.failed > 0 ? ` ${bp.failed} replicate(s) could not be refitted and were left out.` : '');
+  return {
+    statistic: c.a2,
+    pValue: bp.pValue,
+    pValueIs: 'estimate',
+    method: 'bootstrap',
+    methodDetail,
+    replicates: bp.replicates,
+    monteCarloStandardError: bp.monteCarloStandardError,
+    ...(bp.failed > 0 ? { failedReplicates: bp.failed } : {}),
+    seed: opts.seed,
+    alpha,
+    rejected,
+    decision: adDecision({ statistic: c.a2, pValue: bp.pValue, pValueIs: 'estimate', rejected, alpha }),
+  };
+}
+
+/** Build the report from a plan and the bootstrap counts of its jobs (any split, per family). */
+export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCounts[] | ReadonlyMap<FamilyName, BootstrapCounts> = []): AnalysisReport {
+  const opts = plan.options;
+  const sample = plan.sample;
+  const n = sample.n;
+  const byFamily = counts instanceof Map ? counts : null;
+  const list = counts instanceof Map ? [] : (counts as readonly BootstrapCounts[]);
+  const drafts = plan.candidates.map((c) => {
+    const m = c.family.estimatedParameters;
+    const ic = informationCriteria(c.fit.logLikelihood, m, n);
+    let famCounts: BootstrapCounts | undefined;
+    if (c.table === null) {
+      if (byFamily) famCounts = byFamily.get(c.family.name);
+      else {
+        const idx = plan.bootstrapJobs.findIndex((j) => j.family === c.family.name);
+        famCounts = list[idx];
+      }
+    }
+    const ad = andersonDarlingReport(c, opts, n, famCounts);
+    return { c, m, ...ic, ad, family: c.family.name, estimatedParameters: m };
+  });
+  const ranked = rankCandidates(drafts);
+  const candidates: CandidateReport[] = ranked.map((d) => {
+    const chiRejected = d.c.chiSquare.computable ? d.c.chiSquare.rejected : null;
+    const by = rejectedBy(chiRejected, d.ad.rejected);
+    return {
+      rank: d.rank,
+      family: d.family,
+      label: d.c.family.label,
+      parameters: d.c.fit.parameters,
+      estimatedParameters: d.m,
+      logLikelihood: d.c.fit.logLikelihood,
+      aic: d.aic,
+      aicc: d.aicc,
+      bic: d.bic,
+      deltaAicc: d.deltaAicc,
+      fit: { method: d.c.fit.method, iterations: d.c.fit.iterations, converged: d.c.fit.converged },
+      chiSquare: d.c.chiSquare,
+      andersonDarling: d.ad,
+      rejectedBy: by,
+      verdict: verdict(d.rank, d.deltaAicc, by, opts.alpha, d.c.chiSquare.computable),
+    };
+  });
+  return {
+    software: { name: 'plumbline', version: PLUMBLINE_VERSION },
+    n,
+    summary: { min: sample.min, max: sample.max, mean: sample.mean, sd: Math.sqrt(sample.sumSqDev / (n - 1)), distinct: sample.distinct },
+    options: { ...opts, families: [...opts.families] },
+    rankingRule: RANKING_RULE,
+    candidates,
+    notApplicable: plan.notApplicable,
+    warnings: warningsFor(plan, candidates),
+    methods: methodsFor(plan, candidates),
+  };
+}
+
+function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[]): string[] {
+  const w: string[] = [];
+  const { n, distinct } = plan.sample;
+  if (distinct < n / 2) {
+    w.push(
+      `Many tied values: only ${distinct} distinct among ${n}. The data look rounded or discrete; the tests assume continuous data, so their p-values are too small. Record more digits if you can.`,
+    );
+  }
+  if (n < 20) {
+    w.push(`Small sample (n = ${n}): the goodness-of-fit tests have little power, so "not rejected" says little, and the ranking is uncertain.`);
+  }
+  for (const c of candidates) {
+    if (!c.chiSquare.computable) w.push(`${c.label}: chi-square test not computed. ${c.chiSquare.reason}`);
+    if (c.andersonDarling.pValueIs !== 'estimate') {
+      w.push(`${c.label}: the Anderson–Darling table gives only a bound (p ${c.andersonDarling.pValueIs === 'upper-bound' ? '<' : '>'} ${formatNumber(c.andersonDarling.pValue)}); use the bootstrap method for an estimate.`);
+    }
+    if (!c.fit.converged) w.push(`${c.label}: the maximum-likelihood solver did not converge; treat its numbers with caution.`);
+  }
+  if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {
+    w.push(`Every candidate is rejected at α = ${formatNumber(plan.options.alpha)}: none of these models describes the data well; the ranking only says which is least bad.`);
+  }
+  for (const na of plan.notApplicable) w.push(`${na.family}: not applicable. ${na.reason}`);
+  return w;
+}
+
+function methodsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[]): MethodNote[] {
+  const notes: MethodNote[] = [
+    {
+      topic: 'fitting',
+      description: 'Maximum likelihood for each family (closed forms where they exist, else Newton on the likelihood equation inside a bracket), solved to relative 1e-10.',
+      source: 'Standard maximum-likelihood estimation (common practice).',
+    },
+    {
+      topic: 'chi-square bins',
+      description:
+        'Equiprobable bins under each fitted model (edges at the fitted quantiles j/k, outer edges at the support bounds, counting [lower, upper)); k = round(2·n^(2/5)), capped so each bin expects at least 5, raised to m + 2 so the degrees of freedom are at least 1; or the user\'s k if it keeps 5 per bin.',
+      source: "Moore (1986), ch. 3 of D'Agostino & Stephens (eds.), Goodness-of-Fit Techniques; Cochran (1952) Ann. Math. Stat. 23:315-345 and (1954) Biometrics 10:417-451.",
+    },
+    {
+      topic: 'chi-square p-value',
+      description: 'X² = Σ(O - E)²/E with k - 1 - m degrees of freedom (pValue, slightly liberal) and k - 1 (pValueUpper); the true null distribution lies between them because the parameters were estimated from the raw data.',
+      source: 'Chernoff & Lehmann (1954), Ann. Math. Stat. 25:579-586; NIST/SEMATECH e-Handbook §1.3.5.15.',
+    },
+    {
+      topic: 'Anderson–Darling statistic',
+      description: 'A² = -n - (1/n) Σ (2i - 1)[ln F(x_(i)) + ln S(x_(n+1-i))] at the maximum-likelihood fit, from log-cdf and log-survival values.',
+      source: "Anderson & Darling (1954), JASA 49:765-769; D'Agostino & Stephens (1986), ch. 4.",
+    },
+  ];
+  const seen = new Set<string>();
+  for (const c of candidates) {
+    const ad = c.andersonDarling;
+    const key = `${ad.method}:${c.family}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    notes.push({
+      topic: `Anderson–Darling p-value, ${c.label}`,
+      description: ad.methodDetail,
+      source: adSource(c.family, ad.method),
+    });
+  }
+  notes.push({ topic: 'ranking', description: RANKING_RULE, source: 'Akaike (1974); Hurvich & Tsai (1989), Biometrika 76:297-307; Schwarz (1978), Ann. Stat. 6:461-464.' });
+  return notes;
+}
+
+function adSource(family: FamilyName, method: PMethod): string {
+  if (method === 'bootstrap') return 'Stute, González Manteiga & Presedo Quindimil (1993), Test 2:113-124 [from memory].';
+  switch (family) {
+    case 'normal':
+    case 'lognormal':
+      return "D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, Table 4.9.";
+    case 'exponential':
+      return "D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, ch. 4 (exponential case).";
+    case 'weibull':
+      return 'Stephens (1977), Biometrika 64:583-588 (extreme-value case).';
+    case 'gamma':
+      return "Plumbline's simulated grid (scripts/simulate-ad-tables.ts), checked against D'Agostino & Stephens (1986) Table 4.21 at shape 1.";
+    default:
+      return '';
+  }
+}
+
+/** Run a plan's bootstrap jobs in-process (synchronously), with progress and cancellation. */
+export function runPlanBootstrap(plan: AnalysisPlan, options: Pick<AnalyzeOptions, 'onProgress' | 'signal'> = {}): BootstrapCounts[] {
+  return plan.bootstrapJobs.map((job) => {
+    const counts = runBootstrapRange(job, {
+      ...(options.signal ? { signal: options.signal } : {}),
+      onProgress: options.onProgress ? (done, total) => options.onProgress?.({ family: job.family, done, total }) : undefined,
+    });
+    if (counts.cancelled) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
+    return counts;
+  });
+}
+
+/** The whole analysis, in-process. */
+export function analyze(values: ArrayLike<number>, options: AnalyzeOptions = {}): AnalysisReport {
+  const plan = planAnalysis(values, options);
+  return finishAnalysis(plan, runPlanBootstrap(plan, options));
+}
+
+/**
+ * Runs bootstrap jobs somewhere (e.g. split over worker threads with `splitBootstrapJob` and added
+ * up with `combineBootstrapCounts`); must return one count per job, in the jobs' order, each
+ * covering the job's whole range.
+ */
+export type BootstrapRunner = (
+  jobs: readonly BootstrapJob[],
+  options: Pick<AnalyzeOptions, 'onProgress' | 'signal'>,
+) => Promise<readonly BootstrapCounts[]>;
+
+/** The whole analysis with the bootstrap handed to `runner` (default: in-process). */
+export async function analyzeAsync(values: ArrayLike<number>, options: AnalyzeOptions & { runner?: BootstrapRunner } = {}): Promise<AnalysisReport> {
+  const plan = planAnalysis(values, options);
+  const counts = options.runner
+    ? await options.runner(plan.bootstrapJobs, options)
+    : runPlanBootstrap(plan, options);
+  for (const c of counts) if (c.cancelled) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
+  return finishAnalysis(plan, counts);
+}
+

@@ -1,0 +1,26 @@
+/** Goodness of fit: the one public entry of core/gof. */
+export { MIN_EXPECTED_PER_BIN, chooseBinCount, equiprobableBins, equiprobableEdges, lowerBound, maxBinCount, mooreBinCount } from './binning.js';
+export type { BinChoice } from './binning.js';
+export { chiSquareTest, pearsonStatistic } from './chi-square.js';
+export type { ChiSquareOptions } from './chi-square.js';
+export { andersonDarlingStatistic } from './anderson-darling.js';
+export type { LogCdfSf } from './anderson-darling.js';
+export type { AdPValue } from './ad-pvalue-types.js';
+export { hasTablePValue, tablePValue } from './ad-pvalue.js';
+export { interpolateCriticalTable } from './ad-pvalue-interpolate.js';
+export type { CriticalPoint } from './ad-pvalue-interpolate.js';
+export { NORMAL_CASE_CRITICAL, normalCaseModified, normalCasePValue } from './ad-pvalue-normal.js';
+export { EXPONENTIAL_CASE_CRITICAL, exponentialCaseModified, exponentialCasePValue } from './ad-pvalue-exponential.js';
+export { WEIBULL_CASE_CRITICAL, weibullCaseModified, weibullCasePValue } from './ad-pvalue-weibull.js';
+export { gammaCasePValue, gammaCriticalValues } from './ad-pvalue-gamma.js';
+export { GAMMA_AD_TABLE } from './ad-gamma-table.js';
+export {
+  DEFAULT_BOOTSTRAP_REPLICATES,
+  bootstrapPValue,
+  combineBootstrapCounts,
+  replicateStatistic,
+  runBootstrapRange,
+  splitBootstrapJob,
+} from './bootstrap.js';
+export type { BootstrapCounts, BootstrapJob, BootstrapPValue, BootstrapRunOptions, CancelSignal } from './bootstrap.js';
+export { formatNumber } from './format.js';

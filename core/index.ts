@@ -1,0 +1,38 @@
+/**
+ * Plumbline's core: the single public entry for the CLI, the server and the page.
+ * (Outside code imports only this file.)
+ */
+export * from './errors.js';
+export type * from './report.js';
+export { prepareSample } from './sample.js';
+export type { Sample } from './sample.js';
+export { createRng } from './random/index.js';
+export type { Rng } from './random/index.js';
+export { DEFAULT_FAMILIES, allFamilies, getFamily, registerFamily } from './families/index.js';
+export type * from './families/types.js';
+export {
+  DEFAULT_ALPHA,
+  DEFAULT_SEED,
+  PLUMBLINE_VERSION,
+  analyze,
+  analyzeAsync,
+  finishAnalysis,
+  planAnalysis,
+  resolveOptions,
+  runPlanBootstrap,
+} from './analyze.js';
+export type { AnalysisPlan, AnalyzeOptions, BootstrapProgress, BootstrapRunner, ResolvedOptions } from './analyze.js';
+export { RANKING_RULE, informationCriteria, rankCandidates } from './rank.js';
+export {
+  DEFAULT_BOOTSTRAP_REPLICATES,
+  andersonDarlingStatistic,
+  bootstrapPValue,
+  chiSquareTest,
+  chooseBinCount,
+  combineBootstrapCounts,
+  equiprobableBins,
+  formatNumber,
+  runBootstrapRange,
+  splitBootstrapJob,
+} from './gof/index.js';
+export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js';
