@@ -1,0 +1,75 @@
+/**
+ * Right-censored life data: each unit's time and whether it failed (1) or was a suspension (0,
+ * still running or removed unfailed). Validated once and sorted by time (failures before
+ * suspensions at equal times, the usual convention for ranks and the Kaplan–Meier estimator).
+ */
+import { InputError } from '../errors.js';
+
+export interface LifeInput {
+  readonly times: Float64Array | readonly number[];
+  /** 1 = failure, 0 = right-censored suspension. */
+  readonly failed: Uint8Array | readonly number[];
+}
+
+export interface LifeData {
+  /** All units, n = failures + suspensions. */
+  readonly n: number;
+  readonly failures: number;
+  readonly suspensions: number;
+  /** Times sorted ascending (failures first among ties). */
+  readonly times: Float64Array;
+  readonly failed: Uint8Array;
+  /** Failure times only (ascending). */
+  readonly failureTimes: Float64Array;
+  /** Suspension times only (ascending). */
+  readonly suspensionTimes: Float64Array;
+  readonly maxTime: number;
+  readonly minTime: number;
+}
+
+export function prepareLifeData(input: LifeInput): LifeData {
+  const n = input.times.length;
+  if (input.failed.length !== n) {
+    throw new InputError(`The status column has ${input.failed.length} entries but there are ${n} times.`, {}, 'bad-input');
+  }
+  if (n === 0) throw new InputError('No units to analyse: the life data are empty.', {}, 'too-few-values');
+  const idx = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    const t = input.times[i] as number;
+    const f = input.failed[i] as number;
+    if (!Number.isFinite(t)) throw new InputError(`Unit #${i + 1}: time ${String(t)} is not a finite number.`, { value: String(t) }, 'not-a-number');
+    if (!(t > 0)) throw new InputError(`Unit #${i + 1}: time ${String(t)} must be > 0 for life data.`, { value: String(t) }, 'bad-input');
+    if (f !== 0 && f !== 1) throw new InputError(`Unit #${i + 1}: status ${String(f)} must be 1 (failed) or 0 (suspended).`, { value: String(f) }, 'bad-input');
+    idx[i] = i;
+  }
+  idx.sort((a, b) => {
+    const d = (input.times[a] as number) - (input.times[b] as number);
+    return d !== 0 ? d : (input.failed[b] as number) - (input.failed[a] as number);
+  });
+  const times = new Float64Array(n);
+  const failed = new Uint8Array(n);
+  let r = 0;
+  for (let i = 0; i < n; i++) {
+    const j = idx[i] as number;
+    times[i] = input.times[j] as number;
+    failed[i] = input.failed[j] as number;
+    r += failed[i] as number;
+  }
+  const failureTimes = new Float64Array(r);
+  const suspensionTimes = new Float64Array(n - r);
+  for (let i = 0, a = 0, b = 0; i < n; i++) {
+    if (failed[i]) failureTimes[a++] = times[i] as number;
+    else suspensionTimes[b++] = times[i] as number;
+  }
+  return {
+    n,
+    failures: r,
+    suspensions: n - r,
+    times,
+    failed,
+    failureTimes,
+    suspensionTimes,
+    minTime: times[0] as number,
+    maxTime: times[n - 1] as number,
+  };
+}

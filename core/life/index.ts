@@ -1,0 +1,10 @@
+/**
+ * core/life: life data with right-censored suspensions — censored maximum likelihood, probability
+ * plot positions, B-lives and reliability with bounds, hazard curves, bootstrap goodness of fit,
+ * and `analyzeLife`, the one-call report.
+ */
+export { prepareLifeData, type LifeData, type LifeInput } from './data.js';
+export { censoredLogLikelihood } from './likelihood.js';
+export { fitWeibullCensored, type WeibullCensoredFit } from './weibull-censored.js';
+export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure } from './fit.js';
+export { LIFE_FAMILIES, lifeModel, type LifeFamilyName, type LifeModel } from './models.js';
