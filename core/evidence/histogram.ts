@@ -1,0 +1,87 @@
+/**
+ * Histogram bars on a candidate's equiprobable bin edges, and the observed-vs-expected table.
+ * The bins are the candidate's chi-square bins from the report when that test was computed;
+ * otherwise they are made here the same way (equiprobable under the fit, core/gof) for display.
+ *
+ * Display edges of open outer bins (edge ±Infinity): the data extreme, or the inner edge minus
+ * (plus) the width of the neighbouring bin when that reaches further, so an empty or sparse outer
+ * bin is still drawn with a visible width. Finite edges (e.g. a support bound at 0) are kept.
+ * Common practice, no source.
+ */
+import type { Distribution } from '../families/index.js';
+import { equiprobableBins, maxBinCount, mooreBinCount } from '../gof/index.js';
+import type { BinRow, ChiSquareReport } from '../report.js';
+import type { BinCountsEvidence, HistogramBar, HistogramEvidence } from './types.js';
+
+export const DISPLAY_EDGE_RULE =
+  'An open outer bin (edge at ±infinity) is drawn from its inner edge to the data extreme, or one neighbouring-bin width beyond the inner edge when that reaches further; finite edges are drawn where they are.';
+
+/** k for display-only bins when the chi-square test was not computable: Moore's rule capped so each bin expects ≥ 5, at least 2. */
+export function displayBinCount(n: number): number {
+  return Math.max(2, Math.min(mooreBinCount(n), Math.max(2, maxBinCount(n))));
+}
+
+export function candidateBins(dist: Distribution, sorted: Float64Array, chiSquare: ChiSquareReport | undefined): { source: 'report' | 'display'; rows: readonly BinRow[] } {
+  if (chiSquare && chiSquare.computable && chiSquare.bins.length > 0) return { source: 'report', rows: chiSquare.bins };
+  return { source: 'display', rows: equiprobableBins(dist, sorted, displayBinCount(sorted.length)) };
+}
+
+export function histogramBars(rows: readonly BinRow[], n: number, dataMin: number, dataMax: number): HistogramBar[] {
+  const k = rows.length;
+  const inner: number[] = [];
+  for (let j = 1; j < k; j++) inner.push((rows[j] as BinRow).lower ?? Number.NaN);
+  const spread = dataMax - dataMin;
+  const fallback = spread > 0 ? spread : Math.abs(dataMin) > 0 ? Math.abs(dataMin) * 0.1 : 1;
+  const widthNear = (edge: number, neighbour: number | undefined): number => {
+    const w = neighbour !== undefined && Number.isFinite(neighbour) ? Math.abs(neighbour - edge) : Number.NaN;
+    return w > 0 ? w : fallback / Math.max(1, k);
+  };
+  return rows.map((r, j) => {
+    let lower: number;
+    let upper: number;
+    const openLower = r.lower === null;
+    const openUpper = r.upper === null;
+    if (!openLower) lower = r.lower as number;
+    else if (r.upper === null) lower = dataMin - fallback * 0.05;
+    else lower = Math.min(dataMin, r.upper - widthNear(r.upper, inner[j + 1]));
+    if (!openUpper) upper = r.upper as number;
+    else if (r.lower === null) upper = dataMax + fallback * 0.05;
+    else upper = Math.max(dataMax, r.lower + widthNear(r.lower, inner[j - 2]));
+    if (!(upper > lower)) upper = lower + fallback / Math.max(1, k);
+    const width = upper - lower;
+    return {
+      lower,
+      upper,
+      lowerEdge: r.lower,
+      upperEdge: r.upper,
+      openLower,
+      openUpper,
+      observed: r.observed,
+      expected: r.expected,
+      density: r.observed / (n * width),
+      expectedDensity: r.expected / (n * width),
+    };
+  });
+}
+
+export function histogramEvidence(source: 'report' | 'display', rows: readonly BinRow[], n: number, dataMin: number, dataMax: number): HistogramEvidence {
+  return { source, k: rows.length, bars: histogramBars(rows, n, dataMin, dataMax), displayEdgeRule: DISPLAY_EDGE_RULE };
+}
+
+export function binCounts(source: 'report' | 'display', rows: readonly BinRow[]): BinCountsEvidence {
+  return {
+    source,
+    rows: rows.map((r, index) => {
+      const d = r.observed - r.expected;
+      return {
+        index,
+        lower: r.lower,
+        upper: r.upper,
+        observed: r.observed,
+        expected: r.expected,
+        pearsonResidual: r.expected > 0 ? d / Math.sqrt(r.expected) : 0,
+        contribution: r.expected > 0 ? (d * d) / r.expected : 0,
+      };
+    }),
+  };
+}
