@@ -1,0 +1,14 @@
+/** Process capability: the one public entry of core/capability. */
+export { capability, CAPABILITY_CAUTION } from './capability.js';
+export type { CapabilityOptions, CapabilityReport, NormalityGate } from './capability.js';
+export { c4, d2 } from './constants.js';
+export { bissellInterval, chiSquareInterval, cpm, normalIndices } from './indices.js';
+export type { IndexEstimate, IndexName, SpecLimits } from './indices.js';
+export { percentileCapability, PERCENTILE_TAIL } from './percentile.js';
+export type { PercentileCapability, PercentileIndex } from './percentile.js';
+export { ppmOutOfSpec } from './ppm.js';
+export type { PpmOutOfSpec } from './ppm.js';
+export { checkResolution } from './resolution.js';
+export type { ResolutionCheck } from './resolution.js';
+export { groupByLabel, withinSigma } from './within.js';
+export type { WithinMethod, WithinSigma } from './within.js';
