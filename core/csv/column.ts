@@ -1,0 +1,53 @@
+/**
+ * Reading one numeric column (the common case) and several columns at once (a value column with
+ * a status/censoring column and a subgroup column), both through the one-pass scanner.
+ */
+import { InputError } from '../errors.js';
+import { columnLabel } from './columns.js';
+import { scanTable } from './table.js';
+import type { ColumnOptions, ColumnRequest, ColumnResult, CsvOptions, NumberColumn, TableResult } from './types.js';
+
+/**
+ * Read one column of strict numbers. Without `column`, a file with exactly one column is read;
+ * otherwise the column must be named.
+ */
+export function readColumn(text: string, options: ColumnOptions = {}): ColumnResult {
+  const table = scanTable(
+    text,
+    (header, fieldCount): ColumnRequest[] => {
+      if (options.column !== undefined) return [{ select: options.column, kind: 'number' }];
+      if (fieldCount === 1) return [{ select: 1, kind: 'number' }];
+      const names: string[] = [];
+      for (let j = 0; j < fieldCount && j < 12; j++) names.push(`${j + 1} ${JSON.stringify(columnLabel(header, j))}`);
+      throw new InputError(
+        `the file has ${fieldCount} columns; choose one by name or index (${names.join(', ')}${fieldCount > 12 ? ', ...' : ''})`,
+        {},
+        'no-column',
+      );
+    },
+    options,
+  );
+  const col = table.columns[0] as NumberColumn;
+  return {
+    values: col.values,
+    column: col.column,
+    columnIndex: col.index,
+    rowsRead: table.rowsRead,
+    skipped: table.skipped,
+    blankLines: table.blankLines,
+    delimiter: table.delimiter,
+    delimiterDetected: table.delimiterDetected,
+    header: table.header,
+    warnings: table.warnings,
+  };
+}
+
+/**
+ * Read several columns in one pass, e.g. `[{ select: 'hours', kind: 'number' }, { select: 'status',
+ * kind: 'number' }, { select: 'subgroup', kind: 'text' }]`. A row is kept only when all its
+ * requested cells are valid, so the columns stay aligned (and `rowNumbers` says where each kept
+ * row was in the file).
+ */
+export function readColumns(text: string, requests: readonly ColumnRequest[], options: CsvOptions = {}): TableResult {
+  return scanTable(text, requests, options);
+}
