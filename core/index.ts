@@ -36,3 +36,4 @@ export {
   splitBootstrapJob,
 } from './gof/index.js';
 export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js';
+export * from './csv/index.js';
