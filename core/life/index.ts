@@ -8,3 +8,4 @@ export { censoredLogLikelihood } from './likelihood.js';
 export { fitWeibullCensored, type WeibullCensoredFit } from './weibull-censored.js';
 export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure } from './fit.js';
 export { LIFE_FAMILIES, lifeModel, type LifeFamilyName, type LifeModel } from './models.js';
+export { bLife, reliabilityAt, parameterInterval, type BLife, type ReliabilityAt, type BoundedEstimate, type BoundMethod } from './bounds.js';

@@ -18,6 +18,8 @@ export interface LifeModel {
   /** Parameter names in the Family's order. */
   readonly names: readonly string[];
   readonly transforms: readonly Transform[];
+  /** Whether quantiles are positive (profiled and Wald-bounded on the log scale) or any real. */
+  readonly quantileScale: 'log' | 'linear';
   /** Index of the parameter that the quantile replaces. */
   readonly replaced: number;
   /** Full parameters from the others (in order, without `replaced`), p and x_p. */
@@ -31,6 +33,7 @@ function standardQuantile(fam: FamilyName, params: Parameters, p: number): numbe
 const MODELS: Record<LifeFamilyName, LifeModel> = {
   weibull: {
     name: 'weibull',
+    quantileScale: 'log',
     names: ['shape', 'scale'],
     transforms: [LOG, LOG],
     replaced: 1,
@@ -38,6 +41,7 @@ const MODELS: Record<LifeFamilyName, LifeModel> = {
   },
   gamma: {
     name: 'gamma',
+    quantileScale: 'log',
     names: ['shape', 'scale'],
     transforms: [LOG, LOG],
     replaced: 1,
@@ -45,6 +49,7 @@ const MODELS: Record<LifeFamilyName, LifeModel> = {
   },
   exponential: {
     name: 'exponential',
+    quantileScale: 'log',
     names: ['rate'],
     transforms: [LOG],
     replaced: 0,
@@ -52,6 +57,7 @@ const MODELS: Record<LifeFamilyName, LifeModel> = {
   },
   normal: {
     name: 'normal',
+    quantileScale: 'linear',
     names: ['mean', 'sd'],
     transforms: [IDENTITY, LOG],
     replaced: 0,
@@ -59,6 +65,7 @@ const MODELS: Record<LifeFamilyName, LifeModel> = {
   },
   lognormal: {
     name: 'lognormal',
+    quantileScale: 'log',
     names: ['meanlog', 'sdlog'],
     transforms: [IDENTITY, LOG],
     replaced: 0,
