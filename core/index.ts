@@ -37,3 +37,4 @@ export {
 } from './gof/index.js';
 export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js';
 export * from './csv/index.js';
+export * from './evidence/index.js';
