@@ -1,0 +1,94 @@
+import { describe, expect, it } from 'vitest';
+import { PlumblineError, analyze, getFamily, prepareSample } from '../../core/index.js';
+import {
+  andersonDarlingStatistic,
+  bootstrapPValue,
+  combineBootstrapCounts,
+  runBootstrapRange,
+  splitBootstrapJob,
+  tablePValue,
+  type BootstrapJob,
+} from '../../core/gof/index.js';
+import { fixture } from './fixture.js';
+
+const sample = prepareSample(fixture.D1.values);
+
+function jobFor(family: 'normal' | 'gamma' | 'weibull', replicates: number, seed = 42): BootstrapJob {
+  const fam = getFamily(family);
+  const fit = fam.fit(sample);
+  if (!fit.ok) throw new Error(family);
+  const observed = andersonDarlingStatistic(fam.make(fit.parameters), sample.sorted);
+  return { family, parameters: fit.parameters, n: sample.n, observed, seed, start: 0, end: replicates };
+}
+
+describe('parametric bootstrap', () => {
+  it('is reproducible for a seed and changes with the seed', () => {
+    const a = runBootstrapRange(jobFor('weibull', 300));
+    const b = runBootstrapRange(jobFor('weibull', 300));
+    expect(a).toEqual(b);
+    expect(a.completed).toBe(300);
+    const c = runBootstrapRange(jobFor('weibull', 300, 43));
+    expect(c.exceed).not.toBe(a.exceed); // different streams give different counts (checked, not assumed equal)
+  });
+
+  it('gives the same counts whatever the split into ranges', () => {
+    const job = jobFor('gamma', 240);
+    const whole = runBootstrapRange(job);
+    for (const parts of [2, 3, 7]) {
+      const pieces = splitBootstrapJob(job, 240, parts).map((j) => runBootstrapRange(j));
+      expect(pieces).toHaveLength(parts);
+      expect(combineBootstrapCounts(pieces.reverse())).toEqual(whole);
+    }
+    expect(() => combineBootstrapCounts([runBootstrapRange({ ...job, start: 0, end: 5 }), runBootstrapRange({ ...job, start: 6, end: 9 })])).toThrow(
+      PlumblineError,
+    );
+  });
+
+  it('p = (1 + #exceed)/(B + 1) with SE √(p(1 - p)/B) (Davison & Hinkley 1997 [from memory])', () => {
+    const counts = runBootstrapRange(jobFor('normal', 199));
+    const p = bootstrapPValue(counts);
+    expect(p.replicates).toBe(counts.valid);
+    expect(p.pValue).toBe((1 + counts.exceed) / (counts.valid + 1));
+    expect(p.monteCarloStandardError).toBeCloseTo(Math.sqrt((p.pValue * (1 - p.pValue)) / counts.valid), 15);
+  });
+
+  it('for the normal case lands near the Table 4.9 p-value (D1, B = 999)', () => {
+    const job = jobFor('normal', 999);
+    const boot = bootstrapPValue(runBootstrapRange(job));
+    const table = tablePValue('normal', job.parameters, sample, job.observed);
+    if (!table) throw new Error('table');
+    expect(table.pValue).toBeCloseTo(0.0991, 4); // references.md
+    // Allowance: 4 Monte Carlo SE (binomial, ≈ 0.0095 each) plus 0.01 for the table formula's own error.
+    expect(Math.abs(boot.pValue - table.pValue)).toBeLessThan(4 * boot.monteCarloStandardError + 0.01);
+  });
+
+  it('reports progress and stops between replicates when cancelled', () => {
+    const signal = { aborted: false };
+    const seen: number[] = [];
+    const counts = runBootstrapRange(jobFor('weibull', 100), {
+      signal,
+      onProgress: (done, total) => {
+        seen.push(done);
+        expect(total).toBe(100);
+        if (done === 10) signal.aborted = true;
+      },
+    });
+    expect(counts.cancelled).toBe(true);
+    expect(counts.completed).toBe(10);
+    expect(seen).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10]);
+    expect(() => bootstrapPValue(counts)).toThrow(/cancelled/);
+  });
+
+  it('analyze with pMethod bootstrap reports the method, B, seed and Monte Carlo SE', () => {
+    const r = analyze(fixture.D1.values, { families: ['normal', 'weibull'], pMethod: 'bootstrap', bootstrapReplicates: 199, seed: 5 });
+    for (const c of r.candidates) {
+      expect(c.andersonDarling.method).toBe('bootstrap');
+      expect(c.andersonDarling.replicates).toBe(199);
+      expect(c.andersonDarling.seed).toBe(5);
+      expect(c.andersonDarling.monteCarloStandardError).toBeGreaterThan(0);
+      expect(c.andersonDarling.methodDetail).toMatch(/Parametric bootstrap.*refitted/);
+    }
+    const again = analyze(fixture.D1.values, { families: ['normal', 'weibull'], pMethod: 'bootstrap', bootstrapReplicates: 199, seed: 5 });
+    expect(again).toEqual(r);
+  });
+});
