@@ -1,0 +1,95 @@
+/**
+ * Observed against expected counts in each of the selected candidate's equal-probability bins:
+ * grey bars are what was counted, the coloured marks what the fitted model expects (equal in
+ * every bin by construction), and the dashed line is 5 expected, the usual minimum for the
+ * chi-square approximation (Cochran 1954; common practice).
+ */
+import { axisBottom, axisLeft, max as d3max, scaleBand, scaleLinear } from 'd3';
+import type { BinCountsEvidence } from '../src/types.js';
+import { sig } from '../src/format.js';
+import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, round } from './frame.js';
+import type { ChartOptions } from './options.js';
+import { INK, styleFor } from './palette.js';
+
+export interface BinCountsChartData {
+  readonly bins: BinCountsEvidence;
+  readonly family: string;
+  readonly label: string;
+}
+
+export const MIN_EXPECTED = 5;
+
+export function binCountsChart(container: Element, data: BinCountsChartData, options: ChartOptions): SVGSVGElement {
+  const rows = data.bins.rows;
+  const style = styleFor(data.family);
+  const title = `Observed and expected count per bin (${data.label})`;
+  const worst = [...rows].sort((a, b) => Math.abs(b.pearsonResidual) - Math.abs(a.pearsonResidual))[0];
+  const description =
+    `${rows.length} bins. Bars: observed counts; marks: counts expected under the ${data.label} fit. ` +
+    (worst ? `Largest departure in bin ${worst.index + 1}: observed ${worst.observed}, expected ${sig(worst.expected, 3)}.` : '');
+  const frame = createFrame(container, options, title, description);
+  drawLegend(
+    frame,
+    [
+      { key: 'data', label: 'Observed count', kind: 'bar' },
+      { key: data.family, label: `Expected (${data.label})`, kind: 'line', emphasis: true, style: { ...style, dash: '' } },
+      { key: 'ref', label: `${MIN_EXPECTED} expected (minimum)`, kind: 'reference' },
+    ],
+    options.width,
+  );
+  if (rows.length === 0) {
+    drawEmpty(frame, 'No bins to draw.');
+    return frame.svg.node()!;
+  }
+  const x = scaleBand<number>()
+    .domain(rows.map((r) => r.index))
+    .range([0, frame.innerWidth])
+    .paddingInner(0.18)
+    .paddingOuter(0.1);
+  const top = Math.max(d3max(rows, (r) => Math.max(r.observed, r.expected)) ?? 0, MIN_EXPECTED) * 1.1;
+  const y = scaleLinear().domain([0, top]).range([frame.innerHeight, 0]).nice();
+  drawGrid(frame, y.ticks(5).map((t) => y(t)));
+  const g = frame.plot.append('g');
+  for (const r of rows) {
+    const x0 = x(r.index) ?? 0;
+    const bw = x.bandwidth();
+    const bar = g
+      .append('rect')
+      .attr('x', round(x0))
+      .attr('y', round(y(r.observed)))
+      .attr('width', round(bw))
+      .attr('height', round(Math.max(0, y(0) - y(r.observed))))
+      .attr('fill', INK.barFill)
+      .attr('stroke', INK.barStroke);
+    const lo = r.lower === null ? '−∞' : sig(r.lower);
+    const hi = r.upper === null ? '∞' : sig(r.upper);
+    bar
+      .append('title')
+      .text(
+        `Bin ${r.index + 1}: [${lo}, ${hi}) ${options.units}: observed ${r.observed}, expected ${sig(r.expected, 3)}, ` +
+          `residual ${sig(r.pearsonResidual, 3)}, adds ${sig(r.contribution, 3)} to chi-square`,
+      );
+    g.append('line')
+      .attr('x1', round(x0 - bw * 0.08))
+      .attr('x2', round(x0 + bw * 1.08))
+      .attr('y1', round(y(r.expected)))
+      .attr('y2', round(y(r.expected)))
+      .attr('stroke', style.colour)
+      .attr('stroke-width', 3);
+  }
+  g.append('line')
+    .attr('x1', 0)
+    .attr('x2', frame.innerWidth)
+    .attr('y1', round(y(MIN_EXPECTED)))
+    .attr('y2', round(y(MIN_EXPECTED)))
+    .attr('stroke', INK.reference)
+    .attr('stroke-width', 1.2)
+    .attr('stroke-dasharray', '3 3');
+  const every = Math.max(1, Math.ceil(rows.length / Math.max(4, Math.floor(frame.innerWidth / 28))));
+  const axis = axisBottom(x)
+    .tickValues(rows.map((r) => r.index).filter((i) => i % every === 0))
+    .tickFormat((i) => String(Number(i) + 1));
+  drawXAxis(frame, axis, 'Bin number (low to high values; edges in the bins table)');
+  drawYAxis(frame, axisLeft(y).ticks(5, '~g'), 'Count');
+  return frame.svg.node()!;
+}

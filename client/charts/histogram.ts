@@ -1,0 +1,100 @@
+/**
+ * Histogram of the data on the selected candidate's equal-probability bins, on the density
+ * scale (bar area = share of the data), with every candidate's fitted density overlaid and the
+ * selected one drawn heavier. Heights and curves come from the core's evidence; this only draws.
+ */
+import { axisBottom, axisLeft, max as d3max, scaleLinear } from 'd3';
+import type { FittedCurves, HistogramEvidence } from '../src/types.js';
+import { axisLabel, sig } from '../src/format.js';
+import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import type { ChartOptions } from './options.js';
+import { INK, styleFor } from './palette.js';
+
+export interface HistogramChartData {
+  readonly histogram: HistogramEvidence;
+  readonly densities: FittedCurves;
+  readonly xDomain: readonly [number, number];
+  /** Family whose bins are drawn (its curve is emphasised). */
+  readonly selected: string;
+  readonly selectedLabel: string;
+}
+
+export function histogramChart(container: Element, data: HistogramChartData, options: ChartOptions): SVGSVGElement {
+  const quantity = options.quantity ?? 'Value';
+  const h = data.histogram;
+  const title = `Histogram on ${data.selectedLabel} equal-probability bins, with fitted densities`;
+  const description =
+    `${h.k} bins, each expected to hold the same share of the data under the ${data.selectedLabel} fit. ` +
+    `Bar area is the observed share; curves are the fitted densities of ${data.densities.curves.map((c) => c.label).join(', ')}. ` +
+    h.displayEdgeRule;
+  const frame = createFrame(container, options, title, description);
+  const items: LegendItem[] = [{ key: 'data', label: 'Observed (bar area = share)', kind: 'bar' }];
+  const ordered = [...data.densities.curves].sort((a, b) => Number(a.family === data.selected) - Number(b.family === data.selected));
+  for (const c of data.densities.curves) {
+    items.push({ key: c.family, label: c.family === data.selected ? `${c.label} (selected)` : c.label, kind: 'line', emphasis: c.family === data.selected });
+  }
+  drawLegend(frame, items, options.width);
+  if (h.bars.length === 0) {
+    drawEmpty(frame, 'No bins to draw.');
+    return frame.svg.node()!;
+  }
+  const x = scaleLinear().domain([data.xDomain[0], data.xDomain[1]]).range([0, frame.innerWidth]);
+  const barTop = d3max(h.bars, (b) => b.density) ?? 0;
+  const selectedCurve = data.densities.curves.find((c) => c.family === data.selected);
+  const curveTop = d3max(selectedCurve?.y ?? [], (v) => (v === null ? 0 : v)) ?? 0;
+  // Poles (e.g. a gamma density with shape < 1 at 0) would flatten the bars: cap the axis at
+  // 1.6 x the tallest bar and clip the curves there.
+  const top = Math.max(barTop, Math.min(curveTop, 1.6 * barTop)) * 1.08 || 1;
+  const y = scaleLinear().domain([0, top]).range([frame.innerHeight, 0]).nice();
+  drawGrid(frame, y.ticks(5).map((t) => y(t)));
+
+  const clipId = nextId('clip');
+  frame.plot
+    .append('clipPath')
+    .attr('id', clipId)
+    .append('rect')
+    .attr('x', 0)
+    .attr('y', 0)
+    .attr('width', frame.innerWidth)
+    .attr('height', frame.innerHeight);
+
+  const bars = frame.plot.append('g').attr('clip-path', `url(#${clipId})`);
+  h.bars.forEach((b, i) => {
+    const x0 = x(b.lower);
+    const x1 = x(b.upper);
+    const rect = bars
+      .append('rect')
+      .attr('x', round(x0))
+      .attr('y', round(y(b.density)))
+      .attr('width', round(Math.max(0, x1 - x0)))
+      .attr('height', round(Math.max(0, y(0) - y(b.density))))
+      .attr('fill', INK.barFill)
+      .attr('stroke', INK.barStroke)
+      .attr('stroke-width', 1)
+      .attr('stroke-dasharray', b.openLower || b.openUpper ? '3 2' : null);
+    const lo = b.lowerEdge === null ? '−∞' : sig(b.lowerEdge);
+    const hi = b.upperEdge === null ? '∞' : sig(b.upperEdge);
+    rect.append('title').text(`Bin ${i + 1}: [${lo}, ${hi}) ${options.units}: observed ${b.observed}, expected ${sig(b.expected, 3)}`);
+  });
+
+  const curves = frame.plot.append('g').attr('clip-path', `url(#${clipId})`).attr('fill', 'none');
+  for (const c of ordered) {
+    const s = styleFor(c.family);
+    const emph = c.family === data.selected;
+    const pts = data.densities.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
+    curves
+      .append('path')
+      .attr('d', pathThrough(pts))
+      .attr('stroke', s.colour)
+      .attr('stroke-width', emph ? 3 : 1.6)
+      .attr('stroke-dasharray', s.dash || null)
+      .attr('stroke-opacity', emph ? 1 : 0.85)
+      .append('title')
+      .text(`${c.label} fitted density`);
+  }
+
+  drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), axisLabel(quantity, options.units));
+  const yLabel = options.units.trim() ? `Density [per ${options.units.trim()}]` : 'Density';
+  drawYAxis(frame, axisLeft(y).ticks(5, '~g'), yLabel);
+  return frame.svg.node()!;
+}

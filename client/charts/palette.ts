@@ -1,0 +1,48 @@
+/**
+ * Colours and line patterns for the candidate models.
+ *
+ * Hues from the Okabe–Ito colour-blind-safe set (M. Okabe and K. Ito, "Color Universal Design
+ * (CUD): how to make figures and presentations that are friendly to colorblind people", 2008,
+ * https://jfly.uni-koeln.de/color/), in an order of our own; yellow is left out because it is too
+ * pale on white. Each family also has its own dash pattern, so the curves stay distinguishable in
+ * grey print and for readers who cannot separate two of the hues.
+ */
+export interface SeriesStyle {
+  readonly colour: string;
+  /** SVG stroke-dasharray; '' for a solid line. */
+  readonly dash: string;
+  /** Short name of the pattern, for the legend's text alternative. */
+  readonly pattern: string;
+}
+
+const BY_FAMILY: Readonly<Record<string, SeriesStyle>> = {
+  normal: { colour: '#0072B2', dash: '', pattern: 'solid' },
+  lognormal: { colour: '#D55E00', dash: '7 3', pattern: 'long dashes' },
+  gamma: { colour: '#009E73', dash: '2 2', pattern: 'dots' },
+  weibull: { colour: '#CC79A7', dash: '9 3 2 3', pattern: 'dash-dot' },
+  exponential: { colour: '#E69F00', dash: '4 4', pattern: 'short dashes' },
+};
+
+const SPARE: readonly SeriesStyle[] = [
+  { colour: '#56B4E9', dash: '12 4', pattern: 'very long dashes' },
+  { colour: '#000000', dash: '1 3', pattern: 'fine dots' },
+];
+
+/** Neutral colours for the data themselves (bars, points, steps) and the page text. */
+export const INK = {
+  text: '#1b1b1b',
+  muted: '#5a5a5a',
+  grid: '#e3e3e3',
+  axis: '#444444',
+  barFill: '#d4d9de',
+  barStroke: '#6b7682',
+  data: '#222222',
+  /** The minimum-expected-count reference line. */
+  reference: '#8a1c1c',
+} as const;
+
+export function styleFor(family: string, index = 0): SeriesStyle {
+  return BY_FAMILY[family] ?? SPARE[index % SPARE.length] ?? SPARE[0]!;
+}
+
+export const FONT = 'system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif';

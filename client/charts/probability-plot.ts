@@ -1,0 +1,133 @@
+/**
+ * Probability plot of the data on the selected candidate's linearising scale, with the fitted
+ * model as a line and the core's pointwise band around it. A model that describes the data puts
+ * the points along the line and mostly inside the band. The horizontal axis is labelled in data
+ * units even when it is drawn on ln x; the vertical axis in probabilities (or, for a Q–Q plot,
+ * in fitted quantiles).
+ */
+import { area, axisBottom, axisLeft, extent, scaleLinear, scaleLog } from 'd3';
+import type { ProbabilityPlotEvidence } from '../src/types.js';
+import { axisLabel, sig } from '../src/format.js';
+import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round } from './frame.js';
+import type { ChartOptions } from './options.js';
+import { INK, styleFor } from './palette.js';
+
+export interface ProbabilityChartData {
+  readonly plot: ProbabilityPlotEvidence;
+  readonly family: string;
+  readonly label: string;
+}
+
+function finite(values: readonly (number | null)[]): number[] {
+  const out: number[] = [];
+  for (const v of values) if (v !== null && Number.isFinite(v)) out.push(v);
+  return out;
+}
+
+function probabilityText(p: number): string {
+  const pct = p * 100;
+  if (pct >= 1 && pct <= 99) return `${Number(pct.toPrecision(3))}%`;
+  return `${Number(pct.toPrecision(2))}%`;
+}
+
+export function probabilityPlotChart(container: Element, data: ProbabilityChartData, options: ChartOptions): SVGSVGElement {
+  const quantity = options.quantity ?? 'Value';
+  const p = data.plot;
+  const style = styleFor(data.family);
+  const qq = p.scale === 'quantile-quantile';
+  const title = qq ? `Quantile plot against the ${data.label} fit` : `Probability plot on the ${data.label} scale`;
+  const description =
+    `${p.total} ordered values plotted at ${p.plottingPosition.name} positions ${p.plottingPosition.formula}` +
+    `${p.thinned ? ` (thinned to ${p.points.x.length} for drawing)` : ''}. ` +
+    `The line is the fitted ${data.label} model; the band: ${p.band.description}` +
+    (p.omitted > 0 ? ` ${p.omitted} values could not be placed on this scale and are left out.` : '');
+  const frame = createFrame(container, options, title, description, { top: 56, right: 18, bottom: 52, left: 72 });
+  drawLegend(
+    frame,
+    [
+      { key: 'data', label: 'Observed (ordered)', kind: 'point' },
+      { key: data.family, label: `${data.label} fit`, kind: 'line', emphasis: true },
+      { key: data.family, label: `${Math.round(p.band.level * 100)}% pointwise band`, kind: 'band' },
+    ],
+    options.width,
+  );
+  const xs = [...p.points.x, ...finite(p.fittedLine.x), ...finite(p.band.lower), ...finite(p.band.upper)].filter(Number.isFinite);
+  const ys = [...p.points.y, ...p.fittedLine.y, ...p.band.y].filter(Number.isFinite);
+  if (p.points.x.length === 0 || xs.length === 0 || ys.length === 0) {
+    drawEmpty(frame, 'No points can be drawn on this scale.');
+    return frame.svg.node()!;
+  }
+  // The band spreads far at the extremes; keep the x domain to the points (plus a margin) so the
+  // data stay readable, and clip the band.
+  const [px0, px1] = extent(p.points.x) as [number, number];
+  const padX = (px1 - px0) * 0.08 || Math.abs(px0) * 0.1 || 1;
+  const [y0, y1] = extent(ys) as [number, number];
+  const padY = (y1 - y0) * 0.04 || 1;
+  const x = scaleLinear().domain([px0 - padX, px1 + padX]).range([0, frame.innerWidth]);
+  const y = scaleLinear().domain([y0 - padY, y1 + padY]).range([frame.innerHeight, 0]);
+
+  // Grid at the probability ticks (or the quantile ticks for a Q–Q plot).
+  const ticks = qq ? y.ticks(6) : p.probabilityTicks.filter((t) => t.y >= y.domain()[0]! && t.y <= y.domain()[1]!).map((t) => t.y);
+  drawGrid(frame, ticks.map((t) => y(t)));
+
+  const clipId = nextId('clip');
+  frame.plot.append('clipPath').attr('id', clipId).append('rect').attr('width', frame.innerWidth).attr('height', frame.innerHeight);
+  const g = frame.plot.append('g').attr('clip-path', `url(#${clipId})`);
+
+  const bandRows = p.band.y.map((yy, i) => ({ y: yy, lo: p.band.lower[i] ?? null, hi: p.band.upper[i] ?? null }));
+  const bandPath = area<{ y: number; lo: number | null; hi: number | null }>()
+    .defined((r) => r.lo !== null && r.hi !== null && Number.isFinite(r.lo) && Number.isFinite(r.hi) && Number.isFinite(r.y))
+    .y((r) => round(y(r.y)))
+    .x0((r) => round(x(r.lo as number)))
+    .x1((r) => round(x(r.hi as number)))(bandRows);
+  g.append('path')
+    .attr('d', bandPath ?? '')
+    .attr('fill', style.colour)
+    .attr('fill-opacity', 0.2)
+    .attr('stroke', 'none')
+    .append('title')
+    .text(p.band.description);
+
+  const line = p.fittedLine.x.map((xv, i) => [x(xv), y(p.fittedLine.y[i] ?? Number.NaN)] as const);
+  g.append('path').attr('d', pathThrough(line)).attr('fill', 'none').attr('stroke', style.colour).attr('stroke-width', 2.5);
+
+  const r = p.points.x.length > 400 ? 1.6 : 2.6;
+  const pts = g.append('g').attr('fill', INK.data).attr('fill-opacity', 0.85);
+  p.points.x.forEach((xv, i) => {
+    const yv = p.points.y[i];
+    if (yv === undefined || !Number.isFinite(xv) || !Number.isFinite(yv)) return;
+    pts.append('circle').attr('cx', round(x(xv))).attr('cy', round(y(yv))).attr('r', r);
+  });
+
+  // x axis: in data units. On an ln scale, ticks are nice data values placed at ln(value).
+  const xLabel = axisLabel(p.xTransform === 'ln' ? `${quantity} (log scale)` : quantity, options.units);
+  if (p.xTransform === 'ln') {
+    const d = x.domain() as [number, number];
+    const lg = scaleLog().domain([Math.exp(d[0]), Math.exp(d[1])]);
+    const values = lg.ticks(Math.max(3, Math.floor(frame.innerWidth / 90)));
+    const thin = values.length > 10 ? values.filter((v) => /^[125]/.test(v.toExponential())) : values;
+    const axis = axisBottom(x)
+      .tickValues(thin.map((v) => Math.log(v)))
+      .tickFormat((v) => sig(Math.exp(Number(v)), 3));
+    drawXAxis(frame, axis, xLabel);
+  } else {
+    drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), xLabel);
+  }
+  if (qq) {
+    drawYAxis(frame, axisLeft(y).ticks(6), axisLabel(`Fitted ${data.label} quantile`, options.units));
+  } else {
+    const shown = p.probabilityTicks.filter((t) => t.y >= y.domain()[0]! && t.y <= y.domain()[1]!);
+    // Drop ticks that would collide (closer than 13 px).
+    const kept: typeof shown = [];
+    for (const t of shown) {
+      const last = kept[kept.length - 1];
+      if (!last || Math.abs(y(t.y) - y(last.y)) >= 13) kept.push(t);
+    }
+    const byY = new Map(kept.map((t) => [t.y, t.p]));
+    const axis = axisLeft(y)
+      .tickValues(kept.map((t) => t.y))
+      .tickFormat((v) => probabilityText(byY.get(Number(v)) ?? Number.NaN));
+    drawYAxis(frame, axis, 'Cumulative probability');
+  }
+  return frame.svg.node()!;
+}

@@ -1,0 +1,118 @@
+/**
+ * The page's calls to the local server (server/API.md). Every failure becomes an `ApiError`
+ * carrying the server's message, so the page can show it as it is.
+ */
+import type { AnalysisReport, Evidence, SkipCount } from './types.js';
+
+export interface InputSummary {
+  readonly source: 'values' | 'csv';
+  readonly n: number;
+  readonly column?: string;
+  readonly columnIndex?: number;
+  readonly rowsRead?: number;
+  readonly skipped?: readonly SkipCount[];
+  readonly blankLines?: number;
+  readonly delimiter?: string;
+  readonly delimiterDetected?: boolean;
+  readonly header?: readonly string[];
+  readonly warnings?: readonly string[];
+}
+
+export type AnalyzeResponse = AnalysisReport & { readonly evidence?: Evidence; readonly input?: InputSummary };
+
+export interface CsvRequestOptions {
+  readonly decimal?: '.' | ',';
+  readonly header?: boolean;
+  readonly skipInvalid?: boolean;
+  readonly delimiter?: string;
+}
+
+export interface AnalyzeRequest {
+  readonly csv: string;
+  readonly column: string | number;
+  readonly csvOptions: CsvRequestOptions;
+  readonly families: readonly string[];
+  readonly alpha: number;
+  readonly bins: number | null;
+  readonly seed?: number;
+  readonly pMethod: 'table' | 'bootstrap';
+  readonly replicates?: number;
+  readonly evidence: true;
+}
+
+export interface DemoEntry {
+  readonly name: string;
+  readonly file: string;
+  readonly bytes: number;
+  readonly columns: readonly string[];
+  readonly defaultColumn: string;
+}
+
+export interface DemoFile {
+  readonly name: string;
+  readonly file: string;
+  readonly columns: readonly string[];
+  readonly defaultColumn: string;
+  readonly csv: string;
+}
+
+export interface DemoAnalysis {
+  readonly name: string;
+  readonly column: string;
+  readonly csv: string;
+  readonly result: AnalyzeResponse;
+}
+
+export interface JobStatus {
+  readonly id: string;
+  readonly state: 'running' | 'done' | 'cancelled' | 'failed';
+  readonly progress: number;
+  readonly result?: AnalyzeResponse;
+  readonly error?: { readonly message: string; readonly code?: string };
+}
+
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string | undefined;
+  readonly field: string | undefined;
+  constructor(status: number, message: string, code?: string, field?: string) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.field = field;
+  }
+}
+
+async function call<T>(method: string, url: string, body?: unknown, signal?: AbortSignal): Promise<T> {
+  const init: RequestInit = { method, headers: { Accept: 'application/json' } };
+  if (signal) init.signal = signal;
+  if (body !== undefined) {
+    init.headers = { Accept: 'application/json', 'Content-Type': 'application/json' };
+    init.body = JSON.stringify(body);
+  }
+  const res = await fetch(url, init);
+  const text = await res.text();
+  let json: unknown = undefined;
+  try {
+    json = text ? JSON.parse(text) : undefined;
+  } catch {
+    json = undefined;
+  }
+  if (!res.ok) {
+    const err = (json as { error?: { message?: string; code?: string; field?: string } } | undefined)?.error;
+    throw new ApiError(res.status, err?.message ?? `The server answered ${res.status} ${res.statusText}.`, err?.code, err?.field);
+  }
+  return json as T;
+}
+
+export const api = {
+  health: () => call<{ ok: boolean; version: string; jobsRunning: number }>('GET', '/api/health'),
+  demoList: () => call<{ datasets: DemoEntry[] }>('GET', '/api/demo'),
+  demo: (name: string) => call<DemoFile>('GET', `/api/demo/${encodeURIComponent(name)}`),
+  demoAnalysis: () => call<DemoAnalysis>('GET', '/api/demo-analysis'),
+  analyze: (req: AnalyzeRequest, signal?: AbortSignal) => call<AnalyzeResponse>('POST', '/api/analyze', req, signal),
+  startJob: (req: AnalyzeRequest & { client: string }) => call<{ id: string; state: string }>('POST', '/api/jobs', req),
+  job: (id: string, signal?: AbortSignal) => call<JobStatus>('GET', `/api/jobs/${encodeURIComponent(id)}`, undefined, signal),
+  cancelJob: (id: string) => call<{ id: string; state: string }>('DELETE', `/api/jobs/${encodeURIComponent(id)}`),
+};

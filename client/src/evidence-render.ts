@@ -1,0 +1,57 @@
+/**
+ * Draw the four evidence charts of one candidate into four containers. Used by the page and by
+ * the report export, so both show the same pictures.
+ */
+import { binCountsChart } from '../charts/bin-counts.js';
+import { cdfChart } from '../charts/cdf.js';
+import { histogramChart } from '../charts/histogram.js';
+import type { ChartOptions } from '../charts/options.js';
+import { probabilityPlotChart } from '../charts/probability-plot.js';
+import type { CandidateEvidence, Evidence } from './types.js';
+
+export interface ChartTargets {
+  readonly histogram: Element;
+  readonly probability: Element;
+  readonly bins: Element;
+  readonly cdf: Element;
+}
+
+export function evidenceFor(evidence: Evidence, family: string): CandidateEvidence | undefined {
+  return evidence.candidates.find((c) => c.family === family);
+}
+
+export function drawEvidence(
+  targets: ChartTargets,
+  evidence: Evidence,
+  family: string,
+  options: { readonly units: string; readonly quantity: string; readonly sizeOf: (el: Element) => { width: number; height: number } },
+): SVGSVGElement[] {
+  const ce = evidenceFor(evidence, family);
+  if (!ce) return [];
+  const opt = (el: Element): ChartOptions => ({ ...options.sizeOf(el), units: options.units, quantity: options.quantity || 'Value' });
+  return [
+    histogramChart(
+      targets.histogram,
+      { histogram: ce.histogram, densities: evidence.densities, xDomain: evidence.xDomain, selected: family, selectedLabel: ce.label },
+      opt(targets.histogram),
+    ),
+    probabilityPlotChart(targets.probability, { plot: ce.probabilityPlot, family, label: ce.label }, opt(targets.probability)),
+    binCountsChart(targets.bins, { bins: ce.bins, family, label: ce.label }, opt(targets.bins)),
+    cdfChart(targets.cdf, { cdf: evidence.cdf, xDomain: evidence.xDomain, selected: family }, opt(targets.cdf)),
+  ];
+}
+
+/** The bins table of one candidate as rows of text (header first), for the page and the report. */
+export function binsTableRows(ce: CandidateEvidence, format: (x: number | null, isLower: boolean) => string): string[][] {
+  const head = ['Bin', 'From', 'To', 'Observed', 'Expected', 'Residual', 'Adds to χ²'];
+  const rows = ce.bins.rows.map((r) => [
+    String(r.index + 1),
+    format(r.lower, true),
+    format(r.upper, false),
+    String(r.observed),
+    Number(r.expected.toPrecision(4)).toString(),
+    Number(r.pearsonResidual.toPrecision(3)).toString().replace(/^-/, '−'),
+    Number(r.contribution.toPrecision(3)).toString(),
+  ]);
+  return [head, ...rows];
+}

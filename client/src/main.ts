@@ -1,0 +1,759 @@
+/**
+ * The page: load measurements, choose how to judge, run the analysis on the local server, show
+ * the ranked candidates and the evidence for the selected one, export the record.
+ * All statistics come from the server's report; this file only wires inputs to requests and
+ * results to views.
+ */
+import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry } from './api.js';
+import { candidateCells } from './candidate-cells.js';
+import { firstLineIsNumber, scanColumns, type ColumnChoice } from './columns.js';
+import { byId, clear, download, el, slug } from './dom.js';
+import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
+import { FAMILY_CHOICES } from './families.js';
+import { sig } from './format.js';
+import { buildReportHtml } from './report-html.js';
+import { binsCsv } from './bins-csv.js';
+import { skipLine } from './skip-words.js';
+import { styleFor } from '../charts/palette.js';
+
+// ---------------------------------------------------------------------------------------------
+// State
+
+interface Source {
+  readonly kind: 'demo' | 'file' | 'paste';
+  /** What the user knows it by: the demo's name or the file's name. */
+  readonly name: string;
+  readonly csv: string;
+}
+
+const state = {
+  source: null as Source | null,
+  columns: [] as ColumnChoice[],
+  column: 1,
+  response: null as AnalyzeResponse | null,
+  /** The column label and source the shown response belongs to. */
+  shownFor: { source: '', column: '' },
+  selected: null as string | null,
+  generation: 0,
+  abort: null as AbortController | null,
+  jobId: null as string | null,
+  requestedBins: null as number | null,
+  demos: [] as DemoEntry[],
+};
+
+/** Identifies this page to the job API, so a new job replaces this page's previous one. */
+const CLIENT_ID = `page-${Array.from(crypto.getRandomValues(new Uint8Array(6)), (b) => b.toString(16).padStart(2, '0')).join('')}`;
+
+// ---------------------------------------------------------------------------------------------
+// Elements
+
+const $ = {
+  demoList: byId<HTMLUListElement>('demo-list'),
+  fileInput: byId<HTMLInputElement>('file-input'),
+  drop: byId<HTMLLabelElement>('drop-zone'),
+  pasteBox: byId<HTMLDetailsElement>('paste-box'),
+  pasteText: byId<HTMLTextAreaElement>('paste-text'),
+  pasteUse: byId<HTMLButtonElement>('paste-use'),
+  loaded: byId('loaded'),
+  sourceName: byId('source-name'),
+  columnSelect: byId<HTMLSelectElement>('column-select'),
+  headerCheck: byId<HTMLInputElement>('header-check'),
+  decimalSelect: byId<HTMLSelectElement>('decimal-select'),
+  counts: byId('counts'),
+  skips: byId<HTMLUListElement>('skips'),
+  quantity: byId<HTMLInputElement>('quantity-input'),
+  units: byId<HTMLInputElement>('units-input'),
+  familyBoxes: byId('family-boxes'),
+  alpha: byId<HTMLInputElement>('alpha-input'),
+  bins: byId<HTMLInputElement>('bins-input'),
+  binsHint: byId('bins-hint'),
+  replicates: byId<HTMLInputElement>('replicates-input'),
+  seed: byId<HTMLInputElement>('seed-input'),
+  run: byId<HTMLButtonElement>('run-button'),
+  status: byId('status'),
+  progressWrap: byId('progress-wrap'),
+  progress: byId<HTMLProgressElement>('progress'),
+  progressText: byId('progress-text'),
+  cancel: byId<HTMLButtonElement>('cancel-button'),
+  error: byId('error'),
+  rankingRule: byId('ranking-rule'),
+  summaryLine: byId('summary-line'),
+  rankingBody: byId<HTMLTableSectionElement>('ranking-body'),
+  notApplicable: byId('not-applicable'),
+  warnings: byId<HTMLUListElement>('warnings'),
+  evidenceName: byId('evidence-name'),
+  charts: {
+    histogram: byId('chart-histogram'),
+    probability: byId('chart-probability'),
+    bins: byId('chart-bins'),
+    cdf: byId('chart-cdf'),
+  },
+  captions: {
+    histogram: byId('cap-histogram'),
+    probability: byId('cap-probability'),
+    bins: byId('cap-bins'),
+    cdf: byId('cap-cdf'),
+  },
+  binsTable: byId<HTMLTableElement>('bins-table'),
+  exportHtml: byId<HTMLButtonElement>('export-html'),
+  exportJson: byId<HTMLButtonElement>('export-json'),
+  exportCsv: byId<HTMLButtonElement>('export-csv'),
+  foot: byId('foot'),
+};
+
+function pMethod(): 'table' | 'bootstrap' {
+  const checked = document.querySelector<HTMLInputElement>('input[name="pmethod"]:checked');
+  return checked?.value === 'bootstrap' ? 'bootstrap' : 'table';
+}
+
+function setStatus(text: string): void {
+  $.status.textContent = text;
+}
+
+function showError(message: string | null): void {
+  if (message === null) {
+    $.error.hidden = true;
+    $.error.textContent = '';
+    return;
+  }
+  $.error.hidden = false;
+  $.error.textContent = message;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Options
+
+function buildFamilyBoxes(): void {
+  for (const f of FAMILY_CHOICES) {
+    const style = styleFor(f.name);
+    const swatch = el('span', { className: 'swatch', 'aria-hidden': 'true' });
+    swatch.style.borderTopColor = style.colour;
+    swatch.style.borderTopStyle = style.dash ? 'dashed' : 'solid';
+    const box = el('input', { type: 'checkbox', value: f.name, name: 'family', checked: true });
+    $.familyBoxes.append(el('label', {}, box, swatch, f.label));
+  }
+}
+
+function chosenFamilies(): string[] {
+  return [...$.familyBoxes.querySelectorAll<HTMLInputElement>('input[name="family"]:checked')].map((b) => b.value);
+}
+
+function fieldProblem(input: HTMLInputElement, message: string | null): void {
+  const id = `${input.id}-problem`;
+  document.getElementById(id)?.remove();
+  if (message === null) {
+    input.removeAttribute('aria-invalid');
+    input.removeAttribute('aria-describedby');
+    return;
+  }
+  input.setAttribute('aria-invalid', 'true');
+  input.setAttribute('aria-describedby', id);
+  const row = input.closest('.field-row') ?? input;
+  row.after(el('p', { className: 'field-error', id }, message));
+}
+
+/** Read the settings; null (with the problems shown beside the fields) when one is unusable. */
+function readSettings(): Omit<AnalyzeRequest, 'csv' | 'column' | 'csvOptions' | 'evidence'> | null {
+  let ok = true;
+  const alpha = Number($.alpha.value);
+  if (!(alpha > 0 && alpha < 1)) {
+    fieldProblem($.alpha, 'α must be a number between 0 and 1, e.g. 0.05.');
+    ok = false;
+  } else fieldProblem($.alpha, null);
+
+  let bins: number | null = null;
+  if ($.bins.value.trim() !== '') {
+    const k = Number($.bins.value);
+    if (!Number.isInteger(k) || k < 3) {
+      fieldProblem($.bins, 'Bins must be a whole number of at least 3, or empty for automatic.');
+      ok = false;
+    } else {
+      bins = k;
+      fieldProblem($.bins, null);
+    }
+  } else fieldProblem($.bins, null);
+
+  let seed: number | undefined;
+  if ($.seed.value.trim() !== '') {
+    const s = Number($.seed.value);
+    if (!Number.isSafeInteger(s) || s < 0) {
+      fieldProblem($.seed, 'The seed must be a whole number ≥ 0.');
+      ok = false;
+    } else {
+      seed = s;
+      fieldProblem($.seed, null);
+    }
+  } else fieldProblem($.seed, null);
+
+  const method = pMethod();
+  let replicates: number | undefined;
+  if (method === 'bootstrap') {
+    const b = Number($.replicates.value);
+    if (!Number.isInteger(b) || b < 19 || b > 100000) {
+      fieldProblem($.replicates, 'B must be a whole number from 19 to 100000.');
+      ok = false;
+    } else {
+      replicates = b;
+      fieldProblem($.replicates, null);
+    }
+  } else fieldProblem($.replicates, null);
+  $.replicates.disabled = method !== 'bootstrap';
+
+  const families = chosenFamilies();
+  const famProblem = document.getElementById('families-problem');
+  famProblem?.remove();
+  if (families.length === 0) {
+    $.familyBoxes.after(el('p', { className: 'field-error', id: 'families-problem' }, 'Tick at least one model to try.'));
+    ok = false;
+  }
+  if (!ok) return null;
+  const out: Omit<AnalyzeRequest, 'csv' | 'column' | 'csvOptions' | 'evidence'> = { families, alpha, bins, pMethod: method };
+  return { ...out, ...(seed !== undefined ? { seed } : {}), ...(replicates !== undefined ? { replicates } : {}) };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Loading data
+
+function decimal(): '.' | ',' {
+  return $.decimalSelect.value === ',' ? ',' : '.';
+}
+
+function showColumns(columns: readonly ColumnChoice[], chosen: number): void {
+  clear($.columnSelect);
+  for (const c of columns) {
+    $.columnSelect.append(el('option', { value: String(c.index), selected: c.index === chosen }, columns.length > 1 ? `${c.index}. ${c.label}` : c.label));
+  }
+  $.columnSelect.disabled = columns.length <= 1;
+}
+
+function loadSource(source: Source, opts: { header?: boolean; column?: number } = {}): void {
+  state.source = source;
+  $.loaded.hidden = false;
+  $.sourceName.textContent = `${source.name}${source.kind === 'demo' ? ' (worked scenario, invented data)' : ''}`;
+  const header = opts.header ?? !firstLineIsNumber(source.csv, decimal());
+  $.headerCheck.checked = header;
+  rescanColumns(opts.column);
+  for (const b of $.demoList.querySelectorAll('button')) b.setAttribute('aria-pressed', String(source.kind === 'demo' && b.dataset['name'] === source.name));
+  scheduleRun(0);
+}
+
+function rescanColumns(prefer?: number): void {
+  if (!state.source) return;
+  try {
+    const scan = scanColumns(state.source.csv, { header: $.headerCheck.checked, decimal: decimal() });
+    state.columns = [...scan.columns];
+    state.column = prefer !== undefined && scan.columns.some((c) => c.index === prefer) ? prefer : scan.suggested;
+  } catch (err) {
+    // The reader could not even read the header: the analysis request will say exactly why.
+    state.columns = [{ index: 1, label: '#1' }];
+    state.column = 1;
+    void err;
+  }
+  showColumns(state.columns, state.column);
+  suggestQuantity();
+}
+
+function columnLabel(): string {
+  return state.columns.find((c) => c.index === state.column)?.label ?? `#${state.column}`;
+}
+
+/** Pre-fill "what was measured" from the column name while the user has not typed one. */
+function suggestQuantity(): void {
+  if ($.quantity.dataset['typed'] === 'yes') return;
+  const name = columnLabel();
+  $.quantity.value = /^#\d+$/.test(name) ? '' : name.replace(/[_]+/g, ' ').trim();
+}
+
+async function loadDemo(name: string): Promise<void> {
+  try {
+    setStatus(`Loading ${name}…`);
+    const d = await api.demo(name);
+    const index = d.columns.indexOf(d.defaultColumn) + 1;
+    loadSource({ kind: 'demo', name: d.name, csv: d.csv }, { header: true, column: index > 0 ? index : undefined });
+  } catch (err) {
+    showError(err instanceof Error ? err.message : String(err));
+  }
+}
+
+async function loadFile(file: File): Promise<void> {
+  try {
+    const text = await file.text();
+    if (text.trim() === '') {
+      showError(`${file.name} is empty: there are no values to analyse.`);
+      return;
+    }
+    $.quantity.dataset['typed'] = '';
+    loadSource({ kind: 'file', name: file.name, csv: text });
+  } catch (err) {
+    showError(`Could not read ${file.name}: ${err instanceof Error ? err.message : String(err)}`);
+  }
+}
+
+function renderDemoList(list: readonly DemoEntry[]): void {
+  clear($.demoList);
+  for (const d of list) {
+    const title = d.name.replace(/[-_]+/g, ' ').replace(/^./, (c) => c.toUpperCase());
+    const button = el(
+      'button',
+      { type: 'button', 'data-name': d.name, 'aria-pressed': 'false' },
+      title,
+      el('span', { className: 'demo-cols' }, `${d.file} · column ${d.defaultColumn}`),
+    );
+    button.addEventListener('click', () => {
+      $.quantity.dataset['typed'] = '';
+      void loadDemo(d.name);
+    });
+    $.demoList.append(el('li', {}, button));
+  }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Running
+
+let timer: ReturnType<typeof setTimeout> | undefined;
+function scheduleRun(delay = 350): void {
+  if (timer !== undefined) clearTimeout(timer);
+  timer = setTimeout(() => {
+    timer = undefined;
+    void run();
+  }, delay);
+}
+
+function stopCurrent(): void {
+  state.abort?.abort();
+  state.abort = null;
+  if (state.jobId) {
+    const id = state.jobId;
+    state.jobId = null;
+    api.cancelJob(id).catch(() => undefined);
+  }
+}
+
+function setProgress(visible: boolean, fraction = 0, text = ''): void {
+  $.progressWrap.hidden = !visible;
+  $.progress.value = fraction;
+  $.progressText.textContent = text;
+}
+
+const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
+
+async function run(): Promise<void> {
+  const source = state.source;
+  if (!source) return;
+  const settings = readSettings();
+  if (!settings) {
+    setStatus('Fix the highlighted setting to run the analysis.');
+    return;
+  }
+  const gen = ++state.generation;
+  stopCurrent();
+  showError(null);
+  const req: AnalyzeRequest = {
+    ...settings,
+    csv: source.csv,
+    column: state.column,
+    csvOptions: { decimal: decimal(), header: $.headerCheck.checked, skipInvalid: true },
+    evidence: true,
+  };
+  const column = columnLabel();
+  state.requestedBins = settings.bins;
+  try {
+    let resp: AnalyzeResponse | undefined;
+    if (req.pMethod === 'bootstrap') {
+      setStatus(`Fitting ${column} with bootstrap p-values (B = ${req.replicates ?? 999})… the page stays usable; changing a setting starts again.`);
+      setProgress(true, 0, '0%');
+      const job = await api.startJob({ ...req, client: CLIENT_ID });
+      if (gen !== state.generation) {
+        api.cancelJob(job.id).catch(() => undefined);
+        return;
+      }
+      state.jobId = job.id;
+      for (;;) {
+        await sleep(250);
+        if (gen !== state.generation) return;
+        const st = await api.job(job.id);
+        if (gen !== state.generation) return;
+        setProgress(true, st.progress, `${Math.round(st.progress * 100)}%`);
+        if (st.state === 'done') {
+          resp = st.result;
+          break;
+        }
+        if (st.state === 'failed') throw new ApiError(400, st.error?.message ?? 'The analysis failed.', st.error?.code);
+        if (st.state === 'cancelled') {
+          setStatus('Bootstrap stopped. The results shown (if any) are from the previous analysis.');
+          setProgress(false);
+          return;
+        }
+      }
+      state.jobId = null;
+    } else {
+      setStatus(`Fitting ${column}…`);
+      const ac = new AbortController();
+      state.abort = ac;
+      resp = await api.analyze(req, ac.signal);
+      state.abort = null;
+    }
+    if (gen !== state.generation || !resp) return;
+    setProgress(false);
+    state.shownFor = { source: source.name, column };
+    applyResponse(resp);
+  } catch (err) {
+    if (gen !== state.generation) return;
+    if (err instanceof DOMException && err.name === 'AbortError') return;
+    setProgress(false);
+    state.jobId = null;
+    const message = err instanceof Error ? err.message : String(err);
+    showError(`${source.name}, column ${column}: ${message}`);
+    setStatus(state.response ? 'The results below are from the previous analysis.' : '');
+  }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Showing results
+
+function applyResponse(resp: AnalyzeResponse): void {
+  state.response = resp;
+  if (!state.selected || !resp.candidates.some((c) => c.family === state.selected)) state.selected = resp.candidates[0]?.family ?? null;
+  renderCounts(resp);
+  renderRanking(resp);
+  renderEvidence();
+  const best = resp.candidates[0];
+  setStatus(
+    best
+      ? `Done: ${resp.candidates.length} model${resp.candidates.length === 1 ? '' : 's'} fitted to ${resp.n} values of ${state.shownFor.column} from ${state.shownFor.source}.`
+      : 'No model could be fitted to these values.',
+  );
+  $.foot.textContent = `${resp.software.name} ${resp.software.version} · analysed on this computer by the local server; nothing is sent elsewhere.`;
+}
+
+function renderCounts(resp: AnalyzeResponse): void {
+  const input = resp.input;
+  const skipped = input?.skipped ?? [];
+  const totalSkipped = skipped.reduce((s, k) => s + k.count, 0);
+  const parts = [`n = ${resp.n} values used`];
+  if (input?.rowsRead !== undefined) parts.push(`${input.rowsRead} data rows read`);
+  parts.push(totalSkipped === 0 ? 'no rows skipped' : `${totalSkipped} row${totalSkipped === 1 ? '' : 's'} skipped:`);
+  $.counts.textContent = parts.join(' · ');
+  clear($.skips);
+  for (const s of skipped) $.skips.append(el('li', {}, skipLine(s)));
+  if (input?.blankLines) $.skips.append(el('li', {}, `${input.blankLines} blank line${input.blankLines === 1 ? '' : 's'} passed over`));
+  const most = Math.floor(resp.n / 5);
+  const sel = resp.candidates.find((c) => c.family === state.selected) ?? resp.candidates[0];
+  const used = sel && sel.chiSquare.computable ? ` Now: k = ${sel.chiSquare.k} (${sel.chiSquare.kRule}).` : '';
+  $.binsHint.textContent =
+    `Bins have equal probability under each model, so each expects n/k values. The chi-square approximation needs at least 5 expected per bin: ` +
+    `with n = ${resp.n}, k can be at most ${most}.${used}`;
+}
+
+function renderRanking(resp: AnalyzeResponse): void {
+  $.rankingRule.textContent = resp.rankingRule;
+  const best = resp.candidates[0];
+  const a = resp.options.alpha;
+  if (!best) $.summaryLine.textContent = 'No candidate could be fitted.';
+  else if (resp.candidates.every((c) => c.rejectedBy.length > 0)) {
+    $.summaryLine.textContent = `Every model tried is rejected at α = ${a}. None of them describes these data well enough to base a decision on.`;
+  } else if (best.rejectedBy.length === 0) {
+    $.summaryLine.textContent = `Best by AICc: ${best.label}. Neither test rejects it at α = ${a}; check the evidence below, above all in the tail your decision depends on.`;
+  } else {
+    const firstOk = resp.candidates.find((c) => c.rejectedBy.length === 0);
+    $.summaryLine.textContent = `Best by AICc: ${best.label}, but it is rejected at α = ${a}.${firstOk ? ` The best model not rejected is ${firstOk.label} (rank ${firstOk.rank}).` : ''}`;
+  }
+  clear($.rankingBody);
+  for (const c of resp.candidates) {
+    const k = candidateCells(c);
+    const row = el('tr', { tabindex: 0, 'data-family': c.family, 'aria-selected': String(c.family === state.selected) });
+    const swatch = el('span', { className: 'swatch', 'aria-hidden': 'true' });
+    const style = styleFor(c.family);
+    swatch.style.borderTopColor = style.colour;
+    swatch.style.borderTopStyle = style.dash ? 'dashed' : 'solid';
+    row.append(
+      el('td', { className: 'num' }, k.rank),
+      el('td', { className: 'model' }, swatch, ' ', k.model),
+      el('td', { className: 'params' }, ...k.parameters.split(' · ').map((p) => el('span', { className: 'p-line' }, p, el('br')))),
+      el('td', { className: 'num' }, k.logLikelihood),
+      el('td', { className: 'num' }, k.aicc, el('span', { className: 'sub' }, k.deltaAicc)),
+    );
+    if (k.chiComputable) {
+      row.append(
+        el('td', { className: 'num' }, k.chiSquare, el('span', { className: 'sub' }, k.chiSquareNote)),
+        el('td', { className: 'num' }, k.dof),
+        el('td', { className: 'num' }, k.chiP),
+      );
+    } else {
+      row.append(el('td', { colspan: 3 }, 'not computed', el('span', { className: 'sub' }, k.chiSquareNote)));
+    }
+    row.append(
+      el('td', { className: 'num' }, k.adStatistic),
+      el('td', { className: 'num', title: k.adMethodDetail }, k.adP, el('span', { className: 'sub' }, k.adMethod)),
+      el('td', {}, el('span', { className: `verdict ${k.rejected ? 'no' : 'ok'}` }, k.badge), el('span', { className: 'verdict-words' }, k.verdict)),
+    );
+    row.setAttribute('aria-label', `Rank ${k.rank}, ${k.model}: ${k.badge}. Press Enter to show its evidence.`);
+    row.addEventListener('click', () => select(c.family));
+    row.addEventListener('keydown', (ev) => {
+      if (ev.key === 'Enter' || ev.key === ' ') {
+        ev.preventDefault();
+        select(c.family);
+      } else if (ev.key === 'ArrowDown' || ev.key === 'ArrowUp') {
+        ev.preventDefault();
+        const sib = (ev.key === 'ArrowDown' ? row.nextElementSibling : row.previousElementSibling) as HTMLElement | null;
+        sib?.focus();
+      }
+    });
+    $.rankingBody.append(row);
+  }
+  clear($.notApplicable);
+  if (resp.notApplicable.length > 0) {
+    $.notApplicable.append(
+      el('p', { className: 'na-title' }, 'Not fitted'),
+      el('ul', { className: 'na-list' }, ...resp.notApplicable.map((n) => el('li', {}, el('strong', {}, labelOf(n.family)), `: ${n.reason}`))),
+    );
+  }
+  clear($.warnings);
+  for (const w of [...resp.warnings, ...(resp.input?.warnings ?? [])]) $.warnings.append(el('li', {}, w));
+}
+
+function labelOf(family: string): string {
+  return FAMILY_CHOICES.find((f) => f.name === family)?.label ?? family;
+}
+
+function select(family: string): void {
+  if (!state.response) return;
+  state.selected = family;
+  for (const row of $.rankingBody.querySelectorAll<HTMLTableRowElement>('tr')) row.setAttribute('aria-selected', String(row.dataset['family'] === family));
+  renderCounts(state.response);
+  renderEvidence();
+}
+
+function chartSize(node: Element): { width: number; height: number } {
+  const w = Math.round(Math.min(1100, Math.max(320, (node as HTMLElement).clientWidth || 560)));
+  return { width: w, height: Math.round(Math.min(520, Math.max(300, w * 0.62))) };
+}
+
+function units(): string {
+  return $.units.value.trim();
+}
+
+function renderEvidence(): void {
+  const resp = state.response;
+  const fam = state.selected;
+  if (!resp || !fam || !resp.evidence) return;
+  const ce = evidenceFor(resp.evidence, fam);
+  $.evidenceName.textContent = ce ? ce.label : labelOf(fam);
+  drawEvidence($.charts, resp.evidence, fam, { units: units(), quantity: $.quantity.value.trim(), sizeOf: chartSize });
+  if (ce) {
+    $.captions.histogram.textContent = `Bars should follow the heavy ${ce.label} curve; look for runs of bars above or below it. ${ce.histogram.displayEdgeRule}`;
+    const pp = ce.probabilityPlot;
+    $.captions.probability.textContent =
+      `Points should lie along the line and mostly inside the band, above all in the tail your decision depends on. ` +
+      `Plotting positions: ${pp.plottingPosition.name}, ${pp.plottingPosition.formula}. The band is pointwise, not a simultaneous test.` +
+      (pp.thinned ? ` Drawn with ${pp.points.x.length} of ${pp.total} points (extremes kept).` : '');
+    renderBinsTable(ce);
+  }
+}
+
+function edgeText(x: number | null, isLower: boolean): string {
+  if (x === null) return isLower ? '−∞' : '∞';
+  return sig(x, 5);
+}
+
+function renderBinsTable(ce: NonNullable<ReturnType<typeof evidenceFor>>): void {
+  clear($.binsTable);
+  const [head, ...rows] = binsTableRows(ce, edgeText);
+  const u = units();
+  if (head) {
+    $.binsTable.append(
+      el('caption', { className: 'muted small' }, `${ce.label}: equal-probability bins${u ? `, edges in ${u}` : ''}`),
+      el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { scope: 'col' }, h)))),
+    );
+  }
+  $.binsTable.append(el('tbody', {}, ...rows.map((r) => el('tr', {}, ...r.map((v) => el('td', {}, v))))));
+}
+
+// ---------------------------------------------------------------------------------------------
+// Export
+
+function exportName(ext: string): string {
+  const stamp = new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-');
+  return `plumbline-${slug(state.shownFor.source)}-${slug(state.shownFor.column)}-${stamp}.${ext}`;
+}
+
+function needResult(): AnalyzeResponse | null {
+  if (!state.response) {
+    showError('There is no result to export yet: load data and run the analysis first.');
+    return null;
+  }
+  return state.response;
+}
+
+function exportHtml(): void {
+  const resp = needResult();
+  if (!resp || !resp.evidence || !state.selected) return;
+  const holder = el('div');
+  const targets = { histogram: el('div'), probability: el('div'), bins: el('div'), cdf: el('div') };
+  holder.append(targets.histogram, targets.probability, targets.bins, targets.cdf);
+  const svgs = drawEvidence(targets, resp.evidence, state.selected, {
+    units: units(),
+    quantity: $.quantity.value.trim(),
+    sizeOf: () => ({ width: 760, height: 440 }),
+  });
+  const captions = [$.captions.histogram, $.captions.probability, $.captions.bins, $.captions.cdf].map((c) => c.textContent ?? '');
+  const ce = evidenceFor(resp.evidence, state.selected);
+  const html = buildReportHtml({
+    response: resp,
+    selected: state.selected,
+    sourceName: state.shownFor.source,
+    column: state.shownFor.column,
+    units: units(),
+    quantity: $.quantity.value.trim(),
+    generatedAt: new Date(),
+    charts: svgs.map((s, i) => ({ svg: s.outerHTML, caption: captions[i] ?? '' })),
+    binsTable: ce ? binsTableRows(ce, edgeText) : [],
+    requestedBins: state.requestedBins,
+  });
+  download(exportName('html'), html, 'text/html;charset=utf-8');
+}
+
+function exportJson(): void {
+  const resp = needResult();
+  if (!resp) return;
+  const { evidence: _drop, ...report } = resp;
+  void _drop;
+  const record = { ...report, page: { source: state.shownFor.source, column: state.shownFor.column, units: units(), quantity: $.quantity.value.trim(), selected: state.selected, exportedAt: new Date().toISOString() } };
+  download(exportName('json'), `${JSON.stringify(record, null, 2)}\n`, 'application/json');
+}
+
+function exportCsv(): void {
+  const resp = needResult();
+  if (!resp || !resp.evidence || !state.selected) return;
+  const ce = evidenceFor(resp.evidence, state.selected);
+  if (!ce) return;
+  download(exportName('csv'), binsCsv(ce, state.shownFor.source, state.shownFor.column, units()), 'text/csv;charset=utf-8');
+}
+
+// ---------------------------------------------------------------------------------------------
+// Wiring
+
+function wire(): void {
+  buildFamilyBoxes();
+  $.fileInput.addEventListener('change', () => {
+    const f = $.fileInput.files?.[0];
+    if (f) void loadFile(f);
+    $.fileInput.value = '';
+  });
+  for (const t of ['dragenter', 'dragover']) {
+    $.drop.addEventListener(t, (ev) => {
+      ev.preventDefault();
+      $.drop.classList.add('over');
+    });
+  }
+  for (const t of ['dragleave', 'drop']) $.drop.addEventListener(t, () => $.drop.classList.remove('over'));
+  $.drop.addEventListener('drop', (ev) => {
+    ev.preventDefault();
+    const f = (ev as DragEvent).dataTransfer?.files?.[0];
+    if (f) void loadFile(f);
+  });
+  // A file dropped elsewhere on the page must not navigate away from it.
+  window.addEventListener('dragover', (ev) => ev.preventDefault());
+  window.addEventListener('drop', (ev) => ev.preventDefault());
+
+  $.pasteUse.addEventListener('click', () => {
+    const text = $.pasteText.value;
+    if (text.trim() === '') {
+      showError('The paste box is empty: paste a column of numbers first.');
+      return;
+    }
+    $.quantity.dataset['typed'] = '';
+    loadSource({ kind: 'paste', name: 'Pasted values', csv: text });
+  });
+
+  $.columnSelect.addEventListener('change', () => {
+    state.column = Number($.columnSelect.value);
+    suggestQuantity();
+    scheduleRun(0);
+  });
+  $.headerCheck.addEventListener('change', () => {
+    rescanColumns(state.column);
+    scheduleRun(0);
+  });
+  $.decimalSelect.addEventListener('change', () => {
+    rescanColumns(state.column);
+    scheduleRun(0);
+  });
+
+  for (const input of [$.alpha, $.bins, $.replicates, $.seed]) input.addEventListener('change', () => scheduleRun());
+  $.familyBoxes.addEventListener('change', () => scheduleRun());
+  for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => scheduleRun());
+  $.run.addEventListener('click', () => scheduleRun(0));
+  $.cancel.addEventListener('click', () => {
+    state.generation++;
+    stopCurrent();
+    setProgress(false);
+    setStatus('Bootstrap stopped. The results shown (if any) are from the previous analysis.');
+  });
+
+  $.quantity.addEventListener('input', () => {
+    $.quantity.dataset['typed'] = 'yes';
+    renderEvidence();
+  });
+  $.units.addEventListener('input', () => {
+    renderEvidence();
+  });
+
+  $.exportHtml.addEventListener('click', exportHtml);
+  $.exportJson.addEventListener('click', exportJson);
+  $.exportCsv.addEventListener('click', exportCsv);
+
+  let resizeTimer: ReturnType<typeof setTimeout> | undefined;
+  new ResizeObserver(() => {
+    if (resizeTimer !== undefined) clearTimeout(resizeTimer);
+    resizeTimer = setTimeout(renderEvidence, 120);
+  }).observe($.charts.histogram);
+}
+
+async function start(): Promise<void> {
+  wire();
+  readSettings();
+  try {
+    const list = await api.demoList();
+    state.demos = list.datasets;
+    renderDemoList(list.datasets);
+  } catch (err) {
+    $.demoList.append(el('li', { className: 'muted small' }, `Demo list unavailable: ${err instanceof Error ? err.message : String(err)}`));
+  }
+  try {
+    setStatus('Loading the worked scenario…');
+    const demo = await api.demoAnalysis();
+    state.source = { kind: 'demo', name: demo.name, csv: demo.csv };
+    $.loaded.hidden = false;
+    $.sourceName.textContent = `${demo.name} (worked scenario, invented data)`;
+    $.headerCheck.checked = true;
+    const entry = state.demos.find((d) => d.name === demo.name);
+    const col = entry ? entry.columns.indexOf(demo.column) + 1 : 0;
+    rescanColumns(col > 0 ? col : undefined);
+    state.column = demo.result.input?.columnIndex ?? state.column;
+    showColumns(state.columns, state.column);
+    suggestQuantity();
+    for (const b of $.demoList.querySelectorAll('button')) b.setAttribute('aria-pressed', String(b.dataset['name'] === demo.name));
+    state.shownFor = { source: demo.name, column: columnLabel() };
+    applyResponse(demo.result);
+    syncSettingsFrom(demo.result);
+  } catch (err) {
+    setStatus('Load a CSV file, paste a column of numbers, or pick a worked scenario to begin.');
+    if (!(err instanceof ApiError && err.status === 404)) showError(err instanceof Error ? err.message : String(err));
+  }
+}
+
+/** Show in the settings the options the server used for the opening demo. */
+function syncSettingsFrom(resp: AnalyzeResponse): void {
+  const o = resp.options;
+  $.alpha.value = String(o.alpha);
+  $.bins.value = o.bins === null ? '' : String(o.bins);
+  for (const b of $.familyBoxes.querySelectorAll<HTMLInputElement>('input[name="family"]')) b.checked = o.families.includes(b.value as never);
+  const radio = document.querySelector<HTMLInputElement>(`input[name="pmethod"][value="${o.pMethod}"]`);
+  if (radio) radio.checked = true;
+  $.replicates.value = String(o.bootstrapReplicates);
+  $.seed.value = String(o.seed);
+  readSettings();
+}
+
+void start();

@@ -1,0 +1,29 @@
+/**
+ * The core's types the page draws from (types only: the page computes no statistics).
+ * One place, so a move of the core's public entry changes one line here.
+ */
+export type {
+  AnalysisReport,
+  CandidateReport,
+  NotApplicableReport,
+  ChiSquareReport,
+  ChiSquareComputed,
+  AndersonDarlingReport,
+  BinRow,
+  MethodNote,
+  PMethod,
+  FamilyName,
+  SkipCount,
+  SkipReason,
+  Evidence,
+  CandidateEvidence,
+  FittedCurves,
+  FittedCurve,
+  CdfEvidence,
+  HistogramEvidence,
+  HistogramBar,
+  BinCountsEvidence,
+  BinCountsRow,
+  ProbabilityPlotEvidence,
+  ProbabilityTick,
+} from '../../core/index.js';
