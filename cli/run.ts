@@ -1,0 +1,133 @@
+/**
+ * `plumbline` as a function of its arguments (so tests and main.ts share it): parse the options,
+ * read the CSV column, analyse it, print the JSON or text report. Returns the exit code.
+ */
+import {
+  InputError,
+  PLUMBLINE_VERSION,
+  analyze,
+  isPlumblineError,
+  readColumn,
+  type AnalysisReport,
+  type PlumblineError,
+} from '../core/index.js';
+import { parseArgs, type AnalyzeArgs } from './args.js';
+import { HELP } from './help.js';
+import { cliInput, type CliInput } from './input-summary.js';
+import { readInputText } from './read-input.js';
+import { textReport } from './text-report.js';
+
+export interface CliIo {
+  out(s: string): void;
+  err(s: string): void;
+}
+
+/** Exit codes (sysexits.h style for the internal error). */
+export const EXIT_OK = 0;
+export const EXIT_USER = 2;
+export const EXIT_INTERNAL = 70;
+
+const USER_CODES = new Set([
+  'bad-input',
+  'bad-option',
+  'csv-parse',
+  'not-a-number',
+  'too-few-values',
+  'no-column',
+  'bins-too-many',
+  'not-computable',
+]);
+
+/** The core speaks of settings; on the command line they are options. */
+function asOptions(message: string): string {
+  return message
+    .replace(/the decimal-comma setting/g, '--decimal-comma')
+    .replace(/set the delimiter/g, 'use --delimiter')
+    .replace(/read it without one/g, 'use --no-header')
+    .replace(/choose one by name or index/g, 'choose one with --column NAME or --column INDEX')
+    .replace(/choose one by its index/g, 'choose one with --column INDEX')
+    .replace(/choose such a column by index/g, 'choose such a column with --column INDEX');
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*[\r\n]+\s*/g, ' ').trim();
+}
+
+export interface JsonReport extends AnalysisReport {
+  readonly input: CliInput;
+}
+
+function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
+  const source = readInputText(args.file);
+  const fileLabel = args.file === '-' ? 'standard input' : args.file;
+  const decimal = args.decimalComma ? ',' : '.';
+  const read = readColumn(source.text, {
+    ...(args.column !== undefined ? { column: args.column } : {}),
+    ...(args.delimiter !== undefined ? { delimiter: args.delimiter } : {}),
+    decimal,
+    skipInvalid: args.skipInvalid,
+    header: !args.noHeader,
+  });
+  const input = cliInput(fileLabel, read, decimal, source.encoding, source.warnings);
+  if (read.values.length === 0) {
+    const dropped = read.skipped.reduce((a, s) => a + s.count, 0);
+    throw new InputError(
+      read.rowsRead === 0
+        ? `${fileLabel} has no data rows under its header`
+        : `column ${JSON.stringify(read.column)} has no usable values: all ${dropped} data rows were dropped (${read.skipped.map((s) => `${s.count} ${s.reason}`).join(', ')})`,
+      { column: read.column },
+      'too-few-values',
+    );
+  }
+  const report = analyze(read.values, {
+    ...(args.families !== undefined ? { families: args.families } : {}),
+    ...(args.alpha !== undefined ? { alpha: args.alpha } : {}),
+    ...(args.bins !== undefined ? { bins: args.bins } : {}),
+    ...(args.pMethod !== undefined ? { pMethod: args.pMethod } : {}),
+    ...(args.replicates !== undefined ? { bootstrapReplicates: args.replicates } : {}),
+    ...(args.seed !== undefined ? { seed: args.seed } : {}),
+  });
+  const inputShown: CliInput = { ...input, warnings: input.warnings.map(asOptions) };
+  if (args.json) {
+    const out: JsonReport = { ...report, input: inputShown };
+    io.out(`${JSON.stringify(out, null, 2)}\n`);
+  } else {
+    io.out(textReport(report, inputShown));
+  }
+  return EXIT_OK;
+}
+
+function userMessage(e: PlumblineError, file: string | undefined): string {
+  let m = oneLine(asOptions(e.message));
+  if (e.code === 'not-a-number') m += '; rows like this can be dropped (and counted) with --skip-invalid';
+  if (file !== undefined && (e.code === 'not-a-number' || e.code === 'csv-parse') && e.place.row !== undefined) {
+    m = `${file}: ${m}`;
+  }
+  return m;
+}
+
+export function runCli(argv: readonly string[], io: CliIo): number {
+  let file: string | undefined;
+  try {
+    const args = parseArgs(argv);
+    if (args.command === 'help') {
+      io.out(HELP);
+      return EXIT_OK;
+    }
+    if (args.command === 'version') {
+      io.out(`plumbline ${PLUMBLINE_VERSION}\n`);
+      return EXIT_OK;
+    }
+    file = args.file === '-' ? 'standard input' : args.file;
+    return analyzeCommand(args, io);
+  } catch (e) {
+    if (isPlumblineError(e) && USER_CODES.has(e.code)) {
+      io.err(`plumbline: error: ${userMessage(e, file)}\n`);
+      return EXIT_USER;
+    }
+    const message = e instanceof Error ? e.message : String(e);
+    io.err(`plumbline: internal error: ${oneLine(message)} (this is a bug; please report it with the command that caused it)\n`);
+    if (process.env.PLUMBLINE_DEBUG && e instanceof Error && e.stack) io.err(`${e.stack}\n`);
+    return EXIT_INTERNAL;
+  }
+}

@@ -1,0 +1,214 @@
+/**
+ * The plain-text report of `plumbline analyze` (without --json). Layout of our own: a header
+ * block on the input, a ranking table, one block per candidate, then the families that could not
+ * be fitted, warnings, the ranking rule, the methods with their sources, and the caution.
+ */
+import type { AnalysisReport, AndersonDarlingReport, CandidateReport, ChiSquareReport } from '../core/index.js';
+import type { CliInput } from './input-summary.js';
+import { describeSkipped } from './input-summary.js';
+
+const WIDTH = 100;
+
+/** A number to `digits` significant digits, plain for ordinary sizes, exponent otherwise. */
+export function num(x: number, digits = 6): string {
+  if (Number.isNaN(x)) return 'NaN';
+  if (!Number.isFinite(x)) return x > 0 ? '∞' : '-∞';
+  if (x === 0) return '0';
+  const ax = Math.abs(x);
+  if (ax >= 1e-4 && ax < 1e9) return String(Number(x.toPrecision(digits)));
+  return x.toExponential(digits - 1).replace(/\.?0+e/, 'e');
+}
+
+/** A p-value, with its bound shown as "< b" or "> b". */
+export function pText(p: number, is: AndersonDarlingReport['pValueIs'] = 'estimate'): string {
+  const shown = p >= 1e-4 ? num(p, 4) : p.toExponential(1);
+  if (is === 'upper-bound') return `< ${shown}`;
+  if (is === 'lower-bound') return `> ${shown}`;
+  return shown;
+}
+
+/** Wrap `text` to WIDTH columns, the first line after `first`, the rest indented by `indent`. */
+export function wrap(text: string, first: string, indent: string): string {
+  const words = text.split(/\s+/).filter((w) => w !== '');
+  const lines: string[] = [];
+  let current = first;
+  let empty = true;
+  for (const w of words) {
+    if (!empty && current.length + 1 + w.length > WIDTH) {
+      lines.push(current);
+      current = indent + w;
+    } else {
+      current += (empty ? '' : ' ') + w;
+    }
+    empty = false;
+  }
+  lines.push(current);
+  return lines.join('\n');
+}
+
+function pad(s: string, w: number): string {
+  return s.length >= w ? s : s + ' '.repeat(w - s.length);
+}
+
+function padLeft(s: string, w: number): string {
+  return s.length >= w ? s : ' '.repeat(w - s.length) + s;
+}
+
+function parametersText(c: CandidateReport): string {
+  return Object.entries(c.parameters)
+    .map(([k, v]) => `${k} = ${num(v as number)}`)
+    .join(', ');
+}
+
+function chiShort(cs: ChiSquareReport): string {
+  if (!cs.computable) return 'n/a';
+  return `${pText(cs.pValue)}–${pText(cs.pValueUpper)}`;
+}
+
+function rankingTable(r: AnalysisReport): string[] {
+  const head = ['#', 'model', 'ΔAICc', 'AICc', 'log-lik.', 'chi-sq. p (k-1-m … k-1)', 'AD p', `at α = ${num(r.options.alpha)}`];
+  const rows = r.candidates.map((c) => [
+    String(c.rank),
+    c.label,
+    num(c.deltaAicc, 4),
+    num(c.aicc, 7),
+    num(c.logLikelihood, 7),
+    chiShort(c.chiSquare),
+    pText(c.andersonDarling.pValue, c.andersonDarling.pValueIs),
+    c.rejectedBy.length === 0 ? 'not rejected' : `rejected by ${c.rejectedBy.join(' and ')}`,
+  ]);
+  const widths = head.map((h, j) => Math.max(h.length, ...rows.map((row) => (row[j] as string).length)));
+  const right = new Set([2, 3, 4]);
+  const line = (cells: string[]): string =>
+    '  ' + cells.map((s, j) => (right.has(j) ? padLeft(s, widths[j] as number) : pad(s, widths[j] as number))).join('  ').trimEnd();
+  return [line(head), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)];
+}
+
+function candidateBlock(c: CandidateReport, n: number): string[] {
+  const out: string[] = [];
+  const label = (s: string): string => `    ${pad(s, 13)}`;
+  const cont = ' '.repeat(17);
+  out.push(`  ${c.rank}. ${c.label}: ${parametersText(c)}`);
+  out.push(
+    wrap(
+      `${c.fit.method} (${c.fit.iterations} iteration${c.fit.iterations === 1 ? '' : 's'}, ${c.fit.converged ? 'converged' : 'NOT converged'})`,
+      label('fit'),
+      cont,
+    ),
+  );
+  out.push(
+    wrap(
+      `log-likelihood ${num(c.logLikelihood, 8)}; m = ${c.estimatedParameters} estimated parameter${c.estimatedParameters === 1 ? '' : 's'}, n = ${n}; ` +
+        `AIC ${num(c.aic, 8)}, AICc ${num(c.aicc, 8)}, BIC ${num(c.bic, 8)}; ΔAICc ${num(c.deltaAicc, 4)}`,
+      label('criteria'),
+      cont,
+    ),
+  );
+  const cs = c.chiSquare;
+  if (cs.computable) {
+    out.push(
+      wrap(
+        `X² = ${num(cs.statistic)} on ${cs.dof} dof (k - 1 - m), p = ${pText(cs.pValue)}; on ${cs.dofUpper} dof (k - 1), p = ${pText(cs.pValueUpper)}; ` +
+          `the true p lies between (Chernoff & Lehmann 1954). Critical value at α = ${num(cs.alpha)}: ${num(cs.criticalValue)}. ` +
+          `${cs.kRule} Counts observed/expected: ${cs.bins.map((b) => `${b.observed}/${num(b.expected, 4)}`).join(' ')}.`,
+        label('chi-square'),
+        cont,
+      ),
+    );
+  } else {
+    out.push(wrap(`not computed: ${cs.reason}`, label('chi-square'), cont));
+  }
+  const ad = c.andersonDarling;
+  const modified = ad.modifiedStatistic !== undefined ? ` (modified ${num(ad.modifiedStatistic)})` : '';
+  const mc =
+    ad.method === 'bootstrap' && ad.replicates !== undefined
+      ? `; ${ad.replicates} replicates, seed ${String(ad.seed)}, Monte Carlo s.e. ${num(ad.monteCarloStandardError ?? Number.NaN, 3)}`
+      : '';
+  out.push(
+    wrap(
+      `A² = ${num(ad.statistic)}${modified}, p ${ad.pValueIs === 'estimate' ? '= ' : ''}${pText(ad.pValue, ad.pValueIs)}` +
+        `${ad.pValueIs === 'estimate' ? '' : ' (a bound: the statistic lies outside the table)'}, ` +
+        `by ${ad.method === 'table' ? 'published table' : 'parametric bootstrap'}${mc} (details under Methods).`,
+      label('A-D'),
+      cont,
+    ),
+  );
+  out.push(wrap(c.verdict, label('verdict'), cont));
+  return out;
+}
+
+export function textReport(report: AnalysisReport, input: CliInput): string {
+  const r = report;
+  const lines: string[] = [];
+  lines.push(`Plumbline ${r.software.version}: model fit report`);
+  lines.push('');
+  lines.push(wrap(`${input.file}, column ${JSON.stringify(input.column)} (column ${input.columnIndex})`, '  input     ', ' '.repeat(12)));
+  lines.push(
+    wrap(
+      `${input.rowsRead} data row${input.rowsRead === 1 ? '' : 's'} read, ${r.n} value${r.n === 1 ? '' : 's'} used; ${describeSkipped(input)}`,
+      '  rows      ',
+      ' '.repeat(12),
+    ),
+  );
+  lines.push(
+    `  values    min ${num(r.summary.min)}, max ${num(r.summary.max)}, mean ${num(r.summary.mean)}, ` +
+      `sd ${num(r.summary.sd)} (n - 1), ${r.summary.distinct} distinct`,
+  );
+  lines.push(
+    wrap(
+      `models ${r.options.families.join(', ')}; α = ${num(r.options.alpha)}; bins ${r.options.bins === null ? 'by rule' : String(r.options.bins)}; ` +
+        `Anderson–Darling p-values by ${r.options.pMethod === 'table' ? 'published tables (bootstrap where none exists)' : 'parametric bootstrap'}` +
+        (r.options.pMethod === 'bootstrap' || r.candidates.some((c) => c.andersonDarling.method === 'bootstrap')
+          ? `, ${r.options.bootstrapReplicates} replicates, seed ${r.options.seed}`
+          : ''),
+      '  settings  ',
+      ' '.repeat(12),
+    ),
+  );
+  lines.push('');
+  if (r.candidates.length > 0) {
+    lines.push('Ranking (best first)');
+    lines.push(...rankingTable(r));
+    lines.push('');
+    lines.push('Candidates');
+    for (const c of r.candidates) {
+      lines.push(...candidateBlock(c, r.n));
+      lines.push('');
+    }
+  } else {
+    lines.push('No candidate model could be fitted.');
+    lines.push('');
+  }
+  if (r.notApplicable.length > 0) {
+    lines.push('Not applicable');
+    for (const na of r.notApplicable) lines.push(wrap(na.reason, `  ${na.family}: `, '    '));
+    lines.push('');
+  }
+  const warnings = [...input.warnings, ...r.warnings];
+  if (warnings.length > 0) {
+    lines.push('Warnings');
+    for (const w of warnings) lines.push(wrap(w, '  - ', '    '));
+    lines.push('');
+  }
+  lines.push('Ranking rule');
+  lines.push(wrap(r.rankingRule, '  ', '  '));
+  lines.push('');
+  if (r.methods.length > 0) {
+    lines.push('Methods and sources');
+    for (const m of r.methods) {
+      if (m.description === r.rankingRule) continue; // shown above
+      lines.push(wrap(`${m.description} Source: ${m.source}`, `  - ${m.topic}: `, '    '));
+    }
+    lines.push('');
+  }
+  lines.push('Caution');
+  lines.push(
+    wrap(
+      'A fitted model describes these data only. Where a result feeds a safety decision (the life of a part, a design flood, ' +
+        'a safety-critical dimension), it needs review by a qualified person under the governing codes, standards and local regulations.',
+      '  ',
+      '  ',
+    ),
+  );
+  return lines.join('\n') + '\n';
+}
