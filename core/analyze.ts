@@ -388,6 +388,7 @@ function adSource(family: FamilyName, method: PMethod): string {
     case 'exponential':
       return "D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, ch. 4 (exponential case).";
     case 'weibull':
+    case 'gumbel':
       return 'Stephens (1977), Biometrika 64:583-588 (extreme-value case).';
     case 'gamma':
       return "Plumbline's simulated grid (scripts/simulate-ad-tables.ts), checked against D'Agostino & Stephens (1986) Table 4.21 at shape 1.";

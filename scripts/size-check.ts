@@ -12,12 +12,13 @@ import { fileURLToPath } from 'node:url';
 import { createRng, finishAnalysis, getFamily, planAnalysis, type FamilyName, type Parameters } from '../core/index.js';
 
 /** The true parameters each family is simulated from (arbitrary, common practice, no source). */
-export const SIZE_CHECK_PARAMETERS: Readonly<Record<FamilyName, Parameters>> = {
+export const SIZE_CHECK_PARAMETERS: Readonly<Partial<Record<FamilyName, Parameters>>> = {
   normal: { mean: 10, sd: 2 },
   lognormal: { meanlog: 1, sdlog: 0.5 },
   gamma: { shape: 2.5, scale: 3 },
   weibull: { shape: 1.5, scale: 4 },
   exponential: { rate: 0.5 },
+  gumbel: { location: 100, scale: 20 },
 };
 
 export interface SizeCheckResult {
@@ -36,6 +37,7 @@ export interface SizeCheckResult {
 export function sizeCheck(family: FamilyName, replicates: number, n: number, alpha: number, seed: number): SizeCheckResult {
   const fam = getFamily(family);
   const params = SIZE_CHECK_PARAMETERS[family];
+  if (!params) throw new Error(`no size-check parameters for ${family}`);
   let ad = 0;
   let chi = 0;
   let chiUp = 0;

@@ -16,7 +16,7 @@ import { GAMMA_AD_TABLE } from './ad-gamma-table.js';
 
 /** Families with a table p-value. */
 export function hasTablePValue(family: FamilyName): boolean {
-  return family === 'normal' || family === 'lognormal' || family === 'exponential' || family === 'weibull' || family === 'gamma';
+  return family === 'normal' || family === 'lognormal' || family === 'exponential' || family === 'weibull' || family === 'gumbel' || family === 'gamma';
 }
 
 /**
@@ -58,13 +58,18 @@ export function tablePValue(family: FamilyName, parameters: Parameters, sample: 
           "Exponential case, origin known (0), mean estimated: D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, ch. 4 p-value formula, entered with A* = A²(1 + 0.6/n).",
       };
     }
-    case 'weibull': {
+    case 'weibull':
+    case 'gumbel': {
       const aStar = weibullCaseModified(a2, n);
+      const what =
+        family === 'weibull'
+          ? 'Two-parameter Weibull through the extreme-value test of ln x (same A²)'
+          : 'Gumbel (extreme value) with location and scale estimated';
       return {
         ...weibullCasePValue(aStar),
         modifiedStatistic: aStar,
         methodDetail:
-          'Two-parameter Weibull through the extreme-value test of ln x (same A²): Stephens (1977), Biometrika 64:583-588, critical values of A* = A²(1 + 0.2/√n) at 25, 10, 5, 2.5 and 1 %, ' +
+          `${what}: Stephens (1977), Biometrika 64:583-588, critical values of A* = A²(1 + 0.2/√n) at 25, 10, 5, 2.5 and 1 %, ` +
           'ln p interpolated linearly between them; outside that range the p-value is a bound.',
       };
     }

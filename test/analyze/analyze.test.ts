@@ -38,7 +38,7 @@ describe('analyze, D1 end to end', () => {
     expect(r.n).toBe(20);
     expect(r.candidates.map((c) => c.family)).toEqual(['lognormal', 'gamma', 'weibull', 'normal', 'exponential']);
     for (const c of r.candidates) {
-      const ref = REF[c.family];
+      const ref = REF[c.family as keyof typeof REF];
       const aicc = ref.aic + (2 * ref.m * (ref.m + 1)) / (20 - ref.m - 1);
       expect(Math.abs(c.aic - ref.aic), c.family).toBeLessThanOrEqual(0.5e-4);
       expect(Math.abs(c.aicc - aicc), c.family).toBeLessThanOrEqual(0.5e-4);
