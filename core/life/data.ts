@@ -27,32 +27,45 @@ export interface LifeData {
   readonly minTime: number;
 }
 
+/**
+ * Build LifeData from trusted arrays (the bootstrap's simulated samples) without the user-input
+ * checks: times may be ≤ 0 under a normal model.
+ */
+export function buildLifeData(times: Float64Array, failed: Uint8Array): LifeData {
+  return assemble(times, failed);
+}
+
 export function prepareLifeData(input: LifeInput): LifeData {
   const n = input.times.length;
   if (input.failed.length !== n) {
     throw new InputError(`The status column has ${input.failed.length} entries but there are ${n} times.`, {}, 'bad-input');
   }
   if (n === 0) throw new InputError('No units to analyse: the life data are empty.', {}, 'too-few-values');
-  const idx = new Array<number>(n);
   for (let i = 0; i < n; i++) {
     const t = input.times[i] as number;
     const f = input.failed[i] as number;
     if (!Number.isFinite(t)) throw new InputError(`Unit #${i + 1}: time ${String(t)} is not a finite number.`, { value: String(t) }, 'not-a-number');
     if (!(t > 0)) throw new InputError(`Unit #${i + 1}: time ${String(t)} must be > 0 for life data.`, { value: String(t) }, 'bad-input');
     if (f !== 0 && f !== 1) throw new InputError(`Unit #${i + 1}: status ${String(f)} must be 1 (failed) or 0 (suspended).`, { value: String(f) }, 'bad-input');
-    idx[i] = i;
   }
+  return assemble(input.times, input.failed);
+}
+
+function assemble(inTimes: LifeInput['times'], inFailed: LifeInput['failed']): LifeData {
+  const n = inTimes.length;
+  const idx = new Array<number>(n);
+  for (let i = 0; i < n; i++) idx[i] = i;
   idx.sort((a, b) => {
-    const d = (input.times[a] as number) - (input.times[b] as number);
-    return d !== 0 ? d : (input.failed[b] as number) - (input.failed[a] as number);
+    const d = (inTimes[a] as number) - (inTimes[b] as number);
+    return d !== 0 ? d : (inFailed[b] as number) - (inFailed[a] as number);
   });
   const times = new Float64Array(n);
   const failed = new Uint8Array(n);
   let r = 0;
   for (let i = 0; i < n; i++) {
     const j = idx[i] as number;
-    times[i] = input.times[j] as number;
-    failed[i] = input.failed[j] as number;
+    times[i] = inTimes[j] as number;
+    failed[i] = inFailed[j] as number;
     r += failed[i] as number;
   }
   const failureTimes = new Float64Array(r);

@@ -3,9 +3,15 @@
  * plot positions, B-lives and reliability with bounds, hazard curves, bootstrap goodness of fit,
  * and `analyzeLife`, the one-call report.
  */
-export { prepareLifeData, type LifeData, type LifeInput } from './data.js';
+export { prepareLifeData, buildLifeData, type LifeData, type LifeInput } from './data.js';
 export { censoredLogLikelihood } from './likelihood.js';
 export { fitWeibullCensored, type WeibullCensoredFit } from './weibull-censored.js';
 export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure } from './fit.js';
 export { LIFE_FAMILIES, lifeModel, type LifeFamilyName, type LifeModel } from './models.js';
 export { bLife, reliabilityAt, parameterInterval, type BLife, type ReliabilityAt, type BoundedEstimate, type BoundMethod } from './bounds.js';
+export { plotPositions, johnsonBenardPositions, kaplanMeierPositions, weibullScaleY, lognormalScaleY, type PlotPositions, type PlotPoint, type PlotCoordinates, type PlotPositionMethod } from './positions.js';
+export { censoredAndersonDarling } from './anderson-darling.js';
+export { censoredGofBootstrap, CENSORED_AD_METHOD, type CensoredGofResult, type BootstrapOptions } from './bootstrap.js';
+export { lifeCurves, logGrid, type LifeCurves } from './curves.js';
+export { analyzeLife, FEW_FAILURES, CHI_SQUARE_NOT_APPLICABLE } from './analyze.js';
+export type { LifeOptions, LifeReport, LifeCandidate, LifeNotFitted, LifeMethodNote } from './types.js';

@@ -1,0 +1,82 @@
+/** The life-data report: what `analyzeLife` returns, for the CLI, the server and the page. */
+import type { Parameters } from '../families/index.js';
+import type { BLife, BoundedEstimate, BoundMethod, ReliabilityAt } from './bounds.js';
+import type { CensoredGofResult } from './bootstrap.js';
+import type { LifeCurves } from './curves.js';
+import type { LifeFamilyName } from './models.js';
+import type { PlotPositionMethod, PlotPositions } from './positions.js';
+
+export interface LifeOptions {
+  /** Candidate families (default: all five). */
+  readonly families?: readonly LifeFamilyName[];
+  /** B-life percents, e.g. [1, 10, 50] for `--b-life 1,10,50` (default [10]). */
+  readonly bLifePercents?: readonly number[];
+  /** Two-sided confidence level of every bound (default 0.90). */
+  readonly confidence?: number;
+  /** Bound method (default 'likelihood-ratio'). */
+  readonly boundMethod?: BoundMethod;
+  /** Times at which to report reliability with bounds (default none). */
+  readonly reliabilityTimes?: readonly number[];
+  /** Bootstrap replicates for the censored Anderson–Darling p-value (default 200; 0 turns it off). */
+  readonly bootstrapReplicates?: number;
+  readonly seed?: number;
+  /** Probability-plot positions (default 'johnson-benard'). */
+  readonly plotPositions?: PlotPositionMethod;
+  /** Points on the curve grid (default 60). */
+  readonly curvePoints?: number;
+}
+
+export interface LifeMethodNote {
+  readonly topic: string;
+  readonly text: string;
+  readonly source: string;
+}
+
+export interface LifeCandidate {
+  readonly family: LifeFamilyName;
+  readonly label: string;
+  readonly parameters: Parameters;
+  readonly estimatedParameters: number;
+  readonly logLikelihood: number;
+  readonly aic: number;
+  readonly aicc: number;
+  readonly bic: number;
+  readonly rank: number;
+  readonly deltaAicc: number;
+  readonly converged: boolean;
+  readonly iterations: number;
+  readonly method: string;
+  readonly bLives: readonly BLife[];
+  readonly reliability: readonly ReliabilityAt[];
+  /** Mean life of the fitted model (no bounds). */
+  readonly meanLife: number;
+  /** Weibull shape with its profile-likelihood interval (Weibull only). */
+  readonly shapeInterval: BoundedEstimate | null;
+  readonly curves: LifeCurves;
+  /** Censored Anderson–Darling with bootstrap p-value; null when the bootstrap is turned off. */
+  readonly goodnessOfFit: CensoredGofResult | null;
+  readonly warnings: readonly string[];
+}
+
+export interface LifeNotFitted {
+  readonly family: LifeFamilyName;
+  readonly reason: string;
+}
+
+export interface LifeReport {
+  /** All units. */
+  readonly n: number;
+  readonly failures: number;
+  readonly suspensions: number;
+  readonly confidence: number;
+  readonly boundMethod: BoundMethod;
+  /** Ranked by AICc (n = all units), best first. */
+  readonly candidates: readonly LifeCandidate[];
+  readonly notFitted: readonly LifeNotFitted[];
+  readonly plot: PlotPositions;
+  /** Why the equiprobable chi-square test is not reported. */
+  readonly chiSquare: { readonly applies: false; readonly reason: string };
+  readonly warnings: readonly string[];
+  readonly cautions: readonly string[];
+  readonly methods: readonly LifeMethodNote[];
+}
