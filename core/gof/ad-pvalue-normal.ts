@@ -23,9 +23,18 @@ export function normalCasePValue(aStar: number): number {
   if (aStar < 0.2) p = -Math.expm1(-13.436 + 101.14 * aStar - 223.73 * aStar * aStar);
   else if (aStar < 0.34) p = -Math.expm1(-8.318 + 42.796 * aStar - 59.938 * aStar * aStar);
   else if (aStar < 0.6) p = Math.exp(0.9177 - 4.279 * aStar - 1.38 * aStar * aStar);
-  else p = Math.exp(1.2937 - 5.709 * aStar + 0.0186 * aStar * aStar);
+  else {
+    const a = Math.min(aStar, NORMAL_TURNING_POINT);
+    p = Math.exp(1.2937 - 5.709 * a + 0.0186 * a * a);
+  }
   return Math.min(1, Math.max(0, p));
 }
+
+/**
+ * The last branch's quadratic has its minimum at A* = 5.709/(2·0.0186) ≈ 153.5 (p ≈ 1e-190) and
+ * would rise again beyond it; the p-value is held at that minimum there (our guard, no source).
+ */
+const NORMAL_TURNING_POINT = 5.709 / (2 * 0.0186);
 
 /** Upper critical values of A* (D'Agostino & Stephens 1986, Table 4.7). */
 export const NORMAL_CASE_CRITICAL = [

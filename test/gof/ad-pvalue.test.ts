@@ -28,6 +28,18 @@ describe("normal case (D'Agostino & Stephens 1986 Table 4.9, via references.md)"
     expect(normalCasePValue(0.34)).toBeCloseTo(0.49823, 5);
   });
 
+  it('never rises again for huge A* (the quadratic turns at 153.5; held there)', () => {
+    // Guard against the formula's upturn (our rule, no source): p stays tiny and non-increasing.
+    let prev = 1;
+    for (const a of [0.1, 0.5, 1, 2, 5, 20, 100, 150, 153, 160, 300, 1e4]) {
+      const p = normalCasePValue(a);
+      expect(p, String(a)).toBeLessThanOrEqual(prev + 0.004);
+      prev = p;
+    }
+    expect(normalCasePValue(1e4)).toBeLessThan(1e-100);
+    expect(exponentialCasePValue(1e4)).toBeLessThan(1e-6);
+  });
+
   it('Table 4.7 critical values map close to their α (formula fitted to the table; within 3 % relative)', () => {
     for (const { alpha, value } of NORMAL_CASE_CRITICAL) {
       expect(Math.abs(normalCasePValue(value) / alpha - 1), String(alpha)).toBeLessThan(0.03);
