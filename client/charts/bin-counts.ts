@@ -55,6 +55,7 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     const bw = x.bandwidth();
     const bar = g
       .append('rect')
+      .attr('data-kind', 'bar')
       .attr('x', round(x0))
       .attr('y', round(y(r.observed)))
       .attr('width', round(bw))
@@ -70,6 +71,7 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
           `residual ${sig(r.pearsonResidual, 3)}, adds ${sig(r.contribution, 3)} to chi-square`,
       );
     g.append('line')
+      .attr('data-kind', 'expected')
       .attr('x1', round(x0 - bw * 0.08))
       .attr('x2', round(x0 + bw * 1.08))
       .attr('y1', round(y(r.expected)))
@@ -78,6 +80,7 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
       .attr('stroke-width', 3);
   }
   g.append('line')
+    .attr('data-kind', 'reference')
     .attr('x1', 0)
     .attr('x2', frame.innerWidth)
     .attr('y1', round(y(MIN_EXPECTED)))

@@ -47,6 +47,8 @@ export function cdfChart(container: Element, data: CdfChartData, options: ChartO
     const emph = c.family === data.selected;
     const pts = data.cdf.fitted.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
     g.append('path')
+      .attr('data-kind', 'curve')
+      .attr('data-family', c.family)
       .attr('d', pathThrough(pts))
       .attr('stroke', s.colour)
       .attr('stroke-width', emph ? 3 : 1.6)
@@ -62,7 +64,7 @@ export function cdfChart(container: Element, data: CdfChartData, options: ChartO
     d += `H${round(x(xv))}V${round(y(e.p[j] ?? 0))}`;
   });
   d += `H${round(x(data.xDomain[1]))}`;
-  g.append('path').attr('d', d).attr('stroke', INK.data).attr('stroke-width', 1.6);
+  g.append('path').attr('data-kind', 'ecdf').attr('d', d).attr('stroke', INK.data).attr('stroke-width', 1.6);
 
   drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), axisLabel(quantity, options.units));
   drawYAxis(frame, axisLeft(y).ticks(5, '.0%'), 'Share at or below');

@@ -64,6 +64,7 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
     const x1 = x(b.upper);
     const rect = bars
       .append('rect')
+      .attr('data-kind', 'bar')
       .attr('x', round(x0))
       .attr('y', round(y(b.density)))
       .attr('width', round(Math.max(0, x1 - x0)))
@@ -84,6 +85,8 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
     const pts = data.densities.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
     curves
       .append('path')
+      .attr('data-kind', 'curve')
+      .attr('data-family', c.family)
       .attr('d', pathThrough(pts))
       .attr('stroke', s.colour)
       .attr('stroke-width', emph ? 3 : 1.6)

@@ -81,6 +81,7 @@ export function probabilityPlotChart(container: Element, data: ProbabilityChartD
     .x0((r) => round(x(r.lo as number)))
     .x1((r) => round(x(r.hi as number)))(bandRows);
   g.append('path')
+    .attr('data-kind', 'band')
     .attr('d', bandPath ?? '')
     .attr('fill', style.colour)
     .attr('fill-opacity', 0.2)
@@ -89,14 +90,14 @@ export function probabilityPlotChart(container: Element, data: ProbabilityChartD
     .text(p.band.description);
 
   const line = p.fittedLine.x.map((xv, i) => [x(xv), y(p.fittedLine.y[i] ?? Number.NaN)] as const);
-  g.append('path').attr('d', pathThrough(line)).attr('fill', 'none').attr('stroke', style.colour).attr('stroke-width', 2.5);
+  g.append('path').attr('data-kind', 'fitted-line').attr('d', pathThrough(line)).attr('fill', 'none').attr('stroke', style.colour).attr('stroke-width', 2.5);
 
   const r = p.points.x.length > 400 ? 1.6 : 2.6;
   const pts = g.append('g').attr('fill', INK.data).attr('fill-opacity', 0.85);
   p.points.x.forEach((xv, i) => {
     const yv = p.points.y[i];
     if (yv === undefined || !Number.isFinite(xv) || !Number.isFinite(yv)) return;
-    pts.append('circle').attr('cx', round(x(xv))).attr('cy', round(y(yv))).attr('r', r);
+    pts.append('circle').attr('data-kind', 'point').attr('cx', round(x(xv))).attr('cy', round(y(yv))).attr('r', r);
   });
 
   // x axis: in data units. On an ln scale, ticks are nice data values placed at ln(value).

@@ -1,0 +1,167 @@
+// @vitest-environment jsdom
+/**
+ * The exports: the self-contained HTML report, the bins CSV, and the escaping and number
+ * formatting they rely on. The report is built from a real core analysis of an invented sample.
+ */
+import { describe, expect, it } from 'vitest';
+import { analyze, computeEvidence, prepareSample } from '../../core/index.js';
+import { csvCell, csvDocument } from '../../client/src/csv-export.js';
+import { escapeHtml } from '../../client/src/escape.js';
+import { pValue, sig } from '../../client/src/format.js';
+import { buildReportHtml } from '../../client/src/report-html.js';
+import { binsCsv } from '../../client/src/bins-csv.js';
+import { binsTableRows, drawEvidence, evidenceFor } from '../../client/src/evidence-render.js';
+import { candidateCells } from '../../client/src/candidate-cells.js';
+import type { AnalyzeResponse } from '../../client/src/api.js';
+
+describe('CSV cells (OWASP "CSV Injection": neutralise cells starting with = + - @, tab or CR)', () => {
+  it.each([
+    ['=1+2', `"'=1+2"`],
+    ['+SUM(A1:A2)', `"'+SUM(A1:A2)"`],
+    ['-2+3', `"'-2+3"`],
+    ['@cmd', `"'@cmd"`],
+    ['\tx', `"'\tx"`],
+  ])('neutralises %j', (input, expected) => {
+    expect(csvCell(input)).toBe(expected);
+  });
+
+  it('quotes commas, quotes and line breaks by RFC 4180 §2 and leaves plain text and numbers alone', () => {
+    expect(csvCell('a,b')).toBe('"a,b"');
+    expect(csvCell('say "hi"')).toBe('"say ""hi"""');
+    expect(csvCell('two\nlines')).toBe('"two\nlines"');
+    expect(csvCell('bearing')).toBe('bearing');
+    expect(csvCell(-3.5)).toBe('-3.5');
+    expect(csvCell(null)).toBe('');
+    expect(csvDocument([['a', 1], ['b', 2]])).toBe('a,1\r\nb,2\r\n');
+  });
+});
+
+describe('HTML escaping (OWASP XSS Prevention Cheat Sheet, rule 1)', () => {
+  it('encodes & < > " and \'', () => {
+    expect(escapeHtml(`<a href="x" onclick='y'>&</a>`)).toBe('&lt;a href=&quot;x&quot; onclick=&#39;y&#39;&gt;&amp;&lt;/a&gt;');
+  });
+});
+
+describe('number formatting for reading', () => {
+  it('shows a p-value bound as a bound, e.g. "< 0.005" (the AD table gives only a bound beyond its range)', () => {
+    expect(pValue(0.005, 'upper-bound')).toBe('< 0.005');
+    expect(pValue(0.25, 'lower-bound')).toBe('> 0.25');
+    expect(pValue(0.04321)).toBe('0.0432');
+    expect(pValue(3.2e-7)).toBe('3.2e-7');
+  });
+  it('rounds to significant figures with a true minus sign (common practice, no source)', () => {
+    expect(sig(1234.5678)).toBe('1235');
+    expect(sig(-0.000123456)).toBe('−0.0001235');
+    expect(sig(1.5e9)).toBe('1.5e+9');
+  });
+});
+
+// An invented sample: Weibull-like quantiles, with hostile text in every user field.
+const VALUES = Array.from({ length: 40 }, (_, i) => 100 * Math.pow(-Math.log(1 - (i + 0.5) / 40), 1 / 1.8));
+const HOSTILE = '<script>alert("x")</script>';
+
+function response(): AnalyzeResponse {
+  const report = analyze(VALUES, { alpha: 0.05 });
+  const evidence = computeEvidence(prepareSample(VALUES), report);
+  return {
+    ...report,
+    evidence,
+    input: {
+      source: 'csv',
+      n: 40,
+      column: HOSTILE,
+      rowsRead: 42,
+      skipped: [{ reason: 'non-numeric', count: 2, firstRow: 5, firstColumn: HOSTILE, firstValue: '=cmd|x' }],
+      blankLines: 0,
+      header: [HOSTILE],
+      warnings: [],
+    },
+  };
+}
+
+function buildReport(): string {
+  const resp = response();
+  const selected = resp.candidates[0]!.family;
+  const targets = { histogram: document.createElement('div'), probability: document.createElement('div'), bins: document.createElement('div'), cdf: document.createElement('div') };
+  const svgs = drawEvidence(targets, resp.evidence!, selected, { units: HOSTILE, quantity: HOSTILE, sizeOf: () => ({ width: 760, height: 440 }) });
+  const ce = evidenceFor(resp.evidence!, selected)!;
+  return buildReportHtml({
+    response: resp,
+    selected,
+    sourceName: `${HOSTILE}.csv`,
+    column: HOSTILE,
+    units: HOSTILE,
+    quantity: HOSTILE,
+    generatedAt: new Date('2026-12-01T22:00:00Z'),
+    charts: svgs.map((s) => ({ svg: s.outerHTML, caption: 'caption' })),
+    binsTable: binsTableRows(ce, (x) => (x === null ? '∞' : String(x))),
+    requestedBins: null,
+  });
+}
+
+describe('the HTML report', () => {
+  const html = buildReport();
+  const doc = new DOMParser().parseFromString(html, 'text/html');
+
+  it('contains the ranking table with every candidate and four inline SVG charts', () => {
+    const rows = doc.querySelectorAll('table.ranking tbody tr');
+    expect(rows.length).toBe(response().candidates.length);
+    expect(doc.querySelectorAll('figure svg')).toHaveLength(4);
+    expect(doc.querySelector('tr.selected')).not.toBeNull();
+  });
+
+  it('records software version, date, seed, α and the methods with their sources', () => {
+    const text = doc.body.textContent ?? '';
+    const r = response();
+    expect(text).toContain(`plumbline ${r.software.version}`);
+    expect(text).toContain('2026-12-01T22:00:00.000Z');
+    expect(text).toContain(String(r.options.seed));
+    expect(text).toContain('Significance level α0.05');
+    for (const m of r.methods) expect(text).toContain(m.source);
+    expect(text).toContain('licensed');
+  });
+
+  it('has no script and no external resource: self-contained (no src/href to other files)', () => {
+    expect(doc.querySelectorAll('script')).toHaveLength(0);
+    expect(html).not.toMatch(/<script/i);
+    expect(doc.querySelectorAll('[src], link[href]')).toHaveLength(0);
+    expect(html).not.toMatch(/url\((?!#)/); // only in-document references such as url(#clip-1)
+    expect(html).not.toMatch(/https?:\/\/(?!www\.w3\.org\/2000\/svg)/);
+  });
+
+  it('escapes user text everywhere it appears (OWASP XSS Prevention Cheat Sheet, rule 1)', () => {
+    expect(html).toContain('&lt;script&gt;');
+    // The hostile text is shown as text, in the title, the headings and the chart labels.
+    expect(doc.title).toContain(HOSTILE);
+    expect(doc.body.textContent).toContain(`${HOSTILE}.csv`);
+  });
+});
+
+describe('the bins CSV', () => {
+  it('has one row per bin plus a header, observed counts summing to n, and neutralised user text', () => {
+    const resp = response();
+    const ce = evidenceFor(resp.evidence!, resp.candidates[0]!.family)!;
+    const csv = binsCsv(ce, '=HYPERLINK("http://x")', '@col', '+u');
+    const lines = csv.trimEnd().split('\r\n');
+    expect(lines.length).toBe(ce.bins.rows.length + 1);
+    // Observed counts sum to n (every value falls in exactly one bin; common practice, no source).
+    const observed = lines.slice(1).map((l) => Number(l.split(',').at(-4)));
+    expect(observed.reduce((a, b) => a + b, 0)).toBe(40);
+    expect(csv).toContain(`"'=HYPERLINK(""http://x"")"`);
+    expect(csv).toContain(`"'@col"`);
+    expect(csv).toContain(`"'+u"`);
+    for (const line of lines) for (const cell of line.split(',')) expect(cell).not.toMatch(/^[=+@]/);
+  });
+});
+
+describe('table cells shared by the page and the report', () => {
+  it('give the chi-square p with its k-1 bracket and the AD method', () => {
+    const resp = response();
+    const c = resp.candidates.find((x) => x.chiSquare.computable)!;
+    const cells = candidateCells(c);
+    expect(cells.dof).toMatch(/^\d+ \[\d+\]$/);
+    expect(cells.chiP).toMatch(/\[.+\]$/);
+    expect(['published formula']).toContain(cells.adMethod);
+    expect(cells.badge).toMatch(/^(✓ not rejected|✗ rejected by .+)$/);
+  });
+});
