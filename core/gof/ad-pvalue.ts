@@ -29,12 +29,16 @@ export function tablePValue(family: FamilyName, parameters: Parameters, sample: 
     case 'normal':
     case 'lognormal': {
       // Table 4.9 is built with the n - 1 standard deviation: recompute A² with it.
+      // Lognormal: the same number as the normal test of ln x, computed on the sample's cached logs.
       const inflate = Math.sqrt(n / (n - 1));
-      const p: Parameters =
+      const logs = family === 'lognormal' ? sample.logs() : null;
+      const tableA2 =
         family === 'normal'
-          ? { mean: parameters['mean'] as number, sd: (parameters['sd'] as number) * inflate }
-          : { meanlog: parameters['meanlog'] as number, sdlog: (parameters['sdlog'] as number) * inflate };
-      const tableA2 = andersonDarlingStatistic(getFamily(family).make(p), sample.sorted);
+          ? andersonDarlingStatistic(getFamily('normal').make({ mean: parameters['mean'] as number, sd: (parameters['sd'] as number) * inflate }), sample.sorted)
+          : logs !== null
+            ? andersonDarlingStatistic(getFamily('normal').make({ mean: parameters['meanlog'] as number, sd: (parameters['sdlog'] as number) * inflate }), logs)
+            : Number.NaN;
+      if (Number.isNaN(tableA2)) return null;
       const aStar = normalCaseModified(tableA2, n);
       const on = family === 'normal' ? 'x' : 'ln x';
       return {
