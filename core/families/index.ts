@@ -8,9 +8,13 @@ import { gamma } from './gamma.js';
 import { lognormal } from './lognormal.js';
 import { normal } from './normal.js';
 import { weibull } from './weibull.js';
+import { weibull3 } from './weibull3.js';
+import { lognormal3 } from './lognormal3.js';
 
 export type * from './types.js';
 export { exponential, gamma, lognormal, normal, weibull };
+// Threshold families (three-parameter Weibull and lognormal); not in DEFAULT_FAMILIES.
+export { weibull3, lognormal3 };
 
 const registry = new Map<FamilyName, Family>();
 
@@ -38,6 +42,9 @@ registerFamily(lognormal);
 registerFamily(gamma);
 registerFamily(weibull);
 registerFamily(exponential);
+// Threshold (three-parameter) families; not in DEFAULT_FAMILIES.
+registerFamily(weibull3);
+registerFamily(lognormal3);
 
 /** The default candidate set for a complete sample. */
 export const DEFAULT_FAMILIES: readonly FamilyName[] = ['normal', 'lognormal', 'gamma', 'weibull', 'exponential'];

@@ -2,7 +2,7 @@ import type { Sample } from '../sample.js';
 import type { Rng } from '../random/index.js';
 
 /** Names of the model families Plumbline can fit. */
-export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential';
+export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential' | 'weibull3' | 'lognormal3';
 
 /** Parameters by role name, e.g. `{ shape: 1.4, scale: 722 }`. Never positional. */
 export type Parameters = Readonly<Record<string, number>>;
@@ -51,6 +51,8 @@ export interface FitSuccess {
   readonly converged: boolean;
   /** How the estimate was obtained, in words, e.g. "closed form" or "Newton on the profile equation". */
   readonly method: string;
+  /** Plain-words warnings about the estimate (e.g. a threshold on its bound); absent when none. */
+  readonly warnings?: readonly string[];
 }
 
 /** The family cannot be fitted to this sample (e.g. zeros or negatives for a positive family). */

@@ -81,6 +81,7 @@ export function maximize(f: (theta: Float64Array) => number, theta0: ArrayLike<n
   });
   if (!Number.isFinite(fz)) return done(false, 'non-finite objective');
   const n = z.length;
+  let noiseSteps = 0;
   for (let it = 0; it < maxIt; it++) {
     iterations++;
     const grad = numericalGradient(g, z);
@@ -105,7 +106,11 @@ export function maximize(f: (theta: Float64Array) => number, theta0: ArrayLike<n
     let relStep = 0;
     for (let i = 0; i < n; i++) relStep = Math.max(relStep, Math.abs(d[i] as number) / Math.max(Math.abs(z[i] as number), 1));
     const roundLevel = 8 * Number.EPSILON * Math.max(Math.abs(fz), 1);
-    // Backtracking line search on f (accept any non-decrease).
+    // Backtracking line search on f (accept any non-decrease). Near the optimum the predicted gain
+    // falls below the rounding level of f, so f can no longer rank the points: there the full Newton
+    // step (driven by the gradient, which still carries information) is taken as long as f does not
+    // drop by more than rounding, for a few more iterations.
+    const atNoise = lambda === 0 && decrement <= roundLevel;
     let t = 1;
     let accepted = false;
     let zNew = z;
@@ -114,21 +119,25 @@ export function maximize(f: (theta: Float64Array) => number, theta0: ArrayLike<n
       const trial = new Float64Array(n);
       for (let i = 0; i < n; i++) trial[i] = (z[i] as number) + t * (d[i] as number);
       const ft = g(trial);
-      if (ft >= fz) {
+      if (ft >= fz || (atNoise && k === 0 && ft >= fz - roundLevel)) {
         zNew = trial;
         fNew = ft;
         accepted = true;
         break;
       }
+      if (atNoise) break;
       t *= 0.5;
     }
     if (accepted) {
       z = zNew;
       fz = fNew;
     }
-    if (lambda === 0 && relStep * t <= xtol && accepted) return done(true, 'step below tolerance');
     if (lambda === 0 && relStep <= xtol) return done(true, 'step below tolerance');
-    if (lambda === 0 && decrement <= roundLevel) return done(true, 'gain below rounding level');
+    if (atNoise) {
+      noiseSteps++;
+      if (!accepted || noiseSteps >= 4) return done(true, 'gain below rounding level');
+      continue;
+    }
     if (!accepted) return done(false, 'no ascent direction');
   }
   return done(false, 'iteration limit');
