@@ -147,10 +147,17 @@ function validateSample(sample: Sample, families: readonly FamilyName[]): void {
   }
 }
 
-/** Everything up to the bootstrap. Throws InputError on bad input or options. */
-export function planAnalysis(values: ArrayLike<number>, options: AnalyzeOptions = {}): AnalysisPlan {
+function isSample(v: ArrayLike<number> | Sample): v is Sample {
+  return typeof (v as Sample).logs === 'function' && (v as Sample).sorted instanceof Float64Array;
+}
+
+/**
+ * Everything up to the bootstrap. Throws InputError on bad input or options. `values` may be an
+ * already prepared Sample (e.g. from a streaming reader that sorted once), used as is.
+ */
+export function planAnalysis(values: ArrayLike<number> | Sample, options: AnalyzeOptions = {}): AnalysisPlan {
   const opts = resolveOptions(options);
-  const sample = prepareSample(values);
+  const sample = isSample(values) ? values : prepareSample(values);
   validateSample(sample, opts.families);
   if (opts.bins !== null) {
     // Validate a user k once, up front, against the most demanding family.
@@ -410,7 +417,7 @@ export function runPlanBootstrap(plan: AnalysisPlan, options: Pick<AnalyzeOption
 }
 
 /** The whole analysis, in-process. */
-export function analyze(values: ArrayLike<number>, options: AnalyzeOptions = {}): AnalysisReport {
+export function analyze(values: ArrayLike<number> | Sample, options: AnalyzeOptions = {}): AnalysisReport {
   const plan = planAnalysis(values, options);
   return finishAnalysis(plan, runPlanBootstrap(plan, options));
 }
@@ -426,7 +433,7 @@ export type BootstrapRunner = (
 ) => Promise<readonly BootstrapCounts[]>;
 
 /** The whole analysis with the bootstrap handed to `runner` (default: in-process). */
-export async function analyzeAsync(values: ArrayLike<number>, options: AnalyzeOptions & { runner?: BootstrapRunner } = {}): Promise<AnalysisReport> {
+export async function analyzeAsync(values: ArrayLike<number> | Sample, options: AnalyzeOptions & { runner?: BootstrapRunner } = {}): Promise<AnalysisReport> {
   const plan = planAnalysis(values, options);
   const counts = options.runner
     ? await options.runner(plan.bootstrapJobs, options)

@@ -7,6 +7,7 @@ import {
   combineBootstrapCounts,
   finishAnalysis,
   planAnalysis,
+  prepareSample,
   runBootstrapRange,
   splitBootstrapJob,
   type AnalysisReport,
@@ -176,6 +177,10 @@ describe('plan / execute split', () => {
       new Map(plan.bootstrapJobs.map((j) => [j.family, runBootstrapRange(j)])),
     );
     expect(report).toEqual(direct);
+  });
+
+  it('accepts an already prepared sample and gives the same report', () => {
+    expect(analyze(prepareSample(D1))).toEqual(analyze(D1));
   });
 
   it('table p-values need no bootstrap jobs', () => {
