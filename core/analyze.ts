@@ -339,6 +339,7 @@ function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[])
     }
     if (!c.fit.converged) w.push(`${c.label}: the maximum-likelihood solver did not converge; treat its numbers with caution.`);
   }
+  for (const c of plan.candidates) for (const fw of c.fit.warnings ?? []) w.push(`${c.family.label}: ${fw}`);
   if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {
     w.push(`Every candidate is rejected at α = ${formatNumber(plan.options.alpha)}: none of these models describes the data well; the ranking only says which is least bad.`);
   }
