@@ -1,5 +1,9 @@
 /** The text of `plumbline --help`. */
-export const HELP = `plumbline: fit continuous probability models to a column of measurements, test each fit,
+import { DEFAULT_FAMILIES, allFamilies } from '../core/index.js';
+
+export function helpText(): string {
+  const known = allFamilies().map((f) => f.name).join(', ');
+  return `plumbline: fit continuous probability models to a column of measurements, test each fit,
 and rank the candidates.
 
 Usage
@@ -14,8 +18,8 @@ Options
   --column NAME|INDEX    the value column: a header name (exact, then ignoring case; quote names
                          with spaces) or a 1-based index. May be left out for a one-column file.
   --json                 print one JSON report on standard output instead of the text report
-  --families LIST        candidate models, comma-separated (default: all of
-                         normal,lognormal,gamma,weibull,exponential)
+  --families LIST        candidate models, comma-separated (default: ${DEFAULT_FAMILIES.join(',')});
+                         known: ${known}
   --alpha A              significance level of the fit tests, 0 < A < 1 (default 0.05)
   --bins K               number of equiprobable chi-square bins (default: chosen by rule); refused
                          with the largest allowed K if some bin would expect fewer than 5 values
@@ -37,3 +41,4 @@ Exit status
 Results that feed safety decisions (a part's life, a design flood, a critical dimension) need review
 by a qualified person under the governing codes and standards.
 `;
+}

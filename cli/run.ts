@@ -12,7 +12,7 @@ import {
   type PlumblineError,
 } from '../core/index.js';
 import { parseArgs, type AnalyzeArgs } from './args.js';
-import { HELP } from './help.js';
+import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
 import { readInputText } from './read-input.js';
 import { textReport } from './text-report.js';
@@ -111,7 +111,7 @@ export function runCli(argv: readonly string[], io: CliIo): number {
   try {
     const args = parseArgs(argv);
     if (args.command === 'help') {
-      io.out(HELP);
+      io.out(helpText());
       return EXIT_OK;
     }
     if (args.command === 'version') {
