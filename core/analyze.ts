@@ -399,7 +399,7 @@ function adSource(family: FamilyName, method: PMethod): string {
     case 'gumbel':
       return 'Stephens (1977), Biometrika 64:583-588 (extreme-value case).';
     case 'gamma':
-      return "Plumbline's simulated grid (scripts/simulate-ad-tables.ts), checked against D'Agostino & Stephens (1986) Table 4.21 at shape 1.";
+      return "Plumbline's simulated grid (scripts/simulate-ad-tables.ts), checked at shape 1 against D'Agostino & Stephens (1986) Table 4.21 [from memory].";
     default:
       return '';
   }

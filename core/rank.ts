@@ -61,7 +61,7 @@ export function verdict(rank: number, deltaAicc: number, rejected: readonly Test
   const place =
     rank === 1
       ? 'Best by AICc'
-      : `Ranked ${rank} by AICc, ${formatNumber(deltaAicc)} above the best (${deltaAicc <= 2 ? 'substantial support still' : deltaAicc <= 7 ? 'less support' : deltaAicc <= 10 ? 'little support' : 'essentially no support'})`;
+      : `Ranked ${rank} by AICc, ${formatNumber(deltaAicc)} above the best (${deltaAicc <= 2 ? 'still substantial support' : deltaAicc <= 7 ? 'less support' : deltaAicc <= 10 ? 'little support' : 'essentially no support'})`;
   const names = rejected.map((t) => (t === 'chi-square' ? 'the chi-square test' : 'the Anderson–Darling test'));
   let fit: string;
   if (names.length === 0) {

@@ -87,7 +87,7 @@ export function tablePValue(family: FamilyName, parameters: Parameters, sample: 
         methodDetail:
           `Gamma with shape and scale estimated: critical values of A² (no n-correction) interpolated in 1/shape at the fitted shape ${formatNumber(shape)} ` +
           `from a grid simulated by this project (${GAMMA_AD_TABLE.generatedBy}, seed ${GAMMA_AD_TABLE.seed}, ${GAMMA_AD_TABLE.replicates} refitted replicates per shape at n = ${GAMMA_AD_TABLE.n}), ` +
-          "which matches the published shape-1 values (D'Agostino & Stephens 1986, Table 4.21); ln p interpolated linearly between the 25, 10, 5, 2.5 and 1 % points, a bound outside them." +
+          "which matches the shape-1 values of D'Agostino & Stephens (1986), Table 4.21 (recalled, not read from a copy); ln p interpolated linearly between the 25, 10, 5, 2.5 and 1 % points, a bound outside them." +
           (r.clamped ? ` The fitted shape is below the smallest tabulated shape ${smallest}, so that row was used: prefer the bootstrap.` : ''),
       };
     }
