@@ -48,12 +48,14 @@ class ExponentialDistribution implements Distribution {
   }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
+    if (p === 0) return 0; // not -0
     if (p === 1) return Number.POSITIVE_INFINITY;
     return -Math.log1p(-p) / this.rate;
   }
   isf(q: number): number {
     if (!(q >= 0 && q <= 1)) return Number.NaN;
     if (q === 0) return Number.POSITIVE_INFINITY;
+    if (q === 1) return 0; // not -0
     return -Math.log(q) / this.rate;
   }
   mean(): number {
