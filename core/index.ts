@@ -25,6 +25,7 @@ export type { AnalysisPlan, AnalyzeOptions, BootstrapProgress, BootstrapRunner, 
 export { RANKING_RULE, informationCriteria, rankCandidates } from './rank.js';
 export {
   DEFAULT_BOOTSTRAP_REPLICATES,
+  MIN_EXPECTED_PER_BIN,
   andersonDarlingStatistic,
   bootstrapPValue,
   chiSquareTest,
@@ -32,6 +33,9 @@ export {
   combineBootstrapCounts,
   equiprobableBins,
   formatNumber,
+  hasTablePValue,
+  maxBinCount,
+  mooreBinCount,
   runBootstrapRange,
   splitBootstrapJob,
 } from './gof/index.js';
