@@ -138,6 +138,42 @@ describe.concurrent('plumbline errors', () => {
     }
   });
 
+  it('an unexpected failure: exit 70 and one line, no stack trace', () => {
+    // Source: common practice, no source (sysexits.h EX_SOFTWARE = 70 for internal software errors).
+    let err = '';
+    const code = runCli(['analyze', 'datasets/aircondit.csv', '--json'], {
+      out: () => {
+        throw new Error('simulated write failure');
+      },
+      err: (s) => (err += s),
+    });
+    expect(code).toBe(70);
+    expect(err.trimEnd().split('\n')).toHaveLength(1);
+    expect(err).toMatch(/^plumbline: internal error: simulated write failure/);
+  });
+
+  it('--decimal-comma and --delimiter reach the CSV reader', () => {
+    // Source: test/fixtures/csv/README.md (semicolon, decimal-comma fixture: 4.82, 4.79, 4.91, 4.85).
+    const file = join(fixtures, 'semicolon-decimal-comma.csv');
+    const run = (...extra: string[]): { code: number; out: string; err: string } => {
+      let out = '';
+      let err = '';
+      const code = runCli(['analyze', file, '--column', 'Wanddicke mm', '--json', '--families', 'normal', ...extra], {
+        out: (s) => (out += s),
+        err: (s) => (err += s),
+      });
+      return { code, out, err };
+    };
+    const ok = run('--decimal-comma', '--delimiter', 'semicolon');
+    expect(ok.code, ok.err).toBe(0);
+    const report = JSON.parse(ok.out);
+    expect(report.summary.mean).toBeCloseTo((4.82 + 4.79 + 4.91 + 4.85) / 4, 12);
+    expect(report.input).toMatchObject({ delimiter: ';', decimal: ',', blankLines: 1 });
+    const refused = run();
+    expect(refused.code).toBe(2);
+    expect(refused.err).toContain('--decimal-comma');
+  });
+
   it('--help and --version exit 0', async () => {
     // Source: common practice, no source.
     const help = await cli('--help');
