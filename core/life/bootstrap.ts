@@ -68,7 +68,7 @@ export function censoredGofBootstrap(fit: CensoredFitSuccess, data: LifeData, op
       }
     }
     const sim = buildLifeData(t, f);
-    const rf = fitCensored(fit.family, sim);
+    const rf = fitCensored(fit.family, sim, { warmStart: fit.parameters });
     if (!rf.ok || !Number.isFinite(rf.logLikelihood)) {
       failed++;
       continue;

@@ -60,7 +60,15 @@ function startFromFailures(family: LifeFamilyName, data: LifeData): Parameters |
   return g.ok ? g.parameters : null;
 }
 
-export function fitCensored(family: LifeFamilyName, data: LifeData): CensoredFitOutcome {
+export interface CensoredFitOptions {
+  /**
+   * Starting values close to the answer (e.g. the original fit, for a bootstrap replicate): the
+   * optimiser then starts with Newton steps and runs the simplex only if they fail.
+   */
+  readonly warmStart?: Parameters;
+}
+
+export function fitCensored(family: LifeFamilyName, data: LifeData, options: CensoredFitOptions = {}): CensoredFitOutcome {
   const model = lifeModel(family);
   const k = model.names.length;
   if (data.failures < k) {
@@ -104,9 +112,16 @@ export function fitCensored(family: LifeFamilyName, data: LifeData): CensoredFit
     }
     return { ok: false, family, reason: 'the censored Weibull likelihood has no finite maximum for these data' };
   }
-  const start = startFromFailures(family, data);
-  if (!start) return { ok: false, family, reason: `no starting values for the ${family} model could be found` };
-  let r: MaximizeResult = maximize(ll, toVector(model, start), { transforms: model.transforms });
+  let r: MaximizeResult | null = null;
+  if (options.warmStart) {
+    const w = maximize(ll, toVector(model, options.warmStart), { transforms: model.transforms, skipSimplex: true });
+    if (w.converged && Number.isFinite(w.value)) r = w;
+  }
+  if (!r) {
+    const start = startFromFailures(family, data);
+    if (!start) return { ok: false, family, reason: `no starting values for the ${family} model could be found` };
+    r = maximize(ll, toVector(model, start), { transforms: model.transforms });
+  }
   if (!r.converged) {
     const r2 = maximize(ll, r.x, { transforms: model.transforms, initialStep: 0.3 });
     if (r2.value >= r.value) r = r2;
@@ -119,6 +134,6 @@ export function fitCensored(family: LifeFamilyName, data: LifeData): CensoredFit
     logLikelihood: r.value,
     iterations: r.iterations,
     converged: r.converged,
-    method: `maximum likelihood with censoring: Nelder–Mead then Newton polishing (core/optimize), started from the complete-data fit of the failures; stop: ${r.reason}`,
+    method: `maximum likelihood with censoring: Nelder–Mead then Newton polishing (core/optimize), started from ${options.warmStart ? 'the given warm start (Newton only when it converges)' : 'the complete-data fit of the failures'}; stop: ${r.reason}`,
   };
 }

@@ -6,7 +6,7 @@
 export { prepareLifeData, buildLifeData, type LifeData, type LifeInput } from './data.js';
 export { censoredLogLikelihood } from './likelihood.js';
 export { fitWeibullCensored, type WeibullCensoredFit } from './weibull-censored.js';
-export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure } from './fit.js';
+export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure, type CensoredFitOptions } from './fit.js';
 export { LIFE_FAMILIES, lifeModel, type LifeFamilyName, type LifeModel } from './models.js';
 export { bLife, reliabilityAt, parameterInterval, type BLife, type ReliabilityAt, type BoundedEstimate, type BoundMethod } from './bounds.js';
 export { plotPositions, johnsonBenardPositions, kaplanMeierPositions, weibullScaleY, lognormalScaleY, type PlotPositions, type PlotPoint, type PlotCoordinates, type PlotPositionMethod } from './positions.js';
