@@ -1,7 +1,7 @@
 /**
  * Writes the invented demo scenarios in datasets/ (and the one published dataset, typed in from
  * its publication). Seeded: running it again writes the same bytes.
- *   node --import tsx scripts/make-datasets.ts
+ *   node --import tsx scripts/make-datasets.ts [OUT_DIR]      (default: datasets/)
  * Every scenario here is INVENTED for demonstration; none is a measurement of anything real.
  * The models and parameters below are documented in datasets/README.md.
  */
@@ -12,12 +12,12 @@ import { createRng, type Rng } from '../core/index.js';
 
 export const SEED = 20261201;
 const here = dirname(fileURLToPath(import.meta.url));
-const outDir = join(here, '..', 'datasets');
+const outDir = process.argv[2] ?? join(here, '..', 'datasets');
 
 function write(name: string, header: string[], rows: (string | number)[][]): void {
   const text = [header.join(','), ...rows.map((r) => r.join(','))].join('\n') + '\n';
   writeFileSync(join(outDir, name), text);
-  console.log(`wrote datasets/${name}: ${rows.length} rows`);
+  console.log(`wrote ${join(outDir, name)}: ${rows.length} rows`);
 }
 
 /** Weibull(shape k, scale λ) by inversion: λ(-ln U)^(1/k). */
