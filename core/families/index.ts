@@ -5,6 +5,8 @@ import { InputError } from '../errors.js';
 import type { Family, FamilyName } from './types.js';
 import { exponential } from './exponential.js';
 import { gamma } from './gamma.js';
+import { fitGev, gev, GEV_SHAPE_GUARD } from './gev.js';
+import { gumbel } from './gumbel.js';
 import { lognormal } from './lognormal.js';
 import { normal } from './normal.js';
 import { weibull } from './weibull.js';
@@ -13,8 +15,11 @@ import { lognormal3 } from './lognormal3.js';
 
 export type * from './types.js';
 export { exponential, gamma, lognormal, normal, weibull };
+// Extreme-value families for annual maxima (flood frequency); not in DEFAULT_FAMILIES.
+export { fitGev, gev, GEV_SHAPE_GUARD, gumbel };
 // Threshold families (three-parameter Weibull and lognormal); not in DEFAULT_FAMILIES.
 export { weibull3, lognormal3 };
+export type { GevFit, GevFitOptions } from './gev.js';
 
 const registry = new Map<FamilyName, Family>();
 
@@ -42,9 +47,14 @@ registerFamily(lognormal);
 registerFamily(gamma);
 registerFamily(weibull);
 registerFamily(exponential);
+registerFamily(gumbel);
+registerFamily(gev);
 // Threshold (three-parameter) families; not in DEFAULT_FAMILIES.
 registerFamily(weibull3);
 registerFamily(lognormal3);
 
 /** The default candidate set for a complete sample. */
 export const DEFAULT_FAMILIES: readonly FamilyName[] = ['normal', 'lognormal', 'gamma', 'weibull', 'exponential'];
+
+/** The extreme-value candidate set for annual-maximum series. */
+export const EXTREME_VALUE_FAMILIES: readonly FamilyName[] = ['gumbel', 'gev'];
