@@ -133,6 +133,17 @@ export function resolveOptions(options: AnalyzeOptions = {}): ResolvedOptions {
 
 function validateSample(sample: Sample, families: readonly FamilyName[]): void {
   const n = sample.n;
+  // A NaN or infinity anywhere makes the compensated sum non-finite. prepareSample rejects such values,
+  // but a Sample built with `alreadySorted` is only checked at its ends, so look again here: a
+  // non-finite value must be an input error, never a fit (robustness invariant, issue 6).
+  if (!Number.isFinite(sample.sum)) {
+    for (let i = 0; i < n; i++) {
+      const v = sample.sorted[i] as number;
+      if (!Number.isFinite(v)) {
+        throw new InputError(`Value #${i + 1} of the sorted sample is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
+      }
+    }
+  }
   if (n === 1) throw new InputError('Only one value: at least two different values are needed to fit a model.', {}, 'too-few-values');
   if (sample.distinct === 1) {
     throw new InputError(`All ${n} values are equal (${String(sample.min)}): no spread, so no continuous model can be fitted.`, { value: String(sample.min) }, 'bad-input');
@@ -169,23 +180,16 @@ export function planAnalysis(values: ArrayLike<number> | Sample, options: Analyz
   const jobs: BootstrapJob[] = [];
   for (const name of opts.families) {
     const family = getFamily(name);
-    const outcome = family.fit(sample);
-    if (!outcome.ok) {
-      notApplicable.push({ family: name, reason: outcome.reason, offendingCount: outcome.offendingCount });
+    const evaluated = evaluateFamily(family, sample, opts);
+    if (!evaluated.ok) {
+      notApplicable.push(evaluated.notApplicable);
       continue;
     }
-    const dist = family.make(outcome.parameters);
-    const a2 = andersonDarlingStatistic(dist, sample.sorted);
-    const chiSquare = chiSquareTest(dist, sample.sorted, {
-      alpha: opts.alpha,
-      estimatedParameters: family.estimatedParameters,
-      bins: opts.bins,
-    });
-    let table: AdPValue | null = null;
+    const { outcome, a2, chiSquare } = evaluated;
+    let table: AdPValue | null = evaluated.table;
     let bootstrapReason: string | null = null;
     if (opts.pMethod === 'bootstrap') bootstrapReason = 'requested';
     else {
-      table = tablePValue(name, outcome.parameters, sample, a2);
       if (table === null) bootstrapReason = 'no published table for this family';
       else if (!boundDecides(table, opts.alpha)) {
         bootstrapReason = `the table only gives a bound (p ${table.pValueIs === 'upper-bound' ? '<' : '>'} ${formatNumber(table.pValue)}), which cannot decide at α = ${formatNumber(opts.alpha)}`;
@@ -198,6 +202,64 @@ export function planAnalysis(values: ArrayLike<number> | Sample, options: Analyz
     candidates.push({ family, fit: outcome, a2, chiSquare, table, bootstrapReason });
   }
   return { options: opts, sample, candidates, notApplicable, bootstrapJobs: jobs };
+}
+
+type Evaluated =
+  | { readonly ok: true; readonly outcome: FitSuccess; readonly a2: number; readonly chiSquare: ChiSquareReport; readonly table: AdPValue | null }
+  | { readonly ok: false; readonly notApplicable: NotApplicableReport };
+
+/** Whether every number the report would carry for this fit is a real number (not NaN/±Infinity). */
+function nonFiniteIn(outcome: FitSuccess, a2: number, chiSquare: ChiSquareReport, table: AdPValue | null): string | null {
+  for (const [k, v] of Object.entries(outcome.parameters)) if (!Number.isFinite(v)) return `parameter ${k} = ${String(v)}`;
+  if (!Number.isFinite(outcome.logLikelihood)) return `log-likelihood = ${String(outcome.logLikelihood)}`;
+  if (!Number.isFinite(a2)) return `Anderson–Darling A² = ${String(a2)}`;
+  if (chiSquare.computable) {
+    if (!Number.isFinite(chiSquare.statistic)) return `chi-square statistic = ${String(chiSquare.statistic)}`;
+    if (Number.isNaN(chiSquare.pValue) || Number.isNaN(chiSquare.pValueUpper)) return 'chi-square p-value = NaN';
+  }
+  if (table !== null && Number.isNaN(table.pValue)) return 'Anderson–Darling p-value = NaN';
+  return null;
+}
+
+/**
+ * Fit one family and compute its statistics. A fit that fails numerically (a family's own
+ * parameter check throwing, or a NaN/infinite number in its results), which happens for data at
+ * the edges of double precision (e.g. values near 1e-300 or 1e300 whose squared deviations
+ * underflow or overflow), is reported as not applicable with the reason, never thrown as an
+ * internal error and never reported as a fit (issue 6: nothing dropped without being reported).
+ * Input errors (e.g. a user's bin count) still propagate.
+ */
+function evaluateFamily(family: Family, sample: Sample, opts: ResolvedOptions): Evaluated {
+  const failed = (what: string): Evaluated => {
+    const extreme = Math.max(Math.abs(sample.min), Math.abs(sample.max));
+    const tiny = sample.sorted.reduce((m, x) => (x !== 0 && Math.abs(x) < m ? Math.abs(x) : m), Infinity);
+    const hint =
+      extreme > 1e150 || tiny < 1e-150
+        ? ` The values (from ${String(sample.min)} to ${String(sample.max)}) are near the limits of double precision; rescale them (change units) to fit this model.`
+        : '';
+    return {
+      ok: false,
+      notApplicable: { family: family.name, reason: `The ${family.label} fit failed numerically (${what}), so it is not reported.${hint}`, offendingCount: 0 },
+    };
+  };
+  try {
+    const outcome = family.fit(sample);
+    if (!outcome.ok) return { ok: false, notApplicable: { family: family.name, reason: outcome.reason, offendingCount: outcome.offendingCount } };
+    const dist = family.make(outcome.parameters);
+    const a2 = andersonDarlingStatistic(dist, sample.sorted);
+    const chiSquare = chiSquareTest(dist, sample.sorted, {
+      alpha: opts.alpha,
+      estimatedParameters: family.estimatedParameters,
+      bins: opts.bins,
+    });
+    const table = opts.pMethod === 'bootstrap' ? null : tablePValue(family.name, outcome.parameters, sample, a2);
+    const bad = nonFiniteIn(outcome, a2, chiSquare, table);
+    if (bad !== null) return failed(bad);
+    return { ok: true, outcome, a2, chiSquare, table };
+  } catch (e) {
+    if (e instanceof PlumblineError && e.code === 'bad-parameter') return failed(e.message.replace(/\.$/, ''));
+    throw e;
+  }
 }
 
 /** Whether a table result decides the test at α (an estimate always does; a bound only on one side). */
