@@ -1,0 +1,207 @@
+/**
+ * The Plumbline local server as an express 5 app: a thin layer over the core. See server/API.md.
+ * createApp() builds the app (for supertest, or for main.ts to listen on); `shutdown()` stops
+ * its worker threads and cancels running jobs.
+ */
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
+import { PLUMBLINE_VERSION } from '../core/index.js';
+import { completeRequest, planRequest, type AnalyzeResponse } from './analysis.js';
+import { DemoStore } from './demo.js';
+import { errorHandler, HttpError, sendError, type Logger } from './errors.js';
+import { hostCheck, securityHeaders } from './headers.js';
+import { JobManager } from './jobs.js';
+import { maxWorkers, WorkerPool } from './pool.js';
+import { staticFiles } from './static.js';
+import { parseAnalyzeBody, parseJobBody } from './validate.js';
+
+const here = dirname(fileURLToPath(import.meta.url));
+/** The repository root (server/ from sources, dist/server/ when compiled). */
+export const REPO_ROOT = resolve(here, import.meta.url.endsWith('.ts') ? '..' : '../..');
+
+/** Default body limit: 50 MiB, enough for 10^6 values as JSON or a 10^6-row CSV. */
+export const DEFAULT_BODY_LIMIT = 50 * 1024 * 1024;
+/** The demo analysed at start when none is named. */
+export const DEFAULT_DEMO = 'shaft-diameter';
+
+export interface DemoChoice {
+  /** Name shown to the user (a dataset name or a file name). */
+  readonly name: string;
+  readonly csv: string;
+  readonly column?: string | number;
+}
+
+export interface AppOptions {
+  /** Largest request body in bytes (default 50 MiB). */
+  readonly bodyLimitBytes?: number;
+  /** Folder of the built page (default client/dist). */
+  readonly staticRoot?: string;
+  /** Folder of the demo datasets (default datasets/). */
+  readonly datasetsDir?: string;
+  /** Worker threads for the bootstrap (default and maximum: os.availableParallelism()). */
+  readonly workers?: number;
+  /** The demo analysed for `GET /api/demo-analysis` (default: datasets/shaft-diameter.csv); null for none. */
+  readonly demo?: DemoChoice | null;
+  /** Extra Host header names accepted besides localhost/127.0.0.1/[::1]; `true` accepts any (remote use). */
+  readonly allowedHosts?: readonly string[] | true;
+  readonly log?: Logger;
+  /** Job retention (see JobManager). */
+  readonly jobKeepMs?: number;
+  readonly maxRunningJobs?: number;
+}
+
+export interface PlumblineApp extends Express {
+  readonly pool: WorkerPool;
+  readonly jobs: JobManager;
+  /** Cancel running jobs and stop the worker threads. */
+  shutdown(): Promise<void>;
+}
+
+const defaultLog: Logger = (message, err) => {
+  console.error(`[plumbline] ${message}`);
+  if (err !== undefined) console.error(err);
+};
+
+function hasBody(req: Request): boolean {
+  if (req.headers['transfer-encoding'] !== undefined) return true;
+  const len = req.headers['content-length'];
+  return len !== undefined && len !== '0';
+}
+
+/** POST bodies must be JSON: anything else is a 415 (and no body at all is left for the validator). */
+function requireJson(req: Request, _res: Response, next: NextFunction): void {
+  if (hasBody(req) && !req.is('application/json')) {
+    next(new HttpError(415, `The body must be JSON sent with Content-Type: application/json (got ${JSON.stringify(String(req.headers['content-type'] ?? 'none').slice(0, 80))}).`, { code: 'unsupported-media-type' }));
+    return;
+  }
+  next();
+}
+
+function methodNotAllowed(allowed: string): RequestHandler {
+  return (req, res) => {
+    res.setHeader('Allow', allowed);
+    sendError(res, 405, { message: `${req.method} is not allowed on ${req.path}; use ${allowed}.`, code: 'method-not-allowed' });
+  };
+}
+
+export function createApp(options: AppOptions = {}): PlumblineApp {
+  const log = options.log ?? defaultLog;
+  const bodyLimit = options.bodyLimitBytes ?? DEFAULT_BODY_LIMIT;
+  const staticRoot = options.staticRoot ?? resolve(REPO_ROOT, 'client', 'dist');
+  const demos = new DemoStore(options.datasetsDir ?? resolve(REPO_ROOT, 'datasets'));
+  const pool = new WorkerPool(Math.min(options.workers ?? maxWorkers(), maxWorkers()), log);
+  const jobs = new JobManager(pool, {
+    log,
+    ...(options.jobKeepMs !== undefined ? { keepMs: options.jobKeepMs } : {}),
+    ...(options.maxRunningJobs !== undefined ? { maxRunning: options.maxRunningJobs } : {}),
+  });
+
+  const app = express() as unknown as PlumblineApp;
+  app.disable('x-powered-by');
+  app.set('etag', false);
+  app.set('query parser', 'simple');
+  app.use(securityHeaders());
+  if (options.allowedHosts !== true) app.use(hostCheck(options.allowedHosts ?? []));
+
+  const json = express.json({ limit: bodyLimit, strict: true, type: 'application/json' });
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true, version: PLUMBLINE_VERSION, jobsRunning: jobs.running, workers: pool.size });
+  });
+  app.all('/api/health', methodNotAllowed('GET'));
+
+  app.post('/api/analyze', requireJson, json, async (req, res) => {
+    const request = parseAnalyzeBody(req.body);
+    const planned = planRequest(request);
+    const controller = new AbortController();
+    // A client that goes away stops its bootstrap.
+    res.on('close', () => {
+      if (!res.writableFinished) controller.abort();
+    });
+    const result: AnalyzeResponse = await completeRequest(planned, pool, { signal: controller.signal });
+    res.json(result);
+  });
+  app.all('/api/analyze', methodNotAllowed('POST'));
+
+  app.post('/api/jobs', requireJson, json, (req, res) => {
+    const view = jobs.create(parseJobBody(req.body));
+    res.status(202).json(view);
+  });
+  app.all('/api/jobs', methodNotAllowed('POST'));
+
+  app.get('/api/jobs/:id', (req, res) => {
+    const view = jobs.get(String(req.params.id));
+    if (!view) throw new HttpError(404, `No job ${JSON.stringify(String(req.params.id).slice(0, 80))} (unknown, or finished more than 10 minutes ago).`, { code: 'not-found' });
+    res.json(view);
+  });
+  app.delete('/api/jobs/:id', (req, res) => {
+    const view = jobs.cancel(String(req.params.id));
+    if (!view) throw new HttpError(404, `No job ${JSON.stringify(String(req.params.id).slice(0, 80))}.`, { code: 'not-found' });
+    res.json({ id: view.id, state: view.state });
+  });
+  app.all('/api/jobs/:id', methodNotAllowed('GET, DELETE'));
+
+  app.get('/api/demo', (_req, res) => {
+    res.json({ datasets: demos.list() });
+  });
+  app.all('/api/demo', methodNotAllowed('GET'));
+  app.get('/api/demo/:name', (req, res) => {
+    const d = demos.get(String(req.params.name));
+    if (!d) throw new HttpError(404, `No demo dataset called ${JSON.stringify(String(req.params.name).slice(0, 80))}; GET /api/demo lists them.`, { code: 'not-found' });
+    res.json({ name: d.name, file: d.file, columns: d.columns, defaultColumn: d.defaultColumn, csv: d.csv });
+  });
+  app.all('/api/demo/:name', methodNotAllowed('GET'));
+
+  // The demo analysed at start: computed once, on first request, and kept.
+  let demoAnalysis: Promise<{ name: string; column: string; csv: string; result: AnalyzeResponse }> | null = null;
+  const demoChoice = (): DemoChoice | null => {
+    if (options.demo === null) return null;
+    if (options.demo !== undefined) return options.demo;
+    const d = demos.get(DEFAULT_DEMO) ?? (() => {
+      const first = demos.list()[0];
+      return first ? demos.get(first.name) : null;
+    })();
+    return d ? { name: d.name, csv: d.csv, column: d.defaultColumn } : null;
+  };
+  app.get('/api/demo-analysis', async (_req, res) => {
+    if (demoAnalysis === null) {
+      const choice = demoChoice();
+      if (choice === null) throw new HttpError(404, 'No demo dataset is available.', { code: 'not-found' });
+      const request = parseAnalyzeBody({ csv: choice.csv, ...(choice.column !== undefined ? { column: choice.column } : {}), csvOptions: { skipInvalid: true }, evidence: true });
+      const p = (async () => {
+        const result = await completeRequest(planRequest(request), pool);
+        return { name: choice.name, column: result.input.column ?? String(choice.column ?? ''), csv: choice.csv, result };
+      })();
+      demoAnalysis = p;
+      p.catch(() => {
+        if (demoAnalysis === p) demoAnalysis = null; // try again next time
+      });
+    }
+    res.json(await demoAnalysis);
+  });
+  app.all('/api/demo-analysis', methodNotAllowed('GET'));
+
+  app.all('/api/{*rest}', (req, res) => {
+    sendError(res, 404, { message: `No API route ${req.method} ${req.path.slice(0, 200)}; see server/API.md.`, code: 'not-found' });
+  });
+  app.all('/api', (req, res) => {
+    sendError(res, 404, { message: `No API route ${req.method} ${req.path}; see server/API.md.`, code: 'not-found' });
+  });
+
+  app.use(staticFiles(staticRoot));
+  app.use((req, res) => {
+    sendError(res, req.method === 'GET' || req.method === 'HEAD' ? 404 : 405, { message: `Not found: ${req.method} ${req.path.slice(0, 200)}`, code: 'not-found' });
+  });
+  app.use(errorHandler(log));
+
+  Object.defineProperty(app, 'pool', { value: pool });
+  Object.defineProperty(app, 'jobs', { value: jobs });
+  Object.defineProperty(app, 'shutdown', {
+    value: async (): Promise<void> => {
+      jobs.cancelAll();
+      await pool.close();
+    },
+  });
+  return app;
+}

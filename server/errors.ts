@@ -1,0 +1,102 @@
+/**
+ * HTTP errors and the final error handler. Every client fault becomes a 4xx with
+ * `{ "error": { "message", "field"?, "code"?, "place"? } }`; anything else is a bug: logged, and
+ * answered with a generic 500 that leaks nothing.
+ */
+import type { ErrorRequestHandler, Response } from 'express';
+import { isPlumblineError, type ErrorPlace } from '../core/index.js';
+
+export interface ErrorBody {
+  readonly message: string;
+  readonly field?: string;
+  readonly code?: string;
+  readonly place?: ErrorPlace;
+}
+
+export class HttpError extends Error {
+  readonly status: number;
+  readonly field: string | undefined;
+  readonly code: string | undefined;
+  constructor(status: number, message: string, opts: { field?: string; code?: string } = {}) {
+    super(message);
+    this.name = 'HttpError';
+    this.status = status;
+    this.field = opts.field;
+    this.code = opts.code;
+  }
+}
+
+export function badRequest(message: string, field?: string, code = 'bad-request'): HttpError {
+  return new HttpError(400, message, field === undefined ? { code } : { field, code });
+}
+
+export function sendError(res: Response, status: number, body: ErrorBody): void {
+  if (res.headersSent) return;
+  res.status(status).type('application/json').send(JSON.stringify({ error: body }));
+}
+
+/** Map a thrown value to (status, body) if it is a client fault; null for a bug. */
+export function clientFault(err: unknown): { status: number; body: ErrorBody } | null {
+  if (err instanceof HttpError) {
+    return {
+      status: err.status,
+      body: { message: err.message, ...(err.field !== undefined ? { field: err.field } : {}), ...(err.code !== undefined ? { code: err.code } : {}) },
+    };
+  }
+  if (isPlumblineError(err)) {
+    if (err.code === 'bad-parameter' || err.code === 'not-computable') {
+      // A family's parameters out of bounds or an uncomputable step are the core's bug, not the user's.
+      return null;
+    }
+    const place = err.place && Object.keys(err.place).length > 0 ? { place: err.place } : {};
+    return { status: err.code === 'cancelled' ? 409 : 400, body: { message: err.message, code: err.code, ...place } };
+  }
+  // body-parser (express.json) errors carry a 4xx status and a type.
+  if (typeof err === 'object' && err !== null && 'type' in err && 'status' in err) {
+    const e = err as { type: unknown; status: unknown; limit?: unknown; message?: unknown };
+    const status = typeof e.status === 'number' ? e.status : 500;
+    if (status >= 400 && status < 500) {
+      switch (e.type) {
+        case 'entity.too.large':
+          return {
+            status: 413,
+            body: {
+              message: `The request body is larger than the server's limit of ${formatBytes(Number(e.limit))}. Send fewer values, or start the server with a larger --body-limit.`,
+              code: 'body-too-large',
+            },
+          };
+        case 'entity.parse.failed':
+          return { status: 400, body: { message: `The request body is not valid JSON (${String(e.message ?? 'parse error')}).`, code: 'bad-request' } };
+        case 'charset.unsupported':
+        case 'encoding.unsupported':
+          return { status: 415, body: { message: `Unsupported body encoding: ${String(e.message ?? '')}. Send UTF-8 JSON.`, code: 'unsupported-media-type' } };
+        case 'request.aborted':
+          return { status: 400, body: { message: 'The request was aborted by the client.', code: 'bad-request' } };
+        default:
+          return { status, body: { message: String(e.message ?? 'Bad request.'), code: 'bad-request' } };
+      }
+    }
+  }
+  return null;
+}
+
+export function formatBytes(n: number): string {
+  if (!Number.isFinite(n)) return 'the configured size';
+  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(n % (1024 * 1024) === 0 ? 0 : 1)} MiB`;
+  if (n >= 1024) return `${(n / 1024).toFixed(n % 1024 === 0 ? 0 : 1)} KiB`;
+  return `${n} bytes`;
+}
+
+export type Logger = (message: string, err?: unknown) => void;
+
+export function errorHandler(log: Logger): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    const fault = clientFault(err);
+    if (fault) {
+      sendError(res, fault.status, fault.body);
+      return;
+    }
+    log(`internal error on ${req.method} ${req.path}`, err);
+    sendError(res, 500, { message: 'Internal error; the server log has the details.' });
+  };
+}
