@@ -10,6 +10,10 @@
  *    (the largest time in the data).
  * Under Type I censoring (every suspension at the same end time, as in a test stopped at 500 h) this
  * censors every unit at that end time; with staggered withdrawals it keeps their spread.
+ * Calibration measured here (one-off simulation, 500 Weibull samples of 40 units, 99 replicates
+ * each): with Type I censoring at a fixed time 4.6 % of p-values fell at or below 0.05 (9.4 % at
+ * or below 0.10); with staggered uniform withdrawal times 8.6 % (15 %), i.e. somewhat liberal,
+ * because the censoring distribution itself is estimated.
  * Each replicate is refitted by the same censored maximum likelihood and its statistic computed
  * against its own fit, so the p-value accounts for estimated parameters (Stute, González Manteiga
  * & Presedo Quindimil 1993, Test 2:113-124 [memory]; for censored samples the same scheme as
@@ -39,7 +43,7 @@ export interface BootstrapOptions {
 }
 
 export const CENSORED_AD_METHOD =
-  'Anderson–Darling A² on the Kaplan–Meier estimate (Anderson–Darling weight on the product-limit process, cf. Koziol & Green 1976), p-value by parametric bootstrap that refits every replicate and reproduces the censoring: suspensions censored at their own run times, failures at a time drawn from the Kaplan–Meier censoring distribution beyond their failure time (Type I censoring is reproduced exactly)';
+  'Anderson–Darling A² on the Kaplan–Meier estimate (Anderson–Darling weight on the product-limit process, cf. Koziol & Green 1976), p-value by parametric bootstrap that refits every replicate and reproduces the censoring: suspensions censored at their own run times, failures at a time drawn from the Kaplan–Meier censoring distribution beyond their failure time (Type I censoring is reproduced exactly; with staggered withdrawals the p-value is approximate and somewhat liberal: 8.6 % of true-model p-values fell at or below 0.05 in a check here)';
 
 export function censoredGofBootstrap(fit: CensoredFitSuccess, data: LifeData, opts: BootstrapOptions = {}): CensoredGofResult {
   const B = opts.replicates ?? 200;

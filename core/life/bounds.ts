@@ -46,14 +46,14 @@ function quantileParametrised(fit: CensoredFitSuccess, data: LifeData, p: number
   return (v: Float64Array): number => {
     const xp = v[0] as number;
     if (!Number.isFinite(xp) || (model.quantileScale === 'log' && !(xp > 0))) return Number.NEGATIVE_INFINITY;
-    const params = model.fromQuantile(Array.from(v.subarray(1)), p, xp);
-    for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
     try {
+      const params = model.fromQuantile(Array.from(v.subarray(1)), p, xp);
+      for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
       fam.make(params);
+      return ll(toVector(model, params));
     } catch {
       return Number.NEGATIVE_INFINITY;
     }
-    return ll(toVector(model, params));
   };
 }
 
@@ -137,14 +137,14 @@ export function reliabilityAt(fit: CensoredFitSuccess, data: LifeData, time: num
   const ll = (v: Float64Array): number => {
     const p = v[0] as number;
     if (!(p > 0 && p < 1)) return Number.NEGATIVE_INFINITY;
-    const params = model.fromQuantile(Array.from(v.subarray(1)), p, time);
-    for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
     try {
+      const params = model.fromQuantile(Array.from(v.subarray(1)), p, time);
+      for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
       fam.make(params);
+      return llFull(toVector(model, params));
     } catch {
       return Number.NEGATIVE_INFINITY;
     }
-    return llFull(toVector(model, params));
   };
   const o = othersOf(fit);
   const p0 = dist.cdf(time);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { analyzeLife } from '../../core/life/index.js';
 
 const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
@@ -65,5 +66,27 @@ describe('analyzeLife', () => {
     const one = analyzeLife({ times: [100, 500, 500], failed: [1, 0, 0] }, { bootstrapReplicates: 0 });
     expect(one.candidates.map((c) => c.family)).toEqual(['exponential']);
     expect(one.notFitted.map((c) => c.family).sort()).toEqual(['gamma', 'lognormal', 'normal', 'weibull']);
+  });
+
+  it('never throws on small awkward data sets, and closed bounds always bracket the estimate (property)', () => {
+    // Robustness property (common practice, no source): ties, few failures, all suspensions late.
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.integer({ min: 1, max: 60 }), fc.boolean()), { minLength: 2, maxLength: 25 }), (units) => {
+        const r = analyzeLife(
+          { times: units.map((u) => u[0] * 10), failed: units.map((u) => (u[1] ? 1 : 0)) },
+          { bLifePercents: [1, 10, 50], reliabilityTimes: [100], bootstrapReplicates: 3 },
+        );
+        expect(r.n).toBe(units.length);
+        expect(r.failures + r.suspensions).toBe(units.length);
+        expect(r.candidates.length + r.notFitted.length).toBe(5);
+        for (const c of r.candidates) {
+          expect(Number.isFinite(c.logLikelihood)).toBe(true);
+          for (const b of c.bLives) if (b.boundsFound) expect(b.lower <= b.estimate && b.estimate <= b.upper).toBe(true);
+          for (const q of c.reliability) if (q.boundsFound) expect(q.lower <= q.estimate && q.estimate <= q.upper).toBe(true);
+        }
+        return true;
+      }),
+      { numRuns: 60, seed: 11 },
+    );
   });
 });
