@@ -39,6 +39,18 @@ describe('delimiters', () => {
     expect(errorOf(() => readColumn('x\n1\n', { delimiter: '"' })).code).toBe('bad-option');
   });
 
+  it('warns when several delimiters fit, or none fits every line', () => {
+    // Source: common practice, no source (a guess that could be wrong is reported, never silent).
+    const both = readColumn('a;b,c\n1;2,3\n', { column: 2 });
+    expect(both.delimiter).toBe(',');
+    expect([...both.values]).toEqual([3]);
+    expect(both.warnings.join(' ')).toContain('several delimiters');
+    const ragged = readColumn('a,b\n1,2\n3,4,\n5,6\n', { column: 'b' });
+    expect(ragged.delimiter).toBe(',');
+    expect(ragged.warnings.join(' ')).toContain('do not all have');
+    expect([...ragged.values]).toEqual([2, 4, 6]);
+  });
+
   it('treats a header without any candidate delimiter as a single column', () => {
     // Source: common practice, no source.
     const r = readColumn('load_kN\n1.5\n2.5\n');
