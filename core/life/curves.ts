@@ -4,12 +4,16 @@
  * the data.
  */
 import type { Distribution } from '../families/index.js';
+import { normalQuantile } from '../special/index.js';
 
 export interface LifeCurves {
   readonly time: readonly number[];
   readonly cdf: readonly number[];
   readonly reliability: readonly number[];
   readonly hazard: readonly number[];
+  /** The fitted cdf on the probability-plot scales (x = ln time): ln(-ln(1 - F)) and Φ⁻¹(F). */
+  readonly weibullY: readonly number[];
+  readonly lognormalY: readonly number[];
 }
 
 /** Log-spaced grid from lo to hi (both > 0), `points` ≥ 2. */
@@ -27,5 +31,12 @@ export function lifeCurves(dist: Distribution, grid: readonly number[]): LifeCur
     cdf: grid.map((t) => dist.cdf(t)),
     reliability: grid.map((t) => dist.sf(t)),
     hazard: grid.map((t) => Math.exp(dist.logPdf(t) - dist.logSf(t))),
+    // ln(-ln S) from logSf directly, so the upper tail does not round to ln(-ln 0).
+    weibullY: grid.map((t) => Math.log(-dist.logSf(t))),
+    lognormalY: grid.map((t) => {
+      const lc = dist.logCdf(t);
+      const ls = dist.logSf(t);
+      return lc < ls ? normalQuantile(Math.exp(lc)) : -normalQuantile(Math.exp(ls));
+    }),
   };
 }

@@ -41,6 +41,9 @@ describe('analyzeLife', () => {
     // Mean life of a Weibull is scale·Γ(1 + 1/shape) (closed form); Γ(1.58112) = 0.891529 (SciPy scipy.special.gamma(1 + 1/1.7207972608)).
     expect(w.meanLife / (fx.nist.fits.weibull.parameters.scale * 0.8915291949)).toBeCloseTo(1, 8);
     expect(w.curves.hazard.length).toBe(60);
+    // On the Weibull scale the fitted Weibull cdf is the straight line y = k(ln t - ln λ) (closed form).
+    const { shape, scale } = fx.nist.fits.weibull.parameters;
+    w.curves.time.forEach((t, i) => expect(w.curves.weibullY[i]!).toBeCloseTo(shape * (Math.log(t) - Math.log(scale)), 8));
     // Weibull shape > 1: increasing hazard (closed form k/λ (t/λ)^(k-1)).
     for (let i = 1; i < w.curves.hazard.length; i++) expect(w.curves.hazard[i]!).toBeGreaterThan(w.curves.hazard[i - 1]!);
   });

@@ -118,3 +118,47 @@ describe('brentRoot', () => {
     expect(r.x).toBeCloseTo(0.7390851332151607, 14);
   });
 });
+
+describe('maximize: properties and edge cases', () => {
+  it('finds the optimum of random concave quadratics in 3 dimensions (property)', async () => {
+    // The maximiser of -½(x - c)ᵀA(x - c) is c (closed form); A = BᵀB + I is positive definite.
+    const fc = (await import('fast-check')).default;
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -2, max: 2, noNaN: true }), { minLength: 9, maxLength: 9 }),
+        fc.array(fc.double({ min: -50, max: 50, noNaN: true }), { minLength: 3, maxLength: 3 }),
+        (b, c) => {
+          const A = new Float64Array(9);
+          for (let i = 0; i < 3; i++)
+            for (let j = 0; j < 3; j++) {
+              let s = i === j ? 1 : 0;
+              for (let k = 0; k < 3; k++) s += b[k * 3 + i]! * b[k * 3 + j]!;
+              A[i * 3 + j] = s;
+            }
+          const f = (x: Float64Array): number => {
+            let q = 0;
+            for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) q += (x[i]! - c[i]!) * A[i * 3 + j]! * (x[j]! - c[j]!);
+            return -0.5 * q;
+          };
+          const r = maximize(f, [0, 0, 0]);
+          for (let i = 0; i < 3; i++) expect(Math.abs(r.x[i]! - c[i]!)).toBeLessThan(1e-6 * Math.max(1, Math.abs(c[i]!)));
+          return true;
+        },
+      ),
+      { numRuns: 40, seed: 2 },
+    );
+  });
+
+  it('treats -∞ and NaN as infeasible and still finds an optimum next to the boundary', () => {
+    // f(x) = ln x - x on x > 0 (-∞ elsewhere) has its maximum at x = 1 (closed form).
+    const f = (x: Float64Array): number => ((x[0] as number) > 0 ? Math.log(x[0] as number) - (x[0] as number) : Number.NaN);
+    const r = maximize(f, [0.05]);
+    expect(r.converged).toBe(true);
+    expect(Math.abs((r.x[0] as number) - 1)).toBeLessThan(1e-9);
+  });
+
+  it('rejects a start outside the transform range', () => {
+    // Typed failure instead of a silent NaN (common practice, no source).
+    expect(() => maximize((x) => -((x[0] as number) ** 2), [-1], { transforms: [LOG] })).toThrow(RangeError);
+  });
+});
