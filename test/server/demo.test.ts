@@ -1,0 +1,49 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import request from 'supertest';
+import { afterAll, describe, expect, it } from 'vitest';
+import { REPO_ROOT } from '../../server/app.js';
+import { testApp } from './helpers.js';
+
+const { app, logged } = testApp({ demo: undefined });
+afterAll(async () => {
+  await app.shutdown();
+  expect(logged).toEqual([]);
+});
+
+describe('demo datasets', () => {
+  it('lists the CSV files in datasets/ with their value column', async () => {
+    const res = await request(app).get('/api/demo');
+    expect(res.status).toBe(200);
+    const names = res.body.datasets.map((d: { name: string }) => d.name);
+    expect(names).toEqual(expect.arrayContaining(['shaft-diameter', 'river-peaks', 'bearing-life']));
+    const river = res.body.datasets.find((d: { name: string }) => d.name === 'river-peaks');
+    // The measurement, not the year counter (rule in server/demo.ts).
+    expect(river.defaultColumn).toBe('peak_flow_m3s');
+  });
+
+  it('returns a dataset\'s text as stored in datasets/', async () => {
+    const res = await request(app).get('/api/demo/shaft-diameter');
+    expect(res.status).toBe(200);
+    expect(res.body.csv).toBe(readFileSync(join(REPO_ROOT, 'datasets', 'shaft-diameter.csv'), 'utf8'));
+    expect(res.body.defaultColumn).toBe('diameter_mm');
+  });
+
+  it('refuses names that are not a listed dataset (no traversal)', async () => {
+    for (const name of ['..%2Fpackage', '..%2F..%2Fetc%2Fpasswd', 'README', 'shaft-diameter.csv', '%2e%2e', 'nope']) {
+      const res = await request(app).get(`/api/demo/${name}`);
+      expect(res.status, name).toBe(404);
+      expect(res.body.error.message).toMatch(/No demo dataset|No API route|Not found/);
+    }
+  });
+
+  it('the pre-analysed demo opens with a complete result and evidence', async () => {
+    const res = await request(app).get('/api/demo-analysis');
+    expect(res.status).toBe(200);
+    expect(res.body.name).toBe('shaft-diameter');
+    expect(res.body.column).toBe('diameter_mm');
+    expect(res.body.result.n).toBeGreaterThan(0);
+    expect(res.body.result.candidates.length).toBeGreaterThan(0);
+    expect(res.body.result.evidence.candidates.length).toBe(res.body.result.candidates.length);
+  });
+});
