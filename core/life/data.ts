@@ -25,6 +25,11 @@ export interface LifeData {
   readonly suspensionTimes: Float64Array;
   readonly maxTime: number;
   readonly minTime: number;
+  /**
+   * Distinct (time, status) pairs with their counts, in the same order: the likelihood is summed
+   * over these, so tied times (rounded hours, a batch of suspensions at the end of test) cost once.
+   */
+  readonly groups: { readonly times: Float64Array; readonly failed: Uint8Array; readonly counts: Float64Array };
 }
 
 /**
@@ -74,7 +79,21 @@ function assemble(inTimes: LifeInput['times'], inFailed: LifeInput['failed']): L
     if (failed[i]) failureTimes[a++] = times[i] as number;
     else suspensionTimes[b++] = times[i] as number;
   }
+  let g = 0;
+  for (let i = 0; i < n; i++) if (i === 0 || times[i] !== times[i - 1] || failed[i] !== failed[i - 1]) g++;
+  const gt = new Float64Array(g);
+  const gf = new Uint8Array(g);
+  const gc = new Float64Array(g);
+  for (let i = 0, k = -1; i < n; i++) {
+    if (i === 0 || times[i] !== times[i - 1] || failed[i] !== failed[i - 1]) {
+      k++;
+      gt[k] = times[i] as number;
+      gf[k] = failed[i] as number;
+    }
+    gc[k] = (gc[k] as number) + 1;
+  }
   return {
+    groups: { times: gt, failed: gf, counts: gc },
     n,
     failures: r,
     suspensions: n - r,

@@ -16,14 +16,16 @@ export interface WeibullCensoredFit {
 }
 
 export function fitWeibullCensored(data: LifeData, relTol = 1e-13): WeibullCensoredFit {
-  const n = data.n;
+  // Sums run over the distinct (time, status) pairs, weighted by their counts.
+  const { times, failed, counts } = data.groups;
+  const n = times.length;
   const r = data.failures;
   const lmax = Math.log(data.maxTime);
   const y = new Float64Array(n);
   let meanFailY = 0;
   for (let i = 0; i < n; i++) {
-    y[i] = Math.log(data.times[i] as number) - lmax;
-    if (data.failed[i]) meanFailY += y[i] as number;
+    y[i] = Math.log(times[i] as number) - lmax;
+    if (failed[i]) meanFailY += (counts[i] as number) * (y[i] as number);
   }
   meanFailY /= r;
   const gd = (c: number): [number, number] => {
@@ -32,7 +34,7 @@ export function fitWeibullCensored(data: LifeData, relTol = 1e-13): WeibullCenso
     let s2 = 0;
     for (let i = 0; i < n; i++) {
       const yi = y[i] as number;
-      const w = Math.exp(c * yi);
+      const w = (counts[i] as number) * Math.exp(c * yi);
       s0 += w;
       s1 += w * yi;
       s2 += w * yi * yi;
@@ -76,7 +78,7 @@ export function fitWeibullCensored(data: LifeData, relTol = 1e-13): WeibullCenso
     }
   }
   let s0 = 0;
-  for (let i = 0; i < n; i++) s0 += Math.exp(c * (y[i] as number));
+  for (let i = 0; i < n; i++) s0 += (counts[i] as number) * Math.exp(c * (y[i] as number));
   const scale = Math.exp(lmax + Math.log(s0 / r) / c);
   return { shape: c, scale, iterations: it, converged };
 }
