@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { getFamily } from '../../core/families/index.js';
 import { prepareSample } from '../../core/sample.js';
-import { fitCensored, prepareLifeData, LIFE_FAMILIES, type LifeFamilyName } from '../../core/life/index.js';
+import { censoredLogLikelihood, fitCensored, prepareLifeData, LIFE_FAMILIES, type LifeFamilyName } from '../../core/life/index.js';
 
 // Fixture: scripts/fixtures/life.py (SciPy 1.17.1 CensoredData fits refined by mpmath score roots).
 const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
@@ -71,5 +71,15 @@ describe('censored maximum likelihood', () => {
     expect(() => prepareLifeData({ times: [1, 2], failed: [1, 2] })).toThrow(/status/);
     expect(() => prepareLifeData({ times: [0, 2], failed: [1, 1] })).toThrow(/> 0/);
     expect(() => prepareLifeData({ times: [1, 2], failed: [1] })).toThrow(/entries/);
+  });
+
+  it('grouping tied (time, status) pairs leaves the log-likelihood unchanged', () => {
+    // Σ ln f over failures + Σ ln S over suspensions summed unit by unit (Lawless 2003 §2.2).
+    const d = prepareLifeData({ times: fx.nist.times, failed: fx.nist.failed });
+    expect(d.groups.times.length).toBe(11); // 10 distinct failures + one group of 10 suspensions at 500 h
+    const dist = getFamily('gamma').make({ shape: 2.1, scale: 270 });
+    let direct = 0;
+    fx.nist.times.forEach((t: number, i: number) => (direct += fx.nist.failed[i] ? dist.logPdf(t) : dist.logSf(t)));
+    expect(censoredLogLikelihood(dist, d)).toBeCloseTo(direct, 11);
   });
 });
