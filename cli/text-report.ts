@@ -61,7 +61,7 @@ function parametersText(c: CandidateReport): string {
 }
 
 function chiShort(cs: ChiSquareReport): string {
-  if (!cs.computable) return 'n/a';
+  if (!cs.computable) return 'not computed';
   return `${pText(cs.pValue)}–${pText(cs.pValueUpper)}`;
 }
 
