@@ -7,7 +7,7 @@
 import { CompensatedSum } from '../compensated.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
-import { normalCdf, normalLogCdf, normalQuantile } from '../special/index.js';
+import { normalCdf, normalIsf, normalLogCdf, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
@@ -15,9 +15,6 @@ import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Paramet
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ meanlog: REAL, sdlog: POSITIVE });
-
-// TODO(special): switch sf/logSf/isf to normalSf / normalLogSf / normalIsf once core/special exports
-// them; until then the symmetry Φ(-z) = 1 - Φ(z) gives the upper tail directly (no subtraction).
 
 class LognormalDistribution implements Distribution {
   readonly family = 'lognormal' as const;
@@ -50,13 +47,13 @@ class LognormalDistribution implements Distribution {
     return normalCdf(this.z(x));
   }
   sf(x: number): number {
-    return normalCdf(-this.z(x));
+    return normalSf(this.z(x));
   }
   logCdf(x: number): number {
     return normalLogCdf(this.z(x));
   }
   logSf(x: number): number {
-    return normalLogCdf(-this.z(x));
+    return normalLogSf(this.z(x));
   }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
@@ -68,7 +65,7 @@ class LognormalDistribution implements Distribution {
     if (!(q >= 0 && q <= 1)) return Number.NaN;
     if (q === 0) return Number.POSITIVE_INFINITY;
     if (q === 1) return 0;
-    return Math.exp(this.mu - this.sigma * normalQuantile(q));
+    return Math.exp(this.mu + this.sigma * normalIsf(q));
   }
   mean(): number {
     return Math.exp(this.mu + 0.5 * this.sigma * this.sigma);

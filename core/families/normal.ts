@@ -1,12 +1,13 @@
 /**
  * The normal family, parameters `mean` (location) and `sd` (scale).
- * Tails: cdf and sf are Φ(±z) and their logs ln Φ(±z), never 1 - Φ; quantiles from Φ⁻¹.
+ * Tails: cdf, sf and their logs from the special functions normalCdf, normalSf, normalLogCdf,
+ * normalLogSf (never 1 - Φ); quantiles from normalQuantile and normalIsf.
  * Fit: closed-form maximum likelihood, mean = x̄ and sd = √(Σ(x - x̄)²/n) (the MLE divides by n,
  * not n - 1).
  */
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
-import { normalCdf, normalLogCdf, normalQuantile } from '../special/index.js';
+import { normalCdf, normalIsf, normalLogCdf, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
@@ -14,9 +15,6 @@ import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Paramet
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 const SUPPORT: Interval = Object.freeze({ lower: Number.NEGATIVE_INFINITY, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ mean: REAL, sd: POSITIVE });
-
-// TODO(special): switch sf/logSf/isf to normalSf / normalLogSf / normalIsf once core/special exports
-// them; until then the symmetry Φ(-z) = 1 - Φ(z) gives the upper tail directly (no subtraction).
 
 class NormalDistribution implements Distribution {
   readonly family = 'normal' as const;
@@ -41,13 +39,13 @@ class NormalDistribution implements Distribution {
     return normalCdf((x - this.mu) / this.sigma);
   }
   sf(x: number): number {
-    return normalCdf((this.mu - x) / this.sigma);
+    return normalSf((x - this.mu) / this.sigma);
   }
   logCdf(x: number): number {
     return normalLogCdf((x - this.mu) / this.sigma);
   }
   logSf(x: number): number {
-    return normalLogCdf((this.mu - x) / this.sigma);
+    return normalLogSf((x - this.mu) / this.sigma);
   }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
@@ -59,7 +57,7 @@ class NormalDistribution implements Distribution {
     if (!(q >= 0 && q <= 1)) return Number.NaN;
     if (q === 0) return Number.POSITIVE_INFINITY;
     if (q === 1) return Number.NEGATIVE_INFINITY;
-    return this.mu - this.sigma * normalQuantile(q);
+    return this.mu + this.sigma * normalIsf(q);
   }
   mean(): number {
     return this.mu;
