@@ -44,7 +44,7 @@ export function analyzeLife(input: LifeInput, options: LifeOptions = {}): LifeRe
   }
   const lastFailure = data.failures > 0 ? (data.failureTimes[data.failures - 1] as number) : Number.NaN;
   const grid = logGrid(data.minTime / 2, data.maxTime * 1.5, Math.max(2, options.curvePoints ?? 60));
-  const raw = fits.map((fit, idx) => {
+  const raw = fits.map((fit) => {
     const fam = getFamily(fit.family);
     const model = lifeModel(fit.family);
     const k = model.names.length;
@@ -62,7 +62,7 @@ export function analyzeLife(input: LifeInput, options: LifeOptions = {}): LifeRe
     });
     const reliability = relTimes.map((t) => reliabilityAt(fit, data, t, confidence, boundMethod));
     const shapeInterval = fit.family === 'weibull' ? parameterInterval(fit, data, 'shape', confidence) : null;
-    const goodnessOfFit = B > 0 ? censoredGofBootstrap(fit, data, { replicates: B, seed: (options.seed ?? 20261201) + 7919 * idx }) : null;
+    const goodnessOfFit = B > 0 ? censoredGofBootstrap(fit, data, { replicates: B, seed: (options.seed ?? 20261201) + 7919 * LIFE_FAMILIES.indexOf(fit.family) }) : null;
     if (goodnessOfFit && goodnessOfFit.failedReplicates > 0) {
       w.push(`${goodnessOfFit.failedReplicates} of ${B} bootstrap replicates could not be refitted and were left out of the p-value.`);
     }
