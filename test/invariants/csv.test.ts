@@ -40,7 +40,16 @@ const badCell: fc.Arbitrary<Cell> = fc.constantFrom<Cell>(
   { kind: 'bad', reason: 'non-numeric', text: '0x1F' },
 );
 
-const table = fc.record({
+interface Table {
+  readonly cells: readonly Cell[];
+  readonly eol: string;
+  readonly bom: boolean;
+  readonly quote: boolean;
+  readonly blankAfter: readonly number[];
+  readonly finalEol: boolean;
+}
+
+const table: fc.Arbitrary<Table> = fc.record({
   cells: fc.array(fc.oneof({ weight: 4, arbitrary: numberCell }, { weight: 1, arbitrary: badCell }), { minLength: 1, maxLength: 40 }),
   eol: fc.constantFrom('\n', '\r\n', '\r'),
   bom: fc.boolean(),
@@ -49,7 +58,7 @@ const table = fc.record({
   finalEol: fc.boolean(),
 });
 
-function build(t: fc.GeneratedValueOf<typeof table>): { text: string; lines: number[] } {
+function build(t: Table): { text: string; lines: number[] } {
   const out: string[] = ['id,"value"'];
   const lines: number[] = [];
   const blanks = new Set(t.blankAfter.map((b) => b % t.cells.length));
