@@ -55,6 +55,11 @@ function expectZero(v: number): void {
   expect(v === 0).toBe(true);
 }
 
+/** DEVELOPERS.md policy: 1e-12 relative, 1e-10 in far tails (probabilities below 1e-20). */
+function base(p: number): number {
+  return p < 1e-20 ? 1e-10 : 1e-12;
+}
+
 function rel(a: number, b: number): number {
   return a === b ? 0 : Math.abs(a - b) / Math.abs(b);
 }
@@ -80,12 +85,13 @@ for (const family of allFamilies()) {
           const x = d.quantile(p);
           expect(Number.isFinite(x)).toBe(true);
           if (x === d.support.upper || x === d.support.lower) continue; // see the isf round trip
-          // Tolerance: 1e-12 plus the rounding of x to a double, amplified by the condition number.
+          // Tolerance: the policy bound plus the rounding of x to a double, amplified by the
+          // condition number (no implementation can beat that).
           if (p <= 0.5) {
-            expect(rel(d.cdf(x), p)).toBeLessThanOrEqual(1e-12 + 16 * EPS * condCdf(d, x, p));
+            expect(rel(d.cdf(x), p)).toBeLessThanOrEqual(base(p) + 16 * EPS * condCdf(d, x, p));
           } else {
             const q = 1 - p; // exact for p ≥ 0.5 (Sterbenz)
-            expect(rel(d.sf(x), q)).toBeLessThanOrEqual(1e-12 + 16 * EPS * condCdf(d, x, q));
+            expect(rel(d.sf(x), q)).toBeLessThanOrEqual(base(q) + 16 * EPS * condCdf(d, x, q));
           }
         }
       });
@@ -97,7 +103,7 @@ for (const family of allFamilies()) {
           // At a finite support edge the exact quantile is closer to the edge than one ulp:
           // it rounds to the edge itself and cannot round-trip (checked by the edge test instead).
           if (x === d.support.upper || x === d.support.lower) continue;
-          expect(rel(d.sf(x), q)).toBeLessThanOrEqual(1e-12 + 16 * EPS * condCdf(d, x, q));
+          expect(rel(d.sf(x), q)).toBeLessThanOrEqual(base(q) + 16 * EPS * condCdf(d, x, q));
         }
       });
 
