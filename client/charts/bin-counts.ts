@@ -22,7 +22,7 @@ export const MIN_EXPECTED = 5;
 export function binCountsChart(container: Element, data: BinCountsChartData, options: ChartOptions): SVGSVGElement {
   const rows = data.bins.rows;
   const style = styleFor(data.family);
-  const title = `Observed and expected count per bin (${data.label})`;
+  const title = `Observed vs expected count per bin, ${data.label}`;
   const worst = [...rows].sort((a, b) => Math.abs(b.pearsonResidual) - Math.abs(a.pearsonResidual))[0];
   const description =
     `${rows.length} bins. Bars: observed counts; marks: counts expected under the ${data.label} fit. ` +

@@ -7,7 +7,7 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { CdfEvidence } from '../src/types.js';
 import { axisLabel } from '../src/format.js';
-import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
@@ -22,7 +22,7 @@ export function cdfChart(container: Element, data: CdfChartData, options: ChartO
   const e = data.cdf.empirical;
   const curves = data.cdf.fitted.curves;
   const sel = curves.find((c) => c.family === data.selected);
-  const title = 'Empirical distribution against the fitted CDFs';
+  const title = 'Empirical CDF vs fitted CDFs';
   const description =
     `Steps: share of the data at or below each value (${e.total} distinct values${e.thinned ? `, thinned to ${e.x.length} for drawing` : ''}). ` +
     `Curves: fitted cumulative distribution functions of ${curves.map((c) => c.label).join(', ')}${sel ? `; ${sel.label} is selected` : ''}.`;
@@ -42,7 +42,8 @@ export function cdfChart(container: Element, data: CdfChartData, options: ChartO
   const g = frame.plot.append('g').attr('clip-path', `url(#${clipId})`).attr('fill', 'none');
 
   const ordered = [...curves].sort((a, b) => Number(a.family === data.selected) - Number(b.family === data.selected));
-  for (const c of ordered) {
+  const coarse = noteIfCoarse(frame, data.cdf.fitted.x, data.xDomain);
+  for (const c of coarse ? [] : ordered) {
     const s = styleFor(c.family);
     const emph = c.family === data.selected;
     const pts = data.cdf.fitted.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);

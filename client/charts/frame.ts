@@ -218,6 +218,30 @@ export function pathThrough(points: readonly (readonly [number, number])[]): str
   return d;
 }
 
+/** Minimum number of curve points inside the drawn range for a curve to look smooth. */
+export const FEW_CURVE_POINTS = 12;
+
+/**
+ * A note in the plot's top-right corner when the fitted curves have few points inside the
+ * drawn range: straight segments between far-apart points would misrepresent the fit, so the
+ * caller leaves the curves out and this note says why.
+ */
+export function noteIfCoarse(frame: Frame, gridX: readonly number[], domain: readonly [number, number]): boolean {
+  let inside = 0;
+  for (const v of gridX) if (v >= domain[0] && v <= domain[1]) inside++;
+  if (inside >= FEW_CURVE_POINTS) return false;
+  frame.plot
+    .append('text')
+    .attr('data-kind', 'coarse-note')
+    .attr('x', frame.innerWidth - 4)
+    .attr('y', 12)
+    .attr('text-anchor', 'end')
+    .attr('font-size', 11)
+    .attr('fill', INK.reference)
+    .text(`Fitted curves not drawn: only ${inside} curve point${inside === 1 ? '' : 's'} in this range`);
+  return true;
+}
+
 /** A message drawn in place of a chart when there is nothing to draw, and why. */
 export function drawEmpty(frame: Frame, message: string): void {
   frame.plot

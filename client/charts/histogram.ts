@@ -6,7 +6,7 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear } from 'd3';
 import type { FittedCurves, HistogramEvidence } from '../src/types.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
@@ -22,7 +22,7 @@ export interface HistogramChartData {
 export function histogramChart(container: Element, data: HistogramChartData, options: ChartOptions): SVGSVGElement {
   const quantity = options.quantity ?? 'Value';
   const h = data.histogram;
-  const title = `Histogram on ${data.selectedLabel} equal-probability bins, with fitted densities`;
+  const title = `Histogram on ${data.selectedLabel} equal-probability bins`;
   const description =
     `${h.k} bins, each expected to hold the same share of the data under the ${data.selectedLabel} fit. ` +
     `Bar area is the observed share; curves are the fitted densities of ${data.densities.curves.map((c) => c.label).join(', ')}. ` +
@@ -79,7 +79,8 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
   });
 
   const curves = frame.plot.append('g').attr('clip-path', `url(#${clipId})`).attr('fill', 'none');
-  for (const c of ordered) {
+  const coarse = noteIfCoarse(frame, data.densities.x, data.xDomain);
+  for (const c of coarse ? [] : ordered) {
     const s = styleFor(c.family);
     const emph = c.family === data.selected;
     const pts = data.densities.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);

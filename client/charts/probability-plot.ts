@@ -30,12 +30,29 @@ function probabilityText(p: number): string {
   return `${Number(pct.toPrecision(2))}%`;
 }
 
+/**
+ * Log-axis ticks at least `minGap` px apart: leading digit 1 first, then 2 and 5, then the rest,
+ * each kept only if it is far enough from those already kept.
+ */
+export function spacedLogTicks(values: readonly number[], at: (v: number) => number, minGap: number): number[] {
+  const lead = (v: number) => Number(v.toExponential().charAt(0));
+  const classes = [(d: number) => d === 1, (d: number) => d === 2 || d === 5, (d: number) => d !== 1 && d !== 2 && d !== 5];
+  const kept: number[] = [];
+  for (const inClass of classes) {
+    for (const v of values) {
+      if (!inClass(lead(v))) continue;
+      if (kept.every((k) => Math.abs(at(k) - at(v)) >= minGap)) kept.push(v);
+    }
+  }
+  return kept.sort((a, b) => a - b);
+}
+
 export function probabilityPlotChart(container: Element, data: ProbabilityChartData, options: ChartOptions): SVGSVGElement {
   const quantity = options.quantity ?? 'Value';
   const p = data.plot;
   const style = styleFor(data.family);
   const qq = p.scale === 'quantile-quantile';
-  const title = qq ? `Quantile plot against the ${data.label} fit` : `Probability plot on the ${data.label} scale`;
+  const title = qq ? `Quantile plot, ${data.label} fit` : `Probability plot, ${data.label} scale`;
   const description =
     `${p.total} ordered values plotted at ${p.plottingPosition.name} positions ${p.plottingPosition.formula}` +
     `${p.thinned ? ` (thinned to ${p.points.x.length} for drawing)` : ''}. ` +
@@ -105,11 +122,14 @@ export function probabilityPlotChart(container: Element, data: ProbabilityChartD
   if (p.xTransform === 'ln') {
     const d = x.domain() as [number, number];
     const lg = scaleLog().domain([Math.exp(d[0]), Math.exp(d[1])]);
-    const values = lg.ticks(Math.max(3, Math.floor(frame.innerWidth / 90)));
-    const thin = values.length > 10 ? values.filter((v) => /^[125]/.test(v.toExponential())) : values;
+    const thin = spacedLogTicks(lg.ticks(12), (v) => x(Math.log(v)), 46);
+    // Enough significant figures that neighbouring labels differ (a narrow range such as
+    // 24.995 to 25.010 needs five).
+    let digits = 3;
+    while (digits < 10 && new Set(thin.map((v) => sig(v, digits))).size < thin.length) digits++;
     const axis = axisBottom(x)
       .tickValues(thin.map((v) => Math.log(v)))
-      .tickFormat((v) => sig(Math.exp(Number(v)), 3));
+      .tickFormat((v) => sig(Math.exp(Number(v)), digits));
     drawXAxis(frame, axis, xLabel);
   } else {
     drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), xLabel);

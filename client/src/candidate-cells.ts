@@ -16,6 +16,10 @@ export interface CandidateCells {
   readonly chiSquare: string;
   readonly chiSquareNote: string;
   readonly dof: string;
+  readonly dofMain: string;
+  readonly dofBracket: string;
+  readonly chiPMain: string;
+  readonly chiPBracket: string;
   readonly chiP: string;
   readonly chiComputable: boolean;
   readonly adStatistic: string;
@@ -55,6 +59,10 @@ export function candidateCells(c: CandidateReport): CandidateCells {
     chiSquareNote: chi.computable ? `k = ${chi.k} bins` : chi.reason,
     dof: chi.computable ? `${chi.dof} [${chi.dofUpper}]` : '—',
     chiP: chi.computable ? `${pValue(chi.pValue)} [${pValue(chi.pValueUpper)}]` : '—',
+    dofMain: chi.computable ? String(chi.dof) : '—',
+    dofBracket: chi.computable ? `[${chi.dofUpper}]` : '',
+    chiPMain: chi.computable ? pValue(chi.pValue) : '—',
+    chiPBracket: chi.computable ? `[${pValue(chi.pValueUpper)}]` : '',
     adStatistic: sig(ad.statistic, 4),
     adP: pValue(ad.pValue, ad.pValueIs),
     adMethod,

@@ -42,7 +42,7 @@ const ID_LIKE = /^(id|index|row|no\.?|nr|#|serial|sample|unit|item|date|time|yea
 
 export function scanColumns(text: string, options: { header: boolean; decimal: '.' | ',' }): ColumnScan {
   const sample = head(text, 200);
-  const probe = readColumns(sample, [], { header: true, decimal: options.decimal });
+  const probe = readColumns(sample, [{ select: 1, kind: 'text' }], { header: true, decimal: options.decimal, skipInvalid: true });
   const fieldCount = Math.max(1, probe.header.length);
   const columns: ColumnChoice[] = [];
   for (let j = 0; j < fieldCount; j++) {

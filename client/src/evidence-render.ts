@@ -20,6 +20,26 @@ export function evidenceFor(evidence: Evidence, family: string): CandidateEviden
   return evidence.candidates.find((c) => c.family === family);
 }
 
+/**
+ * The horizontal range for the histogram and CDF charts of one candidate: the data and the
+ * candidate's inner bin edges, padded by 4%, inside the core's suggested domain. (The core's
+ * domain covers every candidate's bins, which for a poorly fitting candidate can dwarf the data.)
+ */
+export function displayDomain(evidence: Evidence, ce: CandidateEvidence): [number, number] {
+  let lo = evidence.min;
+  let hi = evidence.max;
+  const bars = ce.histogram.bars;
+  for (let i = 0; i + 1 < bars.length; i++) {
+    const edge = bars[i]!.upper;
+    if (Number.isFinite(edge)) {
+      lo = Math.min(lo, edge);
+      hi = Math.max(hi, edge);
+    }
+  }
+  const pad = (hi - lo) * 0.04 || Math.abs(lo) * 0.01 || 1;
+  return [Math.max(lo - pad, evidence.xDomain[0]), Math.min(hi + pad, evidence.xDomain[1])];
+}
+
 export function drawEvidence(
   targets: ChartTargets,
   evidence: Evidence,
@@ -28,16 +48,17 @@ export function drawEvidence(
 ): SVGSVGElement[] {
   const ce = evidenceFor(evidence, family);
   if (!ce) return [];
+  const domain = displayDomain(evidence, ce);
   const opt = (el: Element): ChartOptions => ({ ...options.sizeOf(el), units: options.units, quantity: options.quantity || 'Value' });
   return [
     histogramChart(
       targets.histogram,
-      { histogram: ce.histogram, densities: evidence.densities, xDomain: evidence.xDomain, selected: family, selectedLabel: ce.label },
+      { histogram: ce.histogram, densities: evidence.densities, xDomain: domain, selected: family, selectedLabel: ce.label },
       opt(targets.histogram),
     ),
     probabilityPlotChart(targets.probability, { plot: ce.probabilityPlot, family, label: ce.label }, opt(targets.probability)),
     binCountsChart(targets.bins, { bins: ce.bins, family, label: ce.label }, opt(targets.bins)),
-    cdfChart(targets.cdf, { cdf: evidence.cdf, xDomain: evidence.xDomain, selected: family }, opt(targets.cdf)),
+    cdfChart(targets.cdf, { cdf: evidence.cdf, xDomain: domain, selected: family }, opt(targets.cdf)),
   ];
 }
 

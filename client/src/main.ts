@@ -15,6 +15,7 @@ import { buildReportHtml } from './report-html.js';
 import { binsCsv } from './bins-csv.js';
 import { skipLine } from './skip-words.js';
 import { styleFor } from '../charts/palette.js';
+import { guessFromColumn } from './units-guess.js';
 
 // ---------------------------------------------------------------------------------------------
 // State
@@ -63,6 +64,7 @@ const $ = {
   skips: byId<HTMLUListElement>('skips'),
   quantity: byId<HTMLInputElement>('quantity-input'),
   units: byId<HTMLInputElement>('units-input'),
+  unitsHint: byId('units-hint'),
   familyBoxes: byId('family-boxes'),
   alpha: byId<HTMLInputElement>('alpha-input'),
   bins: byId<HTMLInputElement>('bins-input'),
@@ -78,7 +80,7 @@ const $ = {
   error: byId('error'),
   rankingRule: byId('ranking-rule'),
   summaryLine: byId('summary-line'),
-  rankingBody: byId<HTMLTableSectionElement>('ranking-body'),
+  rankingTable: byId<HTMLTableElement>('ranking-table'),
   notApplicable: byId('not-applicable'),
   warnings: byId<HTMLUListElement>('warnings'),
   evidenceName: byId('evidence-name'),
@@ -228,6 +230,8 @@ function showColumns(columns: readonly ColumnChoice[], chosen: number): void {
 
 function loadSource(source: Source, opts: { header?: boolean; column?: number } = {}): void {
   state.source = source;
+  $.quantity.dataset['typed'] = '';
+  $.units.dataset['typed'] = '';
   $.loaded.hidden = false;
   $.sourceName.textContent = `${source.name}${source.kind === 'demo' ? ' (worked scenario, invented data)' : ''}`;
   const header = opts.header ?? !firstLineIsNumber(source.csv, decimal());
@@ -257,11 +261,15 @@ function columnLabel(): string {
   return state.columns.find((c) => c.index === state.column)?.label ?? `#${state.column}`;
 }
 
-/** Pre-fill "what was measured" from the column name while the user has not typed one. */
+/** Pre-fill "what was measured" and the units from the column name while the user has not typed them. */
 function suggestQuantity(): void {
-  if ($.quantity.dataset['typed'] === 'yes') return;
-  const name = columnLabel();
-  $.quantity.value = /^#\d+$/.test(name) ? '' : name.replace(/[_]+/g, ' ').trim();
+  const guess = guessFromColumn(columnLabel());
+  if ($.quantity.dataset['typed'] !== 'yes') $.quantity.value = guess.quantity;
+  if ($.units.dataset['typed'] !== 'yes') $.units.value = guess.units;
+  const fromName = $.quantity.dataset['typed'] !== 'yes' || $.units.dataset['typed'] !== 'yes';
+  $.unitsHint.textContent = fromName && (guess.quantity || guess.units)
+    ? `Suggested from the column name; correct them if wrong. Used on every chart axis and in the exported report.`
+    : 'Used on every chart axis and in the exported report.';
 }
 
 async function loadDemo(name: string): Promise<void> {
@@ -439,7 +447,7 @@ function renderCounts(resp: AnalyzeResponse): void {
   if (input?.blankLines) $.skips.append(el('li', {}, `${input.blankLines} blank line${input.blankLines === 1 ? '' : 's'} passed over`));
   const most = Math.floor(resp.n / 5);
   const sel = resp.candidates.find((c) => c.family === state.selected) ?? resp.candidates[0];
-  const used = sel && sel.chiSquare.computable ? ` Now: k = ${sel.chiSquare.k} (${sel.chiSquare.kRule}).` : '';
+  const used = sel && sel.chiSquare.computable ? ` For ${displayLabel(sel.label)}: ${sel.chiSquare.kRule}` : '';
   $.binsHint.textContent =
     `Bins have equal probability under each model, so each expects n/k values. The chi-square approximation needs at least 5 expected per bin: ` +
     `with n = ${resp.n}, k can be at most ${most}.${used}`;
@@ -458,48 +466,51 @@ function renderRanking(resp: AnalyzeResponse): void {
     const firstOk = resp.candidates.find((c) => c.rejectedBy.length === 0);
     $.summaryLine.textContent = `Best by AICc: ${best.label}, but it is rejected at α = ${a}.${firstOk ? ` The best model not rejected is ${firstOk.label} (rank ${firstOk.rank}).` : ''}`;
   }
-  clear($.rankingBody);
+  for (const g of $.rankingTable.querySelectorAll('tbody')) g.remove();
   for (const c of resp.candidates) {
     const k = candidateCells(c);
-    const row = el('tr', { tabindex: 0, 'data-family': c.family, 'aria-selected': String(c.family === state.selected) });
+    const group = el('tbody', { className: 'cand', 'data-family': c.family });
+    const row = el('tr', { tabindex: 0, className: 'cand-main', 'data-family': c.family, 'aria-selected': String(c.family === state.selected) });
     const swatch = el('span', { className: 'swatch', 'aria-hidden': 'true' });
     const style = styleFor(c.family);
     swatch.style.borderTopColor = style.colour;
     swatch.style.borderTopStyle = style.dash ? 'dashed' : 'solid';
     row.append(
       el('td', { className: 'num' }, k.rank),
-      el('td', { className: 'model' }, swatch, ' ', k.model),
-      el('td', { className: 'params' }, ...k.parameters.split(' · ').map((p) => el('span', { className: 'p-line' }, p, el('br')))),
+      el('td', { className: 'model' }, swatch, ' ', displayLabel(k.model)),
+      el('td', { className: 'params' }, ...k.parameters.split(' · ').map((p) => el('span', { className: 'p-line' }, p))),
       el('td', { className: 'num' }, k.logLikelihood),
       el('td', { className: 'num' }, k.aicc, el('span', { className: 'sub' }, k.deltaAicc)),
     );
     if (k.chiComputable) {
       row.append(
         el('td', { className: 'num' }, k.chiSquare, el('span', { className: 'sub' }, k.chiSquareNote)),
-        el('td', { className: 'num' }, k.dof),
-        el('td', { className: 'num' }, k.chiP),
+        el('td', { className: 'num' }, k.dofMain, el('span', { className: 'sub' }, k.dofBracket)),
+        el('td', { className: 'num' }, k.chiPMain, el('span', { className: 'sub' }, k.chiPBracket)),
       );
     } else {
-      row.append(el('td', { colspan: 3 }, 'not computed', el('span', { className: 'sub' }, k.chiSquareNote)));
+      row.append(el('td', { colspan: 3, className: 'na-cell' }, 'not computed', el('span', { className: 'sub wrap' }, k.chiSquareNote)));
     }
     row.append(
       el('td', { className: 'num' }, k.adStatistic),
       el('td', { className: 'num', title: k.adMethodDetail }, k.adP, el('span', { className: 'sub' }, k.adMethod)),
-      el('td', {}, el('span', { className: `verdict ${k.rejected ? 'no' : 'ok'}` }, k.badge), el('span', { className: 'verdict-words' }, k.verdict)),
+      el('td', {}, el('span', { className: `verdict ${k.rejected ? 'no' : 'ok'}` }, k.badge)),
     );
-    row.setAttribute('aria-label', `Rank ${k.rank}, ${k.model}: ${k.badge}. Press Enter to show its evidence.`);
-    row.addEventListener('click', () => select(c.family));
+    row.setAttribute('aria-label', `Rank ${k.rank}, ${displayLabel(k.model)}: ${k.badge}. ${k.verdict}`);
+    const words = el('tr', { className: 'cand-words', 'aria-hidden': 'true' }, el('td', {}), el('td', { colspan: 10 }, k.verdict));
+    group.append(row, words);
+    group.addEventListener('click', () => select(c.family));
     row.addEventListener('keydown', (ev) => {
       if (ev.key === 'Enter' || ev.key === ' ') {
         ev.preventDefault();
         select(c.family);
       } else if (ev.key === 'ArrowDown' || ev.key === 'ArrowUp') {
         ev.preventDefault();
-        const sib = (ev.key === 'ArrowDown' ? row.nextElementSibling : row.previousElementSibling) as HTMLElement | null;
-        sib?.focus();
+        const sib = (ev.key === 'ArrowDown' ? group.nextElementSibling : group.previousElementSibling) as HTMLElement | null;
+        sib?.querySelector<HTMLElement>('tr.cand-main')?.focus();
       }
     });
-    $.rankingBody.append(row);
+    $.rankingTable.append(group);
   }
   clear($.notApplicable);
   if (resp.notApplicable.length > 0) {
@@ -512,6 +523,11 @@ function renderRanking(resp: AnalyzeResponse): void {
   for (const w of [...resp.warnings, ...(resp.input?.warnings ?? [])]) $.warnings.append(el('li', {}, w));
 }
 
+/** The core's label with a capital first letter (labels start a table cell or a sentence here). */
+function displayLabel(label: string): string {
+  return label ? label[0]!.toUpperCase() + label.slice(1) : label;
+}
+
 function labelOf(family: string): string {
   return FAMILY_CHOICES.find((f) => f.name === family)?.label ?? family;
 }
@@ -519,14 +535,14 @@ function labelOf(family: string): string {
 function select(family: string): void {
   if (!state.response) return;
   state.selected = family;
-  for (const row of $.rankingBody.querySelectorAll<HTMLTableRowElement>('tr')) row.setAttribute('aria-selected', String(row.dataset['family'] === family));
+  for (const row of $.rankingTable.querySelectorAll<HTMLTableRowElement>('tr.cand-main')) row.setAttribute('aria-selected', String(row.dataset['family'] === family));
   renderCounts(state.response);
   renderEvidence();
 }
 
 function chartSize(node: Element): { width: number; height: number } {
   const w = Math.round(Math.min(1100, Math.max(320, (node as HTMLElement).clientWidth || 560)));
-  return { width: w, height: Math.round(Math.min(520, Math.max(300, w * 0.62))) };
+  return { width: w, height: Math.round(Math.min(430, Math.max(300, w * 0.62))) };
 }
 
 function units(): string {
@@ -538,7 +554,7 @@ function renderEvidence(): void {
   const fam = state.selected;
   if (!resp || !fam || !resp.evidence) return;
   const ce = evidenceFor(resp.evidence, fam);
-  $.evidenceName.textContent = ce ? ce.label : labelOf(fam);
+  $.evidenceName.textContent = ce ? displayLabel(ce.label) : labelOf(fam);
   drawEvidence($.charts, resp.evidence, fam, { units: units(), quantity: $.quantity.value.trim(), sizeOf: chartSize });
   if (ce) {
     $.captions.histogram.textContent = `Bars should follow the heavy ${ce.label} curve; look for runs of bars above or below it. ${ce.histogram.displayEdgeRule}`;
@@ -696,6 +712,7 @@ function wire(): void {
     renderEvidence();
   });
   $.units.addEventListener('input', () => {
+    $.units.dataset['typed'] = 'yes';
     renderEvidence();
   });
 

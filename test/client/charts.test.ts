@@ -150,6 +150,17 @@ describe('empirical CDF against fitted CDFs', () => {
   });
 });
 
+describe('coarse curve grids', () => {
+  it('leaves the curves out and says so when the grid has fewer than 12 points in the drawn range (common practice, no source)', () => {
+    const sparse = { x: [0, 500, 1000], curves: EVIDENCE.densities.curves.map((c) => ({ ...c, y: [0.01, 0.01, 0.01] })) };
+    const svg = histogramChart(host(), { histogram: weibull.histogram, densities: sparse, xDomain: EVIDENCE.xDomain, selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
+    expect(svg.querySelectorAll('path[data-kind="curve"]')).toHaveLength(0);
+    expect(svg.querySelector('[data-kind="coarse-note"]')?.textContent).toMatch(/not drawn: only 0 curve points/);
+    const fine = histogramChart(host(), { histogram: weibull.histogram, densities: EVIDENCE.densities, xDomain: EVIDENCE.xDomain, selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
+    expect(fine.querySelector('[data-kind="coarse-note"]')).toBeNull();
+  });
+});
+
 describe('user text in charts', () => {
   it('keeps units and names as text: markup in them cannot become elements (OWASP XSS Prevention Cheat Sheet, rule 1)', () => {
     const hostile = { ...OPTS, units: '<img src=x onerror=alert(1)>', quantity: '<script>alert(1)</script>' };

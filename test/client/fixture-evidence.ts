@@ -5,7 +5,11 @@
  */
 import type { Evidence, ProbabilityPlotEvidence } from '../../core/index.js';
 
-const grid = [10, 20, 30, 40, 50, 60, 70, 80, 90, 100];
+const grid = Array.from({ length: 19 }, (_, i) => 10 + 5 * i);
+// Illustrative curve shapes on the grid (hand-made, rounded to 4 decimals; not fits).
+const r4 = (v: number) => Math.round(v * 1e4) / 1e4;
+const bump = (x: number, m: number, s: number) => r4(Math.exp(-0.5 * ((x - m) / s) ** 2) / (s * Math.sqrt(2 * Math.PI)));
+const ramp = (x: number, m: number, s: number) => r4(1 / (1 + Math.exp(-(x - m) / s)));
 const plot = (scale: ProbabilityPlotEvidence['scale'], xTransform: 'identity' | 'ln'): ProbabilityPlotEvidence => {
   const xs = [12, 25, 33, 41, 47, 52, 58, 66, 79, 95];
   const x = xTransform === 'ln' ? xs.map(Math.log) : xs;
@@ -64,8 +68,8 @@ export const EVIDENCE: Evidence = {
   densities: {
     x: grid,
     curves: [
-      { family: 'normal', label: 'Normal', y: [0.004, 0.008, 0.013, 0.017, 0.018, 0.017, 0.013, 0.008, 0.004, 0.002] },
-      { family: 'weibull', label: 'Weibull', y: [null, 0.01, 0.015, 0.018, 0.017, 0.015, 0.011, 0.007, 0.004, 0.002] },
+      { family: 'normal', label: 'Normal', y: grid.map((x) => bump(x, 50, 22)) },
+      { family: 'weibull', label: 'Weibull', y: grid.map((x, i) => (i === 0 ? null : bump(x, 46, 20))) },
     ],
   },
   cdf: {
@@ -79,8 +83,8 @@ export const EVIDENCE: Evidence = {
     fitted: {
       x: grid,
       curves: [
-        { family: 'normal', label: 'Normal', y: [0.03, 0.09, 0.2, 0.35, 0.52, 0.69, 0.83, 0.92, 0.97, 0.99] },
-        { family: 'weibull', label: 'Weibull', y: [0.02, 0.1, 0.22, 0.38, 0.55, 0.7, 0.82, 0.9, 0.95, 0.98] },
+        { family: 'normal', label: 'Normal', y: grid.map((x) => ramp(x, 50, 13)) },
+        { family: 'weibull', label: 'Weibull', y: grid.map((x) => ramp(x, 47, 12)) },
       ],
     },
   },
