@@ -1,0 +1,179 @@
+/**
+ * The page in a real browser (Debian's Chromium driven by playwright-core) against the real
+ * server started as one node process: the demo result on opening, a CSV upload with a chosen
+ * column, changed α and families, selecting a candidate with the mouse and the keyboard, the
+ * exports, a bootstrap run that can be stopped, and screenshots at 1366×768 and 1920×1080 in
+ * test-output/ (git-ignored).
+ *
+ * Run locally: `apt-get install -y chromium`, then `npx vitest run test/browser`.
+ * Skipped only when /usr/bin/chromium is absent and CI is not set.
+ */
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { CHROMIUM, CHROMIUM_ARGS, ROOT, SKIP_BROWSER, ensureClientBuilt, startServer, type RunningServer } from './server-process.js';
+
+const OUT = join(ROOT, 'test-output');
+
+// An invented fatigue test: an identifier, a cycle count in thousands, the load, a note; one
+// row with a missing load ("NA") that must be counted as skipped, not silently dropped.
+const LOADS = [41.2, 38.7, 44.9, 40.1, 39.5, 42.8, 45.6, 37.9, 43.3, 40.8, 41.9, 39.1, 42.2, 44.1, 38.4, 40.5, 43.7, 41.5, 39.8, 42.6, 46.3, 40.2, 41.1, 43.0];
+const CSV =
+  'specimen,kcycles,load_kN,note\r\n' +
+  LOADS.map((v, i) => `S${i + 1},${(120 + 7 * i) % 97},${v},"batch ${1 + (i % 3)}, ok"`).join('\r\n') +
+  '\r\nS99,50,NA,"<b>not measured</b>"\r\n';
+
+describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
+  let server: RunningServer;
+  let browser: Browser;
+  let page: Page;
+  const consoleProblems: string[] = [];
+
+  beforeAll(async () => {
+    mkdirSync(OUT, { recursive: true });
+    await ensureClientBuilt();
+    server = await startServer();
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    const context = await browser.newContext({ viewport: { width: 1366, height: 768 }, acceptDownloads: true });
+    page = await context.newPage();
+    page.on('console', (m) => {
+      if (m.type() === 'error' || /Content.Security.Policy/i.test(m.text())) consoleProblems.push(m.text());
+    });
+    page.on('pageerror', (e) => consoleProblems.push(`page error: ${e.message}`));
+  }, 180_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  async function waitForDone(what: RegExp): Promise<void> {
+    await page.waitForFunction(
+      (src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''),
+      what.source,
+      { timeout: 60_000 },
+    );
+  }
+
+  const rows = () => page.locator('#ranking-table tr.cand-main');
+
+  it('opens with the demo already analysed: ranked table, four charts, the caution (issue 3, "Start")', async () => {
+    await page.goto(server.url);
+    await waitForDone(/^Done:/);
+    expect(await rows().count()).toBeGreaterThan(0);
+    expect(await page.locator('.charts svg[role="img"]').count()).toBe(4);
+    expect(await page.locator('#caution').textContent()).toMatch(/licensed/);
+    // The first row is selected and its name heads the evidence.
+    const first = rows().first();
+    expect(await first.getAttribute('aria-selected')).toBe('true');
+    const evidenceName = (await page.locator('#evidence-name').textContent()) ?? '';
+    expect((await first.locator('td.model').textContent())?.trim()).toContain(evidenceName.trim());
+    await page.screenshot({ path: join(OUT, 'page-1366x768.png') });
+    await page.screenshot({ path: join(OUT, 'page-1366-full.png'), fullPage: true });
+  });
+
+  it('reads an uploaded CSV, offers its columns, analyses the chosen one and counts the skipped row', async () => {
+    await page.setInputFiles('#file-input', { name: 'fatigue <test>.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) });
+    await page.waitForFunction(() => (document.getElementById('source-name')?.textContent ?? '').includes('fatigue'));
+    const options = await page.locator('#column-select option').allTextContents();
+    expect(options).toEqual(['1. specimen', '2. kcycles', '3. load_kN', '4. note']);
+    // The file name is shown as text, not markup (OWASP XSS Prevention Cheat Sheet, rule 1).
+    expect(await page.locator('#source-name').textContent()).toContain('fatigue <test>.csv');
+    await page.selectOption('#column-select', '3');
+    await waitForDone(/values of load_kN from fatigue/);
+    const counts = (await page.locator('#counts').textContent()) ?? '';
+    expect(counts).toContain(`n = ${LOADS.length} values used`);
+    expect(counts).toContain(`${LOADS.length + 1} data rows read`);
+    expect(counts).toMatch(/1 row skipped/);
+    expect(await page.locator('#skips').textContent()).toMatch(/missing-value marker.*line 26/);
+    // Units and quantity suggested from the column name appear on the chart axes.
+    expect(await page.inputValue('#units-input')).toBe('kN');
+    expect(await page.locator('#chart-histogram svg').textContent()).toContain('Load [kN]');
+  });
+
+  it('re-runs when α and the families change', async () => {
+    await page.fill('#alpha-input', '0.1');
+    await page.press('#alpha-input', 'Tab');
+    await page.waitForFunction(() => (document.querySelector('#ranking-table tr.cand-words')?.textContent ?? '').includes('α = 0.1'), undefined, { timeout: 60_000 });
+    await page.uncheck('#family-boxes input[value="exponential"]');
+    await page.uncheck('#family-boxes input[value="gamma"]');
+    await page.waitForFunction(() => document.querySelectorAll('#ranking-table tr.cand-main').length === 3, undefined, { timeout: 60_000 });
+    const families = await rows().evaluateAll((rs) => rs.map((r) => r.getAttribute('data-family')));
+    expect(families.sort()).toEqual(['lognormal', 'normal', 'weibull']);
+  });
+
+  it('selects a candidate by click and by keyboard (Tab to the row, Enter)', async () => {
+    const second = rows().nth(1);
+    await second.click();
+    expect(await second.getAttribute('aria-selected')).toBe('true');
+    expect(await rows().first().getAttribute('aria-selected')).toBe('false');
+    const fam = await second.getAttribute('data-family');
+    const title = (await page.locator('#chart-probability svg title').first().textContent()) ?? '';
+    expect(title.toLowerCase()).toContain(fam!);
+    const third = rows().nth(2);
+    await third.focus();
+    await page.keyboard.press('Enter');
+    expect(await third.getAttribute('aria-selected')).toBe('true');
+    // Focus is visible on the row (WCAG 2.1 SC 2.4.7): an outline is drawn.
+    const outline = await third.evaluate((r) => getComputedStyle(r).outlineStyle);
+    expect(outline).not.toBe('none');
+  });
+
+  it('exports a self-contained HTML report with the table and the four SVG charts, and a neutralised CSV', async () => {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, 'report.html');
+    await download.saveAs(file);
+    const html = readFileSync(file, 'utf8');
+    expect(html).toContain('<table class="ranking">');
+    expect(html.match(/<svg/g)?.length).toBe(4);
+    expect(html).not.toMatch(/<script/i);
+    expect(html).toContain('fatigue &lt;test&gt;.csv');
+    expect(html).toContain('load_kN');
+    expect(html).toMatch(/Random seed<\/th><td>\d+/);
+    const selectedLabel = (await rows().nth(2).locator('td.model').textContent())?.trim() ?? '';
+    expect(html.toLowerCase()).toContain(`evidence for ${selectedLabel.toLowerCase()}`);
+
+    const [csvDownload] = await Promise.all([page.waitForEvent('download'), page.click('#export-csv')]);
+    const csvFile = join(OUT, 'bins.csv');
+    await csvDownload.saveAs(csvFile);
+    const csv = readFileSync(csvFile, 'utf8');
+    expect(csv.split('\r\n')[0]).toMatch(/^model,source,column,units,bin,lower,upper,observed,expected/);
+
+    const [jsonDownload] = await Promise.all([page.waitForEvent('download'), page.click('#export-json')]);
+    const jsonFile = join(OUT, 'report.json');
+    await jsonDownload.saveAs(jsonFile);
+    const json = JSON.parse(readFileSync(jsonFile, 'utf8')) as { n: number; options: { alpha: number } };
+    expect(json.n).toBe(LOADS.length);
+    expect(json.options.alpha).toBe(0.1);
+  });
+
+  it('shows bootstrap progress, keeps the page usable, and stops on request', async () => {
+    await page.check('input[name="pmethod"][value="bootstrap"]');
+    await page.fill('#replicates-input', '100000');
+    await page.press('#replicates-input', 'Tab');
+    await page.waitForSelector('#progress-wrap:not([hidden])', { timeout: 30_000 });
+    // Usable meanwhile: another candidate can be selected while the bootstrap runs.
+    await rows().nth(0).click();
+    expect(await rows().nth(0).getAttribute('aria-selected')).toBe('true');
+    // A second analysis replaces the first (the server keeps one job per page).
+    await page.fill('#alpha-input', '0.05');
+    await page.press('#alpha-input', 'Tab');
+    await page.waitForTimeout(1500);
+    const health = (await (await fetch(`${server.url}api/health`)).json()) as { jobsRunning: number };
+    expect(health.jobsRunning).toBeLessThanOrEqual(1);
+    await page.click('#cancel-button');
+    await page.waitForSelector('#progress-wrap[hidden]', { state: 'attached', timeout: 10_000 });
+    expect(await page.locator('#status').textContent()).toMatch(/stopped/i);
+    await page.check('input[name="pmethod"][value="table"]');
+    await waitForDone(/^Done:/);
+  });
+
+  it('reads well at 1920×1080 (screenshot) and raised no console or CSP errors', async () => {
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    await page.waitForTimeout(400);
+    await page.screenshot({ path: join(OUT, 'page-1920x1080.png') });
+    await page.screenshot({ path: join(OUT, 'page-1920-full.png'), fullPage: true });
+    expect(consoleProblems).toEqual([]);
+  });
+});
