@@ -1,7 +1,7 @@
 /**
- * One analysis request end to end: values (or the CSV read by the core's reader, the same code as
- * the CLI) → the core's plan → bootstrap ranges on the worker pool (when any family needs them)
- * → the report, plus evidence when asked. The response is the report exactly as the CLI's
+ * One analysis request end to end (run inside a worker thread, see worker.ts): values (or the CSV
+ * read by the core's reader, the same code as the CLI) → the core's plan → [bootstrap ranges on the
+ * worker pool, when any family needs them] → the report, plus evidence when asked. The response is the report exactly as the CLI's
  * `--json` prints it, with `input` (where the values came from) and optionally `evidence`.
  */
 import {
@@ -12,11 +12,11 @@ import {
   SKIP_REASON_WORDS,
   type AnalysisPlan,
   type AnalysisReport,
+  type BootstrapCounts,
   type AnalyzeOptions,
   type Evidence,
   type SkipCount,
 } from '../core/index.js';
-import type { WorkerPool } from './pool.js';
 import type { AnalyzeRequest } from './validate.js';
 
 export interface InputSummary {
@@ -84,14 +84,9 @@ export function planRequest(req: AnalyzeRequest): PlannedAnalysis {
   return { request: req, plan, input, replicates };
 }
 
-/** Run the bootstrap (if any) on the pool and build the response. */
-export async function completeRequest(
-  planned: PlannedAnalysis,
-  pool: WorkerPool,
-  opts: { signal?: AbortSignal; onProgress?: (done: number, total: number) => void } = {},
-): Promise<AnalyzeResponse> {
+/** Build the response from a plan and its bootstrap counts (one per job, in order). */
+export function finishRequest(planned: PlannedAnalysis, counts: readonly BootstrapCounts[]): AnalyzeResponse {
   const { plan, request, input } = planned;
-  const counts = plan.bootstrapJobs.length > 0 ? await pool.run(plan.bootstrapJobs, opts) : [];
   const report = finishAnalysis(plan, counts);
   if (!request.evidence) return { ...report, input };
   return { ...report, input, evidence: computeEvidence(plan.sample, report, request.evidenceOptions) };

@@ -7,14 +7,12 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import { PLUMBLINE_VERSION } from '../core/index.js';
-import { completeRequest, planRequest, type AnalyzeResponse } from './analysis.js';
 import { DemoStore } from './demo.js';
 import { errorHandler, HttpError, sendError, type Logger } from './errors.js';
 import { hostCheck, securityHeaders } from './headers.js';
-import { JobManager } from './jobs.js';
+import { JobManager, jobViewJson } from './jobs.js';
 import { maxWorkers, WorkerPool } from './pool.js';
 import { staticFiles } from './static.js';
-import { parseAnalyzeBody, parseJobBody } from './validate.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 /** The repository root (server/ from sources, dist/server/ when compiled). */
@@ -75,6 +73,11 @@ function requireJson(req: Request, _res: Response, next: NextFunction): void {
     next(new HttpError(415, `The body must be JSON sent with Content-Type: application/json (got ${JSON.stringify(String(req.headers['content-type'] ?? 'none').slice(0, 80))}).`, { code: 'unsupported-media-type' }));
     return;
   }
+  const charset = /;\s*charset\s*=\s*"?([^";\s]+)/i.exec(String(req.headers['content-type'] ?? ''))?.[1];
+  if (charset !== undefined && !/^utf-?8$/i.test(charset)) {
+    next(new HttpError(415, `Unsupported charset "${charset.slice(0, 40)}": send the JSON as UTF-8.`, { code: 'unsupported-media-type' }));
+    return;
+  }
   next();
 }
 
@@ -104,36 +107,45 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
   app.use(securityHeaders());
   if (options.allowedHosts !== true) app.use(hostCheck(options.allowedHosts ?? []));
 
-  const json = express.json({ limit: bodyLimit, strict: true, type: 'application/json' });
+  // Bodies are taken as bytes and parsed in a worker thread (pool.ts), so a 50 MB upload never
+  // blocks the main thread; express.raw still enforces the limit (413).
+  const raw = express.raw({ limit: bodyLimit, type: 'application/json' });
+  const bodyBytes = (req: Request): Uint8Array => {
+    const b: unknown = req.body;
+    if (b instanceof Uint8Array && b.byteLength > 0) return b;
+    throw new HttpError(400, 'The request has no JSON body. Send {"values": [...]} or {"csv": "...", "column": "..."} with Content-Type: application/json.', { code: 'bad-request' });
+  };
+  const sendJson = (res: Response, status: number, json: string): void => {
+    res.status(status).type('application/json').send(json);
+  };
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true, version: PLUMBLINE_VERSION, jobsRunning: jobs.running, workers: pool.size });
   });
   app.all('/api/health', methodNotAllowed('GET'));
 
-  app.post('/api/analyze', requireJson, json, async (req, res) => {
-    const request = parseAnalyzeBody(req.body);
-    const planned = planRequest(request);
+  app.post('/api/analyze', requireJson, raw, async (req, res) => {
+    const body = bodyBytes(req);
     const controller = new AbortController();
     // A client that goes away stops its bootstrap.
     res.on('close', () => {
       if (!res.writableFinished) controller.abort();
     });
-    const result: AnalyzeResponse = await completeRequest(planned, pool, { signal: controller.signal });
-    res.json(result);
+    const { json } = await pool.analyze(body, 'analyze', { signal: controller.signal });
+    sendJson(res, 200, json);
   });
   app.all('/api/analyze', methodNotAllowed('POST'));
 
-  app.post('/api/jobs', requireJson, json, (req, res) => {
-    const view = jobs.create(parseJobBody(req.body));
-    res.status(202).json(view);
+  app.post('/api/jobs', requireJson, raw, async (req, res) => {
+    const view = await jobs.create(bodyBytes(req));
+    sendJson(res, 202, JSON.stringify({ id: view.id, state: view.state, progress: view.progress }));
   });
   app.all('/api/jobs', methodNotAllowed('POST'));
 
   app.get('/api/jobs/:id', (req, res) => {
     const view = jobs.get(String(req.params.id));
     if (!view) throw new HttpError(404, `No job ${JSON.stringify(String(req.params.id).slice(0, 80))} (unknown, or finished more than 10 minutes ago).`, { code: 'not-found' });
-    res.json(view);
+    sendJson(res, 200, jobViewJson(view));
   });
   app.delete('/api/jobs/:id', (req, res) => {
     const view = jobs.cancel(String(req.params.id));
@@ -154,7 +166,7 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
   app.all('/api/demo/:name', methodNotAllowed('GET'));
 
   // The demo analysed at start: computed once, on first request, and kept.
-  let demoAnalysis: Promise<{ name: string; column: string; csv: string; result: AnalyzeResponse }> | null = null;
+  let demoAnalysis: Promise<string> | null = null;
   const demoChoice = (): DemoChoice | null => {
     if (options.demo === null) return null;
     if (options.demo !== undefined) return options.demo;
@@ -168,17 +180,21 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
     if (demoAnalysis === null) {
       const choice = demoChoice();
       if (choice === null) throw new HttpError(404, 'No demo dataset is available.', { code: 'not-found' });
-      const request = parseAnalyzeBody({ csv: choice.csv, ...(choice.column !== undefined ? { column: choice.column } : {}), csvOptions: { skipInvalid: true }, evidence: true });
+      const body = Buffer.from(
+        JSON.stringify({ csv: choice.csv, ...(choice.column !== undefined ? { column: choice.column } : {}), csvOptions: { skipInvalid: true }, evidence: true }),
+      );
       const p = (async () => {
-        const result = await completeRequest(planRequest(request), pool);
-        return { name: choice.name, column: result.input.column ?? String(choice.column ?? ''), csv: choice.csv, result };
+        const { json } = await pool.analyze(body, 'analyze');
+        const column = (JSON.parse(json) as { input: { column?: string } }).input.column ?? String(choice.column ?? '');
+        const head = JSON.stringify({ name: choice.name, column, csv: choice.csv });
+        return `${head.slice(0, -1)},"result":${json}}`;
       })();
       demoAnalysis = p;
       p.catch(() => {
         if (demoAnalysis === p) demoAnalysis = null; // try again next time
       });
     }
-    res.json(await demoAnalysis);
+    sendJson(res, 200, await demoAnalysis);
   });
   app.all('/api/demo-analysis', methodNotAllowed('GET'));
 

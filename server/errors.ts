@@ -26,6 +26,18 @@ export class HttpError extends Error {
   }
 }
 
+/** A client fault already turned into its response (e.g. found in a worker thread). */
+export class ClientFault extends Error {
+  readonly status: number;
+  readonly body: ErrorBody;
+  constructor(status: number, body: ErrorBody) {
+    super(body.message);
+    this.name = 'ClientFault';
+    this.status = status;
+    this.body = body;
+  }
+}
+
 export function badRequest(message: string, field?: string, code = 'bad-request'): HttpError {
   return new HttpError(400, message, field === undefined ? { code } : { field, code });
 }
@@ -37,6 +49,7 @@ export function sendError(res: Response, status: number, body: ErrorBody): void 
 
 /** Map a thrown value to (status, body) if it is a client fault; null for a bug. */
 export function clientFault(err: unknown): { status: number; body: ErrorBody } | null {
+  if (err instanceof ClientFault) return { status: err.status, body: err.body };
   if (err instanceof HttpError) {
     return {
       status: err.status,

@@ -1,16 +1,14 @@
 /**
  * Jobs: analyses whose bootstrap runs in the background on the worker pool, polled for progress
- * and cancellable. Planning (reading the data, fitting, the formula tests) is done when the job
- * is created, so bad input is refused at once with a 400; only the bootstrap runs later.
- * Everything is held in memory; finished jobs are forgotten after `keepMs` (or when more than
- * `maxFinished` are held).
+ * and cancellable. The body is planned (parsed, validated, data read, models fitted, formula
+ * tests done) in a worker before the job exists, so bad input is refused at once with a 4xx; only
+ * the bootstrap and the final report run later. Everything is held in memory; finished jobs are
+ * forgotten after `keepMs` (or when more than `maxFinished` are held).
  */
 import { randomUUID } from 'node:crypto';
 import { isPlumblineError } from '../core/index.js';
-import { completeRequest, planRequest, type AnalyzeResponse } from './analysis.js';
 import { clientFault, HttpError, type ErrorBody, type Logger } from './errors.js';
 import type { WorkerPool } from './pool.js';
-import type { JobRequest } from './validate.js';
 
 export type JobState = 'running' | 'done' | 'cancelled' | 'failed';
 
@@ -18,7 +16,8 @@ export interface JobView {
   readonly id: string;
   readonly state: JobState;
   readonly progress: number;
-  readonly result?: AnalyzeResponse;
+  /** The finished response as JSON text (state 'done'). */
+  readonly resultJson?: string;
   readonly error?: ErrorBody;
 }
 
@@ -27,13 +26,12 @@ interface Job {
   readonly client: string | undefined;
   state: JobState;
   done: number;
-  readonly total: number;
-  result?: AnalyzeResponse;
+  total: number;
+  resultJson?: string;
   error?: ErrorBody;
   finishedAt: number;
   readonly controller: AbortController;
-  /** Settles when the job has stopped (done, cancelled or failed). */
-  readonly settled: Promise<void>;
+  settled: Promise<void>;
 }
 
 export interface JobManagerOptions {
@@ -42,6 +40,12 @@ export interface JobManagerOptions {
   /** Most jobs running at once; more → 429. */
   readonly maxRunning?: number;
   readonly log?: Logger;
+}
+
+/** The JSON text of a job view (the result is spliced in as it is, never re-parsed). */
+export function jobViewJson(v: JobView): string {
+  const head = JSON.stringify({ id: v.id, state: v.state, progress: v.progress, ...(v.error ? { error: v.error } : {}) });
+  return v.resultJson !== undefined ? `${head.slice(0, -1)},"result":${v.resultJson}}` : head;
 }
 
 export class JobManager {
@@ -67,34 +71,43 @@ export class JobManager {
     return k;
   }
 
-  /** Create and start a job. Throws (400/429) synchronously on bad input or overload. */
-  create(req: JobRequest): JobView {
+  /** Plan and start a job from a raw JSON body. Rejects with a 4xx fault on bad input or overload. */
+  async create(body: Uint8Array): Promise<JobView> {
     this.sweep();
-    // A new job from the same client replaces its previous one.
-    if (req.client !== undefined) {
-      const prev = this.byClient.get(req.client);
-      if (prev !== undefined) this.cancel(prev);
-    }
     if (this.running >= this.maxRunning) {
       throw new HttpError(429, `Too many analyses are running (${this.maxRunning}); wait for one to finish or cancel one.`, { code: 'too-many-jobs' });
     }
-    const planned = planRequest(req);
+    const planned = await this.pool.plan(body, 'job');
+    // A new job from the same client replaces its previous one.
+    if (planned.client !== undefined) {
+      const prev = this.byClient.get(planned.client);
+      if (prev !== undefined) this.cancel(prev);
+    }
     const id = randomUUID();
     const controller = new AbortController();
-    let settle!: () => void;
-    const settled = new Promise<void>((r) => (settle = r));
-    const job: Job = { id, client: req.client, state: 'running', done: 0, total: planned.replicates, finishedAt: 0, controller, settled };
+    const job: Job = {
+      id,
+      client: planned.client,
+      state: 'running',
+      done: 0,
+      total: planned.kind === 'planned' ? planned.replicates : 0,
+      finishedAt: 0,
+      controller,
+      settled: Promise.resolve(),
+    };
     this.jobs.set(id, job);
-    if (req.client !== undefined) this.byClient.set(req.client, id);
-    completeRequest(planned, this.pool, {
-      signal: controller.signal,
-      onProgress: (done) => {
-        job.done = done;
-      },
-    })
-      .then((result) => {
+    if (planned.client !== undefined) this.byClient.set(planned.client, id);
+    if (planned.kind === 'result') {
+      job.resultJson = planned.json;
+      job.state = 'done';
+      job.finishedAt = Date.now();
+      return this.view(job);
+    }
+    job.settled = this.pool
+      .complete(planned, { signal: controller.signal, onProgress: (done) => (job.done = done) })
+      .then((json) => {
         if (job.state !== 'running') return;
-        job.result = result;
+        job.resultJson = json;
         job.done = job.total;
         job.state = 'done';
       })
@@ -114,7 +127,6 @@ export class JobManager {
       })
       .finally(() => {
         job.finishedAt = Date.now();
-        settle();
       });
     return this.view(job);
   }
@@ -151,7 +163,7 @@ export class JobManager {
       id: j.id,
       state: j.state,
       progress,
-      ...(j.state === 'done' && j.result ? { result: j.result } : {}),
+      ...(j.state === 'done' && j.resultJson !== undefined ? { resultJson: j.resultJson } : {}),
       ...(j.state === 'failed' && j.error ? { error: j.error } : {}),
     };
   }

@@ -1,10 +1,16 @@
 /**
- * A small pool of worker threads for bootstrap replicate ranges. At most
- * os.availableParallelism() workers, started lazily and kept for reuse. Each family's job
- * [0, B) is split into contiguous ranges (several per worker, so the load evens out and progress
- * is smooth); ranges are queued first-in first-out across all running analyses; the counts of
- * each family are added back up with the core's combineBootstrapCounts. Since replicate i always
- * draws from random stream i, the result does not depend on the number of workers or the split.
+ * A small pool of worker threads (worker.ts), at most os.availableParallelism(), started lazily
+ * and kept for reuse. The main thread only moves bytes: request bodies are parsed, validated,
+ * planned and finished in a worker, and bootstrap replicates run there in ranges.
+ *
+ * Bootstrap: each family's job [0, B) is split into contiguous ranges (several per worker and
+ * bounded in size, so the load evens out, progress is smooth and a new request never waits long
+ * behind a long bootstrap); the counts of each family are added back up with the core's
+ * combineBootstrapCounts. Replicate i always draws from random stream i, so the result does not
+ * depend on the number of workers or on the split.
+ *
+ * Scheduling: a worker's own follow-up (finishing a plan it keeps) first, then request planning,
+ * then bootstrap ranges, each first-in first-out.
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
@@ -15,7 +21,8 @@ import {
   type BootstrapCounts,
   type BootstrapJob,
 } from '../core/index.js';
-import type { FromWorker, ToWorker } from './pool-messages.js';
+import { ClientFault, type Logger } from './errors.js';
+import type { BodyKind, FromWorker, ToWorker } from './pool-messages.js';
 
 export interface RunOptions {
   readonly signal?: AbortSignal;
@@ -23,47 +30,154 @@ export interface RunOptions {
   readonly onProgress?: (done: number, total: number) => void;
 }
 
+type Outgoing = ToWorker extends infer T ? (T extends { id: number } ? Omit<T, 'id'> : never) : never;
+
 interface Task {
   readonly id: number;
-  readonly job: BootstrapJob;
-  readonly cancel: SharedArrayBuffer;
+  readonly msg: Outgoing;
+  readonly transfer: ArrayBuffer[];
+  /** For ranges: the cancel flag (also in msg). */
+  readonly cancel?: SharedArrayBuffer;
+  /** Must run on this worker (it keeps the plan). */
+  readonly slot?: Slot;
   done: number;
-  readonly onProgress: (delta: number) => void;
-  readonly resolve: (c: BootstrapCounts) => void;
-  readonly reject: (e: unknown) => void;
+  readonly onProgress?: (delta: number) => void;
+  readonly settle: (m: FromWorker | Error) => void;
 }
 
 interface Slot {
-  worker: Worker;
+  readonly worker: Worker;
   task: Task | null;
+  readonly affine: Task[];
+  alive: boolean;
 }
+
+/** A plan kept by a worker, waiting for its bootstrap. */
+export interface PlanTicket {
+  readonly slot: Slot;
+  readonly token: number;
+}
+
+export type PlanOutcome =
+  | { readonly kind: 'result'; readonly json: string; readonly client?: string }
+  | { readonly kind: 'planned'; readonly ticket: PlanTicket; readonly jobs: readonly BootstrapJob[]; readonly replicates: number; readonly client?: string };
 
 const here = import.meta.url;
 const fromSource = here.endsWith('.ts');
 // From TypeScript sources the worker starts through a tiny .mjs entry that registers tsx.
-const WORKER_URL = new URL(fromSource ? './bootstrap-worker-entry.mjs' : './bootstrap-worker.js', here);
+const WORKER_URL = new URL(fromSource ? './worker-entry.mjs' : './worker.js', here);
 
 /** Largest pool size allowed on this machine. */
 export function maxWorkers(): number {
   return Math.max(1, availableParallelism());
 }
 
+/** Replicates per range: about 4 ranges per worker, and at most ~2·10^5 sampled values per range. */
+export function rangeCount(replicates: number, n: number, workers: number): number {
+  const bySize = Math.ceil((replicates * Math.max(1, n)) / 200_000);
+  return Math.max(1, Math.min(replicates, Math.max(workers * 4, bySize)));
+}
+
+const cancelledCounts = (job: BootstrapJob): BootstrapCounts => ({ start: job.start, end: job.end, completed: 0, valid: 0, exceed: 0, failed: 0, cancelled: true });
+
 export class WorkerPool {
   readonly size: number;
   private readonly slots: Slot[] = [];
-  private readonly queue: Task[] = [];
+  private readonly urgent: Task[] = [];
+  private readonly ranges: Task[] = [];
   private nextId = 1;
   private closed = false;
-  private readonly log: (m: string, e?: unknown) => void;
+  private readonly log: Logger;
 
-  constructor(size: number = maxWorkers(), log: (m: string, e?: unknown) => void = () => {}) {
+  constructor(size: number = maxWorkers(), log: Logger = () => {}) {
     this.size = Math.max(1, Math.min(Math.floor(size), maxWorkers()));
     this.log = log;
   }
 
-  /** Number of ranges waiting or running. */
+  /** Tasks waiting or running. */
   get pending(): number {
-    return this.queue.length + this.slots.filter((s) => s.task !== null).length;
+    return this.urgent.length + this.ranges.length + this.slots.reduce((s, sl) => s + sl.affine.length + (sl.task ? 1 : 0), 0);
+  }
+
+  private submit(
+    msg: Outgoing,
+    opts: { transfer?: ArrayBuffer[]; slot?: Slot; urgent?: boolean; cancel?: SharedArrayBuffer; onProgress?: (d: number) => void },
+  ): { task: Task; reply: Promise<FromWorker> } {
+    if (this.closed) throw new PlumblineError('cancelled', 'The server is shutting down.');
+    let settle!: (m: FromWorker | Error) => void;
+    const reply = new Promise<FromWorker>((resolve, reject) => {
+      settle = (m) => (m instanceof Error ? reject(m) : resolve(m));
+    });
+    const task: Task = {
+      id: this.nextId++,
+      msg,
+      transfer: opts.transfer ?? [],
+      ...(opts.cancel ? { cancel: opts.cancel } : {}),
+      ...(opts.slot ? { slot: opts.slot } : {}),
+      done: 0,
+      ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
+      settle,
+    };
+    if (opts.slot) {
+      if (!opts.slot.alive) throw new Error('the worker keeping this analysis has stopped');
+      opts.slot.affine.push(task);
+    } else if (opts.urgent) this.urgent.push(task);
+    else this.ranges.push(task);
+    this.dispatch();
+    return { task, reply };
+  }
+
+  /** Parse, validate and plan a request body in a worker. Client faults reject with ClientFault. */
+  async plan(body: Uint8Array, kind: BodyKind): Promise<PlanOutcome> {
+    const copy = new Uint8Array(body.byteLength);
+    copy.set(body);
+    const { task, reply } = this.submit({ type: 'plan', body: copy, kind }, { transfer: [copy.buffer], urgent: true });
+    const m = await reply;
+    if (m.type === 'result') return { kind: 'result', json: m.json, ...(m.client !== undefined ? { client: m.client } : {}) };
+    if (m.type === 'planned') {
+      const slot = this.slotOf(task);
+      return {
+        kind: 'planned',
+        ticket: { slot, token: task.id },
+        jobs: m.jobs,
+        replicates: m.jobs.reduce((s, j) => s + (j.end - j.start), 0),
+        ...(m.client !== undefined ? { client: m.client } : {}),
+      };
+    }
+    throw this.unexpected(m);
+  }
+
+  /** Finish a kept plan with its bootstrap counts; returns the response JSON. */
+  async finish(ticket: PlanTicket, counts: readonly BootstrapCounts[]): Promise<string> {
+    const { reply } = this.submit({ type: 'finish', token: ticket.token, counts }, { slot: ticket.slot });
+    const m = await reply;
+    if (m.type === 'result') return m.json;
+    throw this.unexpected(m);
+  }
+
+  /** Forget a kept plan (best effort). */
+  drop(ticket: PlanTicket): void {
+    if (!ticket.slot.alive || this.closed) return;
+    this.submit({ type: 'drop', token: ticket.token }, { slot: ticket.slot }).reply.catch(() => {});
+  }
+
+  /** A whole request: plan, bootstrap on the pool, finish. Returns the response JSON. */
+  async analyze(body: Uint8Array, kind: BodyKind, opts: RunOptions = {}): Promise<{ json: string; client?: string }> {
+    const planned = await this.plan(body, kind);
+    if (planned.kind === 'result') return planned;
+    return { json: await this.complete(planned, opts), ...(planned.client !== undefined ? { client: planned.client } : {}) };
+  }
+
+  /** Run a planned analysis's bootstrap and finish it (dropping the plan if cancelled or failed). */
+  async complete(planned: Extract<PlanOutcome, { kind: 'planned' }>, opts: RunOptions = {}): Promise<string> {
+    let counts: BootstrapCounts[];
+    try {
+      counts = await this.run(planned.jobs, opts);
+    } catch (e) {
+      this.drop(planned.ticket);
+      throw e;
+    }
+    return this.finish(planned.ticket, counts);
   }
 
   /**
@@ -71,41 +185,40 @@ export class WorkerPool {
    * Throws PlumblineError 'cancelled' when the signal aborts.
    */
   async run(jobs: readonly BootstrapJob[], opts: RunOptions = {}): Promise<BootstrapCounts[]> {
-    if (this.closed) throw new Error('worker pool is closed');
     const total = jobs.reduce((s, j) => s + (j.end - j.start), 0);
     let done = 0;
     const report = (delta: number): void => {
+      if (delta === 0) return;
       done += delta;
       opts.onProgress?.(done, total);
     };
-    const parts = this.size * 4;
     const tasks: Task[] = [];
     const perJob = jobs.map((job) => {
-      const ranges = splitBootstrapJob(job, job.end - job.start, parts).map((r) => ({ ...r, start: r.start + job.start, end: r.end + job.start }));
+      const b = job.end - job.start;
+      const ranges = splitBootstrapJob(job, b, rangeCount(b, job.n, this.size)).map((r) => ({ ...r, start: r.start + job.start, end: r.end + job.start }));
       return Promise.all(
-        ranges.map(
-          (r) =>
-            new Promise<BootstrapCounts>((resolve, reject) => {
-              const t: Task = { id: this.nextId++, job: r, cancel: new SharedArrayBuffer(4), done: 0, onProgress: report, resolve, reject };
-              tasks.push(t);
-              this.queue.push(t);
-            }),
-        ),
+        ranges.map(async (r) => {
+          const cancel = new SharedArrayBuffer(4);
+          const { task, reply } = this.submit({ type: 'range', job: r, cancel }, { cancel, onProgress: report });
+          tasks.push(task);
+          const m = await reply;
+          if (m.type !== 'counts') throw this.unexpected(m);
+          return m.counts;
+        }),
       ).then((counts) => combineBootstrapCounts(counts));
     });
     const abort = (): void => {
       for (const t of tasks) {
-        Atomics.store(new Int32Array(t.cancel), 0, 1);
-        const qi = this.queue.indexOf(t);
+        if (t.cancel) Atomics.store(new Int32Array(t.cancel), 0, 1);
+        const qi = this.ranges.indexOf(t);
         if (qi >= 0) {
-          this.queue.splice(qi, 1);
-          t.resolve({ start: t.job.start, end: t.job.end, completed: 0, valid: 0, exceed: 0, failed: 0, cancelled: true });
+          this.ranges.splice(qi, 1);
+          if (t.msg.type === 'range') t.settle({ type: 'counts', id: t.id, counts: cancelledCounts(t.msg.job) });
         }
       }
     };
     if (opts.signal?.aborted) abort();
     else opts.signal?.addEventListener('abort', abort, { once: true });
-    this.dispatch();
     try {
       const counts = await Promise.all(perJob);
       if (counts.some((c) => c.cancelled)) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
@@ -115,14 +228,32 @@ export class WorkerPool {
     }
   }
 
+  private readonly taskSlot = new Map<number, Slot>();
+
+  private slotOf(task: Task): Slot {
+    const s = this.taskSlot.get(task.id);
+    this.taskSlot.delete(task.id);
+    if (!s) throw new Error('planned on an unknown worker');
+    return s;
+  }
+
+  private unexpected(m: FromWorker): Error {
+    if (m.type === 'fault') return new ClientFault(m.status, m.body);
+    if (m.type === 'error') {
+      this.log('worker failed', new Error(m.message));
+      return new Error(`worker failed: ${m.message.split('\n')[0] ?? ''}`);
+    }
+    return new Error(`unexpected worker reply ${m.type}`);
+  }
+
   private spawn(): Slot {
     const worker = new Worker(WORKER_URL);
     worker.unref();
-    const slot: Slot = { worker, task: null };
+    const slot: Slot = { worker, task: null, affine: [], alive: true };
     worker.on('message', (m: FromWorker) => this.onMessage(slot, m));
     worker.on('error', (e) => this.onFailure(slot, e));
     worker.on('exit', (code) => {
-      if (!this.closed) this.onFailure(slot, new Error(`bootstrap worker exited with code ${code}`));
+      if (!this.closed) this.onFailure(slot, new Error(`worker exited with code ${code}`));
     });
     this.slots.push(slot);
     return slot;
@@ -132,20 +263,18 @@ export class WorkerPool {
     const t = slot.task;
     if (!t || t.id !== m.id) return;
     if (m.type === 'progress') {
-      t.onProgress(m.done - t.done);
+      t.onProgress?.(m.done - t.done);
       t.done = m.done;
       return;
     }
     slot.task = null;
     slot.worker.unref(); // an idle worker must not keep the process alive
-    if (m.type === 'done') {
-      t.onProgress(m.counts.completed - t.done);
+    if (m.type === 'counts') {
+      t.onProgress?.(m.counts.completed - t.done);
       t.done = m.counts.completed;
-      t.resolve(m.counts);
-    } else {
-      this.log('bootstrap worker failed on a range', new Error(m.message));
-      t.reject(new Error(`bootstrap worker failed: ${m.message.split('\n')[0] ?? ''}`));
     }
+    if (m.type === 'planned') this.taskSlot.set(t.id, slot);
+    t.settle(m);
     this.dispatch();
   }
 
@@ -153,41 +282,53 @@ export class WorkerPool {
     const i = this.slots.indexOf(slot);
     if (i < 0) return;
     this.slots.splice(i, 1);
-    this.log('bootstrap worker died', e);
+    slot.alive = false;
+    this.log('worker died', e);
+    const err = e instanceof Error ? e : new Error(String(e));
     const t = slot.task;
     slot.task = null;
     void slot.worker.terminate().catch(() => {});
-    if (t) t.reject(e instanceof Error ? e : new Error(String(e)));
+    if (t) t.settle(err);
+    for (const a of slot.affine.splice(0)) a.settle(new Error('the worker keeping this analysis has stopped'));
     this.dispatch();
+  }
+
+  private take(slot: Slot): Task | undefined {
+    return slot.affine.shift() ?? this.urgent.shift() ?? this.ranges.shift();
   }
 
   private dispatch(): void {
     if (this.closed) return;
-    while (this.queue.length > 0) {
-      let slot = this.slots.find((s) => s.task === null);
-      if (!slot) {
-        if (this.slots.length >= this.size) return;
+    for (;;) {
+      let slot = this.slots.find((s) => s.task === null && s.affine.length > 0) ?? this.slots.find((s) => s.task === null);
+      if (!slot || (slot.affine.length === 0 && this.urgent.length + this.ranges.length === 0)) {
+        if (this.urgent.length + this.ranges.length === 0 || this.slots.length >= this.size) return;
         slot = this.spawn();
       }
-      const t = this.queue.shift() as Task;
-      if (Atomics.load(new Int32Array(t.cancel), 0) !== 0) {
-        t.resolve({ start: t.job.start, end: t.job.end, completed: 0, valid: 0, exceed: 0, failed: 0, cancelled: true });
+      const t = this.take(slot);
+      if (!t) return;
+      if (t.msg.type === 'range' && t.cancel && Atomics.load(new Int32Array(t.cancel), 0) !== 0) {
+        t.settle({ type: 'counts', id: t.id, counts: cancelledCounts(t.msg.job) });
         continue;
       }
       slot.task = t;
-      slot.worker.ref(); // keep the process alive while a range runs
-      const msg: ToWorker = { id: t.id, job: t.job, cancel: t.cancel };
-      slot.worker.postMessage(msg);
+      slot.worker.ref(); // keep the process alive while a task runs
+      slot.worker.postMessage({ ...t.msg, id: t.id } as ToWorker, t.transfer);
     }
   }
 
-  /** Stop every worker; running and queued ranges are rejected. */
+  /** Stop every worker; running and queued tasks are rejected. */
   async close(): Promise<void> {
     this.closed = true;
     const err = new PlumblineError('cancelled', 'The server is shutting down.');
-    for (const t of this.queue.splice(0)) t.reject(err);
+    for (const t of this.urgent.splice(0)) t.settle(err);
+    for (const t of this.ranges.splice(0)) t.settle(err);
     const slots = this.slots.splice(0);
-    for (const s of slots) if (s.task) s.task.reject(err);
+    for (const s of slots) {
+      s.alive = false;
+      if (s.task) s.task.settle(err);
+      for (const a of s.affine.splice(0)) a.settle(err);
+    }
     await Promise.all(slots.map((s) => s.worker.terminate().catch(() => 0)));
   }
 }

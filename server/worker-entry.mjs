@@ -4,4 +4,4 @@
 import { register } from 'tsx/esm/api';
 
 register();
-await import('./bootstrap-worker.ts');
+await import('./worker.ts');

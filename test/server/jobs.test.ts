@@ -80,6 +80,8 @@ describe('bootstrap jobs on worker threads', () => {
     expect(del.status).toBe(200);
     expect(del.body).toEqual({ id, state: 'cancelled' });
     await app.jobs.settled(id);
+    // The workers go idle (bounded wait; uncancelled, the 10^5 replicates would keep them busy for minutes).
+    for (let k = 0; k < 500 && app.pool.pending > 0; k++) await sleep(20);
     expect(app.pool.pending).toBe(0);
     const after1 = await request(app).get(`/api/jobs/${id}`);
     await sleep(100);
@@ -100,6 +102,7 @@ describe('bootstrap jobs on worker threads', () => {
     await app.jobs.settled(big.body.id);
     const second = await waitFor(small.body.id, (b) => b.state !== 'running');
     expect(second.state).toBe('done');
+    for (let k = 0; k < 500 && app.pool.pending > 0; k++) await sleep(20);
     expect(app.pool.pending).toBe(0);
   });
 
