@@ -93,6 +93,6 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     .tickValues(rows.map((r) => r.index).filter((i) => i % every === 0))
     .tickFormat((i) => String(Number(i) + 1));
   drawXAxis(frame, axis, 'Bin number (low to high values; edges in the bins table)');
-  drawYAxis(frame, axisLeft(y).ticks(5, '~g'), 'Count');
+  drawYAxis(frame, axisLeft(y).ticks(5), 'Count');
   return frame.svg.node()!;
 }

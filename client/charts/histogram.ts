@@ -99,6 +99,6 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
 
   drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), axisLabel(quantity, options.units));
   const yLabel = options.units.trim() ? `Density [per ${options.units.trim()}]` : 'Density';
-  drawYAxis(frame, axisLeft(y).ticks(5, '~g'), yLabel);
+  drawYAxis(frame, axisLeft(y).ticks(5), yLabel);
   return frame.svg.node()!;
 }

@@ -49,7 +49,7 @@ export function candidateCells(c: CandidateReport): CandidateCells {
       : 'published formula';
   return {
     rank: String(c.rank),
-    model: c.label,
+    model: c.label ? c.label[0]!.toUpperCase() + c.label.slice(1) : c.family,
     parameters: parametersText(c),
     logLikelihood: fixed(c.logLikelihood, 2),
     aicc: fixed(c.aicc, 2),
