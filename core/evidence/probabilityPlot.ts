@@ -110,16 +110,30 @@ export function probabilityPlot(
   const ys: number[] = [];
   const ranks: number[] = [];
   const lineX: number[] = [];
+  const lineY: number[] = [];
+  const bandY: number[] = [];
+  let omitted = first;
   const bandLower: (number | null)[] = [];
   const bandUpper: (number | null)[] = [];
   for (const j of keep) {
     const i = first + j + 1;
     const { p, q } = plottingPosition(spec.position, i, n);
     const y = scaleY(spec.scale, p, q, dist);
+    if (!Number.isFinite(y)) {
+      omitted++;
+      continue;
+    }
     xs.push(px[j] as number);
     ys.push(y);
     ranks.push(i);
-    lineX.push(tx(quantileOfPair(dist, p, q)));
+    // The fitted line and the band have their own y arrays: a rank where the fitted quantile is
+    // not finite on this scale (e.g. ln of a quantile that underflows to 0) is left out of the line.
+    const lx = tx(quantileOfPair(dist, p, q));
+    if (Number.isFinite(lx)) {
+      lineX.push(lx);
+      lineY.push(y);
+    }
+    bandY.push(y);
     let band = bandCache.get(i);
     if (band === undefined) {
       band = orderStatisticInterval(i, n, bandAlpha);
@@ -145,10 +159,10 @@ export function probabilityPlot(
     yLabel: spec.yLabel,
     plottingPosition: spec.position,
     points: { x: xs, y: ys, rank: ranks },
-    fittedLine: { x: lineX, y: ys.slice() },
+    fittedLine: { x: lineX, y: lineY },
     band: {
       level,
-      y: ys.slice(),
+      y: bandY,
       lower: bandLower,
       upper: bandUpper,
       description: `Pointwise ${fmtPct(level)} band for each order statistic: the i-th of n uniform order statistics is Beta(i, n + 1 - i); its ${fmtPct(bandAlpha / 2)} and ${fmtPct(1 - bandAlpha / 2)} quantiles mapped through the fitted quantile function. Not a simultaneous band.`,
@@ -156,7 +170,7 @@ export function probabilityPlot(
     probabilityTicks: ticks,
     thinned: keep.length < m,
     total: n,
-    omitted: first,
+    omitted,
   };
 }
 

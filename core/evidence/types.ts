@@ -156,7 +156,8 @@ export interface ProbabilityPlotEvidence {
   readonly plottingPosition: PlottingPosition;
   /** Data points (thinned for drawing): x = transformed order statistic, y = transformed position. */
   readonly points: { readonly x: readonly number[]; readonly y: readonly number[]; readonly rank: readonly number[] };
-  /** The fitted model as a line: horizontal coordinate of the fitted quantile at each plotted y. */
+  /** The fitted model as a line: horizontal coordinate of the fitted quantile at each plotted y
+   *  (its own y array: a rank where the fitted quantile is not finite on the scale is left out). */
   readonly fittedLine: { readonly x: readonly number[]; readonly y: readonly number[] };
   /**
    * Pointwise band at each plotted y: the i-th uniform order statistic is Beta(i, n+1-i); its
@@ -175,6 +176,6 @@ export interface ProbabilityPlotEvidence {
   readonly thinned: boolean;
   /** n before thinning. */
   readonly total: number;
-  /** Points whose transform was undefined (e.g. ln of a value ≤ 0) and were left out, with count. */
+  /** Points left out because a coordinate was undefined (e.g. ln of a value ≤ 0). */
   readonly omitted: number;
 }

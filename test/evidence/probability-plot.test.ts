@@ -91,6 +91,8 @@ describe('probability plot coordinates', () => {
         const s = prepareSample(x);
         const pp = probabilityPlot(d, s.sorted, s.logs(), 500, 0.05);
         expect(pp.points.x.length).toBeLessThanOrEqual(500);
+        // No rank was dropped from the line here, so line and band align index by index.
+        expect(pp.fittedLine.y).toEqual(pp.band.y);
         pp.fittedLine.x.forEach((lx, j) => {
           const lo = pp.band.lower[j];
           const hi = pp.band.upper[j];
