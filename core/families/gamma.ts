@@ -12,7 +12,18 @@
  */
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
-import { gammaP, gammaPInv, gammaQ, gammaQInv, lnGamma, logGammaP, logGammaQ, trigamma } from '../special/index.js';
+import {
+  gammaP,
+  gammaPInv,
+  gammaQ,
+  gammaQInv,
+  lnGamma,
+  lnGammaStirlingCorrection,
+  log1pmx,
+  logGammaP,
+  logGammaQ,
+  trigamma,
+} from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { positiveRootNewton } from './newton.js';
 import { POSITIVE, readParameter } from './parameters.js';
@@ -137,23 +148,14 @@ function logMeanMinusMeanLog(sample: Sample): number {
   const direct = lnMean - meanLog;
   // Absolute rounding error of the direct difference is a few ulps of its terms.
   if (direct > 1e-3 * Math.max(1, Math.abs(lnMean))) return direct;
-  // Stable form: s = (1/n) Σ [u - log1p(u)], u = x/mean - 1 (Σu = 0), each term ≥ 0; for small |u|
-  // the series u²/2 - u³/3 + … avoids cancelling u against log1p(u).
+  // Stable form: s = (1/n) Σ [u - log1p(u)], u = x/mean - 1 (Σu = 0), each term ≥ 0, with
+  // log1pmx avoiding the cancellation of u against log1p(u) for small |u|.
   const xs = sample.sorted;
   const m = sample.mean;
   let s = 0;
   let c = 0;
   for (let i = 0; i < n; i++) {
-    const u = (xs[i] as number) / m - 1;
-    let term: number;
-    if (Math.abs(u) < 0.05) {
-      let pow = u * u;
-      term = 0;
-      for (let j = 2; j <= 13; j++) {
-        term += (j % 2 === 0 ? pow : -pow) / j;
-        pow *= u;
-      }
-    } else term = u - Math.log1p(u);
+    const term = -log1pmx((xs[i] as number) / m - 1); // u - log1p(u) ≥ 0, accurate near u = 0
     const t = s + term;
     if (s >= term) c += s - t + term;
     else c += term - t + s;
@@ -169,18 +171,23 @@ function fit(sample: Sample): FitOutcome {
   const mean = sample.mean;
   const s = logMeanMinusMeanLog(sample);
   const k0 = (3 - s + Math.sqrt((s - 3) * (s - 3) + 24 * s)) / (12 * s);
-  // Widen Alzer's bracket by a hair so that rounding in s cannot put the root on its edge.
-  const lower = (0.5 / s) * (1 - 1e-9);
-  const upper = (1 / s) * (1 + 1e-9);
+  // Alzer's bracket, widened by 0.1 % so that rounding in s cannot put the root on its edge.
+  const lower = (0.5 / s) * 0.999;
+  const upper = (1 / s) * 1.001;
   const equation = (k: number, out: Float64Array): void => {
     out[0] = logMinusDigamma(k) - s;
     out[1] = logMinusDigammaDerivative(k);
   };
+  // TODO(special): switch to newtonBracketed (core/special/roots.ts) once it is committed.
   const r = positiveRootNewton(equation, lower, upper, k0, false, 1e-12);
   const shape = r.root;
   const scale = mean / shape;
-  // ln L = (k - 1) Σ ln x - Σx/θ - n lnΓ(k) - n k ln θ, with Σx/θ = n k at θ = mean/k.
-  const logLikelihood = (shape - 1) * sample.sumLog() - n * shape - n * lnGamma(shape) - n * shape * Math.log(scale);
+  // ln L = (k - 1) Σ ln x - Σx/θ - n lnΓ(k) - n k ln θ with Σx/θ = n k and θ = mean/k, rewritten
+  // with Stirling's formula lnΓ(k) = (k - ½) ln k - k + ½ ln 2π + lnΓ*(k) as
+  //   ln L = n [-k s + ½ ln(k/2π) - lnΓ*(k) - mean(ln x)],
+  // which has no cancellation for large k (k s → ½), unlike the four terms of size n k ln k.
+  const logLikelihood =
+    n * (-shape * s + 0.5 * Math.log(shape / (2 * Math.PI)) - lnGammaStirlingCorrection(shape) - sample.sumLog() / n);
   return {
     ok: true,
     family: 'gamma',

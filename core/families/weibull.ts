@@ -143,22 +143,23 @@ function fit(sample: Sample): FitOutcome {
   if (na) return na;
   const n = sample.n;
   const logs = sample.logs() as Float64Array; // non-null: every value is > 0
-  const sumLog = sample.sumLog();
   const logMax = logs[n - 1] as number;
-  const meanY = sumLog / n - logMax; // < 0: the values are not all equal
-  // Menon's start needs the variance of ln x (compensated two-pass).
-  let vs = 0;
-  let vc = 0;
-  const meanLog = sumLog / n;
+  // One pass for Σy (compensated; y = ln x - ln max is formed exactly near the top, so clustered
+  // data keep their digits) and Σy² (for Menon's start only).
+  let ys = 0;
+  let yc = 0;
+  let yy = 0;
   for (let i = 0; i < n; i++) {
-    const d = (logs[i] as number) - meanLog;
-    const d2 = d * d;
-    const t = vs + d2;
-    if (vs >= d2) vc += vs - t + d2;
-    else vc += d2 - t + vs;
-    vs = t;
+    const y = (logs[i] as number) - logMax;
+    const t = ys + y;
+    if (Math.abs(ys) >= Math.abs(y)) yc += ys - t + y;
+    else yc += y - t + ys;
+    ys = t;
+    yy += y * y;
   }
-  const sdLog = Math.sqrt((vs + vc) / n);
+  const sumY = ys + yc;
+  const meanY = sumY / n; // < 0: the values are not all equal
+  const sdLog = Math.sqrt(Math.max(yy / n - meanY * meanY, 0));
   const lower = -1 / meanY;
   const start = Math.max(Math.PI / (Math.sqrt(6) * sdLog), 1.5 * lower);
   const sums = new Float64Array(3);
@@ -182,10 +183,13 @@ function fit(sample: Sample): FitOutcome {
   // most 1e-12 relative, so the neglected ½·Var·Δc² is below 1e-24 and a further pass is saved.
   if (!(Math.abs(shape - lastC) <= 1e-8 * shape)) profile(shape, new Float64Array(2));
   const logS0 = lastLogS0 + lastA * (shape - lastC);
-  const logScale = logMax + (logS0 - Math.log(n)) / shape;
+  const logScaleOverMax = (logS0 - Math.log(n)) / shape; // ln(λ / max)
+  const logScale = logMax + logScaleOverMax;
   const scale = Math.exp(logScale);
-  // At the MLE Σ(x/λ)^k = n, so ln L = n ln k - n ln λ + (k - 1)(Σ ln x - n ln λ) - n.
-  const logLikelihood = n * Math.log(shape) - n * logScale + (shape - 1) * (sumLog - n * logScale) - n;
+  // At the MLE Σ(x/λ)^k = n, so ln L = n ln k - n ln λ + (k - 1) Σ ln(x/λ) - n, with
+  // Σ ln(x/λ) = Σy - n ln(λ/max) free of the cancellation between Σ ln x and n ln λ.
+  const sumLogRatio = sumY - n * logScaleOverMax;
+  const logLikelihood = n * (Math.log(shape) - logScale - 1) + (shape - 1) * sumLogRatio;
   return {
     ok: true,
     family: 'weibull',
