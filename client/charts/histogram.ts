@@ -76,6 +76,18 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
     const lo = b.lowerEdge === null ? '−∞' : sig(b.lowerEdge);
     const hi = b.upperEdge === null ? '∞' : sig(b.upperEdge);
     rect.append('title').text(`Bin ${i + 1}: [${lo}, ${hi}) ${options.units}: observed ${b.observed}, expected ${sig(b.expected, 3)}`);
+    // A bar wider than the drawn range is cut at the edge; say where it really starts or ends,
+    // since its (low) height is its count spread over its full width.
+    const [d0, d1] = data.xDomain;
+    const yText = Math.max(12, y(b.density) - 4);
+    if (b.lower < d0) {
+      frame.plot.append('text').attr('data-kind', 'clip-note').attr('x', 3).attr('y', round(yText)).attr('font-size', 10).attr('fill', INK.muted)
+        .text(`◂ bar starts at ${sig(b.lower, 4)}`);
+    }
+    if (b.upper > d1) {
+      frame.plot.append('text').attr('data-kind', 'clip-note').attr('x', frame.innerWidth - 3).attr('y', round(yText)).attr('text-anchor', 'end')
+        .attr('font-size', 10).attr('fill', INK.muted).text(`bar ends at ${sig(b.upper, 4)} ▸`);
+    }
   });
 
   const curves = frame.plot.append('g').attr('clip-path', `url(#${clipId})`).attr('fill', 'none');

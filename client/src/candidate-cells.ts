@@ -15,6 +15,8 @@ export interface CandidateCells {
   /** Chi-square statistic, or the reason it was not computed. */
   readonly chiSquare: string;
   readonly chiSquareNote: string;
+  /** The reason's first clause, for a narrow table cell (the full reason is `chiSquareNote`). */
+  readonly chiSquareShort: string;
   readonly dof: string;
   readonly dofMain: string;
   readonly dofBracket: string;
@@ -57,6 +59,7 @@ export function candidateCells(c: CandidateReport): CandidateCells {
     chiComputable: chi.computable,
     chiSquare: chi.computable ? sig(chi.statistic, 4) : 'not computed',
     chiSquareNote: chi.computable ? `k = ${chi.k} bins` : chi.reason,
+    chiSquareShort: chi.computable ? `k = ${chi.k} bins` : (chi.reason.split(/[:.;]/)[0] ?? chi.reason).trim(),
     dof: chi.computable ? `${chi.dof} [${chi.dofUpper}]` : '—',
     chiP: chi.computable ? `${pValue(chi.pValue)} [${pValue(chi.pValueUpper)}]` : '—',
     dofMain: chi.computable ? String(chi.dof) : '—',

@@ -489,7 +489,7 @@ function renderRanking(resp: AnalyzeResponse): void {
         el('td', { className: 'num' }, k.chiPMain, el('span', { className: 'sub' }, k.chiPBracket)),
       );
     } else {
-      row.append(el('td', { colspan: 3, className: 'na-cell' }, 'not computed', el('span', { className: 'sub wrap' }, k.chiSquareNote)));
+      row.append(el('td', { colspan: 3, className: 'na-cell', title: k.chiSquareNote }, 'not computed', el('span', { className: 'sub wrap' }, `${k.chiSquareShort} (see the notes below the table)`)));
     }
     row.append(
       el('td', { className: 'num' }, k.adStatistic),

@@ -161,6 +161,14 @@ describe('coarse curve grids', () => {
   });
 });
 
+describe('bars cut at the drawn range', () => {
+  it('say where they really start and end (common practice, no source)', () => {
+    const svg = histogramChart(host(), { histogram: weibull.histogram, densities: EVIDENCE.densities, xDomain: [30, 80], selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
+    const notes = [...svg.querySelectorAll('[data-kind="clip-note"]')].map((n) => n.textContent);
+    expect(notes).toEqual(['◂ bar starts at 5', 'bar ends at 105 ▸']);
+  });
+});
+
 describe('user text in charts', () => {
   it('keeps units and names as text: markup in them cannot become elements (OWASP XSS Prevention Cheat Sheet, rule 1)', () => {
     const hostile = { ...OPTS, units: '<img src=x onerror=alert(1)>', quantity: '<script>alert(1)</script>' };
