@@ -257,7 +257,14 @@ function evaluateFamily(family: Family, sample: Sample, opts: ResolvedOptions): 
     if (bad !== null) return failed(bad);
     return { ok: true, outcome, a2, chiSquare, table };
   } catch (e) {
-    if (e instanceof PlumblineError && e.code === 'bad-parameter') return failed(e.message.replace(/\.$/, ''));
+    // The sample and the options were validated before this point, so a typed error raised inside a
+    // family's fit or its statistics (a parameter check, a root finder without a bracket, an input
+    // check on an intermediate array) is a numerical failure of that family on these data, not the
+    // user's fault: report it per family. A user's bin count error still propagates (it is checked
+    // up front, but keep it the user's), and so do untyped errors (true bugs).
+    if (e instanceof PlumblineError && e.code !== 'bins-too-many' && e.code !== 'bad-option' && e.code !== 'cancelled') {
+      return failed(e.message.replace(/\.$/, ''));
+    }
     throw e;
   }
 }
@@ -334,7 +341,8 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
   const n = sample.n;
   const byFamily = counts instanceof Map ? counts : null;
   const list = counts instanceof Map ? [] : (counts as readonly BootstrapCounts[]);
-  const drafts = plan.candidates.map((c) => {
+  const notApplicable: NotApplicableReport[] = [...plan.notApplicable];
+  const drafts = plan.candidates.flatMap((c) => {
     const m = c.family.estimatedParameters;
     const ic = informationCriteria(c.fit.logLikelihood, m, n);
     let famCounts: BootstrapCounts | undefined;
@@ -345,8 +353,23 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
         famCounts = list[idx];
       }
     }
-    const ad = andersonDarlingReport(c, opts, n, famCounts);
-    return { c, m, ...ic, ad, family: c.family.name, estimatedParameters: m };
+    let ad: AndersonDarlingReport;
+    try {
+      ad = andersonDarlingReport(c, opts, n, famCounts);
+    } catch (e) {
+      // Every bootstrap replicate failed to refit (data at the edge of double precision): the fit
+      // has no valid p-value, so it is listed as not applicable with the reason, not ranked.
+      if (e instanceof PlumblineError && e.code === 'not-computable' && famCounts !== undefined && famCounts.valid === 0) {
+        notApplicable.push({
+          family: c.family.name,
+          reason: `The ${c.family.label} fit has no Anderson–Darling p-value: none of the ${famCounts.completed} bootstrap replicates could be refitted, so it is not reported.`,
+          offendingCount: 0,
+        });
+        return [];
+      }
+      throw e;
+    }
+    return [{ c, m, ...ic, ad, family: c.family.name, estimatedParameters: m }];
   });
   const ranked = rankCandidates(drafts);
   const candidates: CandidateReport[] = ranked.map((d) => {
@@ -373,17 +396,42 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
   return {
     software: { name: 'plumbline', version: PLUMBLINE_VERSION },
     n,
-    summary: { min: sample.min, max: sample.max, mean: sample.mean, sd: Math.sqrt(sample.sumSqDev / (n - 1)), distinct: sample.distinct },
+    summary: { min: sample.min, max: sample.max, ...meanAndSd(sample), distinct: sample.distinct },
     options: { ...opts, families: [...opts.families] },
     rankingRule: RANKING_RULE,
     candidates,
-    notApplicable: plan.notApplicable,
-    warnings: warningsFor(plan, candidates),
+    notApplicable,
+    warnings: warningsFor(plan, candidates, notApplicable),
     methods: methodsFor(plan, candidates),
   };
 }
 
-function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[]): string[] {
+/**
+ * Mean and n - 1 standard deviation for the summary. The sample's own sums overflow near 1e308 and
+ * the squared deviations underflow near 1e-300; then both are recomputed on the values divided by
+ * the largest |x| (a power of two, so the division is exact), which keeps every intermediate
+ * in range (common practice, no source).
+ */
+function meanAndSd(sample: Sample): { mean: number; sd: number } {
+  const n = sample.n;
+  const mean = sample.mean;
+  const sd = Math.sqrt(sample.sumSqDev / (n - 1));
+  if (Number.isFinite(mean) && Number.isFinite(sd) && (sd > 0 || sample.distinct === 1)) return { mean, sd };
+  const big = Math.max(Math.abs(sample.min), Math.abs(sample.max));
+  const s = Math.pow(2, Math.min(1023, Math.floor(Math.log2(big)))); // log2 of the largest double rounds to 1024
+  const xs = sample.sorted;
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += (xs[i] as number) / s;
+  const m = sum / n;
+  let ss = 0;
+  for (let i = 0; i < n; i++) {
+    const d = (xs[i] as number) / s - m;
+    ss += d * d;
+  }
+  return { mean: m * s, sd: Math.sqrt(ss / (n - 1)) * s };
+}
+
+function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[], notApplicable: readonly NotApplicableReport[]): string[] {
   const w: string[] = [];
   const { n, distinct } = plan.sample;
   if (distinct < n / 2) {
@@ -405,7 +453,7 @@ function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[])
   if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {
     w.push(`Every candidate is rejected at α = ${formatNumber(plan.options.alpha)}: none of these models describes the data well; the ranking only says which is least bad.`);
   }
-  for (const na of plan.notApplicable) w.push(`${na.family}: not applicable. ${na.reason}`);
+  for (const na of notApplicable) w.push(`${na.family}: not applicable. ${na.reason}`);
   return w;
 }
 

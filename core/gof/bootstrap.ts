@@ -86,20 +86,26 @@ export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions =
   return { start: job.start, end: job.end, completed, valid, exceed, failed, cancelled };
 }
 
-/** A² of replicate i at its refitted parameters, or NaN when the replicate cannot be refitted. */
+/**
+ * A² of replicate i at its refitted parameters, or NaN when the replicate cannot be refitted: a
+ * non-finite draw, a fit that is not applicable, or a typed numerical failure anywhere in drawing,
+ * refitting or computing A² (e.g. a refitted scale underflowing to 0 for data near the smallest
+ * doubles). Such replicates are counted as failed and reported, never thrown (issue 6).
+ */
 export function replicateStatistic(family: Family, job: Pick<BootstrapJob, 'parameters' | 'n' | 'seed'>, i: number): number {
-  const x = family.random(job.parameters, createRng(job.seed, i), job.n);
-  x.sort();
-  let sample;
   try {
-    sample = prepareSample(x, { alreadySorted: true });
+    const x = family.random(job.parameters, createRng(job.seed, i), job.n);
+    x.sort();
+    const sample = prepareSample(x, { alreadySorted: true });
+    if (!Number.isFinite(sample.sum) && x.some((v) => !Number.isFinite(v))) return Number.NaN;
+    const fit = family.fit(sample);
+    if (!fit.ok) return Number.NaN;
+    const a2 = andersonDarlingStatistic(family.make(fit.parameters), sample.sorted);
+    return Number.isFinite(a2) ? a2 : Number.NaN;
   } catch (e) {
-    if (e instanceof PlumblineError) return Number.NaN; // a non-finite draw: count the replicate as failed
+    if (e instanceof PlumblineError && e.code !== 'cancelled') return Number.NaN;
     throw e;
   }
-  const fit = family.fit(sample);
-  if (!fit.ok) return Number.NaN;
-  return andersonDarlingStatistic(family.make(fit.parameters), sample.sorted);
 }
 
 /** Split replicates [0, replicates) into `parts` contiguous jobs (for workers). */
