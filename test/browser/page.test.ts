@@ -73,6 +73,38 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     await page.screenshot({ path: join(OUT, 'page-1366-full.png'), fullPage: true });
   });
 
+  it('is keyboard reachable: Tab from the top reaches a demo button, the file picker, the settings and a candidate row', async () => {
+    await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+    const seen = new Set<string>();
+    for (let i = 0; i < 80 && !seen.has('row'); i++) {
+      await page.keyboard.press('Tab');
+      const kind = await page.evaluate(() => {
+        const a = document.activeElement as HTMLElement | null;
+        if (!a) return '';
+        if (a.closest('#demo-list')) return 'demo';
+        if (a.id === 'file-input') return 'file';
+        if (a.id === 'alpha-input') return 'alpha';
+        if (a.id === 'run-button') return 'run';
+        if (a.matches('tr.cand-main')) return 'row';
+        return a.tagName.toLowerCase();
+      });
+      seen.add(kind);
+    }
+    for (const k of ['demo', 'file', 'alpha', 'run', 'row']) expect(seen.has(k), `Tab reached ${k}`).toBe(true);
+  });
+
+  it('takes a CSV dropped on the drop zone', async () => {
+    await page.evaluate((text) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], 'dropped.csv', { type: 'text/csv' }));
+      const zone = document.getElementById('drop-zone')!;
+      zone.dispatchEvent(new DragEvent('dragover', { dataTransfer: dt, bubbles: true, cancelable: true }));
+      zone.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    }, 'strength_MPa\n412\n398\n405\n421\n417\n409\n402\n399\n415\n411\n');
+    await waitForDone(/10 values of strength_MPa from dropped\.csv/);
+    expect(await page.inputValue('#units-input')).toBe('MPa');
+  });
+
   it('reads an uploaded CSV, offers its columns, analyses the chosen one and counts the skipped row', async () => {
     await page.setInputFiles('#file-input', { name: 'fatigue <test>.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) });
     await page.waitForFunction(() => (document.getElementById('source-name')?.textContent ?? '').includes('fatigue'));
