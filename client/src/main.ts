@@ -62,6 +62,7 @@ const $ = {
   decimalSelect: byId<HTMLSelectElement>('decimal-select'),
   counts: byId('counts'),
   skips: byId<HTMLUListElement>('skips'),
+  columnNote: byId('column-note'),
   quantity: byId<HTMLInputElement>('quantity-input'),
   units: byId<HTMLInputElement>('units-input'),
   unitsHint: byId('units-hint'),
@@ -233,7 +234,7 @@ function loadSource(source: Source, opts: { header?: boolean; column?: number } 
   $.quantity.dataset['typed'] = '';
   $.units.dataset['typed'] = '';
   $.loaded.hidden = false;
-  $.sourceName.textContent = `${source.name}${source.kind === 'demo' ? ' (worked scenario, invented data)' : ''}`;
+  $.sourceName.textContent = `${source.name}${source.kind === 'demo' ? ' (demo dataset)' : ''}`;
   const header = opts.header ?? !firstLineIsNumber(source.csv, decimal());
   $.headerCheck.checked = header;
   rescanColumns(opts.column);
@@ -255,6 +256,28 @@ function rescanColumns(prefer?: number): void {
   }
   showColumns(state.columns, state.column);
   suggestQuantity();
+  noteCensoring();
+}
+
+const STATUS_NAME = /^(status|state|censor(ed|ing)?|cens|event|failed|failure|suspended|suspension|runout|run_out)$/i;
+
+/**
+ * A file with a status-like column probably marks some values as censored (a unit still running,
+ * a specimen that did not fail). This page fits every value of the chosen column as observed,
+ * so say so: treating censored times as failures biases a life estimate low.
+ */
+function noteCensoring(): void {
+  const flag = state.columns.find((c) => c.index !== state.column && STATUS_NAME.test(c.label.trim()));
+  if (!flag) {
+    $.columnNote.hidden = true;
+    $.columnNote.textContent = '';
+    return;
+  }
+  $.columnNote.hidden = false;
+  $.columnNote.textContent =
+    `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +
+    `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
+    `Do not base a maintenance interval on this fit without a censored-data analysis.`;
 }
 
 function columnLabel(): string {
@@ -685,6 +708,7 @@ function wire(): void {
   $.columnSelect.addEventListener('change', () => {
     state.column = Number($.columnSelect.value);
     suggestQuantity();
+    noteCensoring();
     scheduleRun(0);
   });
   $.headerCheck.addEventListener('change', () => {
@@ -742,7 +766,7 @@ async function start(): Promise<void> {
     const demo = await api.demoAnalysis();
     state.source = { kind: 'demo', name: demo.name, csv: demo.csv };
     $.loaded.hidden = false;
-    $.sourceName.textContent = `${demo.name} (worked scenario, invented data)`;
+    $.sourceName.textContent = `${demo.name} (demo dataset)`;
     $.headerCheck.checked = true;
     const entry = state.demos.find((d) => d.name === demo.name);
     const col = entry ? entry.columns.indexOf(demo.column) + 1 : 0;

@@ -105,6 +105,15 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     expect(await page.inputValue('#units-input')).toBe('MPa');
   });
 
+  it('loads a demo from the list and warns when a status column may mark censored values', async () => {
+    await page.click('#demo-list button[data-name="bearing-life"]');
+    await waitForDone(/values of hours from bearing-life/);
+    expect(await page.locator('#demo-list button[data-name="bearing-life"]').getAttribute('aria-pressed')).toBe('true');
+    const note = page.locator('#column-note');
+    expect(await note.isVisible()).toBe(true);
+    expect(await note.textContent()).toMatch(/“status”.*censored/);
+  });
+
   it('reads an uploaded CSV, offers its columns, analyses the chosen one and counts the skipped row', async () => {
     await page.setInputFiles('#file-input', { name: 'fatigue <test>.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) });
     await page.waitForFunction(() => (document.getElementById('source-name')?.textContent ?? '').includes('fatigue'));
@@ -112,6 +121,7 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     expect(options).toEqual(['1. specimen', '2. kcycles', '3. load_kN', '4. note']);
     // The file name is shown as text, not markup (OWASP XSS Prevention Cheat Sheet, rule 1).
     expect(await page.locator('#source-name').textContent()).toContain('fatigue <test>.csv');
+    expect(await page.locator('#column-note').isVisible()).toBe(false);
     await page.selectOption('#column-select', '3');
     await waitForDone(/values of load_kN from fatigue/);
     const counts = (await page.locator('#counts').textContent()) ?? '';
