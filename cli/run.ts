@@ -9,6 +9,7 @@ import {
   isPlumblineError,
   readColumn,
   type AnalysisReport,
+  type ColumnResult,
   type PlumblineError,
 } from '../core/index.js';
 import { parseArgs, type AnalyzeArgs } from './args.js';
@@ -57,9 +58,9 @@ export interface JsonReport extends AnalysisReport {
   readonly input: CliInput;
 }
 
-function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
+/** Read the file and its value column; the file's text is not kept once the column is read. */
+function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput } {
   const source = readInputText(args.file);
-  const fileLabel = args.file === '-' ? 'standard input' : args.file;
   const decimal = args.decimalComma ? ',' : '.';
   const read = readColumn(source.text, {
     ...(args.column !== undefined ? { column: args.column } : {}),
@@ -68,7 +69,12 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
     skipInvalid: args.skipInvalid,
     header: !args.noHeader,
   });
-  const input = cliInput(fileLabel, read, decimal, source.encoding, source.warnings);
+  return { read, input: cliInput(fileLabel, read, decimal, source.encoding, source.warnings) };
+}
+
+function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
+  const fileLabel = args.file === '-' ? 'standard input' : args.file;
+  const { read, input } = readInput(args, fileLabel);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);
     throw new InputError(
