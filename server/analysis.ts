@@ -7,6 +7,7 @@
 import {
   computeEvidence,
   finishAnalysis,
+  InputError,
   planAnalysis,
   readColumn,
   SKIP_REASON_WORDS,
@@ -39,6 +40,18 @@ export type AnalyzeResponse = AnalysisReport & { readonly input: InputSummary; r
 export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>; input: InputSummary } {
   if (req.values !== undefined) return { values: req.values, input: { source: 'values', n: req.values.length } };
   const r = readColumn(req.csv ?? '', { ...req.csvOptions, ...(req.column !== undefined ? { column: req.column } : {}) });
+  if (r.values.length === 0) {
+    const dropped = r.skipped.reduce((a, k) => a + k.count, 0);
+    throw new InputError(
+      dropped > 0
+        ? `Column ${JSON.stringify(r.column)} has no usable values: all ${dropped} data rows were dropped (${r.skipped
+            .map((k) => `${k.count} ${SKIP_REASON_WORDS[k.reason]}, first at row ${k.firstRow}: ${JSON.stringify(k.firstValue)}`)
+            .join('; ')}).`
+        : `Column ${JSON.stringify(r.column)} has no data rows.`,
+      { column: r.column },
+      'too-few-values',
+    );
+  }
   return {
     values: r.values,
     input: {

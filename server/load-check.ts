@@ -5,7 +5,8 @@
  *    64): every response is checked (200, n = 10000, five candidates ranked 1..5); latency
  *    percentiles are printed.
  * 2. Memory: the server's resident size (VmRSS of its process, workers included) before and after
- *    M further analyses (default 10^4, of 100 points each so the run stays short).
+ *    each of R rounds (default 4) of M/R further analyses (M default 10^4, of 100 points each so the
+ *    run stays short).
  * The server runs as a child process (server/main.ts on a free port); nothing is written to disk.
  * Not part of `npm test`: a measurement, not an assertion.
  */
@@ -72,18 +73,28 @@ async function main(): Promise<void> {
     });
     console.log(`16 concurrent analyses of 10^4 points: ${r1.requests.total} requests, ${r1.non2xx} non-2xx, ${wrong} wrong or failed, errors ${r1.errors}, timeouts ${r1.timeouts}`);
     console.log(`  latency ms: p50 ${r1.latency.p50}, p90 ${r1.latency.p90}, p99 ${r1.latency.p99}, max ${r1.latency.max}; ${r1.requests.average} req/s`);
-    const before = rssMiB(pid);
+    // Memory: M analyses in `rounds` rounds; the resident size after each round shows whether it
+    // keeps growing (a leak) or levels off (heaps reaching their working size).
+    const rounds = arg('--rounds', 4);
     const small = body(100, 2);
-    const r2 = await autocannon({
-      url: `${url}/api/analyze`,
-      connections: 8,
-      amount: memoryRequests,
-      timeout: 60,
-      requests: [{ method: 'POST', headers: { 'content-type': 'application/json' }, body: small }],
-    });
-    const after = rssMiB(pid);
-    console.log(`memory over ${r2.requests.total} analyses of 100 points (${r2.non2xx} non-2xx): resident ${before.toFixed(1)} MiB before, ${after.toFixed(1)} MiB after`);
-    console.log(`  latency ms: p50 ${r2.latency.p50}, p99 ${r2.latency.p99}; ${r2.requests.average} req/s`);
+    const sizes = [rssMiB(pid)];
+    let total = 0;
+    let non2xx = 0;
+    let p99 = 0;
+    for (let r = 0; r < rounds; r++) {
+      const res = await autocannon({
+        url: `${url}/api/analyze`,
+        connections: 8,
+        amount: Math.ceil(memoryRequests / rounds),
+        timeout: 60,
+        requests: [{ method: 'POST', headers: { 'content-type': 'application/json' }, body: small }],
+      });
+      total += res.requests.total;
+      non2xx += res.non2xx;
+      p99 = Math.max(p99, res.latency.p99);
+      sizes.push(rssMiB(pid));
+    }
+    console.log(`memory over ${total} analyses of 100 points (${non2xx} non-2xx, p99 ≤ ${p99} ms): resident MiB after each round ${sizes.map((v) => v.toFixed(1)).join(' → ')}`);
   } finally {
     child.kill('SIGTERM');
   }

@@ -92,6 +92,9 @@ describe('request validation', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/abc/);
     expect(res.body.error.place.row).toBe(4);
+    const none = await request(app).post('/api/analyze').send({ csv: 'h\nNA\n-\nn/a\n', column: 'h', csvOptions: { skipInvalid: true } });
+    expect(none.status).toBe(400);
+    expect(none.body.error.message).toMatch(/no usable values: all 3 data rows were dropped/);
     const col = await request(app).post('/api/analyze').send({ csv: 'h\n1\n2\n', column: 'nope' });
     expect(col.status).toBe(400);
     expect(col.body.error.message).toMatch(/nope/);
