@@ -210,15 +210,26 @@ type Evaluated =
 
 /** Whether every number the report would carry for this fit is a real number (not NaN/±Infinity). */
 function nonFiniteIn(outcome: FitSuccess, a2: number, chiSquare: ChiSquareReport, table: AdPValue | null): string | null {
-  for (const [k, v] of Object.entries(outcome.parameters)) if (!Number.isFinite(v)) return `parameter ${k} = ${String(v)}`;
-  if (!Number.isFinite(outcome.logLikelihood)) return `log-likelihood = ${String(outcome.logLikelihood)}`;
-  if (!Number.isFinite(a2)) return `Anderson–Darling A² = ${String(a2)}`;
+  for (const [k, v] of Object.entries(outcome.parameters)) if (!Number.isFinite(v)) return `its estimate of ${k} is not a finite number`;
+  if (!Number.isFinite(outcome.logLikelihood)) return 'its log-likelihood is not a finite number';
+  if (!Number.isFinite(a2)) return 'its Anderson–Darling statistic is not a finite number';
   if (chiSquare.computable) {
-    if (!Number.isFinite(chiSquare.statistic)) return `chi-square statistic = ${String(chiSquare.statistic)}`;
-    if (Number.isNaN(chiSquare.pValue) || Number.isNaN(chiSquare.pValueUpper)) return 'chi-square p-value = NaN';
+    if (!Number.isFinite(chiSquare.statistic)) return 'its chi-square statistic is not a finite number';
+    if (Number.isNaN(chiSquare.pValue) || Number.isNaN(chiSquare.pValueUpper)) return 'its chi-square p-value could not be computed';
   }
-  if (table !== null && Number.isNaN(table.pValue)) return 'Anderson–Darling p-value = NaN';
+  if (table !== null && Number.isNaN(table.pValue)) return 'its Anderson–Darling p-value could not be computed';
   return null;
+}
+
+/** A typed error from inside a fit, in plain words (no NaN or internal names shown to the user). */
+function plainFailure(e: PlumblineError): string {
+  const m = /parameter (\w+) = (\S+) is invalid/.exec(e.message);
+  if (m) {
+    const v = Number(m[2]);
+    return Number.isFinite(v) ? `its estimate of ${m[1]} came out as ${m[2]}, outside the allowed range` : `its estimate of ${m[1]} is not a finite number`;
+  }
+  if (e.name === 'BracketError') return 'its likelihood equation could not be solved (no bracketing interval)';
+  return e.message.replace(/\.$/, '');
 }
 
 /**
@@ -263,7 +274,7 @@ function evaluateFamily(family: Family, sample: Sample, opts: ResolvedOptions): 
     // user's fault: report it per family. A user's bin count error still propagates (it is checked
     // up front, but keep it the user's), and so do untyped errors (true bugs).
     if (e instanceof PlumblineError && e.code !== 'bins-too-many' && e.code !== 'bad-option' && e.code !== 'cancelled') {
-      return failed(e.message.replace(/\.$/, ''));
+      return failed(plainFailure(e));
     }
     throw e;
   }

@@ -176,6 +176,21 @@ describe('hostile inputs through the CLI', () => {
     });
   }
 
+  // The readable text report (no --json) for every case that gives a report: exit 0, and no
+  // number printed as NaN, Infinity or undefined (common practice, no source: a report must not
+  // show placeholders; "NaN" may appear only quoting a skipped cell).
+  for (const c of CASES.filter((x) => x.expect.ok)) {
+    it(`text report: ${c.name}`, () => {
+      let stdout = '';
+      let stderr = '';
+      const code = runCliInProcess(cliArgs(c, files.get(c.name) as string).filter((a) => a !== '--json'), { out: (s) => (stdout += s), err: (s) => (stderr += s) });
+      expect(code, stderr).toBe(0);
+      expect(stdout.length).toBeGreaterThan(200);
+      expect(stdout).not.toMatch(/undefined|\bInfinity\b|\[object /);
+      expect(stdout.replace(/"NaN"|NaN \(not a number\)/g, '')).not.toMatch(/\bNaN\b/);
+    });
+  }
+
   // And a spread of cases as a user runs it: a separate node process (main.ts, real stdout/stderr
   // and exit status). Spawning costs about 1.5 s each on this machine, so not all of them.
   const SPAWNED = [
