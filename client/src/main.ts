@@ -469,6 +469,7 @@ function renderCounts(resp: AnalyzeResponse): void {
   for (const s of skipped) $.skips.append(el('li', {}, skipLine(s)));
   if (input?.blankLines) $.skips.append(el('li', {}, `${input.blankLines} blank line${input.blankLines === 1 ? '' : 's'} passed over`));
   const most = Math.floor(resp.n / 5);
+  $.bins.max = String(Math.max(3, most));
   const sel = resp.candidates.find((c) => c.family === state.selected) ?? resp.candidates[0];
   const used = sel && sel.chiSquare.computable ? ` For ${displayLabel(sel.label)}: ${sel.chiSquare.kRule}` : '';
   $.binsHint.textContent =

@@ -3,7 +3,7 @@
  * start the real server as one node process on a free port, and stop it by its pid.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -40,8 +40,17 @@ export async function ensureClientBuilt(): Promise<void> {
   const built = join(client, 'dist', 'index.html');
   const coreNewest = newest(join(ROOT, 'core'));
   if (existsSync(built) && statSync(built).mtimeMs > Math.max(newest(client), coreNewest)) return;
+  // Build beside the old output and swap it in, so that a test reading client/dist at the same
+  // time never sees an emptied folder for longer than two renames.
   const { build } = await import('vite');
-  await build({ configFile: join(client, 'vite.config.ts'), logLevel: 'warn' });
+  mkdirSync(join(ROOT, '.tmp'), { recursive: true }); // .tmp/ is git-ignored
+  const fresh = join(ROOT, '.tmp', `client-dist-build-${process.pid}`);
+  const old = join(ROOT, '.tmp', `client-dist-old-${process.pid}`);
+  await build({ configFile: join(client, 'vite.config.ts'), logLevel: 'warn', build: { outDir: fresh, emptyOutDir: true } });
+  const dist = join(client, 'dist');
+  if (existsSync(dist)) renameSync(dist, old);
+  renameSync(fresh, dist);
+  rmSync(old, { recursive: true, force: true });
 }
 
 export interface RunningServer {
