@@ -26,6 +26,24 @@ export function rawGet(server: Server, path: string): Promise<{ status: number; 
   });
 }
 
+/** POST raw bytes as application/json to a listening server. */
+export function rawPost(server: Server, path: string, body: Buffer): Promise<{ status: number; body: string }> {
+  const { port } = server.address() as AddressInfo;
+  return new Promise((resolve, reject) => {
+    const req = httpRequest(
+      { host: '127.0.0.1', port, path, method: 'POST', headers: { 'content-type': 'application/json', 'content-length': String(body.length) } },
+      (res) => {
+        let text = '';
+        res.setEncoding('utf8');
+        res.on('data', (c: string) => (text += c));
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
+      },
+    );
+    req.on('error', reject);
+    req.end(body);
+  });
+}
+
 export function listen(app: PlumblineApp): Promise<Server> {
   return new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
