@@ -485,10 +485,10 @@ function renderRanking(resp: AnalyzeResponse): void {
   else if (resp.candidates.every((c) => c.rejectedBy.length > 0)) {
     $.summaryLine.textContent = `Every model tried is rejected at α = ${a}. None of them describes these data well enough to base a decision on.`;
   } else if (best.rejectedBy.length === 0) {
-    $.summaryLine.textContent = `Best by AICc: ${best.label}. Neither test rejects it at α = ${a}; check the evidence below, above all in the tail your decision depends on.`;
+    $.summaryLine.textContent = `Best by AICc: ${displayLabel(best.label)}. Neither test rejects it at α = ${a}; check the evidence below, above all in the tail your decision depends on.`;
   } else {
     const firstOk = resp.candidates.find((c) => c.rejectedBy.length === 0);
-    $.summaryLine.textContent = `Best by AICc: ${best.label}, but it is rejected at α = ${a}.${firstOk ? ` The best model not rejected is ${firstOk.label} (rank ${firstOk.rank}).` : ''}`;
+    $.summaryLine.textContent = `Best by AICc: ${displayLabel(best.label)}, but it is rejected at α = ${a}.${firstOk ? ` The best model not rejected is ${displayLabel(firstOk.label)} (rank ${firstOk.rank}).` : ''}`;
   }
   for (const g of $.rankingTable.querySelectorAll('tbody')) g.remove();
   for (const c of resp.candidates) {
