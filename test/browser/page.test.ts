@@ -238,6 +238,17 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     expect(await page.locator('#counts').textContent()).toContain('n = 12 values used');
   });
 
+  it('lists the families that cannot be fitted, with the reason (negative values for positive-support families)', async () => {
+    for (const f of ['gamma', 'exponential']) await page.check(`#family-boxes input[value="${f}"]`);
+    await page.fill('#paste-text', ['-1.5', '0.4', '2.2', '-0.3', '1.1', '0.9', '-2.0', '0.1', '1.7', '-0.8', '0.6', '1.3'].join('\n'));
+    await page.click('#paste-use');
+    await waitForDone(/12 values of #1 from Pasted values/);
+    const na = (await page.locator('#not-applicable').textContent()) ?? '';
+    expect(na).toMatch(/Not fitted/);
+    for (const label of ['Lognormal', 'Gamma', 'Weibull', 'Exponential']) expect(na).toContain(label);
+    expect(await rows().count()).toBe(1);
+  });
+
   it('reads well at 1920×1080 (screenshot) and raised no console or CSP errors', async () => {
     await page.setViewportSize({ width: 1920, height: 1080 });
     await page.waitForTimeout(400);
