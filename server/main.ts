@@ -48,10 +48,15 @@ function main(): void {
     console.log('usage: node --import tsx server/main.ts [--port N] [--host H --allow-remote] [--demo FILE [--demo-column C]] [--body-limit MIB] [--workers N]');
     return;
   }
-  const portText = (args.get('--port') as string | undefined) ?? process.env.PORT ?? String(DEFAULT_PORT);
+  // An empty variable counts as unset.
+  const env = (name: string): string | undefined => {
+    const v = process.env[name]?.trim();
+    return v === undefined || v === '' ? undefined : v;
+  };
+  const portText = (args.get('--port') as string | undefined) ?? env('PORT') ?? String(DEFAULT_PORT);
   const port = Number(portText);
   if (!Number.isInteger(port) || port < 0 || port > 65535) fail(`port must be a whole number from 0 to 65535 (got ${portText})`);
-  const host = (args.get('--host') as string | undefined) ?? process.env.HOST ?? '127.0.0.1';
+  const host = (args.get('--host') as string | undefined) ?? env('HOST') ?? '127.0.0.1';
   const remote = !LOOPBACK.has(host);
   if (remote && !args.has('--allow-remote')) {
     fail(`refusing to listen on ${host}: that makes your data reachable from other machines. Add --allow-remote if you really mean it.`);

@@ -95,6 +95,22 @@ describe('histogram on equiprobable bins and the observed/expected table', () =>
     }
   });
 
+  it('when the chi-square test is not computable (n = 8), display bins are made the same way and say so', () => {
+    // Cochran (1952) 5-per-bin rule: 8 values allow floor(8/5) = 1 bin, too few for any dof, so the
+    // report has no bins; the display uses equiprobable bins under the fit with k = 2
+    // (Moore round(2·8^0.4) = 5, capped at max(2, floor(8/5))).
+    const x = [12.1, 13.4, 9.8, 11.0, 10.6, 12.9, 11.7, 10.2];
+    const report = analyze(x, { families: ['normal'] });
+    expect(report.candidates[0]?.chiSquare.computable).toBe(false);
+    const ev = computeEvidence(prepareSample(x), report);
+    const h = ev.candidates[0]?.histogram;
+    expect(h?.source).toBe('display');
+    expect(h?.k).toBe(2);
+    expect(h?.bars.reduce((a, b) => a + b.observed, 0)).toBe(8);
+    expect(h?.bars.every((b) => b.expected === 4)).toBe(true);
+    expect(ev.candidates[0]?.bins.source).toBe('display');
+  });
+
   it('an open outer bin is drawn from the data extreme, or one neighbouring-bin width beyond its inner edge', () => {
     // The display-edge rule of core/evidence/histogram.ts (common practice, no source); hand-computed.
     const rows = [
