@@ -8,6 +8,7 @@ import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { log1mexp } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
+import { sampleMean } from './moments.js';
 import { POSITIVE, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
 
@@ -78,7 +79,7 @@ function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
   const n = sample.n;
-  const rate = 1 / sample.mean;
+  const rate = 1 / sampleMean(sample);
   // At the MLE rate·Σx = n, so ln L = n ln rate - n.
   const logLikelihood = n * (Math.log(rate) - 1);
   return {

@@ -25,6 +25,7 @@ import {
   trigamma,
 } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
+import { sampleMean } from './moments.js';
 import { positiveRootNewton } from './newton.js';
 import { POSITIVE, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
@@ -144,14 +145,15 @@ function logMinusDigammaDerivative(k: number): number {
 function logMeanMinusMeanLog(sample: Sample): number {
   const n = sample.n;
   const meanLog = sample.sumLog() / n;
-  const lnMean = Math.log(sample.mean);
+  const mean = sampleMean(sample);
+  const lnMean = Math.log(mean);
   const direct = lnMean - meanLog;
   // Absolute rounding error of the direct difference is a few ulps of its terms.
   if (direct > 1e-3 * Math.max(1, Math.abs(lnMean))) return direct;
   // Stable form: s = (1/n) Σ [u - log1p(u)], u = x/mean - 1 (Σu = 0), each term ≥ 0, with
   // log1pmx avoiding the cancellation of u against log1p(u) for small |u|.
   const xs = sample.sorted;
-  const m = sample.mean;
+  const m = mean;
   let s = 0;
   let c = 0;
   for (let i = 0; i < n; i++) {
@@ -168,7 +170,7 @@ function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
   const n = sample.n;
-  const mean = sample.mean;
+  const mean = sampleMean(sample);
   const s = logMeanMinusMeanLog(sample);
   const k0 = (3 - s + Math.sqrt((s - 3) * (s - 3) + 24 * s)) / (12 * s);
   // Alzer's bracket, widened by 0.1 % so that rounding in s cannot put the root on its edge.

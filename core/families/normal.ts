@@ -5,11 +5,11 @@
  * Fit: closed-form maximum likelihood, mean = x̄ and sd = √(Σ(x - x̄)²/n) (the MLE divides by n,
  * not n - 1).
  */
-import { CompensatedSum } from '../compensated.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { normalCdf, normalIsf, normalLogCdf, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
+import { mleStandardDeviation, sampleMean } from './moments.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
 
@@ -78,29 +78,12 @@ function applicable(sample: Sample): NotApplicable | null {
   return checkApplicable('normal', 'normal', sample, 'real');
 }
 
-/**
- * √(Σ(x - mean)²/n) when the squares underflow (values near 1e-300) or overflow (near 1e200):
- * the deviations are divided by the largest one first. One extra pass, only in those cases.
- */
-function rescaledSd(sample: Sample): number {
-  const xs = sample.sorted;
-  const mean = sample.mean;
-  const big = Math.max(mean - sample.min, sample.max - mean);
-  const ss = new CompensatedSum();
-  for (let i = 0; i < xs.length; i++) {
-    const d = ((xs[i] as number) - mean) / big;
-    ss.add(d * d);
-  }
-  return big * Math.sqrt(ss.value / sample.n);
-}
-
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
   const n = sample.n;
-  const mean = sample.mean;
-  let sd = Math.sqrt(sample.sumSqDev / n);
-  if (!(sd > 0 && sd < Number.POSITIVE_INFINITY)) sd = rescaledSd(sample);
+  const mean = sampleMean(sample);
+  const sd = mleStandardDeviation(sample);
   // At the MLE Σ(x - mean)²/sd² = n exactly, so ln L = -n ln sd - n ln √(2π) - n/2.
   const logLikelihood = -n * (Math.log(sd) + LN_SQRT_2PI + 0.5);
   return {

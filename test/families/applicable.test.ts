@@ -93,6 +93,28 @@ describe('fits stay finite and converge on awkward but valid samples (common pra
       }
     });
   }
+  it('values near 1.5e307 (sums overflow) and 1e-301: every fit equals the unscaled fit, rescaled', () => {
+    // Maximum likelihood is scale-equivariant (common practice, no source).
+    const base = [0.93, 1.02, 1.11, 0.97, 1.05, 0.88, 1.2, 1.01, 0.99, 1.07];
+    for (const c of [1.5e307, 1e-301]) {
+      for (const name of DEFAULT_FAMILIES) {
+        const a = getFamily(name).fit(prepareSample(base));
+        const b = getFamily(name).fit(prepareSample(base.map((x) => x * c)));
+        if (!a.ok || !b.ok) throw new Error(`${name} should fit`);
+        expect(Number.isFinite(b.logLikelihood)).toBe(true);
+        const expectScaled: Record<string, number> = { ...a.parameters };
+        if ('mean' in expectScaled) expectScaled.mean = (expectScaled.mean as number) * c;
+        if ('sd' in expectScaled) expectScaled.sd = (expectScaled.sd as number) * c;
+        if ('scale' in expectScaled) expectScaled.scale = (expectScaled.scale as number) * c;
+        if ('rate' in expectScaled) expectScaled.rate = (expectScaled.rate as number) / c;
+        if ('meanlog' in expectScaled) expectScaled.meanlog = (expectScaled.meanlog as number) + Math.log(c);
+        for (const [k, v] of Object.entries(expectScaled)) {
+          // 1e-9: the fits solve to 1e-12; x·c and ln(x·c) round differently from x and ln x
+          expect(Math.abs((b.parameters[k] as number) / v - 1)).toBeLessThanOrEqual(1e-9);
+        }
+      }
+    }
+  });
   it('normal sd of tiny and huge values equals the rescaled sd (population sd of 1, 2, 3, 5 = √2.1875)', () => {
     for (const scale of [1e-300, 1e200]) {
       const out = getFamily('normal').fit(prepareSample([1, 2, 3, 5].map((x) => x * scale)));
