@@ -36,7 +36,14 @@ export function displayDomain(evidence: Evidence, ce: CandidateEvidence): [numbe
       hi = Math.max(hi, edge);
     }
   }
-  const pad = (hi - lo) * 0.04 || Math.abs(lo) * 0.01 || 1;
+  // Take in the outer bars' drawn edges when they lie close to the data (within a quarter of
+  // the range), so that they are not cut for a sliver; far-reaching ones are cut and labelled.
+  const reach = (hi - lo) * 0.25;
+  const first = bars[0];
+  const last = bars[bars.length - 1];
+  if (first && first.lower < lo && first.lower >= lo - reach) lo = first.lower;
+  if (last && last.upper > hi && last.upper <= hi + reach) hi = last.upper;
+  const pad = (hi - lo) * 0.02 || Math.abs(lo) * 0.01 || 1;
   return [Math.max(lo - pad, evidence.xDomain[0]), Math.min(hi + pad, evidence.xDomain[1])];
 }
 

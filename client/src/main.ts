@@ -544,7 +544,9 @@ function renderRanking(resp: AnalyzeResponse): void {
     );
   }
   clear($.warnings);
-  for (const w of [...resp.warnings, ...(resp.input?.warnings ?? [])]) $.warnings.append(el('li', {}, w));
+  // Warnings that only repeat a "not fitted" reason are already listed above.
+  const repeats = (w: string) => resp.notApplicable.some((n) => n.reason !== '' && w.includes(n.reason));
+  for (const w of [...resp.warnings, ...(resp.input?.warnings ?? [])]) if (!repeats(w)) $.warnings.append(el('li', {}, w));
 }
 
 /** The core's label with a capital first letter (labels start a table cell or a sentence here). */

@@ -107,7 +107,7 @@ export function buildReportHtml(ctx: ReportContext): string {
     r.notApplicable.length === 0
       ? ''
       : `<h3>Models not fitted</h3><ul>${r.notApplicable.map((n) => `<li><strong>${e(n.family)}</strong>: ${e(n.reason)}</li>`).join('')}</ul>`;
-  const warnings = [...r.warnings, ...(input?.warnings ?? [])];
+  const warnings = [...r.warnings, ...(input?.warnings ?? [])].filter((w) => !r.notApplicable.some((n) => n.reason !== '' && w.includes(n.reason)));
   const warn = warnings.length === 0 ? '' : `<h3>Warnings</h3><ul>${warnings.map((w) => `<li>${e(w)}</li>`).join('')}</ul>`;
 
   const figures = ctx.charts.map((c) => `<figure>${c.svg}<figcaption>${e(c.caption)}</figcaption></figure>`).join('');
