@@ -97,6 +97,7 @@ function main(): void {
     options.demo = demo;
   }
   const app = createApp(options);
+  app.pool.warm();
   const server = app.listen(port, host, () => {
     const addr = server.address();
     const actualPort = typeof addr === 'object' && addr !== null ? addr.port : port;

@@ -317,6 +317,11 @@ export class WorkerPool {
     }
   }
 
+  /** Start all workers now (they load the core), so the first request does not wait for them. */
+  warm(): void {
+    while (!this.closed && this.slots.length < this.size) this.spawn();
+  }
+
   /** Stop every worker; running and queued tasks are rejected. */
   async close(): Promise<void> {
     this.closed = true;
