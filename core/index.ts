@@ -41,4 +41,5 @@ export {
 } from './gof/index.js';
 export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js';
 export * from './csv/index.js';
-export * from './evidence/index.js';
+export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS } from './evidence/index.js';
+export type * from './evidence/types.js';

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { getFamily, prepareSample, probabilityPlot, createRng, type Distribution } from '../../core/index.js';
+import { getFamily, prepareSample, createRng, type Distribution } from '../../core/index.js';
+import { probabilityPlot } from '../../core/evidence/index.js';
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 

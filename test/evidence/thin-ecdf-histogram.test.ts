@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { analyze, computeEvidence, createRng, empiricalCdf, getFamily, histogramBars, prepareSample, thinMonotone } from '../../core/index.js';
+import { analyze, computeEvidence, createRng, getFamily, prepareSample } from '../../core/index.js';
+import { empiricalCdf, histogramBars, thinMonotone } from '../../core/evidence/index.js';
 
 describe('thinning for drawing', () => {
   it('keeps the first and last points (min and max), at most cap points, in order', () => {
