@@ -127,7 +127,7 @@ function parseEvidenceOptions(v: unknown): EvidenceOptions {
   if (!isPlainObject(v)) throw badRequest(`"evidenceOptions" must be an object; got ${describe(v)}.`, 'evidenceOptions', 'bad-option');
   checkKeys(v, EVIDENCE_OPTION_FIELDS, 'evidenceOptions');
   const out: { maxPoints?: number; gridPoints?: number; bandAlpha?: number } = {};
-  const mp = num(v, 'maxPoints', 'evidenceOptions.maxPoints', { lo: 16, hi: 100_000, integer: true, what: 'a whole number from 16 to 100000' });
+  const mp = num(v, 'maxPoints', 'evidenceOptions.maxPoints', { lo: 16, hi: 10_000, integer: true, what: 'a whole number from 16 to 10000' });
   if (mp !== undefined) out.maxPoints = mp;
   const gp = num(v, 'gridPoints', 'evidenceOptions.gridPoints', { lo: 16, hi: 2000, integer: true, what: 'a whole number from 16 to 2000' });
   if (gp !== undefined) out.gridPoints = gp;
