@@ -43,3 +43,4 @@ export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js
 export * from './csv/index.js';
 export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS } from './evidence/index.js';
 export type * from './evidence/types.js';
+export type * from './workflow/index.js';
