@@ -22,6 +22,7 @@ interface MemMessage {
   readonly type: 'mem';
   readonly rss: number;
   readonly heapUsed: number;
+  readonly external: number;
 }
 
 // ---- server side -------------------------------------------------------------------------------
@@ -40,7 +41,7 @@ async function serve(): Promise<void> {
       const g = (globalThis as { gc?: () => void }).gc;
       if (g) g();
       const u = process.memoryUsage();
-      process.send?.({ type: 'mem', rss: u.rss, heapUsed: u.heapUsed } satisfies MemMessage);
+      process.send?.({ type: 'mem', rss: u.rss, heapUsed: u.heapUsed, external: u.external } satisfies MemMessage);
     } else if (m.type === 'stop') {
       server.close();
       void app.shutdown().then(() => process.exit(0));
@@ -161,8 +162,15 @@ async function main(): Promise<void> {
     stoppedByTime = true;
     instance.stop();
   }, maxSeconds * 1000);
+  // Resident size every 20 s during the run: a plateau after warm-up is allocator growth, a steady
+  // climb would be a leak.
+  const series: string[] = [];
+  const sampler = setInterval(() => {
+    void ask<MemMessage>(child, 'mem').then((m) => series.push(`${((Date.now() - started) / 1000).toFixed(0)} s: ${mib(m.rss)}`));
+  }, 20_000);
   const result = await instance;
   clearTimeout(timer);
+  clearInterval(sampler);
   const elapsed = (Date.now() - started) / 1000;
   const after = await ask<MemMessage>(child, 'mem');
   child.send({ type: 'stop' });
@@ -173,7 +181,8 @@ async function main(): Promise<void> {
       `requests answered: ${total}${stoppedByTime ? ` (stopped at the ${maxSeconds} s bound, before ${maxRequests})` : ''} in ${elapsed.toFixed(1)} s (${(total / elapsed).toFixed(1)} req/s)`,
       `responses checked: ${checked}; wrong (not 200 or report differing from the core's): ${wrong}; non-2xx ${result.non2xx}, errors ${result.errors}, timeouts ${result.timeouts}`,
       `latency: p50 ${result.latency.p50} ms, p97.5 ${result.latency.p97_5} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms, mean ${result.latency.mean.toFixed(1)} ms`,
-      `server resident memory: before ${mib(before.rss)} (heap ${mib(before.heapUsed)}), after ${mib(after.rss)} (heap ${mib(after.heapUsed)}); change ${mib(after.rss - before.rss)}`,
+      `server resident memory: before ${mib(before.rss)} (heap ${mib(before.heapUsed)}, external ${mib(before.external)}), after ${mib(after.rss)} (heap ${mib(after.heapUsed)}, external ${mib(after.external)}); change ${mib(after.rss - before.rss)}`,
+      `resident memory during the run: ${series.join(', ')}`,
     ].join('\n'),
   );
   for (const w of firstWrong) console.log(`  wrong: ${w}`);
