@@ -64,8 +64,8 @@ export function computeEvidence(
   }
   if (!(hi > lo)) {
     const d = Math.abs(lo) > 0 ? Math.abs(lo) * 0.05 : 1;
-    lo -= d;
-    hi += d;
+    lo = Math.max(-Number.MAX_VALUE, lo - d);
+    hi = Math.min(Number.MAX_VALUE, hi + d);
   }
   const grid = commonGrid(lo, hi, gridPoints, min, max);
   return {

@@ -15,12 +15,16 @@ import { finiteOrNull } from './quantileMap.js';
 export function commonGrid(lo: number, hi: number, points: number, dataMin: number, dataMax: number): number[] {
   const out: number[] = [];
   const m = Math.max(2, points);
-  for (let j = 0; j < m; j++) out.push(j === m - 1 ? hi : lo + ((hi - lo) * j) / (m - 1));
+  // lo·(1 - t) + hi·t stays finite even when hi - lo would overflow (data near ±1.8e308).
+  for (let j = 0; j < m; j++) {
+    const t = j / (m - 1);
+    out.push(j === m - 1 ? hi : lo * (1 - t) + hi * t);
+  }
   if (dataMin > 0 && dataMax / dataMin > 20) {
     const g = Math.max(2, Math.floor(m / 2));
     const a = Math.log(Math.max(dataMin, lo > 0 ? lo : dataMin));
     const b = Math.log(hi);
-    for (let j = 0; j < g; j++) out.push(Math.exp(a + ((b - a) * j) / (g - 1)));
+    for (let j = 0; j < g; j++) out.push(Math.min(hi, Math.exp(a + ((b - a) * j) / (g - 1))));
   }
   out.sort((p, q) => p - q);
   const dedup: number[] = [];

@@ -26,11 +26,29 @@ export function candidateBins(dist: Distribution, sorted: Float64Array, chiSquar
   return { source: 'display', rows: equiprobableBins(dist, sorted, displayBinCount(sorted.length)) };
 }
 
+/** Keep a display edge a finite double (data near ±1.8e308 must not push an edge to ±Infinity). */
+function clampFinite(x: number): number {
+  return Math.min(Number.MAX_VALUE, Math.max(-Number.MAX_VALUE, x));
+}
+
+/** b - a without overflow to Infinity (capped at the largest double). */
+export function safeSpan(a: number, b: number): number {
+  const d = b - a;
+  return Number.isFinite(d) ? d : Number.MAX_VALUE;
+}
+
+/** count / (n · (upper - lower)), computed on halves when the width overflows. */
+function densityOf(count: number, n: number, lower: number, upper: number): number {
+  const w = upper - lower;
+  if (Number.isFinite(w)) return count / (n * w);
+  return count / n / 2 / (upper / 2 - lower / 2);
+}
+
 export function histogramBars(rows: readonly BinRow[], n: number, dataMin: number, dataMax: number): HistogramBar[] {
   const k = rows.length;
   const inner: number[] = [];
   for (let j = 1; j < k; j++) inner.push((rows[j] as BinRow).lower ?? Number.NaN);
-  const spread = dataMax - dataMin;
+  const spread = safeSpan(dataMin, dataMax);
   const fallback = spread > 0 ? spread : Math.abs(dataMin) > 0 ? Math.abs(dataMin) * 0.1 : 1;
   const widthNear = (edge: number, neighbour: number | undefined): number => {
     const w = neighbour !== undefined && Number.isFinite(neighbour) ? Math.abs(neighbour - edge) : Number.NaN;
@@ -47,8 +65,10 @@ export function histogramBars(rows: readonly BinRow[], n: number, dataMin: numbe
     if (!openUpper) upper = r.upper as number;
     else if (r.lower === null) upper = dataMax + fallback * 0.05;
     else upper = Math.max(dataMax, r.lower + widthNear(r.lower, inner[j - 2]));
-    if (!(upper > lower)) upper = lower + fallback / Math.max(1, k);
-    const width = upper - lower;
+    lower = clampFinite(lower);
+    upper = clampFinite(upper);
+    if (!(upper > lower)) upper = clampFinite(lower + fallback / Math.max(1, k));
+    if (!(upper > lower)) lower = clampFinite(upper - fallback / Math.max(1, k));
     return {
       lower,
       upper,
@@ -58,8 +78,8 @@ export function histogramBars(rows: readonly BinRow[], n: number, dataMin: numbe
       openUpper,
       observed: r.observed,
       expected: r.expected,
-      density: r.observed / (n * width),
-      expectedDensity: r.expected / (n * width),
+      density: densityOf(r.observed, n, lower, upper),
+      expectedDensity: densityOf(r.expected, n, lower, upper),
     };
   });
 }

@@ -30,6 +30,9 @@ const sampleArb = fc.oneof(
   fc.array(fc.integer({ min: 1, max: 6 }), { minLength: 4, maxLength: 150 }),
   // far tails of the double range
   fc.array(fc.constantFrom(1e-300, 3e-300, 1e-299, 5e-298, 1e300, 4e300, 2e301), { minLength: 4, maxLength: 20 }),
+  // next to the largest double (about 1.8e308), where a naive width or grid step overflows
+  fc.array(fc.double({ min: 0.3e308, max: 1.7e308, noNaN: true, noDefaultInfinity: true }), { minLength: 4, maxLength: 40 }),
+  fc.array(fc.double({ min: -1.7e308, max: 1.7e308, noNaN: true, noDefaultInfinity: true }), { minLength: 4, maxLength: 40 }),
 );
 
 describe('evidence properties', () => {
