@@ -459,6 +459,12 @@ function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[],
       w.push(`${c.label}: the Anderson–Darling table gives only a bound (p ${c.andersonDarling.pValueIs === 'upper-bound' ? '<' : '>'} ${formatNumber(c.andersonDarling.pValue)}); use the bootstrap method for an estimate.`);
     }
     if (!c.fit.converged) w.push(`${c.label}: the maximum-likelihood solver did not converge; treat its numbers with caution.`);
+    const failedB = c.andersonDarling.failedReplicates ?? 0;
+    if (failedB > 0) {
+      w.push(
+        `${c.label}: ${failedB} of ${failedB + (c.andersonDarling.replicates ?? 0)} bootstrap replicates could not be refitted and were left out; the Anderson–Darling p-value rests on the other ${c.andersonDarling.replicates ?? 0}.`,
+      );
+    }
   }
   for (const c of plan.candidates) for (const fw of c.fit.warnings ?? []) w.push(`${c.family.label}: ${fw}`);
   if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {

@@ -103,6 +103,12 @@ function violations(r: AnalysisReport, n: number): string | null {
     if (ad.rejected !== adShould) return `${where}: AD rejected=${ad.rejected} with p ${ad.pValueIs} ${ad.pValue}, α ${ad.alpha}`;
     if (ad.pValueIs === 'lower-bound' && ad.pValue < ad.alpha) return `${where}: AD lower bound ${ad.pValue} < α cannot decide`;
     if (ad.rejected !== c.rejectedBy.includes('anderson-darling')) return `${where}: rejectedBy disagrees with AD`;
+    if (ad.method === 'bootstrap') {
+      // Every replicate is either used or counted as failed, and failures are warned about (issue 6).
+      const failed = ad.failedReplicates ?? 0;
+      if ((ad.replicates ?? -1) + failed !== r.options.bootstrapReplicates) return `${where}: bootstrap ${ad.replicates} + ${failed} ≠ B = ${r.options.bootstrapReplicates}`;
+      if (failed > 0 && !r.warnings.some((w) => w.includes(`${failed} of ${r.options.bootstrapReplicates} bootstrap replicates`))) return `${where}: failed replicates not warned about`;
+    }
     const chi = c.chiSquare;
     if (chi.computable) {
       if (!(chi.statistic >= 0)) return `${where}: X² = ${chi.statistic}`;
@@ -272,6 +278,16 @@ describe('invariant: report numbers and decisions (hostile doubles, random α)',
       }),
       { seed: SEED + 7, numRuns: 60 },
     );
+  });
+});
+
+describe('invariant: bootstrap replicates are all accounted for', () => {
+  it('at the smallest doubles, where some refits fail, failures are counted and warned about', () => {
+    // Subnormal data: some replicates' refitted scale underflows (measured: gamma 10 of 39 failed).
+    const xs = [1e-323, 1e-323, 1e-323, 2.5e-323, 3e-323, 1.5e-323];
+    const r = analyze(xs, { pMethod: 'bootstrap', bootstrapReplicates: 39 });
+    expect(violations(r, xs.length)).toBeNull();
+    expect(r.candidates.some((c) => (c.andersonDarling.failedReplicates ?? 0) > 0)).toBe(true);
   });
 });
 
