@@ -51,6 +51,9 @@ export function jobViewJson(v: JobView): string {
 export class JobManager {
   private readonly jobs = new Map<string, Job>();
   private readonly byClient = new Map<string, string>();
+  /** Arrival number of the newest request seen from each client. */
+  private readonly latestArrival = new Map<string, number>();
+  private arrivals = 0;
   private readonly pool: WorkerPool;
   private readonly keepMs: number;
   private readonly maxFinished: number;
@@ -77,11 +80,19 @@ export class JobManager {
     if (this.running >= this.maxRunning) {
       throw new HttpError(429, `Too many analyses are running (${this.maxRunning}); wait for one to finish or cancel one.`, { code: 'too-many-jobs' });
     }
+    const seq = ++this.arrivals;
     const planned = await this.pool.plan(body, 'job');
-    // A new job from the same client replaces its previous one.
+    // A new job from the same client replaces its previous one. Order is by arrival, not by the
+    // end of planning: a request overtaken by a newer one from the same client starts cancelled.
+    let stale = false;
     if (planned.client !== undefined) {
-      const prev = this.byClient.get(planned.client);
-      if (prev !== undefined) this.cancel(prev);
+      const latest = this.latestArrival.get(planned.client) ?? 0;
+      if (latest > seq) stale = true;
+      else {
+        this.latestArrival.set(planned.client, seq);
+        const prev = this.byClient.get(planned.client);
+        if (prev !== undefined) this.cancel(prev);
+      }
     }
     const id = randomUUID();
     const controller = new AbortController();
@@ -96,6 +107,12 @@ export class JobManager {
       settled: Promise.resolve(),
     };
     this.jobs.set(id, job);
+    if (stale) {
+      if (planned.kind === 'planned') this.pool.drop(planned.ticket);
+      job.state = 'cancelled';
+      job.finishedAt = Date.now();
+      return this.view(job);
+    }
     if (planned.client !== undefined) this.byClient.set(planned.client, id);
     if (planned.kind === 'result') {
       job.resultJson = planned.json;
