@@ -4,3 +4,5 @@ export type { ReturnLevel, ReturnLevelMethod, ReturnLevelOptions, ReturnLevelRep
 export { PLOTTING_CONSTANTS, plottingPositions } from './plotting-positions.js';
 export type { PlottingFormula, PlottingPoint, PlottingPositions } from './plotting-positions.js';
 export { exceedanceRisk, periodForRisk } from './risk.js';
+export { floodFrequency } from './analysis.js';
+export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } from './analysis.js';
