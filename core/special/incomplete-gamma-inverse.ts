@@ -39,14 +39,22 @@ function note(u: number, g: number, s: number): void {
 /** Solves F(a, x) = e^{logTarget} for x, F = Q if `upper` else P. */
 function solve(a: number, logTarget: number, upper: boolean): number {
   const lnG1 = lnGamma1p(a);
-  // Candidate starts (as ln x).
-  const logP = upper ? Math.log1p(-Math.exp(logTarget)) : logTarget;
-  let bestU = (logP + lnG1) / a; // P ≈ x^a/Γ(a+1), a lower bound for the root
-  let bestG = residual(a, Math.exp(bestU), upper, logTarget);
   BR[0] = Number.NEGATIVE_INFINITY;
   BR[1] = Number.POSITIVE_INFINITY;
   const s = upper ? -1 : 1;
-  if (Number.isFinite(bestG)) note(bestU, bestG, s);
+  // P(a, x) ≤ x^a/Γ(a+1) for every x (P = x^a/Γ(a+1)·₁F₁(a; a+1; −x), A&S 6.5.12, and ₁F₁ ≤ 1),
+  // so x_s = (p Γ(a+1))^{1/a} is a lower bound for the root: it opens the bracket without an
+  // evaluation (less a rounding margin). It is also the start when a < 1 or nothing beats it.
+  const logP = upper ? Math.log1p(-Math.exp(logTarget)) : logTarget;
+  const us = (logP + lnG1) / a;
+  BR[0] = us - 1e-12 * Math.max(1, Math.abs(us));
+  let bestU = us;
+  let bestG = Number.POSITIVE_INFINITY;
+  if (a < 1) {
+    bestG = residual(a, Math.exp(us), upper, logTarget);
+    if (Number.isFinite(bestG)) note(us, bestG, s);
+    else bestG = Number.POSITIVE_INFINITY;
+  }
   if (a >= 1) {
     const z = upper ? normalLogIsf(logTarget) : normalLogQuantile(logTarget);
     const t = 1 - 1 / (9 * a) + z / (3 * Math.sqrt(a));
@@ -79,6 +87,11 @@ function solve(a: number, logTarget: number, upper: boolean): number {
         }
       }
     }
+  }
+  if (bestG === Number.POSITIVE_INFINITY) {
+    bestU = us;
+    bestG = residual(a, Math.exp(us), upper, logTarget);
+    note(us, bestG, s);
   }
   let u = bestU;
   let g = bestG;

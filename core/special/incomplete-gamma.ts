@@ -14,8 +14,8 @@
  *   this is within 1e-15 of mpmath already from a = 8 (SciPy and DiDonato & Morris switch at
  *   a = 20, where the series and continued fraction would need ~40 terms near x = a).
  * - x > 1.1: the power series for P when x < a (Abramowitz & Stegun 6.5.29; Numerical Recipes §6.2
- *   "gser"), the continued fraction for Q otherwise (A&S 6.5.31, evaluated by the modified Lentz
- *   method, Numerical Recipes §5.2 / §6.2 "gcf").
+ *   "gser"), the continued fraction for Q otherwise (A&S 6.5.31, Numerical Recipes §6.2 "gcf",
+ *   evaluated by the forward recurrence of its convergents).
  * - x ≤ 1.1: the series for P when x^a < e^{−0.4} (x ≤ ½) or x < a/1.1, else Q directly from
  *   Q = −expm1(a ln x − ln Γ(1+a)) − x^a/Γ(a) Σ_{n≥1} (−x)^n/(n!(a+n)) (DiDonato & Morris §3),
  *   which keeps Q's relative precision for small a.
@@ -30,7 +30,6 @@ import { log1pmx } from './log-exp.js';
 import { TEMME_D, TEMME_K, TEMME_N } from './temme-coefficients.js';
 
 const EPS = 1.1102230246251565e-16; // 2^-53
-const FPMIN = 1e-300;
 const MAXIT = 100000;
 const TEMME_MIN_A = 8;
 const TEMME_MAX_MU = 0.4;
@@ -82,23 +81,39 @@ function lowerSeries(a: number, x: number): number {
   return sum;
 }
 
-/** The continued fraction h with Q = x^a e^{−x}/Γ(a) · h (modified Lentz), for x ≥ a, x > 1. */
+/**
+ * The continued fraction h with Q = x^a e^{−x}/Γ(a) · h, for x ≥ a, x > 1 (A&S 6.5.31 in the
+ * even form of Numerical Recipes §6.2): h = 1/(b₀ + a₁/(b₁ + a₂/(b₂ + …))), b_i = x + 2i + 1 − a,
+ * a_i = −i(i − a). Evaluated by the forward recurrence of the convergents P_i/Q_i (Wallis; Lorentzen
+ * & Waadeland 1992), rescaled when they grow large: this keeps the divisions off the dependency
+ * chain (modified Lentz has two per term on it) and measured 1.3-2.5x faster here, within 1e-14
+ * of mpmath for a ≤ 2.5, x in [1.1, 21].
+ */
 function upperFraction(a: number, x: number): number {
   let b = x + 1 - a;
-  let c = 1 / FPMIN;
-  let d = 1 / b;
-  let h = d;
+  let p0 = 1;
+  let q0 = 0;
+  let p1 = b;
+  let q1 = 1;
+  let h = q1 / p1;
   for (let i = 1; i < MAXIT; i++) {
     const an = -i * (i - a);
     b += 2;
-    d = an * d + b;
-    if (Math.abs(d) < FPMIN) d = FPMIN;
-    c = b + an / c;
-    if (Math.abs(c) < FPMIN) c = FPMIN;
-    d = 1 / d;
-    const del = d * c;
-    h *= del;
-    if (Math.abs(del - 1) <= EPS) break;
+    const p2 = b * p1 + an * p0;
+    const q2 = b * q1 + an * q0;
+    p0 = p1;
+    q0 = q1;
+    p1 = p2;
+    q1 = q2;
+    if (Math.abs(p1) > 1e200) {
+      p0 *= 1e-200;
+      q0 *= 1e-200;
+      p1 *= 1e-200;
+      q1 *= 1e-200;
+    }
+    const hn = q1 / p1;
+    if (Math.abs(hn - h) <= EPS * Math.abs(hn)) return hn;
+    h = hn;
   }
   return h;
 }
@@ -122,11 +137,14 @@ function upperSmallX(a: number, x: number): number {
 // costs one Horner pass of TEMME_N terms; only a change of a pays for the regrouping.
 const D = TEMME_D;
 const TEMME_E = new Float64Array(TEMME_N);
-const TEMME_A = new Float64Array([Number.NaN]);
+// [0] a, [1] √(2/a) (η = y√(2/a)), [2] 1/√(2πa)
+const TEMME_A = new Float64Array([Number.NaN, 0, 0]);
 
 function setTemmeA(a: number): void {
   if (a === TEMME_A[0]) return;
   TEMME_A[0] = a;
+  TEMME_A[1] = Math.sqrt(2 / a);
+  TEMME_A[2] = 1 / Math.sqrt(2 * Math.PI * a);
   TEMME_E.fill(0);
   const ia = 1 / a;
   let afac = 1;
@@ -161,10 +179,9 @@ function direct(a: number, x: number): void {
   if (a >= TEMME_MIN_A && Math.abs(x - a) <= TEMME_MAX_MU * a) {
     const mu = (x - a) / a;
     const e = -a * log1pmx(mu); // y² = aη²/2
-    const eta = (mu < 0 ? -1 : 1) * Math.sqrt((2 * e) / a);
     const y = mu < 0 ? -Math.sqrt(e) : Math.sqrt(e);
     setTemmeA(a);
-    const r = temmeSum(eta) / Math.sqrt(2 * Math.PI * a);
+    const r = temmeSum(y * (TEMME_A[1] as number)) * (TEMME_A[2] as number);
     OUT[0] = -e;
     if (y > 0) {
       OUT[2] = 1;
