@@ -204,10 +204,11 @@ export function returnLevels(
         }
       }
       const r = profileInterval(ll, { x: start, value: ll0 }, 0, level, { transforms, tolerance: 1e-10 });
-      lower = r.lower;
-      upper = r.upper;
       lowerFound = r.lowerFound;
       upperFound = r.upperFound;
+      lower = lowerFound ? r.lower : Number.NEGATIVE_INFINITY;
+      upper = upperFound ? r.upper : Number.POSITIVE_INFINITY;
+      if (!lowerFound) warnings.push(`The ${T}-year level has no lower profile-likelihood bound at ${level} within the model's feasible range.`);
       if (!upperFound) warnings.push(`The ${T}-year level has no finite upper profile-likelihood bound at ${level}: the record cannot exclude very large values.`);
     }
     const beyondRecord = T > RECORD_MULTIPLE * n;

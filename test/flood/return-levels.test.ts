@@ -146,3 +146,19 @@ describe('plotting positions and design-life risk', () => {
     expect(() => exceedanceRisk(1, 10)).toThrow();
   });
 });
+
+describe('return levels on the shape guard', () => {
+  it('a fit held at ξ = 0.5 still gives levels; an end the profile cannot close is ±Infinity with a warning', () => {
+    const s = prepareSample([1, 1.1, 1.2, 1.3, 1.5, 2, 3, 6, 15, 60]);
+    const r = fitGev(s);
+    if (!r.ok) throw new Error('fit failed');
+    const rep = returnLevels(s, r, [10, 100]);
+    for (const l of rep.levels) {
+      expect(Number.isFinite(l.estimate)).toBe(true);
+      expect(l.lower).toBeLessThan(l.estimate);
+      if (!l.upperFound) expect(l.upper).toBe(Number.POSITIVE_INFINITY);
+      else expect(l.upper).toBeGreaterThan(l.estimate);
+    }
+    expect(rep.levels[1]!.beyondRecord).toBe(true);
+  });
+});
