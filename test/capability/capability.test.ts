@@ -11,6 +11,7 @@ import {
 } from '../../core/capability/index.js';
 import { normal } from '../../core/families/index.js';
 import type { Distribution } from '../../core/families/index.js';
+import { prepareSample } from '../../core/sample.js';
 
 // Reference values: scripts/fixtures/capability.py (SciPy 1.17.1).
 const fx = JSON.parse(readFileSync(new URL('../fixtures/capability.json', import.meta.url), 'utf8'));
@@ -137,8 +138,16 @@ describe('within-subgroup sigma', () => {
     const r2 = capability(s.values, { lsl: s.lsl, usl: s.usl, subgroups: (s.labels as number[]).map((l) => `lot-${l}`) });
     expect(rel(r2.within!.sigma, s.pooledSigma)).toBeLessThan(1e-12);
   });
+  it('one-sided limit with subgroups: Cpk = Cpu from the pooled sigma (same formulas as the fixture)', () => {
+    const r = capability(s.values, { usl: s.usl, subgroups: s.labels });
+    const w = r.within!;
+    expect(w.indices.map((x) => x.name)).toEqual(['Cpk', 'Cpu']);
+    const mean = (s.values as number[]).reduce((a, b) => a + b, 0) / s.values.length;
+    expect(rel(byName(w.indices, 'Cpk').estimate, (s.usl - mean) / (3 * s.pooledSigma))).toBeLessThan(1e-12);
+  });
   it('refuses subgroups with a prepared (sorted) sample and mismatched lengths', () => {
     expect(() => capability(s.values.slice(1), { lsl: 1, subgroups: s.labels })).toThrow(/same length/);
+    expect(() => capability(prepareSample(s.values), { lsl: 1, subgroups: s.labels })).toThrow(/original order/);
   });
 });
 
