@@ -17,6 +17,8 @@ export interface CliInput {
   readonly decimal: '.' | ',';
   readonly encoding: string;
   readonly warnings: readonly string[];
+  /** Columns read besides the value column (status, subgroups, order; grouped: the class limits). */
+  readonly otherColumns?: readonly { readonly role: string; readonly column: string }[];
 }
 
 export function cliInput(

@@ -5,17 +5,21 @@
 import {
   InputError,
   PLUMBLINE_VERSION,
-  analyze,
+  analyzeDataset,
   isPlumblineError,
   readColumn,
-  type AnalysisReport,
+  type AnyDatasetReport,
   type ColumnResult,
+  type DatasetInput,
+  type DatasetOptions,
   type PlumblineError,
 } from '../core/index.js';
 import { parseArgs, type AnalyzeArgs } from './args.js';
 import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
+import { needsTable, readDataset, withFileRow } from './read-dataset.js';
 import { readInputText } from './read-input.js';
+import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
 
 export interface CliIo {
@@ -54,14 +58,27 @@ function oneLine(s: string): string {
   return s.replace(/\s*[\r\n]+\s*/g, ' ').trim();
 }
 
-export interface JsonReport extends AnalysisReport {
+export type JsonReport = AnyDatasetReport & {
   readonly input: CliInput;
-}
+};
 
-/** Read the file and its value column; the file's text is not kept once the column is read. */
-function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput } {
+/**
+ * Read the file and its value column (with the status, subgroup, order or grouped columns when
+ * asked for); the file's text is not kept once the columns are read.
+ */
+function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array } {
   const source = readInputText(args.file);
   const decimal = args.decimalComma ? ',' : '.';
+  if (needsTable(args)) {
+    const d = readDataset(source.text, args, fileLabel, {
+      ...(args.delimiter !== undefined ? { delimiter: args.delimiter } : {}),
+      decimal,
+      skipInvalid: args.skipInvalid,
+      header: !args.noHeader,
+    });
+    const input = cliInput(fileLabel, d.column, decimal, source.encoding, source.warnings);
+    return { read: d.column, input: { ...input, otherColumns: d.extraColumns }, dataset: d.input, rowNumbers: d.rowNumbers };
+  }
   const read = readColumn(source.text, {
     ...(args.column !== undefined ? { column: args.column } : {}),
     ...(args.delimiter !== undefined ? { delimiter: args.delimiter } : {}),
@@ -69,12 +86,35 @@ function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; 
     skipInvalid: args.skipInvalid,
     header: !args.noHeader,
   });
-  return { read, input: cliInput(fileLabel, read, decimal, source.encoding, source.warnings) };
+  return { read, input: cliInput(fileLabel, read, decimal, source.encoding, source.warnings), dataset: { values: read.values } };
+}
+
+/** The workflow options of the core from the command line. */
+function datasetOptions(args: AnalyzeArgs): DatasetOptions {
+  return {
+    ...(args.families !== undefined ? { families: args.families } : {}),
+    ...(args.alpha !== undefined ? { alpha: args.alpha } : {}),
+    ...(args.bins !== undefined ? { bins: args.bins } : {}),
+    ...(args.pMethod !== undefined ? { pMethod: args.pMethod } : {}),
+    ...(args.replicates !== undefined ? { bootstrapReplicates: args.replicates } : {}),
+    ...(args.seed !== undefined ? { seed: args.seed } : {}),
+    ...(args.confidence !== undefined ? { confidence: args.confidence } : {}),
+    ...(args.bLife !== undefined ? { bLifePercents: args.bLife } : {}),
+    ...(args.bounds !== undefined ? { boundMethod: args.bounds } : {}),
+    ...(args.reliabilityAt !== undefined ? { reliabilityTimes: args.reliabilityAt } : {}),
+    ...(args.returnPeriods !== undefined ? { returnPeriods: args.returnPeriods } : {}),
+    ...(args.designLife !== undefined ? { designLife: args.designLife } : {}),
+    ...(args.plottingPosition !== undefined ? { plottingPosition: args.plottingPosition } : {}),
+    ...(args.lsl !== undefined ? { lsl: args.lsl } : {}),
+    ...(args.usl !== undefined ? { usl: args.usl } : {}),
+    ...(args.target !== undefined ? { target: args.target } : {}),
+    ...(args.trend ? { trend: true } : {}),
+  };
 }
 
 function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
-  const { read, input } = readInput(args, fileLabel);
+  const { read, input, dataset, rowNumbers } = readInput(args, fileLabel);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);
     throw new InputError(
@@ -85,20 +125,18 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
       'too-few-values',
     );
   }
-  const report = analyze(read.values, {
-    ...(args.families !== undefined ? { families: args.families } : {}),
-    ...(args.alpha !== undefined ? { alpha: args.alpha } : {}),
-    ...(args.bins !== undefined ? { bins: args.bins } : {}),
-    ...(args.pMethod !== undefined ? { pMethod: args.pMethod } : {}),
-    ...(args.replicates !== undefined ? { bootstrapReplicates: args.replicates } : {}),
-    ...(args.seed !== undefined ? { seed: args.seed } : {}),
-  });
+  let report: AnyDatasetReport;
+  try {
+    report = analyzeDataset(dataset, datasetOptions(args));
+  } catch (e) {
+    throw withFileRow(e, fileLabel, dataset.grouped ? rowNumbers : undefined);
+  }
   const inputShown: CliInput = { ...input, warnings: input.warnings.map(asOptions) };
   if (args.json) {
     const out: JsonReport = { ...report, input: inputShown };
     io.out(`${JSON.stringify(out, null, 2)}\n`);
   } else {
-    io.out(textReport(report, inputShown));
+    io.out(report.dataKind === 'grouped' ? groupedTextReport(report, inputShown) : textReport(report, inputShown));
   }
   return EXIT_OK;
 }

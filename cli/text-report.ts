@@ -3,9 +3,10 @@
  * block on the input, a ranking table, one block per candidate, then the families that could not
  * be fitted, warnings, the ranking rule, the methods with their sources, and the caution.
  */
-import type { AnalysisReport, AndersonDarlingReport, CandidateReport, ChiSquareReport } from '../core/index.js';
+import type { AnalysisReport, AndersonDarlingReport, CandidateReport, ChiSquareReport, DatasetReport } from '../core/index.js';
 import type { CliInput } from './input-summary.js';
 import { describeSkipped } from './input-summary.js';
+import { workflowSections } from './workflow-text.js';
 
 const WIDTH = 100;
 
@@ -137,12 +138,13 @@ function candidateBlock(c: CandidateReport, n: number): string[] {
   return out;
 }
 
-export function textReport(report: AnalysisReport, input: CliInput): string {
+export function textReport(report: AnalysisReport | DatasetReport, input: CliInput): string {
   const r = report;
   const lines: string[] = [];
   lines.push(`Plumbline ${r.software.version}: model fit report`);
   lines.push('');
   lines.push(wrap(`${input.file}, column ${JSON.stringify(input.column)} (column ${input.columnIndex})`, '  input     ', ' '.repeat(12)));
+  for (const o of input.otherColumns ?? []) lines.push(`${('  ' + o.role).padEnd(11)} column ${JSON.stringify(o.column)}`);
   lines.push(
     wrap(
       `${input.rowsRead} data row${input.rowsRead === 1 ? '' : 's'} read, ${r.n} value${r.n === 1 ? '' : 's'} used; ${describeSkipped(input)}`,
@@ -184,6 +186,7 @@ export function textReport(report: AnalysisReport, input: CliInput): string {
     for (const na of r.notApplicable) lines.push(wrap(na.reason, `  ${na.family}: `, '    '));
     lines.push('');
   }
+  if ('dataKind' in r) lines.push(...workflowSections(r));
   const warnings = [...input.warnings, ...r.warnings];
   if (warnings.length > 0) {
     lines.push('Warnings');

@@ -93,7 +93,6 @@ export function completeReport(input: CompleteInput, options: DatasetOptions, se
     const far = periods.filter((T) => T > RECORD_MULTIPLE * sample.n);
     const warnings = [...sectionWarnings];
     extraWarnings.push(...warnings);
-    if (hasGev) extraWarnings.push(GEV_SIGN_NOTE);
     const cautions = [
       FLOOD_CAUTION,
       'Return levels assume that the annual maxima are independent and identically distributed (no trend, no change of regime); check the trend section when the years are given.',

@@ -269,4 +269,4 @@ export interface GroupedDatasetReport extends Omit<AnalysisReport, 'candidates'>
 
 export type AnyDatasetReport = DatasetReport | GroupedDatasetReport;
 
-export type { MethodNote, NotApplicableReport };
+export type { GroupedClass, MethodNote, NotApplicableReport };
