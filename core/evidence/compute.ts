@@ -17,6 +17,8 @@ import type { CandidateEvidence, Evidence, EvidenceOptions } from './types.js';
 export const DEFAULT_MAX_POINTS = 2000;
 export const DEFAULT_GRID_POINTS = 400;
 export const DEFAULT_BAND_ALPHA = 0.05;
+/** Probabilities whose fitted quantiles widen the curve grid beyond the data (common practice, no source). */
+export const MARGIN_QUANTILES = [0.001, 0.999] as const;
 
 /** The candidate fields evidence uses (a CandidateReport has them all). */
 export type EvidenceCandidate = Pick<CandidateReport, 'family' | 'label' | 'parameters'> & { readonly chiSquare?: CandidateReport['chiSquare'] };
@@ -54,13 +56,29 @@ export function computeEvidence(
       bins: binCounts(bins.source, bins.rows),
     };
   });
+  // The curve grid and the suggested domain cover the data's range, widened by each candidate's
+  // 0.1 % and 99.9 % quantiles and the outer bars' drawn edges, but never by more than the data's
+  // own range on either side: a candidate whose bins reach far away (a support edge at 0 under a
+  // sample at 25 ± 0.003) must not spread the grid so thinly that no curve point falls on the data.
+  const spread = max - min;
+  const reachLo = Number.isFinite(spread) && spread > 0 ? Math.max(-Number.MAX_VALUE, min - spread) : min;
+  const reachHi = Number.isFinite(spread) && spread > 0 ? Math.min(Number.MAX_VALUE, max + spread) : max;
   let lo = min;
   let hi = max;
+  const widen = (v: number): void => {
+    if (!Number.isFinite(v)) return;
+    if (v < lo) lo = Math.max(v, reachLo);
+    if (v > hi) hi = Math.min(v, reachHi);
+  };
+  for (const { dist } of fitted) {
+    widen(dist.quantile(MARGIN_QUANTILES[0]));
+    widen(dist.quantile(MARGIN_QUANTILES[1]));
+  }
   for (const ce of candidates) {
-    for (const b of ce.histogram.bars) {
-      if (b.lower < lo) lo = b.lower;
-      if (b.upper > hi) hi = b.upper;
-    }
+    const bars = ce.histogram.bars;
+    if (bars.length === 0) continue;
+    widen((bars[0] as (typeof bars)[number]).lower);
+    widen((bars[bars.length - 1] as (typeof bars)[number]).upper);
   }
   if (!(hi > lo)) {
     const d = Math.abs(lo) > 0 ? Math.abs(lo) * 0.05 : 1;

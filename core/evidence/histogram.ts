@@ -14,7 +14,14 @@ import type { BinRow, ChiSquareReport } from '../report.js';
 import type { BinCountsEvidence, HistogramBar, HistogramEvidence } from './types.js';
 
 export const DISPLAY_EDGE_RULE =
-  'An open outer bin (edge at ±infinity) is drawn from its inner edge to the data extreme, or one neighbouring-bin width beyond the inner edge when that reaches further; finite edges are drawn where they are.';
+  'An open outer bin (edge at ±infinity, or a support edge such as 0 lying further from the data than the data\'s own range) is drawn from its inner edge to the data extreme, or one neighbouring-bin width beyond the inner edge when that reaches further; other finite edges are drawn where they are.';
+
+/** A finite outer edge further from the data than the data's own range is drawn like an open one. */
+export function farFromData(edge: number, dataMin: number, dataMax: number): boolean {
+  const spread = safeSpan(dataMin, dataMax);
+  if (!(spread > 0)) return false;
+  return edge < dataMin ? safeSpan(edge, dataMin) > spread : edge > dataMax ? safeSpan(dataMax, edge) > spread : false;
+}
 
 /** k for display-only bins when the chi-square test was not computable: Moore's rule capped so each bin expects ≥ 5, at least 2. */
 export function displayBinCount(n: number): number {
@@ -57,14 +64,19 @@ export function histogramBars(rows: readonly BinRow[], n: number, dataMin: numbe
   return rows.map((r, j) => {
     let lower: number;
     let upper: number;
-    const openLower = r.lower === null;
-    const openUpper = r.upper === null;
+    // A support edge (e.g. 0 for a positive family) far below the data is drawn like an open edge,
+    // so a sample at 25 ± 0.003 does not get a first bar reaching down to 0. Only the outer bars.
+    const openLower = r.lower === null || (j === 0 && k > 1 && farFromData(r.lower, dataMin, dataMax));
+    const openUpper = r.upper === null || (j === k - 1 && k > 1 && farFromData(r.upper, dataMin, dataMax));
     if (!openLower) lower = r.lower as number;
-    else if (r.upper === null) lower = dataMin - fallback * 0.05;
+    else if (r.upper === null || k === 1) lower = dataMin - fallback * 0.05;
     else lower = Math.min(dataMin, r.upper - widthNear(r.upper, inner[j + 1]));
     if (!openUpper) upper = r.upper as number;
-    else if (r.lower === null) upper = dataMax + fallback * 0.05;
+    else if (r.lower === null || k === 1) upper = dataMax + fallback * 0.05;
     else upper = Math.max(dataMax, r.lower + widthNear(r.lower, inner[j - 2]));
+    // A far support edge drawn like an open one never reaches more than one data range beyond the data.
+    if (openLower && r.lower !== null) lower = Math.max(lower, dataMin - fallback);
+    if (openUpper && r.upper !== null) upper = Math.min(upper, dataMax + fallback);
     lower = clampFinite(lower);
     upper = clampFinite(upper);
     if (!(upper > lower)) upper = clampFinite(lower + fallback / Math.max(1, k));

@@ -28,7 +28,8 @@ export interface Evidence {
   /** Data extremes. */
   readonly min: number;
   readonly max: number;
-  /** Suggested x-axis domain for the histogram, density and CDF charts (covers all bin display edges). */
+  /** Suggested x-axis domain for the histogram, density and CDF charts: the data range widened by the
+   *  candidates' 0.1 %/99.9 % quantiles and outer bar edges, at most one data range on each side. */
   readonly xDomain: readonly [number, number];
   /** The cap used for thinning. */
   readonly maxPoints: number;
