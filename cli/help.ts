@@ -34,6 +34,33 @@ Options
   --delimiter X          field delimiter: one character, or tab, comma, semicolon
   --no-header            the first line is data; columns are then #1, #2, ...
 
+Life data (a status column: 1 = failed, 0 = still running or removed unfailed)
+  --censor-column NAME   the status column; the value column holds the times. Fits by censored
+                         maximum likelihood; n counts all units
+  --b-life LIST          B-lives to report, percents, e.g. 1,10,50 (default 10)
+  --reliability-at LIST  times at which to report the reliability with its bounds, e.g. 500,1000
+  --bounds lr|fisher     likelihood-ratio (default) or Fisher-matrix bounds
+  --confidence C         two-sided level of every interval, 0 < C < 1 (default 0.90)
+
+Flood frequency (annual maxima)
+  --return-periods LIST  return periods in years, each > 1, e.g. 2,10,100; adds gumbel and gev to
+                         the default models
+  --design-life L        years: the chance of at least one exceedance of each return level
+  --plotting-position P  weibull (i/(n+1), default), gringorten or cunnane
+
+Process capability
+  --lsl A, --usl B       specification limits (one or both)
+  --target T             target value (Cpm, with both limits)
+  --subgroup-column NAME subgroup labels: Cp and Cpk from the within-subgroup sigma
+
+Trend
+  --order-column NAME    time or year of each value (distinct): Mann-Kendall test and Sen's slope
+  --trend                the same on the rows in their file order
+
+Grouped counts
+  --grouped              the file holds classes: columns lower, upper, count (by default), or
+  --lower-column NAME, --upper-column NAME, --count-column NAME
+
 Exit status
   0 success, 2 a problem with the input or the options (one line on standard error),
   70 an internal error (please report it).
