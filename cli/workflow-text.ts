@@ -88,6 +88,7 @@ function floodLines(r: DatasetReport): string[] {
       ),
     );
   }
+  if (f.gumbelVersusGev) out.push(wrap(f.gumbelVersusGev.decision, '  Gumbel or GEV: ', '  '));
   if (f.gevSignNote) out.push(wrap(f.gevSignNote, '  Note: ', '  '));
   out.push(...bullets('Cautions', f.cautions));
   out.push('');

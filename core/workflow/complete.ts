@@ -13,7 +13,7 @@ import { finishAnalysis, planAnalysis, runPlanBootstrap } from '../analyze.js';
 import { capability, ppmOutOfSpec } from '../capability/index.js';
 import { InputError } from '../errors.js';
 import { DEFAULT_FAMILIES, EXTREME_VALUE_FAMILIES, GEV_SHAPE_GUARD, getFamily, type FamilyName } from '../families/index.js';
-import { exceedanceRisk, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingPositions, RECORD_MULTIPLE, returnLevels, type ReturnLevelMethod } from '../flood/index.js';
+import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingPositions, RECORD_MULTIPLE, returnLevels, type ReturnLevelMethod } from '../flood/index.js';
 import type { MethodNote } from '../report.js';
 import { prepareSample } from '../sample.js';
 import { mannKendall } from '../trend/index.js';
@@ -90,6 +90,9 @@ export function completeReport(input: CompleteInput, options: DatasetOptions, se
     }
     const pp = plottingPositions(sample.sorted, options.plottingPosition ?? 'weibull');
     const hasGev = base.candidates.some((c) => c.family === 'gev');
+    const hasGumbel = base.candidates.some((c) => c.family === 'gumbel');
+    // The Gumbel-inside-GEV likelihood-ratio test, as core/flood computes it (its own Gumbel and GEV fits).
+    const gumbelVersusGev = hasGev && hasGumbel ? floodFrequency(values, { periods, level: settings.confidence, alpha: base.options.alpha, shapeGuard: GEV_SHAPE_GUARD }).gumbelVersusGev : null;
     const far = periods.filter((T) => T > RECORD_MULTIPLE * sample.n);
     const warnings = [...sectionWarnings];
     extraWarnings.push(...warnings);
@@ -108,6 +111,7 @@ export function completeReport(input: CompleteInput, options: DatasetOptions, se
           ? null
           : { years: settings.designLife, exceedance: periods.map((T) => ({ period: T, probability: exceedanceRisk(T, settings.designLife as number) })) },
       beyondRecord: far,
+      gumbelVersusGev,
       gevSignNote: hasGev ? GEV_SIGN_NOTE : null,
       warnings,
       cautions,

@@ -9,7 +9,7 @@
  */
 import type { CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
 import type { FamilyName, Parameters } from '../families/index.js';
-import type { PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
+import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedClass } from '../grouped/index.js';
 import type { BoundMethod, LifeCurves, PlotPositionMethod, PlotPositions } from '../life/index.js';
 import type { AnalyzeOptions } from '../analyze.js';
@@ -154,6 +154,8 @@ export interface FloodSection {
   } | null;
   /** Periods beyond twice the record. */
   readonly beyondRecord: readonly number[];
+  /** Likelihood-ratio test of the Gumbel inside the GEV (ξ = 0, χ²₁); null unless both are candidates. */
+  readonly gumbelVersusGev: GumbelVersusGev | null;
   /** The GEV shape sign convention (present when the GEV is a candidate). */
   readonly gevSignNote: string | null;
   readonly warnings: readonly string[];
