@@ -31,7 +31,7 @@ import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { lnGamma, log1mexp } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
-import { EULER_GAMMA, gumbel } from './gumbel.js';
+import { EULER_GAMMA, gumbel, powerOfTwoRescale } from './gumbel.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, FitSuccess, NotApplicable, Parameters } from './types.js';
 
@@ -255,6 +255,22 @@ export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotAp
   if (na) return na;
   const guard = opts.shapeGuard ?? GEV_SHAPE_GUARD;
   if (!(guard > 0 && guard <= 1)) throw new RangeError(`fitGev: shapeGuard must lie in (0, 1], got ${guard}`);
+  const rs = powerOfTwoRescale(sample);
+  if (rs) {
+    // Magnitudes near the ends of the double range: fit x/2^k and scale back (see gumbel.ts).
+    const r = fitGev(rs.sample, opts);
+    if (!r.ok) return r;
+    return {
+      ...r,
+      parameters: Object.freeze({
+        location: (r.parameters.location as number) * rs.factor,
+        scale: (r.parameters.scale as number) * rs.factor,
+        shape: r.parameters.shape as number,
+      }),
+      logLikelihood: r.logLikelihood - sample.n * rs.log2 * Math.LN2,
+      method: `${r.method} (fitted on x/2^${rs.log2})`,
+    };
+  }
   const xs = sample.sorted;
   const ll = (th: Float64Array): number => gevLogLikelihood(xs, th[0] as number, th[1] as number, th[2] as number);
   const starts: number[][] = [];

@@ -14,7 +14,7 @@
  * a bracket, from the moment estimate β₀ = s√6/π. Then μ = x_min - β ln((1/n) Σ w_i).
  */
 import type { Rng } from '../random/index.js';
-import type { Sample } from '../sample.js';
+import { prepareSample, type Sample } from '../sample.js';
 import { log1mexp } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { positiveRootNewton } from './newton.js';
@@ -133,9 +133,43 @@ export function gumbelLogLikelihood(sorted: ArrayLike<number>, mu: number, beta:
   return -sorted.length * Math.log(beta) + s + c;
 }
 
+/**
+ * Values whose magnitude is near the ends of the double range are fitted on x / 2^k (an exact
+ * rescaling) so that squared deviations neither overflow nor underflow; location and scale are
+ * then multiplied back by 2^k and ln L shifted by -n·k·ln 2 (maximum likelihood is
+ * scale-equivariant). Returns null when no rescaling is needed.
+ */
+const RESCALE_BELOW = Math.pow(2, -500);
+const RESCALE_ABOVE = Math.pow(2, 500);
+
+export function powerOfTwoRescale(sample: Sample): { sample: Sample; factor: number; log2: number } | null {
+  const maxAbs = Math.max(Math.abs(sample.min), Math.abs(sample.max));
+  if (maxAbs === 0 || (maxAbs >= RESCALE_BELOW && maxAbs <= RESCALE_ABOVE)) return null;
+  const k = Math.floor(Math.log2(maxAbs));
+  // 2^-k may not be representable for k near ±1023: divide in two steps.
+  const k1 = Math.trunc(k / 2);
+  const k2 = k - k1;
+  const f1 = Math.pow(2, -k1);
+  const f2 = Math.pow(2, -k2);
+  const ys = new Float64Array(sample.n);
+  for (let i = 0; i < sample.n; i++) ys[i] = ((sample.sorted[i] as number) * f1) * f2;
+  return { sample: prepareSample(ys, { alreadySorted: true }), factor: Math.pow(2, k1) * Math.pow(2, k2), log2: k };
+}
+
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
+  const rs = powerOfTwoRescale(sample);
+  if (rs) {
+    const r = fit(rs.sample);
+    if (!r.ok) return r;
+    return {
+      ...r,
+      parameters: Object.freeze({ location: (r.parameters.location as number) * rs.factor, scale: (r.parameters.scale as number) * rs.factor }),
+      logLikelihood: r.logLikelihood - sample.n * rs.log2 * Math.LN2,
+      method: `${r.method} (fitted on x/2^${rs.log2} to stay inside the double range)`,
+    };
+  }
   const xs = sample.sorted;
   const n = sample.n;
   const xmin = sample.min;

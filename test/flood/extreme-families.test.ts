@@ -131,3 +131,23 @@ describe('random variates', () => {
     }
   });
 });
+
+describe('magnitudes near the ends of the double range (exact power-of-two rescaling)', () => {
+  it('Gumbel and GEV fits of c·x are the fits of x with location and scale times c (ML is scale-equivariant; common practice, no source)', () => {
+    const f = fx.fits.find((x: { name: string }) => x.name === 'gev-bounded-n60');
+    const base = prepareSample(f.values);
+    for (const c of [2 ** 900, 2 ** -900]) {
+      const s = prepareSample((f.values as number[]).map((v) => v * c));
+      const g0 = gumbel.fit(base);
+      const g1 = gumbel.fit(s);
+      const v0 = fitGev(base);
+      const v1 = fitGev(s);
+      if (!g0.ok || !g1.ok || !v0.ok || !v1.ok) throw new Error('fit failed');
+      expect(rel((g1.parameters.scale as number) / c, g0.parameters.scale as number)).toBeLessThan(1e-12);
+      expect(rel((g1.parameters.location as number) / c, g0.parameters.location as number)).toBeLessThan(1e-12);
+      expect(rel((v1.parameters.scale as number) / c, v0.parameters.scale as number)).toBeLessThan(1e-8);
+      expect(Math.abs((v1.parameters.shape as number) - (v0.parameters.shape as number))).toBeLessThan(1e-8);
+      expect(rel(g1.logLikelihood, g0.logLikelihood - f.values.length * Math.log(c))).toBeLessThan(1e-12);
+    }
+  });
+});
