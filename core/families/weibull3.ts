@@ -153,6 +153,8 @@ export function fitWithThreshold(spec: ThresholdSpec, sample: Sample): FitOutcom
     for (let i = 0; i < n; i++) shifted[i] = (xs[i] as number) - g;
     // The smallest shifted value is exactly delta > 0 only up to rounding; guard it.
     if (!((shifted[0] as number) > 0)) return { ll: Number.NEGATIVE_INFINITY, params: null };
+    // x - threshold can overflow for data near the largest double: that threshold is unusable.
+    if (!Number.isFinite(shifted[n - 1] as number)) return { ll: Number.NEGATIVE_INFINITY, params: null };
     const f = spec.base.fit(prepareSample(shifted, { alreadySorted: true }));
     if (!f.ok || !Number.isFinite(f.logLikelihood)) return { ll: Number.NEGATIVE_INFINITY, params: null };
     return { ll: f.logLikelihood, params: f.parameters };
