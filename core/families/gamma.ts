@@ -4,9 +4,9 @@
  * directly, and their logs by logGammaP/logGammaQ; quantiles by gammaPInv/gammaQInv.
  *
  * Fit (maximum likelihood): the shape solves ln k - ψ(k) = s with s = ln(mean) - mean(ln x) > 0,
- * by Newton safeguarded by a bracket (core/special newtonBracketed), the bracket 1/(2s) < k < 1/s, which follows from
- * 1/(2k) < ln k - ψ(k) < 1/k for every k > 0 (Alzer 1997, Math. Comp. 66:373-389 [from memory];
- * checked here with mpmath on k = 1e-8 … 1e8). The start is Minka's (2002, "Estimating a gamma
+ * by Newton safeguarded by a bracket (core/special newtonBracketed): 1/(2s) < k < 1/s, which
+ * follows from 1/(2k) < ln k - ψ(k) < 1/k for every k > 0 (Alzer 1997, Math. Comp. 66:373-389
+ * [from memory]; test/families/fits.test.ts checks it against mpmath values for k = 1e-8 … 1e12). The start is Minka's (2002, "Estimating a gamma
  * distribution") approximation k₀ = (3 - s + √((s - 3)² + 24s))/(12s), close to Choi & Wette (1969).
  * Then scale = mean/k.
  */
