@@ -5,7 +5,16 @@
  * `--json` prints it, with `input` (where the values came from) and optionally `evidence`.
  */
 import {
+  analyzeDataset,
   computeEvidence,
+  parseStrictNumber,
+  prepareSample,
+  readColumns,
+  type AnyDatasetReport,
+  type ColumnRequest,
+  type DatasetInput,
+  type NumberColumn,
+  type TextColumn,
   finishAnalysis,
   InputError,
   planAnalysis,
@@ -32,9 +41,11 @@ export interface InputSummary {
   readonly delimiterDetected?: boolean;
   readonly header?: readonly string[];
   readonly warnings?: readonly string[];
+  /** Workflow columns read from the CSV besides the value column. */
+  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order'; readonly column: string }[];
 }
 
-export type AnalyzeResponse = AnalysisReport & { readonly input: InputSummary; readonly evidence?: Evidence };
+export type AnalyzeResponse = (AnalysisReport | AnyDatasetReport) & { readonly input: InputSummary; readonly evidence?: Evidence };
 
 /** The values of a request and where they came from. Throws the core's InputError on bad CSV. */
 export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>; input: InputSummary } {
@@ -90,6 +101,93 @@ export interface PlannedAnalysis {
   readonly replicates: number;
 }
 
+/**
+ * The dataset for analyzeDataset: the value column with the status, subgroup and order columns
+ * read in one pass by the core's readColumns (rows stay aligned; a row is dropped, with
+ * skipInvalid, only when one of its requested cells is unusable), or the arrays of a `values`
+ * request. Status cells must read 1 or 0; the error names the file row, column and cell.
+ */
+export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; input: InputSummary } {
+  const wf = req.workflow;
+  if (wf?.grouped) return { dataset: { grouped: wf.grouped }, input: { source: 'values', n: wf.grouped.reduce((a, c) => a + c.count, 0) } };
+  if (req.values !== undefined || !wf || (wf.statusColumn === undefined && wf.subgroupColumn === undefined && wf.orderColumn === undefined)) {
+    const { values, input } = requestValues(req);
+    return {
+      dataset: {
+        values,
+        ...(wf?.status ? { status: wf.status } : {}),
+        ...(wf?.subgroups ? { subgroups: wf.subgroups } : {}),
+        ...(wf?.order ? { order: wf.order } : {}),
+      },
+      input,
+    };
+  }
+  const requests: ColumnRequest[] = [{ select: req.column ?? 1, kind: 'number' }];
+  const roles: ('status' | 'subgroups' | 'order')[] = [];
+  if (wf.statusColumn !== undefined) {
+    requests.push({ select: wf.statusColumn, kind: 'text' });
+    roles.push('status');
+  }
+  if (wf.subgroupColumn !== undefined) {
+    requests.push({ select: wf.subgroupColumn, kind: 'text' });
+    roles.push('subgroups');
+  }
+  if (wf.orderColumn !== undefined) {
+    requests.push({ select: wf.orderColumn, kind: 'number' });
+    roles.push('order');
+  }
+  const t = readColumns(req.csv ?? '', requests, req.csvOptions);
+  const value = t.columns[0] as NumberColumn;
+  if (value.values.length === 0) throw new InputError(`Column ${JSON.stringify(value.column)} has no usable rows.`, { column: value.column }, 'too-few-values');
+  const dataset: { -readonly [K in keyof DatasetInput]: DatasetInput[K] } = { values: value.values };
+  const otherColumns: { role: 'status' | 'subgroups' | 'order'; column: string }[] = [];
+  roles.forEach((role, j) => {
+    const col = t.columns[j + 1] as NumberColumn | TextColumn;
+    if (col.index === value.index) throw new InputError(`The ${role} column ${JSON.stringify(col.column)} is the value column itself.`, { column: col.column }, 'bad-option');
+    otherColumns.push({ role, column: col.column });
+    if (role === 'status') {
+      const texts = (col as TextColumn).texts;
+      const st = new Uint8Array(texts.length);
+      texts.forEach((text, i) => {
+        const v = parseStrictNumber(text);
+        if (v !== 0 && v !== 1) {
+          const row = t.rowNumbers[i] as number;
+          throw new InputError(`Row ${row}, column ${JSON.stringify(col.column)}: status ${JSON.stringify(text)} is not 1 (failed) or 0 (still running or removed unfailed).`, { row, column: col.column, value: text }, 'bad-input');
+        }
+        st[i] = v;
+      });
+      dataset.status = st;
+    } else if (role === 'subgroups') dataset.subgroups = (col as TextColumn).texts;
+    else dataset.order = (col as NumberColumn).values;
+  });
+  const { columns: _c, rowNumbers: _r, ...summary } = t;
+  return {
+    dataset,
+    input: {
+      source: 'csv',
+      n: value.values.length,
+      column: value.column,
+      columnIndex: value.index,
+      rowsRead: summary.rowsRead,
+      skipped: summary.skipped.map((k) => ({ ...k, description: SKIP_REASON_WORDS[k.reason] })),
+      blankLines: summary.blankLines,
+      delimiter: summary.delimiter,
+      delimiterDetected: summary.delimiterDetected,
+      header: summary.header,
+      warnings: summary.warnings,
+      otherColumns,
+    },
+  };
+}
+
+/** A request with workflow fields: the core's analyzeDataset, exactly as the CLI calls it. */
+export function workflowResponse(req: AnalyzeRequest): AnalyzeResponse {
+  const { dataset, input } = requestDataset(req);
+  const report = analyzeDataset(dataset, { ...analyzeOptions(req), ...(req.workflow?.options ?? {}) });
+  if (!req.evidence || report.dataKind === 'grouped' || !dataset.values) return { ...report, input };
+  return { ...report, input, evidence: computeEvidence(prepareSample(dataset.values), report, req.evidenceOptions) };
+}
+
 export function planRequest(req: AnalyzeRequest): PlannedAnalysis {
   const { values, input } = requestValues(req);
   const plan = planAnalysis(values, analyzeOptions(req));
@@ -100,7 +198,8 @@ export function planRequest(req: AnalyzeRequest): PlannedAnalysis {
 /** Build the response from a plan and its bootstrap counts (one per job, in order). */
 export function finishRequest(planned: PlannedAnalysis, counts: readonly BootstrapCounts[]): AnalyzeResponse {
   const { plan, request, input } = planned;
-  const report = finishAnalysis(plan, counts);
+  // dataKind as analyzeDataset (and so the CLI) reports a complete sample without workflow options.
+  const report = { ...finishAnalysis(plan, counts), dataKind: 'complete' as const };
   if (!request.evidence) return { ...report, input };
   return { ...report, input, evidence: computeEvidence(plan.sample, report, request.evidenceOptions) };
 }

@@ -9,7 +9,7 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { runBootstrapRange, type BootstrapJob } from '../core/index.js';
-import { finishRequest, planRequest, type PlannedAnalysis } from './analysis.js';
+import { finishRequest, planRequest, workflowResponse, type PlannedAnalysis } from './analysis.js';
 import { badRequest, clientFault } from './errors.js';
 import type { FromWorker, ToWorker } from './pool-messages.js';
 import { parseAnalyzeBody, parseJobBody } from './validate.js';
@@ -69,6 +69,11 @@ port.on('message', (msg: ToWorker) => {
         const body = parseBody(msg.body);
         const req = msg.kind === 'job' ? parseJobBody(body) : parseAnalyzeBody(body);
         const client = 'client' in req && typeof req.client === 'string' ? { client: req.client } : {};
+        if (req.workflow !== null) {
+          // Trade workflows: analyzeDataset in this worker, in one piece (its bootstraps run here).
+          post({ type: 'result', id: msg.id, json: JSON.stringify(workflowResponse(req)), ...client });
+          return;
+        }
         const planned = planRequest(req);
         if (planned.plan.bootstrapJobs.length === 0) {
           post({ type: 'result', id: msg.id, json: JSON.stringify(finishRequest(planned, [])), ...client });

@@ -29,7 +29,7 @@ describe('POST /api/analyze', () => {
     expect(res.body.evidence).toBeUndefined();
     // Same numbers as the core in-process (the CLI's --json is that report).
     const { input: _input, ...report } = res.body;
-    expect(report).toEqual(JSON.parse(JSON.stringify(analyze(AIRCONDIT, { families: ['exponential', 'normal', 'weibull'] }))));
+    expect(report).toEqual({ ...JSON.parse(JSON.stringify(analyze(AIRCONDIT, { families: ['exponential', 'normal', 'weibull'] }))), dataKind: 'complete' });
   });
 
   it('with csv + column: parsed by the core reader, skipped rows counted with reasons', async () => {
@@ -81,7 +81,7 @@ describe('POST /api/analyze', () => {
     const res = await request(app).post('/api/analyze').send({ values: x, families: [...opts.families], pMethod: 'bootstrap', replicates: 59, seed: 77 });
     expect(res.status).toBe(200);
     const { input: _i, ...report } = res.body;
-    expect(report).toEqual(JSON.parse(JSON.stringify(analyze(x, { ...opts, families: [...opts.families] }))));
+    expect(report).toEqual({ ...JSON.parse(JSON.stringify(analyze(x, { ...opts, families: [...opts.families] }))), dataKind: 'complete' });
     expect(res.body.candidates[0].andersonDarling.method).toBe('bootstrap');
     expect(res.body.candidates[0].andersonDarling.replicates).toBe(59);
   });
