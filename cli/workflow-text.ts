@@ -46,7 +46,7 @@ function lifeLines(r: DatasetReport): string[] {
       '  ',
     ),
   );
-  out.push(wrap(`Plot positions: ${life.plot.description}`, '  ', '  '));
+  out.push(wrap(`Plot positions: ${life.plot.description.replace(/\.?$/, '.')}`, '  ', '  '));
   out.push(wrap(life.chiSquare.reason, '  ', '  '));
   const head = ['model', ...life.bLifePercents.map((p) => `B${num(p)} (lower … upper)`), ...life.reliabilityTimes.map((t) => `R(${num(t)}) (lower … upper)`), 'mean life'];
   const rows = r.candidates.map((c: DatasetCandidate) => [
