@@ -7,7 +7,7 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import { PLUMBLINE_VERSION } from '../core/index.js';
-import { DemoStore } from './demo.js';
+import { DemoStore, type DemoSettings } from './demo.js';
 import { errorHandler, HttpError, sendError, type Logger } from './errors.js';
 import { hostCheck, securityHeaders } from './headers.js';
 import { JobManager, jobViewJson } from './jobs.js';
@@ -21,13 +21,15 @@ export const REPO_ROOT = resolve(here, import.meta.url.endsWith('.ts') ? '..' : 
 /** Default body limit: 50 MiB, enough for 10^6 values as JSON or a 10^6-row CSV. */
 export const DEFAULT_BODY_LIMIT = 50 * 1024 * 1024;
 /** The demo analysed at start when none is named. */
-export const DEFAULT_DEMO = 'shaft-diameter';
+export const DEFAULT_DEMO = 'bearing-life';
 
 export interface DemoChoice {
   /** Name shown to the user (a dataset name or a file name). */
   readonly name: string;
   readonly csv: string;
   readonly column?: string | number;
+  /** Workflow request fields the demo is analysed with (server/demo.ts DEMO_SETTINGS). */
+  readonly settings?: DemoSettings;
 }
 
 export interface AppOptions {
@@ -161,7 +163,7 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
   app.get('/api/demo/:name', (req, res) => {
     const d = demos.get(String(req.params.name));
     if (!d) throw new HttpError(404, `No demo dataset called ${JSON.stringify(String(req.params.name).slice(0, 80))}; GET /api/demo lists them.`, { code: 'not-found' });
-    res.json({ name: d.name, file: d.file, columns: d.columns, defaultColumn: d.defaultColumn, csv: d.csv });
+    res.json({ name: d.name, file: d.file, columns: d.columns, defaultColumn: d.defaultColumn, ...(d.settings ? { settings: d.settings } : {}), csv: d.csv });
   });
   app.all('/api/demo/:name', methodNotAllowed('GET'));
 
@@ -174,19 +176,19 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
       const first = demos.list()[0];
       return first ? demos.get(first.name) : null;
     })();
-    return d ? { name: d.name, csv: d.csv, column: d.defaultColumn } : null;
+    return d ? { name: d.name, csv: d.csv, column: d.settings?.column ?? d.defaultColumn, ...(d.settings ? { settings: d.settings } : {}) } : null;
   };
   app.get('/api/demo-analysis', async (_req, res) => {
     if (demoAnalysis === null) {
       const choice = demoChoice();
       if (choice === null) throw new HttpError(404, 'No demo dataset is available.', { code: 'not-found' });
       const body = Buffer.from(
-        JSON.stringify({ csv: choice.csv, ...(choice.column !== undefined ? { column: choice.column } : {}), csvOptions: { skipInvalid: true }, evidence: true }),
+        JSON.stringify({ csv: choice.csv, ...(choice.column !== undefined ? { column: choice.column } : {}), csvOptions: { skipInvalid: true }, evidence: true, ...(choice.settings?.fields ?? {}) }),
       );
       const p = (async () => {
         const { json } = await pool.analyze(body, 'analyze');
         const column = (JSON.parse(json) as { input: { column?: string } }).input.column ?? String(choice.column ?? '');
-        const head = JSON.stringify({ name: choice.name, column, csv: choice.csv });
+        const head = JSON.stringify({ name: choice.name, column, ...(choice.settings ? { settings: choice.settings } : {}), csv: choice.csv });
         return `${head.slice(0, -1)},"result":${json}}`;
       })();
       demoAnalysis = p;

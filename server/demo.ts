@@ -13,7 +13,41 @@ export interface DemoEntry {
   readonly bytes: number;
   readonly columns: readonly string[];
   readonly defaultColumn: string;
+  /** The demo's decision settings (request fields of server/API.md) and what they mean, or absent. */
+  readonly settings?: DemoSettings;
 }
+
+/** Workflow settings a demo is opened with, so it shows its trade's result (stated on screen). */
+export interface DemoSettings {
+  readonly column: string;
+  readonly fields: Readonly<Record<string, unknown>>;
+  /** In words, for the page ("Demo settings: ..."). */
+  readonly description: string;
+}
+
+/**
+ * Chosen for the invented scenarios of datasets/README.md: the bearing test's status column and
+ * B10 (the usual bearing rating life), reliability at 1000 h; the river's years, common design
+ * return periods including one far beyond the 60-year record; the shaft's drawing tolerance
+ * 25 ± 0.010 mm (an invented tolerance) with its subgroups of five.
+ */
+export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
+  'bearing-life': {
+    column: 'hours',
+    fields: { statusColumn: 'status', bLifePercents: [10, 50], reliabilityTimes: [1000], confidence: 0.9 },
+    description: 'column hours; status column status (1 = failed, 0 = still running at 2500 h); B10 and B50 lives; reliability at 1000 h; two-sided 90 % bounds',
+  },
+  'river-peaks': {
+    column: 'peak_flow_m3s',
+    fields: { orderColumn: 'year', returnPeriods: [2, 10, 50, 100, 200], designLife: 50, plottingPosition: 'gringorten', confidence: 0.9 },
+    description: 'column peak_flow_m3s; year column year (trend check); return periods 2, 10, 50, 100, 200 years; design life 50 years; Gringorten plotting positions; 90 % intervals',
+  },
+  'shaft-diameter': {
+    column: 'diameter_mm',
+    fields: { subgroupColumn: 'subgroup', lsl: 24.99, usl: 25.01, target: 25, confidence: 0.9 },
+    description: 'column diameter_mm; subgroup column subgroup (five parts each); invented tolerance 25 ± 0.010 mm (LSL 24.99, USL 25.01, target 25); 90 % intervals',
+  },
+};
 
 export interface DemoFile extends DemoEntry {
   readonly csv: string;
@@ -85,7 +119,7 @@ export class DemoStore {
     const out: DemoEntry[] = [];
     for (const name of this.names().keys()) {
       const d = this.get(name);
-      if (d) out.push({ name: d.name, file: d.file, bytes: d.bytes, columns: d.columns, defaultColumn: d.defaultColumn });
+      if (d) out.push({ name: d.name, file: d.file, bytes: d.bytes, columns: d.columns, defaultColumn: d.defaultColumn, ...(d.settings ? { settings: d.settings } : {}) });
     }
     return out;
   }
@@ -107,6 +141,7 @@ export class DemoStore {
     } catch {
       meta = { columns: [], defaultColumn: '#1' };
     }
-    return { name, file, bytes: Buffer.byteLength(csv), columns: meta.columns, defaultColumn: meta.defaultColumn, csv };
+    const settings = DEMO_SETTINGS[name];
+    return { name, file, bytes: Buffer.byteLength(csv), columns: meta.columns, defaultColumn: meta.defaultColumn, ...(settings ? { settings } : {}), csv };
   }
 }

@@ -40,9 +40,16 @@ describe('demo datasets', () => {
   it('the pre-analysed demo opens with a complete result and evidence', async () => {
     const res = await request(app).get('/api/demo-analysis');
     expect(res.status).toBe(200);
-    expect(res.body.name).toBe('shaft-diameter');
-    expect(res.body.column).toBe('diameter_mm');
-    expect(res.body.result.n).toBeGreaterThan(0);
+    // The default demo is the bearing life test with its demo settings (server/demo.ts DEMO_SETTINGS):
+    // datasets/README.md says 30 units, 22 failed and 8 still running.
+    expect(res.body.name).toBe('bearing-life');
+    expect(res.body.column).toBe('hours');
+    expect(res.body.settings.fields.statusColumn).toBe('status');
+    expect(res.body.result.dataKind).toBe('censored');
+    expect(res.body.result.life.failures).toBe(22);
+    expect(res.body.result.life.suspensions).toBe(8);
+    expect(res.body.result.candidates[0].bLives[0].percent).toBe(10);
+    expect(res.body.result.n).toBe(30);
     expect(res.body.result.candidates.length).toBeGreaterThan(0);
     expect(res.body.result.evidence.candidates.length).toBe(res.body.result.candidates.length);
   });
