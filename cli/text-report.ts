@@ -85,7 +85,7 @@ function rankingTable(r: AnalysisReport): string[] {
   return [line(head), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)];
 }
 
-function candidateBlock(c: CandidateReport, n: number): string[] {
+function candidateBlock(c: CandidateReport, n: number, censored = false): string[] {
   const out: string[] = [];
   const label = (s: string): string => `    ${pad(s, 13)}`;
   const cont = ' '.repeat(17);
@@ -116,6 +116,8 @@ function candidateBlock(c: CandidateReport, n: number): string[] {
         cont,
       ),
     );
+  } else if (censored) {
+    out.push(wrap('not computed for a censored sample (the reason is under Life data)', label('chi-square'), cont));
   } else {
     out.push(wrap(`not computed: ${cs.reason}`, label('chi-square'), cont));
   }
@@ -174,7 +176,7 @@ export function textReport(report: AnalysisReport | DatasetReport, input: CliInp
     lines.push('');
     lines.push('Candidates');
     for (const c of r.candidates) {
-      lines.push(...candidateBlock(c, r.n));
+      lines.push(...candidateBlock(c, r.n, 'dataKind' in r && r.dataKind === 'censored'));
       lines.push('');
     }
   } else {
