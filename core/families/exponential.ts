@@ -47,6 +47,21 @@ class ExponentialDistribution implements Distribution {
     if (x <= 0) return x === x ? 0 : Number.NaN;
     return -this.rate * x;
   }
+  /** logCdf and logSf of each x together (the same numbers; -rate·x computed once). */
+  logCdfSfInto(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
+    const rate = this.rate;
+    for (let i = 0; i < xs.length; i++) {
+      const x = xs[i] as number;
+      if (x <= 0 || x !== x) {
+        outLogCdf[i] = x === x ? Number.NEGATIVE_INFINITY : Number.NaN;
+        outLogSf[i] = x === x ? 0 : Number.NaN;
+        continue;
+      }
+      const ls = -rate * x;
+      outLogCdf[i] = log1mexp(ls);
+      outLogSf[i] = ls;
+    }
+  }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
     if (p === 0) return 0; // not -0

@@ -32,6 +32,12 @@ export interface Distribution {
   sf(x: number): number;
   logCdf(x: number): number;
   logSf(x: number): number;
+  /**
+   * Optional batch form of logCdf and logSf for hot loops (the Anderson–Darling statistic):
+   * outLogCdf[i] = ln F(xs[i]) and outLogSf[i] = ln S(xs[i]) for i < xs.length, computed together
+   * in one pass, with the same tail accuracy as logCdf and logSf.
+   */
+  logCdfSfInto?(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void;
   /** Inverse cdf: the x with F(x) = p, p in [0, 1]. */
   quantile(p: number): number;
   /** Inverse survival function: the x with 1 - F(x) = q, accurate for tiny q. */

@@ -75,6 +75,23 @@ class WeibullDistribution implements Distribution {
     if (!(x > 0)) return x === x ? 0 : Number.NaN;
     return -Math.exp(this.t(x));
   }
+  /** logCdf and logSf of each x together (the same numbers; t and (x/λ)^k computed once). */
+  logCdfSfInto(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
+    const k = this.k;
+    const logScale = this.logScale;
+    for (let i = 0; i < xs.length; i++) {
+      const x = xs[i] as number;
+      if (!(x > 0)) {
+        outLogCdf[i] = x === x ? Number.NEGATIVE_INFINITY : Number.NaN;
+        outLogSf[i] = x === x ? 0 : Number.NaN;
+        continue;
+      }
+      const t = k * (Math.log(x) - logScale);
+      const u = Math.exp(t);
+      outLogCdf[i] = t < TINY_EXPONENT ? t - 0.5 * u : log1mexp(-u);
+      outLogSf[i] = -u;
+    }
+  }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
     if (p === 0) return 0;

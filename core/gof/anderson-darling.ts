@@ -15,15 +15,45 @@ import { CompensatedSum } from '../compensated.js';
 export interface LogCdfSf {
   logCdf(x: number): number;
   logSf(x: number): number;
+  /** Batch form (see Distribution.logCdfSfInto); used when present. */
+  logCdfSfInto?(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void;
 }
+
+/** Points per batch call: small enough to stay in cache, large enough to amortise the call. */
+const CHUNK = 2048;
+// Scratch buffers reused by every call (the statistic never re-enters itself).
+const LOG_CDF = new Float64Array(CHUNK);
+const LOG_SF = new Float64Array(CHUNK);
+const XS = new Float64Array(CHUNK);
 
 /** A² of the ascending sample `sorted` under `dist`. */
 export function andersonDarlingStatistic(dist: LogCdfSf, sorted: ArrayLike<number>): number {
   const n = sorted.length;
   const s = new CompensatedSum();
-  for (let i = 1; i <= n; i++) {
-    const x = sorted[i - 1] as number;
-    s.add((2 * i - 1) * dist.logCdf(x) + (2 * (n - i) + 1) * dist.logSf(x));
+  if (dist.logCdfSfInto === undefined) {
+    for (let i = 1; i <= n; i++) {
+      const x = sorted[i - 1] as number;
+      s.add((2 * i - 1) * dist.logCdf(x) + (2 * (n - i) + 1) * dist.logSf(x));
+    }
+    return -n - s.value / n;
+  }
+  // Same terms, same order, from the batch form in chunks.
+  const typed = sorted instanceof Float64Array;
+  for (let start = 0; start < n; start += CHUNK) {
+    const len = Math.min(CHUNK, n - start);
+    let xs: Float64Array;
+    if (typed) xs = sorted.subarray(start, start + len);
+    else {
+      xs = len === CHUNK ? XS : XS.subarray(0, len);
+      for (let j = 0; j < len; j++) xs[j] = sorted[start + j] as number;
+    }
+    const lc = len === CHUNK ? LOG_CDF : LOG_CDF.subarray(0, len);
+    const ls = len === CHUNK ? LOG_SF : LOG_SF.subarray(0, len);
+    dist.logCdfSfInto(xs, lc, ls);
+    for (let j = 0; j < len; j++) {
+      const i = start + j + 1;
+      s.add((2 * i - 1) * (lc[j] as number) + (2 * (n - i) + 1) * (ls[j] as number));
+    }
   }
   return -n - s.value / n;
 }
