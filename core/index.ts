@@ -44,4 +44,4 @@ export * from './csv/index.js';
 export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS } from './evidence/index.js';
 export type * from './evidence/types.js';
 export type * from './workflow/index.js';
-export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset } from './workflow/index.js';
+export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync } from './workflow/index.js';

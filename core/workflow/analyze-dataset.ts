@@ -3,38 +3,72 @@
  * (grouped counts, life data with a status column, or a complete sample), runs the matching
  * analysis, and adds the sections its options ask for. The issue-2 report fields are unchanged;
  * the additions are documented in docs/report-fields.md.
+ *
+ * analyzeDatasetAsync hands the Anderson–Darling bootstrap of a complete sample to a runner (e.g.
+ * worker threads), as analyzeAsync does; the censored bootstrap and grouped fits run in-process.
  */
-import { InputError } from '../errors.js';
-import { completeReport } from './complete.js';
+import { runPlanBootstrap, type AnalyzeOptions, type BootstrapRunner } from '../analyze.js';
+import { InputError, PlumblineError } from '../errors.js';
+import { finishComplete, planComplete, type CompleteInput } from './complete.js';
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
-import { workflowSettings } from './options.js';
+import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
+
+type Route =
+  | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
+  | { readonly kind: 'life'; readonly run: () => DatasetReport }
+  | { readonly kind: 'complete'; readonly input: CompleteInput };
+
+function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
+  if (input.grouped) {
+    if (input.values || input.status || input.subgroups || input.order) {
+      throw new InputError('Grouped counts come alone: no value, status, subgroup or order column with them.', {}, 'bad-option');
+    }
+    const rows = input.grouped;
+    return { kind: 'grouped', run: () => groupedReport(rows, options, settings) };
+  }
+  const values = input.values;
+  if (!values) throw new InputError('No values to analyse.', {}, 'too-few-values');
+  if (input.status) {
+    const status = input.status;
+    if (status.length !== values.length) {
+      throw new InputError(`The status column has ${status.length} entries but there are ${values.length} times.`, {}, 'bad-input');
+    }
+    if (input.subgroups || input.order || options.trend) {
+      throw new InputError('Subgroups and the trend check apply to a complete sample, not to life data with a status column.', {}, 'bad-option');
+    }
+    return { kind: 'life', run: () => lifeReport(values, status, options, settings) };
+  }
+  if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
+    throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');
+  }
+  return { kind: 'complete', input: { values, subgroups: input.subgroups ?? null, order: input.order ?? null } };
+}
 
 export function analyzeDataset(input: DatasetInput & { readonly grouped: NonNullable<DatasetInput['grouped']> }, options?: DatasetOptions): GroupedDatasetReport;
 export function analyzeDataset(input: DatasetInput & { readonly values: ArrayLike<number>; readonly grouped?: null }, options?: DatasetOptions): DatasetReport;
 export function analyzeDataset(input: DatasetInput, options?: DatasetOptions): AnyDatasetReport;
 export function analyzeDataset(input: DatasetInput, options: DatasetOptions = {}): AnyDatasetReport {
   const settings = workflowSettings(options);
-  if (input.grouped) {
-    if (input.values || input.status || input.subgroups || input.order) {
-      throw new InputError('Grouped counts come alone: no value, status, subgroup or order column with them.', {}, 'bad-option');
-    }
-    return groupedReport(input.grouped, options, settings);
-  }
-  const values = input.values;
-  if (!values) throw new InputError('No values to analyse.', {}, 'too-few-values');
-  if (input.status) {
-    if (input.status.length !== values.length) {
-      throw new InputError(`The status column has ${input.status.length} entries but there are ${values.length} times.`, {}, 'bad-input');
-    }
-    if (input.subgroups || input.order || options.trend) {
-      throw new InputError('Subgroups and the trend check apply to a complete sample, not to life data with a status column.', {}, 'bad-option');
-    }
-    return lifeReport(values, input.status, options, settings);
-  }
-  if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
-    throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');
-  }
-  return completeReport({ values, subgroups: input.subgroups ?? null, order: input.order ?? null }, options, settings);
+  const r = route(input, options, settings);
+  if (r.kind !== 'complete') return r.run();
+  const p = planComplete(r.input, options, settings);
+  return finishComplete(p, runPlanBootstrap(p.plan));
+}
+
+/** As analyzeDataset, with the complete-sample bootstrap handed to `runner` (default: in-process). */
+export async function analyzeDatasetAsync(
+  input: DatasetInput,
+  options: DatasetOptions & Pick<AnalyzeOptions, 'onProgress' | 'signal'> & { readonly runner?: BootstrapRunner } = {},
+): Promise<AnyDatasetReport> {
+  const { runner, onProgress, signal, ...rest } = options;
+  const settings = workflowSettings(rest);
+  const r = route(input, rest, settings);
+  if (r.kind !== 'complete') return r.run();
+  const p = planComplete(r.input, rest, settings);
+  const hooks = { ...(onProgress ? { onProgress } : {}), ...(signal ? { signal } : {}) };
+  const counts = runner ? await runner(p.plan.bootstrapJobs, hooks) : runPlanBootstrap(p.plan, hooks);
+  for (const c of counts) if (c.cancelled) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
+  return finishComplete(p, counts);
 }

@@ -9,7 +9,8 @@
  *  - trend: core/trend's Mann–Kendall test and Sen's slope on the values in time order;
  *  - sensitivity: each decision number under every candidate that passes the tests.
  */
-import { finishAnalysis, planAnalysis, runPlanBootstrap } from '../analyze.js';
+import { finishAnalysis, planAnalysis, type AnalysisPlan } from '../analyze.js';
+import type { BootstrapCounts } from '../gof/index.js';
 import { capability, ppmOutOfSpec } from '../capability/index.js';
 import { InputError } from '../errors.js';
 import { DEFAULT_FAMILIES, EXTREME_VALUE_FAMILIES, GEV_SHAPE_GUARD, getFamily, type FamilyName } from '../families/index.js';
@@ -27,7 +28,15 @@ export interface CompleteInput {
   readonly order?: ArrayLike<number> | null;
 }
 
-export function completeReport(input: CompleteInput, options: DatasetOptions, settings: WorkflowSettings): DatasetReport {
+/** Everything before the bootstrap of a complete sample (the bootstrap jobs can run anywhere). */
+export interface CompletePlan {
+  readonly input: CompleteInput;
+  readonly options: DatasetOptions;
+  readonly settings: WorkflowSettings;
+  readonly plan: AnalysisPlan;
+}
+
+export function planComplete(input: CompleteInput, options: DatasetOptions, settings: WorkflowSettings): CompletePlan {
   const { values } = input;
   if (input.subgroups && !settings.capability) {
     throw new InputError('Subgroup labels are used for capability: give a specification limit (lsl and/or usl) too.', {}, 'bad-option');
@@ -42,8 +51,15 @@ export function completeReport(input: CompleteInput, options: DatasetOptions, se
   const families: readonly FamilyName[] =
     options.families ?? (settings.returnPeriods !== null ? [...DEFAULT_FAMILIES, ...EXTREME_VALUE_FAMILIES] : DEFAULT_FAMILIES);
   const { confidence: _c, bLifePercents: _b, boundMethod: _m, reliabilityTimes: _r, lifePlotPositions: _l, returnPeriods: _p, designLife: _d, plottingPosition: _pp, lsl: _ls, usl: _us, target: _t, withinMethod: _w, trend: _tr, ...analyzeOptions } = options;
-  const plan = planAnalysis(sample, { ...analyzeOptions, families });
-  const base = finishAnalysis(plan, runPlanBootstrap(plan));
+  return { input, options, settings, plan: planAnalysis(sample, { ...analyzeOptions, families }) };
+}
+
+/** The report from a plan and its bootstrap counts (one per job, each covering its whole range). */
+export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts[]): DatasetReport {
+  const { input, options, settings, plan } = p;
+  const { values } = input;
+  const sample = plan.sample;
+  const base = finishAnalysis(plan, counts);
   const fitWarnings = new Map<FamilyName, readonly string[]>();
   for (const c of plan.candidates) if (c.fit.warnings && c.fit.warnings.length > 0) fitWarnings.set(c.family.name, c.fit.warnings);
 

@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyze, analyzeDataset, InputError, readColumns, type DatasetCandidate, type NumberColumn } from '../../core/index.js';
+import { analyze, analyzeDataset, analyzeDatasetAsync, combineBootstrapCounts, InputError, readColumns, runBootstrapRange, type DatasetCandidate, type NumberColumn } from '../../core/index.js';
 
 // NIST/SEMATECH e-Handbook §8.4.1.3 (values in ../shared/references.md): 20 units, 10 failures,
 // 10 still running at 500 h; Weibull MLE shape 1.7208, scale 606.53.
@@ -289,6 +289,29 @@ describe('the plain report keeps the issue-2 shape', () => {
     expect(dataKind).toBe('complete');
     expect(Object.keys(rest).sort()).toEqual(['candidates', 'methods', 'n', 'notApplicable', 'options', 'rankingRule', 'software', 'summary', 'warnings']);
     expect(rest).toEqual(plain);
+  });
+});
+
+describe('analyzeDatasetAsync', () => {
+  it('with a runner that splits each bootstrap job in two gives the same report as analyzeDataset (bootstrap streams per replicate, core/gof)', async () => {
+    const opts = { families: ['gumbel', 'gev'] as const, returnPeriods: [10, 100], bootstrapReplicates: 20 };
+    const sync = analyzeDataset({ values: D1 }, { ...opts, families: [...opts.families] });
+    let jobsSeen = 0;
+    const asyncReport = await analyzeDatasetAsync(
+      { values: D1 },
+      {
+        ...opts,
+        families: [...opts.families],
+        runner: async (jobs) =>
+          jobs.map((job) => {
+            jobsSeen++;
+            const mid = Math.floor((job.start + job.end) / 2);
+            return combineBootstrapCounts([runBootstrapRange({ ...job, end: mid }), runBootstrapRange({ ...job, start: mid })]);
+          }),
+      },
+    );
+    expect(jobsSeen).toBeGreaterThan(0);
+    expect(asyncReport).toEqual(sync);
   });
 });
 
