@@ -73,17 +73,21 @@ function sortAscending(a: Float64Array): void {
     } else hi = (hi | 0x80000000) >>> 0;
     src[2 * i] = lo;
     src[2 * i + 1] = hi;
-    counts[lo & 0xffff]++;
-    counts[65536 + (lo >>> 16)]++;
-    counts[131072 + (hi & 0xffff)]++;
-    counts[196608 + (hi >>> 16)]++;
+    const d0 = lo & 0xffff;
+    const d1 = 65536 + (lo >>> 16);
+    const d2 = 131072 + (hi & 0xffff);
+    const d3 = 196608 + (hi >>> 16);
+    counts[d0] = (counts[d0] as number) + 1;
+    counts[d1] = (counts[d1] as number) + 1;
+    counts[d2] = (counts[d2] as number) + 1;
+    counts[d3] = (counts[d3] as number) + 1;
   }
   for (let pass = 0; pass < 4; pass++) {
     const base = pass * 65536;
     const word = pass >> 1; // 0: lo, 1: hi
     const shift = (pass & 1) * 16;
     // Skip a pass whose digit is the same for every key (it would not move anything).
-    const first = word === 0 ? src[0] as number : src[1] as number;
+    const first = (word === 0 ? src[0] : src[1]) as number;
     if (counts[base + ((first >>> shift) & 0xffff)] === n) continue;
     let sum = 0;
     for (let d = 0; d < 65536; d++) {
