@@ -151,6 +151,13 @@ describe.concurrent('plumbline analyze: trade workflows', () => {
     expect(r.stderr).toMatch(/"2"/);
   });
 
+  it('a repeated year in the order column → exit 2 naming the row and the column', async () => {
+    const f = tempCsv('dup-year.csv', 'year,peak\n2001,10\n2002,12\n2002,9\n2004,15\n2005,11\n');
+    const r = await cli('analyze', f, '--column', 'peak', '--order-column', 'year', '--families', 'normal');
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/row 4, column "year": order value 2002 repeats row 3/);
+  });
+
   it('options are validated with one-line errors (exit 2; in-process through runCli, the function main.ts calls)', () => {
     const cases: [string[], RegExp][] = [
       [['--b-life', '10'], /--b-life needs --censor-column/],

@@ -253,6 +253,13 @@ describe('flood frequency through analyzeDataset', () => {
     expect(rev.trend?.s).toBe(-(r.trend?.s as number));
   });
 
+  it('trend: true uses the row order: the same S as an order column 1..n (Mann–Kendall definition)', () => {
+    const a = analyzeDataset({ values: peaks }, { families: ['normal'], trend: true });
+    const b = analyzeDataset({ values: peaks, order: Array.from(peaks, (_, i) => i + 1) }, { families: ['normal'] });
+    expect(a.trend?.orderFrom).toBe('row order');
+    expect(a.trend?.s).toBe(b.trend?.s);
+  });
+
   it('sensitivity: one row per return period, only passing candidates', () => {
     const passing = r.candidates.filter((c) => c.rejectedBy.length === 0).map((c) => c.family);
     const rows = r.sensitivity!.filter((s) => s.quantity.startsWith('return level'));
