@@ -1,9 +1,13 @@
 /**
- * Brent's bracketed root finder (Brent 1973, "Algorithms for Minimization without Derivatives",
- * ch. 4): inverse quadratic interpolation / secant steps kept inside a sign-changing bracket,
- * falling back to bisection. Used by the profile-likelihood intervals.
- * (core/special is to export its own findRoot; this local one keeps core/optimize self-contained.)
+ * Brent's bracketed root finder for the profile-likelihood intervals and the threshold profiles:
+ * a thin adapter over `findRoot` in core/special (Brent 1973, "Algorithms for Minimization without
+ * Derivatives", ch. 4), not a second implementation. The contract differs in two ways only:
+ * - the caller may pass f at the bracket ends when it already has them (each evaluation here is a
+ *   full inner maximisation), so they are not computed again;
+ * - tolerances are given Brent-style (`rtol` relative, `xtol` absolute) and mapped onto findRoot's.
  */
+import { findRoot } from '../special/index.js';
+
 export interface RootResult {
   readonly x: number;
   readonly iterations: number;
@@ -16,66 +20,16 @@ export function brentRoot(
   b: number,
   opts: { xtol?: number; rtol?: number; maxIterations?: number; fa?: number; fb?: number } = {},
 ): RootResult {
-  const xtol = opts.xtol ?? 0;
-  const rtol = opts.rtol ?? 4 * Number.EPSILON;
-  const maxIt = opts.maxIterations ?? 200;
-  let fa = opts.fa ?? f(a);
-  let fb = opts.fb ?? f(b);
-  if (fa === 0) return { x: a, iterations: 0, converged: true };
-  if (fb === 0) return { x: b, iterations: 0, converged: true };
-  if (!(fa * fb < 0)) throw new RangeError(`brentRoot: f(a) and f(b) must differ in sign (got ${fa}, ${fb})`);
-  let c = a;
-  let fc = fa;
-  let d = b - a;
-  let e = d;
-  for (let it = 1; it <= maxIt; it++) {
-    if (fb * fc > 0) {
-      c = a;
-      fc = fa;
-      d = b - a;
-      e = d;
-    }
-    if (Math.abs(fc) < Math.abs(fb)) {
-      a = b;
-      b = c;
-      c = a;
-      fa = fb;
-      fb = fc;
-      fc = fa;
-    }
-    const tol = 2 * rtol * Math.abs(b) + 0.5 * xtol;
-    const m = 0.5 * (c - b);
-    if (Math.abs(m) <= tol || fb === 0) return { x: b, iterations: it, converged: true };
-    if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
-      let p: number;
-      let q: number;
-      const s = fb / fa;
-      if (a === c) {
-        p = 2 * m * s;
-        q = 1 - s;
-      } else {
-        const qq = fa / fc;
-        const r = fb / fc;
-        p = s * (2 * m * qq * (qq - r) - (b - a) * (r - 1));
-        q = (qq - 1) * (r - 1) * (s - 1);
-      }
-      if (p > 0) q = -q;
-      else p = -p;
-      if (2 * p < Math.min(3 * m * q - Math.abs(tol * q), Math.abs(e * q))) {
-        e = d;
-        d = p / q;
-      } else {
-        d = m;
-        e = m;
-      }
-    } else {
-      d = m;
-      e = m;
-    }
-    a = b;
-    fa = fb;
-    b += Math.abs(d) > tol ? d : m > 0 ? tol : -tol;
-    fb = f(b);
-  }
-  return { x: b, iterations: maxIt, converged: false };
+  const fa = opts.fa;
+  const fb = opts.fb;
+  const g = fa === undefined && fb === undefined ? f : (x: number): number => (x === a && fa !== undefined ? fa : x === b && fb !== undefined ? fb : f(x));
+  const lower = Math.min(a, b);
+  const upper = Math.max(a, b);
+  const r = findRoot(g, lower, upper, {
+    // findRoot's step tolerance is 2ε|x| + ½·max(absTol, relTol·|x|); Brent's is 2·rtol·|x| + ½·xtol.
+    relTol: 4 * (opts.rtol ?? 4 * Number.EPSILON),
+    absTol: opts.xtol ?? 0,
+    maxIterations: opts.maxIterations,
+  });
+  return { x: r.root, iterations: r.iterations, converged: r.converged };
 }
