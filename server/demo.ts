@@ -39,8 +39,8 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
   },
   'river-peaks': {
     column: 'peak_flow_m3s',
-    fields: { orderColumn: 'year', returnPeriods: [2, 10, 50, 100, 200], designLife: 50, plottingPosition: 'gringorten', confidence: 0.9 },
-    description: 'column peak_flow_m3s; year column year (trend check); return periods 2, 10, 50, 100, 200 years; design life 50 years; Gringorten plotting positions; 90 % intervals',
+    fields: { families: ['normal', 'lognormal', 'gamma', 'weibull', 'exponential', 'gumbel', 'gev'], orderColumn: 'year', returnPeriods: [2, 10, 50, 100, 200], designLife: 50, plottingPosition: 'gringorten', confidence: 0.9 },
+    description: 'column peak_flow_m3s; the five general models plus Gumbel and GEV; year column year (trend check); return periods 2, 10, 50, 100, 200 years; design life 50 years; Gringorten plotting positions; 90 % intervals',
   },
   'shaft-diameter': {
     column: 'diameter_mm',
