@@ -76,7 +76,8 @@ export interface AndersonDarlingReport {
   readonly decision: string;
 }
 
-export interface CandidateReport {
+/** A fitted candidate's parameters and information criteria: shared by the complete, grouped and life reports. */
+export interface CandidateScores {
   /** 1 = best by the ranking rule. */
   readonly rank: number;
   readonly family: FamilyName;
@@ -89,7 +90,17 @@ export interface CandidateReport {
   readonly bic: number;
   /** AICc minus the best AICc. */
   readonly deltaAicc: number;
-  readonly fit: { readonly method: string; readonly iterations: number; readonly converged: boolean };
+}
+
+/** How the maximum-likelihood fit ran. */
+export interface FitRun {
+  readonly method: string;
+  readonly iterations: number;
+  readonly converged: boolean;
+}
+
+export interface CandidateReport extends CandidateScores {
+  readonly fit: FitRun;
   readonly chiSquare: ChiSquareReport;
   readonly andersonDarling: AndersonDarlingReport;
   /** Tests that reject this candidate at α. */

@@ -14,4 +14,4 @@ export { censoredAndersonDarling } from './anderson-darling.js';
 export { censoredGofBootstrap, CENSORED_AD_METHOD, type CensoredGofResult, type BootstrapOptions } from './bootstrap.js';
 export { lifeCurves, logGrid, type LifeCurves } from './curves.js';
 export { analyzeLife, FEW_FAILURES, CHI_SQUARE_NOT_APPLICABLE } from './analyze.js';
-export type { LifeOptions, LifeReport, LifeCandidate, LifeNotFitted, LifeMethodNote } from './types.js';
+export type { LifeOptions, LifeReport, LifeSampleSummary, LifeCandidate, LifeNotFitted, LifeMethodNote } from './types.js';

@@ -1,5 +1,5 @@
 /** The life-data report: what `analyzeLife` returns, for the CLI, the server and the page. */
-import type { Parameters } from '../families/index.js';
+import type { CandidateScores } from '../report.js';
 import type { BLife, BoundedEstimate, BoundMethod, ReliabilityAt } from './bounds.js';
 import type { CensoredGofResult } from './bootstrap.js';
 import type { LifeCurves } from './curves.js';
@@ -32,17 +32,8 @@ export interface LifeMethodNote {
   readonly source: string;
 }
 
-export interface LifeCandidate {
+export interface LifeCandidate extends CandidateScores {
   readonly family: LifeFamilyName;
-  readonly label: string;
-  readonly parameters: Parameters;
-  readonly estimatedParameters: number;
-  readonly logLikelihood: number;
-  readonly aic: number;
-  readonly aicc: number;
-  readonly bic: number;
-  readonly rank: number;
-  readonly deltaAicc: number;
   readonly converged: boolean;
   readonly iterations: number;
   readonly method: string;
@@ -63,20 +54,25 @@ export interface LifeNotFitted {
   readonly reason: string;
 }
 
-export interface LifeReport {
-  /** All units. */
-  readonly n: number;
+/** What a life-data report says about the sample as a whole: shared by `LifeReport` and the workflow's life section. */
+export interface LifeSampleSummary {
   readonly failures: number;
   readonly suspensions: number;
   readonly confidence: number;
   readonly boundMethod: BoundMethod;
-  /** Ranked by AICc (n = all units), best first. */
-  readonly candidates: readonly LifeCandidate[];
-  readonly notFitted: readonly LifeNotFitted[];
+  /** Probability-plot positions (method, description, points with bands, Weibull and lognormal coordinates). */
   readonly plot: PlotPositions;
-  /** Why the equiprobable chi-square test is not reported. */
+  /** Why the equiprobable chi-square test is not reported for censored samples. */
   readonly chiSquare: { readonly applies: false; readonly reason: string };
   readonly warnings: readonly string[];
   readonly cautions: readonly string[];
+}
+
+export interface LifeReport extends LifeSampleSummary {
+  /** All units. */
+  readonly n: number;
+  /** Ranked by AICc (n = all units), best first. */
+  readonly candidates: readonly LifeCandidate[];
+  readonly notFitted: readonly LifeNotFitted[];
   readonly methods: readonly LifeMethodNote[];
 }

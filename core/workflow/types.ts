@@ -8,12 +8,12 @@
  *   dataKind 'grouped'   classes lower, upper, count           → GroupedDatasetReport (own candidates)
  */
 import type { CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
-import type { FamilyName, Parameters } from '../families/index.js';
+import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
-import type { GroupedClass } from '../grouped/index.js';
-import type { BoundMethod, LifeCurves, PlotPositionMethod, PlotPositions } from '../life/index.js';
+import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
+import type { BoundMethod, LifeCurves, LifeSampleSummary, PlotPositionMethod } from '../life/index.js';
 import type { AnalyzeOptions } from '../analyze.js';
-import type { AnalysisReport, BinRow, CandidateReport, MethodNote, NotApplicableReport } from '../report.js';
+import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
 
 /** What the data are: decides which candidates and sections the report carries. */
@@ -114,23 +114,13 @@ export interface DatasetCandidate extends CandidateReport {
   readonly warnings?: readonly string[];
 }
 
-export interface LifeSection {
+export interface LifeSection extends LifeSampleSummary {
   /** All units (= report n). */
   readonly units: number;
-  readonly failures: number;
-  readonly suspensions: number;
-  readonly confidence: number;
-  readonly boundMethod: BoundMethod;
   readonly bLifePercents: readonly number[];
   readonly reliabilityTimes: readonly number[];
-  /** Probability-plot positions (method, description, points with bands, Weibull and lognormal coordinates). */
-  readonly plot: PlotPositions;
   /** Fitted curves per candidate on one log-spaced time grid (cdf, reliability, hazard, plot scales). */
   readonly curves: readonly ({ readonly family: FamilyName } & LifeCurves)[];
-  /** Why the equiprobable chi-square test is not reported for censored samples. */
-  readonly chiSquare: { readonly applies: false; readonly reason: string };
-  readonly warnings: readonly string[];
-  readonly cautions: readonly string[];
 }
 
 export interface FloodSection {
@@ -208,41 +198,13 @@ export interface DatasetReport extends AnalysisReport {
   readonly sensitivity?: readonly SensitivityRow[];
 }
 
-/** Chi-square on the given classes of grouped counts (k - 1 - m is exact here). */
-export type GroupedChiSquareReport =
-  | {
-      readonly computable: true;
-      readonly statistic: number;
-      readonly dof: number;
-      readonly pValue: number;
-      readonly criticalValue: number;
-      readonly alpha: number;
-      readonly rejected: boolean;
-      readonly decision: string;
-      /** Cells after merging. */
-      readonly k: number;
-      readonly classesGiven: number;
-      /** Parameters of the test (refitted on the merged cells when merging was needed). */
-      readonly parameters: Parameters;
-      readonly refitted: boolean;
-      readonly bins: readonly BinRow[];
-      readonly dofRule: string;
-    }
-  | { readonly computable: false; readonly reason: string };
+/** Chi-square on the given classes of grouped counts (k - 1 - m is exact here); defined in core/grouped. */
+export type GroupedChiSquareReport = GroupedChiSquare;
 
-export interface GroupedCandidateReport {
-  readonly rank: number;
-  readonly family: FamilyName;
-  readonly label: string;
-  readonly parameters: Parameters;
-  readonly estimatedParameters: number;
+export interface GroupedCandidateReport extends CandidateScores {
   /** Grouped (multinomial) log-likelihood. */
   readonly logLikelihood: number;
-  readonly aic: number;
-  readonly aicc: number;
-  readonly bic: number;
-  readonly deltaAicc: number;
-  readonly fit: { readonly method: string; readonly iterations: number; readonly converged: boolean };
+  readonly fit: FitRun;
   readonly chiSquare: GroupedChiSquareReport;
   readonly andersonDarling: { readonly offered: false; readonly reason: string };
   readonly rejectedBy: readonly 'chi-square'[];
