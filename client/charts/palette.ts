@@ -21,6 +21,10 @@ const BY_FAMILY: Readonly<Record<string, SeriesStyle>> = {
   gamma: { colour: '#009E73', dash: '2 2', pattern: 'dots' },
   weibull: { colour: '#CC79A7', dash: '9 3 2 3', pattern: 'dash-dot' },
   exponential: { colour: '#E69F00', dash: '4 4', pattern: 'short dashes' },
+  gumbel: { colour: '#56B4E9', dash: '12 4', pattern: 'very long dashes' },
+  gev: { colour: '#000000', dash: '', pattern: 'solid black' },
+  weibull3: { colour: '#882255', dash: '6 2 1 2', pattern: 'dash-dot-dot' },
+  lognormal3: { colour: '#7a4b00', dash: '3 5', pattern: 'sparse dashes' },
 };
 
 const SPARE: readonly SeriesStyle[] = [

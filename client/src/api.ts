@@ -2,7 +2,7 @@
  * The page's calls to the local server (server/API.md). Every failure becomes an `ApiError`
  * carrying the server's message, so the page can show it as it is.
  */
-import type { AnalysisReport, Evidence, SkipCount } from './types.js';
+import type { DatasetReport, Evidence, SkipCount } from './types.js';
 
 export interface InputSummary {
   readonly source: 'values' | 'csv';
@@ -16,9 +16,10 @@ export interface InputSummary {
   readonly delimiterDetected?: boolean;
   readonly header?: readonly string[];
   readonly warnings?: readonly string[];
+  readonly otherColumns?: readonly { readonly role: string; readonly column: string }[];
 }
 
-export type AnalyzeResponse = AnalysisReport & { readonly evidence?: Evidence; readonly input?: InputSummary };
+export type AnalyzeResponse = DatasetReport & { readonly evidence?: Evidence; readonly input?: InputSummary };
 
 export interface CsvRequestOptions {
   readonly decimal?: '.' | ',';
@@ -38,6 +39,27 @@ export interface AnalyzeRequest {
   readonly pMethod: 'table' | 'bootstrap';
   readonly replicates?: number;
   readonly evidence: true;
+  /** Trade-workflow fields (server/API.md), sent only when set. */
+  readonly statusColumn?: number;
+  readonly subgroupColumn?: number;
+  readonly orderColumn?: number;
+  readonly confidence?: number;
+  readonly bLifePercents?: readonly number[];
+  readonly boundMethod?: 'likelihood-ratio' | 'fisher-matrix';
+  readonly reliabilityTimes?: readonly number[];
+  readonly returnPeriods?: readonly number[];
+  readonly designLife?: number;
+  readonly plottingPosition?: 'weibull' | 'gringorten' | 'cunnane';
+  readonly lsl?: number;
+  readonly usl?: number;
+  readonly target?: number;
+}
+
+/** A demo's decision settings (server/demo.ts). */
+export interface DemoSettings {
+  readonly column: string;
+  readonly fields: Readonly<Record<string, unknown>>;
+  readonly description: string;
 }
 
 export interface DemoEntry {
@@ -46,6 +68,7 @@ export interface DemoEntry {
   readonly bytes: number;
   readonly columns: readonly string[];
   readonly defaultColumn: string;
+  readonly settings?: DemoSettings;
 }
 
 export interface DemoFile {
@@ -53,12 +76,14 @@ export interface DemoFile {
   readonly file: string;
   readonly columns: readonly string[];
   readonly defaultColumn: string;
+  readonly settings?: DemoSettings;
   readonly csv: string;
 }
 
 export interface DemoAnalysis {
   readonly name: string;
   readonly column: string;
+  readonly settings?: DemoSettings;
   readonly csv: string;
   readonly result: AnalyzeResponse;
 }

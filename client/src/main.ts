@@ -4,12 +4,15 @@
  * All statistics come from the server's report; this file only wires inputs to requests and
  * results to views.
  */
-import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry } from './api.js';
+import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry, type DemoSettings } from './api.js';
+import { blockHtml, blockNode, decisionBlocks } from './decision.js';
+import { drawSlot } from './decision-charts.js';
+import type { LifeScale } from '../charts/life-probability.js';
 import { candidateCells } from './candidate-cells.js';
 import { firstLineIsNumber, scanColumns, type ColumnChoice } from './columns.js';
 import { byId, clear, download, el, slug } from './dom.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
-import { FAMILY_CHOICES } from './families.js';
+import { FAMILY_CHOICES, FLOOD_FAMILIES } from './families.js';
 import { sig } from './format.js';
 import { buildReportHtml } from './report-html.js';
 import { binsCsv } from './bins-csv.js';
@@ -40,7 +43,11 @@ const state = {
   jobId: null as string | null,
   requestedBins: null as number | null,
   demos: [] as DemoEntry[],
+  /** Column roles (1-based column index, or 0 for none). */
+  roles: { status: 0, subgroup: 0, order: 0 },
 };
+
+type Workflow = Pick<AnalyzeRequest, 'statusColumn' | 'subgroupColumn' | 'orderColumn' | 'confidence' | 'bLifePercents' | 'boundMethod' | 'reliabilityTimes' | 'returnPeriods' | 'designLife' | 'plottingPosition' | 'lsl' | 'usl' | 'target'>;
 
 /** Identifies this page to the job API, so a new job replaces this page's previous one. */
 const CLIENT_ID = `page-${Array.from(crypto.getRandomValues(new Uint8Array(6)), (b) => b.toString(16).padStart(2, '0')).join('')}`;
@@ -102,7 +109,150 @@ const $ = {
   exportJson: byId<HTMLButtonElement>('export-json'),
   exportCsv: byId<HTMLButtonElement>('export-csv'),
   foot: byId('foot'),
+  statusSelect: byId<HTMLSelectElement>('status-select'),
+  subgroupSelect: byId<HTMLSelectElement>('subgroup-select'),
+  orderSelect: byId<HTMLSelectElement>('order-select'),
+  demoSettings: byId('demo-settings'),
+  confidence: byId<HTMLInputElement>('confidence-input'),
+  blife: byId<HTMLInputElement>('blife-input'),
+  relTime: byId<HTMLInputElement>('reltime-input'),
+  bounds: byId<HTMLSelectElement>('bounds-select'),
+  periods: byId<HTMLInputElement>('periods-input'),
+  designLife: byId<HTMLInputElement>('designlife-input'),
+  plotPos: byId<HTMLSelectElement>('plotpos-select'),
+  lsl: byId<HTMLInputElement>('lsl-input'),
+  usl: byId<HTMLInputElement>('usl-input'),
+  target: byId<HTMLInputElement>('target-input'),
+  decisionName: byId('decision-name'),
+  decisionBody: byId('decision-body'),
+  decisionEmpty: byId('decision-empty'),
+  lifeScaleRow: byId('life-scale-row'),
+  lifeScale: byId<HTMLSelectElement>('life-scale-select'),
 };
+
+/** A comma- or space-separated list of numbers; null (with the problem shown) when unusable. */
+function numberList(input: HTMLInputElement, ok: (x: number) => boolean, rule: string): number[] | null | undefined {
+  const text = input.value.trim();
+  if (text === '') {
+    fieldProblem(input, null);
+    return undefined;
+  }
+  const parts = text.split(/[\s,;]+/).filter((t) => t !== '');
+  const xs = parts.map(Number);
+  if (xs.some((x) => !Number.isFinite(x) || !ok(x)) || new Set(xs).size !== xs.length) {
+    fieldProblem(input, `${rule}, separated by commas, each once.`);
+    return null;
+  }
+  fieldProblem(input, null);
+  return xs;
+}
+
+function optionalNumber(input: HTMLInputElement, ok: (x: number) => boolean, rule: string): number | null | undefined {
+  const text = input.value.trim();
+  if (text === '') {
+    fieldProblem(input, null);
+    return undefined;
+  }
+  const x = Number(text);
+  if (!Number.isFinite(x) || !ok(x)) {
+    fieldProblem(input, rule);
+    return null;
+  }
+  fieldProblem(input, null);
+  return x;
+}
+
+/** The decision settings as request fields (only those that apply); null when one is unusable. */
+function readWorkflow(): Workflow | null {
+  let ok = true;
+  const out: { -readonly [K in keyof Workflow]: Workflow[K] } = {};
+  const conf = optionalNumber($.confidence, (x) => x > 0 && x < 1, 'The confidence must be between 0 and 1, e.g. 0.90.');
+  if (conf === null) ok = false;
+  const life = state.roles.status > 0;
+  const bl = numberList($.blife, (x) => x > 0 && x < 100, 'Give percents between 0 and 100');
+  const rt = optionalNumber($.relTime, (x) => x > 0, 'The time must be a number above 0.');
+  const rp = numberList($.periods, (x) => x > 1, 'Give return periods in years, each above 1');
+  const dl = optionalNumber($.designLife, (x) => x > 0, 'The design life must be a number of years above 0.');
+  const lsl = optionalNumber($.lsl, () => true, 'The lower limit must be a number.');
+  const usl = optionalNumber($.usl, () => true, 'The upper limit must be a number.');
+  const target = optionalNumber($.target, () => true, 'The target must be a number.');
+  if ([bl, rt, rp, dl, lsl, usl, target].some((v) => v === null)) ok = false;
+  if (typeof lsl === 'number' && typeof usl === 'number' && !(lsl < usl)) {
+    fieldProblem($.usl, 'The upper limit must be above the lower one.');
+    ok = false;
+  }
+  if (!ok) return null;
+  const capability = typeof lsl === 'number' || typeof usl === 'number';
+  if (life) {
+    out.statusColumn = state.roles.status;
+    if (bl) out.bLifePercents = bl;
+    if (typeof rt === 'number') out.reliabilityTimes = [rt];
+    out.boundMethod = $.bounds.value === 'fisher-matrix' ? 'fisher-matrix' : 'likelihood-ratio';
+  }
+  if (!life && rp) {
+    out.returnPeriods = rp;
+    if (typeof dl === 'number') out.designLife = dl;
+    out.plottingPosition = $.plotPos.value as 'weibull' | 'gringorten' | 'cunnane';
+  }
+  if (!life && capability) {
+    if (typeof lsl === 'number') out.lsl = lsl;
+    if (typeof usl === 'number') out.usl = usl;
+    if (typeof target === 'number') out.target = target;
+    if (state.roles.subgroup > 0) out.subgroupColumn = state.roles.subgroup;
+  }
+  if (!life && state.roles.order > 0) out.orderColumn = state.roles.order;
+  if (Object.keys(out).length > 0 && typeof conf === 'number') out.confidence = conf;
+  return out;
+}
+
+/** Fill the three role selects from the file's columns (never the value column itself). */
+function showRoles(): void {
+  const fill = (sel: HTMLSelectElement, chosen: number, none: string): number => {
+    clear(sel);
+    sel.append(el('option', { value: '0' }, none));
+    let kept = 0;
+    for (const c of state.columns) {
+      if (c.index === state.column) continue;
+      sel.append(el('option', { value: String(c.index), selected: c.index === chosen }, `${c.index}. ${c.label}`));
+      if (c.index === chosen) kept = chosen;
+    }
+    sel.disabled = state.columns.length <= 1;
+    return kept;
+  };
+  state.roles.status = fill($.statusSelect, state.roles.status, 'none (every value is an observed value)');
+  state.roles.subgroup = fill($.subgroupSelect, state.roles.subgroup, 'none');
+  state.roles.order = fill($.orderSelect, state.roles.order, 'none');
+}
+
+function columnIndexOf(name: string): number {
+  return state.columns.find((c) => c.label === name)?.index ?? 0;
+}
+
+/** Put a demo's decision settings into the controls and say on screen that they are demo settings. */
+function applyDemoSettings(settings: DemoSettings | undefined): void {
+  const f = (settings?.fields ?? {}) as Record<string, unknown>;
+  const list = (v: unknown): string => (Array.isArray(v) ? v.join(', ') : '');
+  state.roles = {
+    status: typeof f['statusColumn'] === 'string' ? columnIndexOf(f['statusColumn']) : 0,
+    subgroup: typeof f['subgroupColumn'] === 'string' ? columnIndexOf(f['subgroupColumn']) : 0,
+    order: typeof f['orderColumn'] === 'string' ? columnIndexOf(f['orderColumn']) : 0,
+  };
+  showRoles();
+  noteCensoring();
+  $.blife.value = list(f['bLifePercents']) || '10';
+  $.relTime.value = list(f['reliabilityTimes']);
+  $.periods.value = list(f['returnPeriods']);
+  $.designLife.value = typeof f['designLife'] === 'number' ? String(f['designLife']) : '';
+  if (typeof f['plottingPosition'] === 'string') $.plotPos.value = f['plottingPosition'];
+  $.lsl.value = typeof f['lsl'] === 'number' ? String(f['lsl']) : '';
+  $.usl.value = typeof f['usl'] === 'number' ? String(f['usl']) : '';
+  $.target.value = typeof f['target'] === 'number' ? String(f['target']) : '';
+  if (typeof f['confidence'] === 'number') $.confidence.value = String(f['confidence']);
+  const fams = Array.isArray(f['families']) ? (f['families'] as string[]) : FAMILY_CHOICES.filter((c) => c.byDefault).map((c) => c.name as string);
+  for (const b of $.familyBoxes.querySelectorAll<HTMLInputElement>('input[name="family"]')) b.checked = fams.includes(b.value);
+  $.demoSettings.hidden = !settings;
+  $.demoSettings.textContent = settings ? `Demo settings: ${settings.description}. Change any of them; the analysis reruns.` : '';
+}
 
 function pMethod(): 'table' | 'bootstrap' {
   const checked = document.querySelector<HTMLInputElement>('input[name="pmethod"]:checked');
@@ -132,7 +282,7 @@ function buildFamilyBoxes(): void {
     const swatch = el('span', { className: 'swatch', 'aria-hidden': 'true' });
     swatch.style.borderTopColor = style.colour;
     swatch.style.borderTopStyle = style.dash ? 'dashed' : 'solid';
-    const box = el('input', { type: 'checkbox', value: f.name, name: 'family', checked: true });
+    const box = el('input', { type: 'checkbox', value: f.name, name: 'family', checked: f.byDefault });
     $.familyBoxes.append(el('label', {}, box, swatch, f.label));
   }
 }
@@ -209,8 +359,9 @@ function readSettings(): Omit<AnalyzeRequest, 'csv' | 'column' | 'csvOptions' | 
     $.familyBoxes.after(el('p', { className: 'field-error', id: 'families-problem' }, 'Tick at least one model to try.'));
     ok = false;
   }
-  if (!ok) return null;
-  const out: Omit<AnalyzeRequest, 'csv' | 'column' | 'csvOptions' | 'evidence'> = { families, alpha, bins, pMethod: method };
+  const wf = readWorkflow();
+  if (!ok || wf === null) return null;
+  const out: Omit<AnalyzeRequest, 'csv' | 'column' | 'csvOptions' | 'evidence'> = { families, alpha, bins, pMethod: method, ...wf };
   return { ...out, ...(seed !== undefined ? { seed } : {}), ...(replicates !== undefined ? { replicates } : {}) };
 }
 
@@ -231,6 +382,7 @@ function showColumns(columns: readonly ColumnChoice[], chosen: number): void {
 
 function loadSource(source: Source, opts: { header?: boolean; column?: number } = {}): void {
   state.source = source;
+  state.selected = null;
   $.quantity.dataset['typed'] = '';
   $.units.dataset['typed'] = '';
   $.loaded.hidden = false;
@@ -255,6 +407,7 @@ function rescanColumns(prefer?: number): void {
     void err;
   }
   showColumns(state.columns, state.column);
+  showRoles();
   suggestQuantity();
   noteCensoring();
 }
@@ -268,7 +421,7 @@ const STATUS_NAME = /^(status|state|censor(ed|ing)?|cens|event|failed|failure|su
  */
 function noteCensoring(): void {
   const flag = state.columns.find((c) => c.index !== state.column && STATUS_NAME.test(c.label.trim()));
-  if (!flag) {
+  if (!flag || state.roles.status === flag.index) {
     $.columnNote.hidden = true;
     $.columnNote.textContent = '';
     return;
@@ -278,6 +431,14 @@ function noteCensoring(): void {
     `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +
     `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
     `Do not base a maintenance interval on this fit without a censored-data analysis.`;
+  const use = el('button', { type: 'button', className: 'btn small', id: 'use-status' }, `Use “${flag.label}” as failed (1) / still running (0)`);
+  use.addEventListener('click', () => {
+    state.roles.status = flag.index;
+    showRoles();
+    noteCensoring();
+    scheduleRun(0);
+  });
+  $.columnNote.append(' ', use);
 }
 
 function columnLabel(): string {
@@ -299,8 +460,13 @@ async function loadDemo(name: string): Promise<void> {
   try {
     setStatus(`Loading ${name}…`);
     const d = await api.demo(name);
-    const index = d.columns.indexOf(d.defaultColumn) + 1;
+    const index = d.columns.indexOf(d.settings?.column ?? d.defaultColumn) + 1;
+    state.roles = { status: 0, subgroup: 0, order: 0 };
+    // A demo starts from the published-formula p-values (a censored sample's A² is bootstrapped anyway).
+    const formula = document.querySelector<HTMLInputElement>('input[name="pmethod"][value="table"]');
+    if (formula) formula.checked = true;
     loadSource({ kind: 'demo', name: d.name, csv: d.csv }, { header: true, column: index > 0 ? index : undefined });
+    applyDemoSettings(d.settings);
   } catch (err) {
     showError(err instanceof Error ? err.message : String(err));
   }
@@ -314,6 +480,8 @@ async function loadFile(file: File): Promise<void> {
       return;
     }
     $.quantity.dataset['typed'] = '';
+    state.roles = { status: 0, subgroup: 0, order: 0 };
+    $.demoSettings.hidden = true;
     loadSource({ kind: 'file', name: file.name, csv: text });
   } catch (err) {
     showError(`Could not read ${file.name}: ${err instanceof Error ? err.message : String(err)}`);
@@ -448,6 +616,7 @@ function applyResponse(resp: AnalyzeResponse): void {
   renderCounts(resp);
   renderRanking(resp);
   renderEvidence();
+  renderDecision();
   const best = resp.candidates[0];
   setStatus(
     best
@@ -564,6 +733,50 @@ function select(family: string): void {
   for (const row of $.rankingTable.querySelectorAll<HTMLTableRowElement>('tr.cand-main')) row.setAttribute('aria-selected', String(row.dataset['family'] === family));
   renderCounts(state.response);
   renderEvidence();
+  renderDecision();
+}
+
+function lifeScale(): LifeScale {
+  return $.lifeScale.value === 'lognormal' ? 'lognormal' : 'weibull';
+}
+
+/** The decision area for the selected model (blocks from decision.ts, charts drawn into their slots). */
+function renderDecision(): void {
+  const resp = state.response;
+  clear($.decisionBody);
+  if (!resp) return;
+  const blocks = decisionBlocks(resp, state.selected, units());
+  $.decisionEmpty.hidden = blocks.length > 0;
+  $.lifeScaleRow.hidden = !resp.life;
+  $.decisionName.textContent = displayLabel(resp.candidates.find((c) => c.family === state.selected)?.label ?? 'the selected model');
+  const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };
+  const slots: [string, HTMLElement][] = [];
+  for (const b of blocks) {
+    $.decisionBody.append(
+      blockNode(b, (slot) => {
+        const box = el('div', { className: 'chart-box', 'data-slot': slot });
+        slots.push([slot, box]);
+        return el('figure', { className: 'chart' }, box);
+      }),
+    );
+  }
+  for (const [slot, box] of slots) {
+    drawSlot(slot as Parameters<typeof drawSlot>[0], box, ctx, { ...chartSize(box), units: units(), quantity: $.quantity.value.trim() || (slot === 'return-period' ? 'Annual maximum' : 'Value') });
+  }
+}
+
+/** The decision blocks as report HTML, charts at report size. */
+function decisionReportHtml(resp: AnalyzeResponse): string {
+  const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };
+  return decisionBlocks(resp, state.selected, units())
+    .map((b) =>
+      blockHtml(b, (slot) => {
+        const box = el('div');
+        const svg = drawSlot(slot, box, ctx, { width: 760, height: 440, units: units(), quantity: $.quantity.value.trim() || (slot === 'return-period' ? 'Annual maximum' : 'Value') });
+        return svg ? svg.outerHTML : '';
+      }),
+    )
+    .join('');
 }
 
 function chartSize(node: Element): { width: number; height: number } {
@@ -651,6 +864,7 @@ function exportHtml(): void {
     charts: svgs.map((s, i) => ({ svg: s.outerHTML, caption: captions[i] ?? '' })),
     binsTable: ce ? binsTableRows(ce, edgeText) : [],
     requestedBins: state.requestedBins,
+    decisionHtml: decisionReportHtml(resp),
   });
   download(exportName('html'), html, 'text/html;charset=utf-8');
 }
@@ -705,11 +919,14 @@ function wire(): void {
       return;
     }
     $.quantity.dataset['typed'] = '';
+    state.roles = { status: 0, subgroup: 0, order: 0 };
+    $.demoSettings.hidden = true;
     loadSource({ kind: 'paste', name: 'Pasted values', csv: text });
   });
 
   $.columnSelect.addEventListener('change', () => {
     state.column = Number($.columnSelect.value);
+    showRoles();
     suggestQuantity();
     noteCensoring();
     scheduleRun(0);
@@ -724,6 +941,25 @@ function wire(): void {
   });
 
   for (const input of [$.alpha, $.bins, $.replicates, $.seed]) input.addEventListener('change', () => scheduleRun());
+  for (const input of [$.confidence, $.blife, $.relTime, $.bounds, $.periods, $.designLife, $.plotPos, $.lsl, $.usl, $.target]) input.addEventListener('change', () => scheduleRun());
+  const role = (sel: HTMLSelectElement, key: 'status' | 'subgroup' | 'order'): void => {
+    sel.addEventListener('change', () => {
+      state.roles[key] = Number(sel.value) || 0;
+      noteCensoring();
+      scheduleRun(0);
+    });
+  };
+  role($.statusSelect, 'status');
+  role($.subgroupSelect, 'subgroup');
+  role($.orderSelect, 'order');
+  $.lifeScale.addEventListener('change', renderDecision);
+  // Return periods given for the first time: also try the extreme-value families.
+  let hadPeriods = $.periods.value.trim() !== '';
+  $.periods.addEventListener('change', () => {
+    const has = $.periods.value.trim() !== '';
+    if (has && !hadPeriods) for (const b of $.familyBoxes.querySelectorAll<HTMLInputElement>('input[name="family"]')) if ((FLOOD_FAMILIES as readonly string[]).includes(b.value)) b.checked = true;
+    hadPeriods = has;
+  });
   $.familyBoxes.addEventListener('change', () => scheduleRun());
   for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => scheduleRun());
   $.run.addEventListener('click', () => scheduleRun(0));
@@ -737,10 +973,12 @@ function wire(): void {
   $.quantity.addEventListener('input', () => {
     $.quantity.dataset['typed'] = 'yes';
     renderEvidence();
+    renderDecision();
   });
   $.units.addEventListener('input', () => {
     $.units.dataset['typed'] = 'yes';
     renderEvidence();
+    renderDecision();
   });
 
   $.exportHtml.addEventListener('click', exportHtml);
@@ -750,7 +988,10 @@ function wire(): void {
   let resizeTimer: ReturnType<typeof setTimeout> | undefined;
   new ResizeObserver(() => {
     if (resizeTimer !== undefined) clearTimeout(resizeTimer);
-    resizeTimer = setTimeout(renderEvidence, 120);
+    resizeTimer = setTimeout(() => {
+      renderEvidence();
+      renderDecision();
+    }, 120);
   }).observe($.charts.histogram);
 }
 
@@ -776,6 +1017,7 @@ async function start(): Promise<void> {
     rescanColumns(col > 0 ? col : undefined);
     state.column = demo.result.input?.columnIndex ?? state.column;
     showColumns(state.columns, state.column);
+    applyDemoSettings(demo.settings);
     suggestQuantity();
     for (const b of $.demoList.querySelectorAll('button')) b.setAttribute('aria-pressed', String(b.dataset['name'] === demo.name));
     state.shownFor = { source: demo.name, column: columnLabel() };

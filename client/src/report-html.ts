@@ -24,6 +24,8 @@ export interface ReportContext {
   readonly binsTable: readonly (readonly string[])[];
   /** Bins as requested by the user (null = automatic). */
   readonly requestedBins: number | null;
+  /** The decision area's blocks as escaped HTML (client/src/decision.ts blockHtml), or '' for none. */
+  readonly decisionHtml?: string;
 }
 
 const CSS = `
@@ -37,7 +39,8 @@ table.kv th{width:13rem;font-size:9.5pt}
 tr.selected{background:#fff6d6}.ok{color:#1f5f3a;font-weight:600}.no{color:#8a1c1c;font-weight:600}
 .small{font-size:8.5pt;color:#555b61}figure{margin:1rem 0;break-inside:avoid;page-break-inside:avoid}
 figure svg{max-width:100%;height:auto;border:1px solid #d5d9dd}figcaption{font-size:9pt;color:#555b61}
-ol.methods li{margin-bottom:.4rem}
+ol.methods li{margin-bottom:.4rem}section.decision{margin:1rem 0 1.5rem}section.decision h3{font-size:1rem;margin:.8rem 0 .2rem;color:#0a4d68}
+caption{text-align:left;padding:.2rem 0}li.line-warning{color:#7a3a00}li.line-caution{background:#fbf1d9;list-style:none;margin-left:-1rem;padding:.2rem .5rem;border-left:3px solid #9a6700}
 @media print{body{margin:0;max-width:none}h2{break-after:avoid}table{break-inside:auto}tr{break-inside:avoid}}
 @page{margin:15mm}
 `;
@@ -133,6 +136,7 @@ export function buildReportHtml(ctx: ReportContext): string {
 <h2>Inputs</h2>${kv(record)}
 <h2>Settings</h2>${kv(settings)}
 <h2>Candidate models, best first</h2><p class="small">${e(r.rankingRule)} The chi-square p is given with k−1−m degrees of freedom and, in brackets, with k−1 (Chernoff–Lehmann: the true p lies between).</p>${table}${na}${warn}
+${ctx.decisionHtml ? `<h2>Decision numbers under ${e(selected?.label ?? ctx.selected)}</h2>${ctx.decisionHtml}` : ''}
 <h2>Evidence for ${e(selected?.label ?? ctx.selected)}</h2>${figures}
 <h2>Bins for ${e(selected?.label ?? ctx.selected)}</h2>${bins}
 <h2>Methods and sources</h2>${methods}

@@ -4,6 +4,8 @@
  */
 export type {
   AnalysisReport,
+  DatasetReport,
+  DatasetCandidate,
   CandidateReport,
   NotApplicableReport,
   ChiSquareReport,

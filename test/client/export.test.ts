@@ -65,6 +65,7 @@ function response(): AnalyzeResponse {
   const evidence = computeEvidence(prepareSample(VALUES), report);
   return {
     ...report,
+    dataKind: 'complete' as const,
     evidence,
     input: {
       source: 'csv',

@@ -1,0 +1,35 @@
+/** Draws the decision area's chart slots from the report (page and exported report alike). */
+import type { DatasetReport, Evidence } from '../../core/index.js';
+import { capabilityHistogramChart } from '../charts/capability-histogram.js';
+import { hazardChart } from '../charts/hazard.js';
+import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
+import type { ChartOptions } from '../charts/options.js';
+import { returnPeriodChart } from '../charts/return-period.js';
+import type { ChartSlot } from './decision.js';
+
+export interface SlotContext {
+  readonly report: DatasetReport & { readonly evidence?: Evidence };
+  readonly selected: string;
+  readonly lifeScale: LifeScale;
+}
+
+/** Draw one slot into `box`; null when the report lacks what it needs. */
+export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
+  const r = ctx.report;
+  const labels = Object.fromEntries(r.candidates.map((c) => [c.family, c.label]));
+  const selected = r.candidates.some((c) => c.family === ctx.selected) ? ctx.selected : (r.candidates[0]?.family ?? '');
+  switch (slot) {
+    case 'life-probability':
+      return r.life ? lifeProbabilityChart(box, { plot: r.life.plot, curves: r.life.curves, labels, scale: ctx.lifeScale, selected, suspensions: r.life.suspensions }, options) : null;
+    case 'hazard':
+      return r.life ? hazardChart(box, { curves: r.life.curves, labels, selected }, options) : null;
+    case 'return-period':
+      return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates, selected }, options) : null;
+    case 'capability-histogram': {
+      const ev = r.evidence;
+      const ce = ev?.candidates.find((c) => c.family === selected);
+      if (!r.capability || !ev || !ce) return null;
+      return capabilityHistogramChart(box, { histogram: ce.histogram, densities: ev.densities, lsl: r.capability.lsl, usl: r.capability.usl, target: r.capability.target, dataMin: ev.min, dataMax: ev.max, selected }, options);
+    }
+  }
+}

@@ -1,0 +1,120 @@
+/**
+ * The trade workflows in a real browser (issue 4): for each demo, open it, see its decision
+ * section, change one setting, export the HTML report and find the section there. Screenshots at
+ * 1366×768 and 1920×1080 into test-output/ (git-ignored).
+ */
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { CHROMIUM, CHROMIUM_ARGS, ROOT, SKIP_BROWSER, ensureClientBuilt, startServer, type RunningServer } from './server-process.js';
+
+const OUT = join(ROOT, 'test-output');
+
+describe.skipIf(SKIP_BROWSER)('trade workflows on the page', () => {
+  let server: RunningServer;
+  let browser: Browser;
+  let page: Page;
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    mkdirSync(OUT, { recursive: true });
+    await ensureClientBuilt();
+    server = await startServer();
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    const context = await browser.newContext({ viewport: { width: 1366, height: 768 }, acceptDownloads: true });
+    page = await context.newPage();
+    page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+    page.on('console', (m) => {
+      if (m.type() === 'error') problems.push(m.text());
+    });
+    await page.goto(server.url);
+  }, 180_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  const waitDone = (what: RegExp) =>
+    page.waitForFunction((src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''), what.source, { timeout: 120_000 });
+
+  async function exportReport(name: string): Promise<string> {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, name);
+    await download.saveAs(file);
+    return readFileSync(file, 'utf8');
+  }
+
+  async function shots(name: string): Promise<void> {
+    await page.locator('#decision').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, `${name}-1366x768.png`) });
+    await page.setViewportSize({ width: 1920, height: 1080 });
+    await page.waitForTimeout(400);
+    await page.locator('#decision').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, `${name}-1920x1080.png`) });
+    await page.screenshot({ path: join(OUT, `${name}-1920-full.png`), fullPage: true });
+    await page.setViewportSize({ width: 1366, height: 768 });
+    await page.waitForTimeout(300);
+  }
+
+  it('opens on the bearing life test with its status column applied and B10 shown; B-life percents change; the report has the life section', { timeout: 240_000 }, async () => {
+    await waitDone(/^Done: .* 30 values/);
+    await page.waitForSelector('[data-block="life"]');
+    // datasets/README.md: 22 failed, 8 censored.
+    await expect(page.locator('[data-block="life"]').textContent()).resolves.toMatch(/30 units on test: 22 failed, 8 suspended/);
+    await expect(page.locator('[data-block="life"] table').first().textContent()).resolves.toContain('B10');
+    expect(await page.locator('#status-select').inputValue()).toBe('3');
+    await expect(page.locator('#demo-settings').textContent()).resolves.toMatch(/^Demo settings: /);
+    expect(await page.locator('[data-slot="life-probability"] circle[data-kind="point"]').count()).toBe(22);
+    await page.screenshot({ path: join(OUT, 'life-open-1366x768.png') });
+    await page.fill('#blife-input', '1, 10');
+    await page.dispatchEvent('#blife-input', 'change');
+    await page.waitForFunction(() => [...document.querySelectorAll('[data-block="life"] table th[scope="row"]')].map((t) => t.textContent).join(',') === 'B1,B10', undefined, { timeout: 60_000 });
+    await page.selectOption('#life-scale-select', 'lognormal');
+    await expect(page.locator('[data-slot="life-probability"] svg > text').first().textContent()).resolves.toMatch(/lognormal/);
+    const html = await exportReport('report-life.html');
+    expect(html).toContain('data-block="life"');
+    expect(html).toContain('B1</th>');
+    expect(html).toMatch(/Caution: /);
+    expect(html).not.toMatch(/<script/i);
+    await shots('life');
+  });
+
+  it('river peaks: return levels with intervals, plotting position selector, GEV sign note; the report has the flood section', { timeout: 240_000 }, async () => {
+    await page.click('#demo-list button[data-name="river-peaks"]');
+    await waitDone(/^Done: .* 60 values/);
+    await page.waitForSelector('[data-block="flood"]');
+    const text = (await page.locator('[data-block="flood"]').textContent()) ?? '';
+    expect(text).toMatch(/ξ > 0/);
+    expect(text).toMatch(/Chance in 50 years/);
+    expect(text).toMatch(/far beyond/);
+    await expect(page.locator('[data-block="trend"]').textContent()).resolves.toMatch(/Mann–Kendall/);
+    await page.selectOption('#plotpos-select', 'cunnane');
+    await page.waitForFunction(() => /Cunnane/i.test(document.querySelector('[data-block="flood"]')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    const html = await exportReport('report-flood.html');
+    expect(html).toContain('data-block="flood"');
+    expect(html).toContain('data-block="sensitivity"');
+    await shots('flood');
+  });
+
+  it('shaft diameter: spec limits, indices with intervals, normality gate and resolution warning; changing USL reruns; the report has the capability section', { timeout: 240_000 }, async () => {
+    await page.click('#demo-list button[data-name="shaft-diameter"]');
+    await waitDone(/^Done: .* 125 values/);
+    await page.waitForSelector('[data-block="capability"]');
+    const text = (await page.locator('[data-block="capability"]').textContent()) ?? '';
+    expect(text).toMatch(/Normality gate/);
+    expect(text).toMatch(/Gauge resolution/);
+    expect(text).toMatch(/Ppk/);
+    expect(text).toMatch(/Cpk/);
+    expect(await page.locator('[data-slot="capability-histogram"] line[data-kind="limit"]').count()).toBe(3);
+    await page.fill('#usl-input', '25.012');
+    await page.dispatchEvent('#usl-input', 'change');
+    await page.waitForFunction(() => /USL 25\.012/.test(document.querySelector('[data-block="capability"]')?.textContent ?? ''), undefined, { timeout: 60_000 });
+    const html = await exportReport('report-capability.html');
+    expect(html).toContain('data-block="capability"');
+    expect(html).toMatch(/lower confidence bound|lower bound/i);
+    await shots('capability');
+    expect(problems).toEqual([]);
+  });
+});
