@@ -14,7 +14,9 @@
  *  4. Bootstrap: B = 999 Anderson–Darling replicates for each of the five families at n = 1000, over
  *     the server's worker_threads pool (server/pool.ts) with 1 and 2 workers; the reports must be
  *     identical.
- *  5. Checks that the CLI's JSON report (streamed CSV reader, prepared sample) equals, to 1e-12
+ *  5. Checks the hot paths against their straightforward forms: prepareSample's sort vs the
+ *     built-in sort (element for element) and each family's A² from the batch logCdfSfInto vs
+ *     per-point logCdf/logSf (10^4 and 10^6 rows); and checks that the CLI's JSON report (streamed CSV reader, prepared sample) equals, to 1e-12
  *     relative in every number, the analysis of a plain JS array read the straightforward way
  *     (split lines, Number() of each cell) for every n.
  *  6. When `python3` with SciPy is present: scripts/bench-scipy.py on the same 10^6-row file (five
@@ -34,9 +36,13 @@ import { cpus, loadavg } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import {
+  DEFAULT_FAMILIES,
   analyze,
   analyzeDataset,
+  andersonDarlingStatistic,
   createRng,
+  getFamily,
+  prepareSample,
   finishAnalysis,
   planAnalysis,
   type AnalysisReport,
@@ -198,6 +204,34 @@ function check(label: string, a: unknown, b: unknown): boolean {
   return ok;
 }
 
+/**
+ * The hot paths against their straightforward forms on the same data: the sample sorted by
+ * prepareSample vs the built-in sort, and each family's A² from the batch form (logCdfSfInto)
+ * vs per-point logCdf/logSf calls.
+ */
+function hotPathChecks(label: string, values: readonly number[]): void {
+  const sample = prepareSample(values);
+  const plainSorted = Float64Array.from(values).sort();
+  let sortOk = sample.sorted.length === plainSorted.length;
+  for (let i = 0; sortOk && i < plainSorted.length; i++) sortOk = Object.is(sample.sorted[i], plainSorted[i]);
+  const a2s: Record<string, number> = {};
+  const plain: Record<string, number> = {};
+  for (const name of DEFAULT_FAMILIES) {
+    const family = getFamily(name);
+    if (family.applicable(sample)) continue;
+    const fit = family.fit(sample);
+    if (!fit.ok) continue;
+    const dist = family.make(fit.parameters);
+    a2s[name] = andersonDarlingStatistic(dist, sample.sorted);
+    plain[name] = andersonDarlingStatistic({ logCdf: (x) => dist.logCdf(x), logSf: (x) => dist.logSf(x) }, sample.sorted);
+  }
+  if (!sortOk) {
+    notes.push(`${label}: prepareSample order DIFFERS from Float64Array.prototype.sort`);
+    process.exitCode = 1;
+  }
+  check(`${label}: sorted sample ${sortOk ? 'same as the built-in sort' : 'DIFFERENT'}; A² of each family, batch vs per-point logCdf/logSf`, a2s, plain);
+}
+
 // ---------------------------------------------------------------- in-process
 function inProcess(what: string, f: () => unknown, warm: number, reps: number, target: string): void {
   for (let k = 0; k < warm; k++) f();
@@ -300,6 +334,10 @@ async function main(): Promise<void> {
     const plain = analyzeDataset({ values: plainValues(file) });
     check(`n = ${n}: CLI (streamed reader) vs analyzeDataset of a plain array`, cli, plain);
   }
+
+  log('hot paths vs straightforward forms:');
+  hotPathChecks('n = 10^4', plainValues(files[1] as string));
+  if (!QUICK) hotPathChecks('n = 10^6', plainValues(files[3] as string));
 
   log('in-process, warm:');
   const v4 = plainValues(files[1] as string);
