@@ -7,13 +7,11 @@
  * 75:399-404 [from memory]); when there is none, the fit says so with `converged: false`.
  * The Anderson–Darling p-value is by parametric bootstrap (no table).
  */
-import type { Rng } from '../random/index.js';
-import type { Sample } from '../sample.js';
 import { IDENTITY, LOG } from '../optimize/index.js';
 import { lognormal } from './lognormal.js';
 import { POSITIVE, REAL } from './parameters.js';
 import type { Family, Parameters } from './types.js';
-import { applicableThreshold, fitWithThreshold, makeThreshold, randomThreshold, type ThresholdSpec } from './weibull3.js';
+import { thresholdFamily, type ThresholdSpec } from './weibull3.js';
 
 const SPEC: ThresholdSpec = {
   name: 'lognormal3',
@@ -36,14 +34,4 @@ const SPEC: ThresholdSpec = {
   regimeWarnings: () => [],
 };
 
-export const lognormal3: Family = Object.freeze({
-  name: 'lognormal3',
-  label: 'three-parameter lognormal',
-  parameterNames: Object.freeze(['meanlog', 'sdlog', 'threshold']),
-  parameterBounds: Object.freeze({ meanlog: REAL, sdlog: POSITIVE, threshold: REAL }),
-  estimatedParameters: 3,
-  make: (p: Parameters) => makeThreshold(SPEC, p),
-  applicable: (s: Sample) => applicableThreshold(SPEC, s),
-  fit: (s: Sample) => fitWithThreshold(SPEC, s),
-  random: (p: Parameters, rng: Rng, n: number) => randomThreshold(SPEC, p, rng, n),
-});
+export const lognormal3: Family = thresholdFamily(SPEC);

@@ -320,15 +320,19 @@ const SPEC: ThresholdSpec = {
   },
 };
 
+/** The `Family` of a threshold model: the base family's parameters followed by `threshold`. */
+export function thresholdFamily(spec: ThresholdSpec): Family {
+  return Object.freeze({
+    name: spec.name,
+    label: spec.label,
+    parameterNames: Object.freeze([...spec.baseNames, 'threshold']),
+    parameterBounds: Object.freeze({ ...spec.baseBounds, threshold: REAL }),
+    estimatedParameters: spec.baseNames.length + 1,
+    make: (p: Parameters) => makeThreshold(spec, p),
+    applicable: (s: Sample) => applicableThreshold(spec, s),
+    fit: (s: Sample) => fitWithThreshold(spec, s),
+    random: (p: Parameters, rng: Rng, n: number) => randomThreshold(spec, p, rng, n),
+  });
+}
 
-export const weibull3: Family = Object.freeze({
-  name: 'weibull3',
-  label: 'three-parameter Weibull',
-  parameterNames: Object.freeze(['shape', 'scale', 'threshold']),
-  parameterBounds: Object.freeze({ shape: POSITIVE, scale: POSITIVE, threshold: REAL }),
-  estimatedParameters: 3,
-  make: (p: Parameters) => makeThreshold(SPEC, p),
-  applicable: (s: Sample) => applicableThreshold(SPEC, s),
-  fit: (s: Sample) => fitWithThreshold(SPEC, s),
-  random: (p: Parameters, rng: Rng, n: number) => randomThreshold(SPEC, p, rng, n),
-});
+export const weibull3: Family = thresholdFamily(SPEC);
