@@ -8,6 +8,7 @@ import { axisLabel, sig } from '../src/format.js';
 import { createFrame, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { styleFor } from './palette.js';
+import { logTicks } from './life-probability.js';
 
 export interface HazardData {
   readonly curves: LifeSection['curves'];
@@ -42,7 +43,7 @@ export function hazardChart(container: Element, data: HazardData, options: Chart
       .attr('stroke-width', emph ? 3 : 1.5)
       .attr('stroke-dasharray', s.dash || null);
   }
-  drawXAxis(frame, axisBottom(x).ticks(5, '~s').tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
+  drawXAxis(frame, axisBottom(x).tickValues(logTicks(x.domain() as [number, number])).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
   drawYAxis(frame, axisLeft(y).ticks(5).tickFormat((v) => sig(Number(v), 3)), u ? `Failures per unit per ${u}` : 'Hazard rate');
   return frame.svg.node()!;
 }

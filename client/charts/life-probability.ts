@@ -4,7 +4,7 @@
  * scale against ln t, with the core's pointwise band as whiskers and each candidate's fitted line.
  * Everything drawn was computed by the core; this only draws.
  */
-import { axisBottom, axisLeft, scaleLinear } from 'd3';
+import { axisBottom, axisLeft, scaleLinear, scaleLog } from 'd3';
 import type { LifeSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
 import { createFrame, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
@@ -20,6 +20,18 @@ export interface LifeProbabilityData {
   readonly scale: LifeScale;
   readonly selected: string;
   readonly suspensions: number;
+}
+
+/** 1-2-5 ticks over a positive range (at least the decades). */
+export function logTicks([lo, hi]: readonly [number, number]): number[] {
+  const out: number[] = [];
+  for (let d = Math.floor(Math.log10(lo)); d <= Math.ceil(Math.log10(hi)); d++) {
+    for (const m of [1, 2, 5]) {
+      const v = m * 10 ** d;
+      if (v >= lo && v <= hi) out.push(Number(v.toPrecision(3)));
+    }
+  }
+  return out;
 }
 
 const PERCENTS = [0.1, 0.5, 1, 2, 5, 10, 20, 30, 50, 70, 90, 99];
@@ -62,7 +74,7 @@ export function lifeProbabilityChart(container: Element, data: LifeProbabilityDa
   const ysPts = pts.flatMap((p) => [p.yLower, p.yUpper, p.y]).filter(Number.isFinite);
   const y0 = Math.min(...ysPts, scaleY(0.01, data.scale));
   const y1 = Math.max(...ysPts, scaleY(0.9, data.scale));
-  const x = scaleLinear().domain([Math.min(...xs), Math.max(...xs)]).range([0, frame.innerWidth]);
+  const x = scaleLog().domain([Math.exp(Math.min(...xs)), Math.exp(Math.max(...xs))]).range([0, frame.innerWidth]);
   const y = scaleLinear().domain([y0, y1]).range([frame.innerHeight, 0]);
   const ticks = PERCENTS.filter((p) => scaleY(p / 100, data.scale) >= y0 && scaleY(p / 100, data.scale) <= y1);
   drawGrid(frame, ticks.map((p) => y(scaleY(p / 100, data.scale))));
@@ -76,14 +88,14 @@ export function lifeProbabilityChart(container: Element, data: LifeProbabilityDa
     g.append('path')
       .attr('data-kind', 'curve')
       .attr('data-family', c.family)
-      .attr('d', pathThrough(c.time.map((t, i) => [x(Math.log(t)), Number.isFinite(ys[i]!) ? y(ys[i]!) : Number.NaN] as const)))
+      .attr('d', pathThrough(c.time.map((t, i) => [x(t), Number.isFinite(ys[i]!) ? y(ys[i]!) : Number.NaN] as const)))
       .attr('fill', 'none')
       .attr('stroke', s.colour)
       .attr('stroke-width', emph ? 3 : 1.5)
       .attr('stroke-dasharray', s.dash || null);
   }
   pts.forEach((p, i) => {
-    const px = round(x(p.x));
+    const px = round(x(Math.exp(p.x)));
     if (Number.isFinite(p.yLower) && Number.isFinite(p.yUpper)) {
       g.append('line').attr('data-kind', 'band').attr('x1', px).attr('x2', px).attr('y1', round(y(p.yLower))).attr('y2', round(y(p.yUpper))).attr('stroke', INK.barStroke).attr('stroke-width', 1);
     }
@@ -91,8 +103,7 @@ export function lifeProbabilityChart(container: Element, data: LifeProbabilityDa
     g.append('circle').attr('data-kind', 'point').attr('cx', px).attr('cy', round(y(p.y))).attr('r', 3.5).attr('fill', INK.data)
       .append('title').text(pp ? `Failure at ${sig(pp.time)} ${options.units}: F = ${sig(pp.F, 3)} (band ${sig(pp.lower, 3)} to ${sig(pp.upper, 3)})` : '');
   });
-  const xTicks = x.ticks(6).map((v) => v);
-  drawXAxis(frame, axisBottom(x).tickValues(xTicks).tickFormat((v) => sig(Math.exp(Number(v)), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
+  drawXAxis(frame, axisBottom(x).tickValues(logTicks(x.domain() as [number, number])).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
   drawYAxis(frame, axisLeft(y).tickValues(ticks.map((p) => scaleY(p / 100, data.scale))).tickFormat((_v, i) => `${ticks[i]} %`), 'Fraction failed');
   return frame.svg.node()!;
 }

@@ -11,10 +11,10 @@ export const FAMILY_CHOICES: readonly { readonly name: FamilyName; readonly labe
   { name: 'weibull', label: 'Weibull', byDefault: true },
   { name: 'exponential', label: 'Exponential', byDefault: true },
   // Trade families (issue 4): extreme-value ones for annual maxima, threshold ones for life data.
-  { name: 'gumbel', label: 'Gumbel (annual maxima)', byDefault: false },
-  { name: 'gev', label: 'GEV (annual maxima)', byDefault: false },
-  { name: 'weibull3', label: 'Weibull with threshold', byDefault: false },
-  { name: 'lognormal3', label: 'Lognormal with threshold', byDefault: false },
+  { name: 'gumbel', label: 'Gumbel', byDefault: false },
+  { name: 'gev', label: 'GEV', byDefault: false },
+  { name: 'weibull3', label: 'Weibull, threshold', byDefault: false },
+  { name: 'lognormal3', label: 'Lognormal, threshold', byDefault: false },
 ];
 
 /** Families ticked when return periods are first given (the flood section's own models). */
