@@ -13,7 +13,7 @@
  * obtained by parametric bootstrap (bootstrap.ts).
  */
 import type { Distribution } from '../families/index.js';
-import type { LifeData } from './data.js';
+import { forEachFailureTime, type LifeData } from './data.js';
 
 export function censoredAndersonDarling(dist: Distribution, data: LifeData): number {
   const n = data.n;
@@ -22,33 +22,21 @@ export function censoredAndersonDarling(dist: Distribution, data: LifeData): num
   let prevLogU = Number.NEGATIVE_INFINITY; // ln a
   let prevLogV = 0; // ln(1 - a)
   let prevU = 0;
-  let i = 0;
   const segment = (k: number, logU: number, logV: number, u: number): number => {
     const l1 = k === 0 ? 0 : k * k * (logU - prevLogU);
     const l2 = k === 1 ? 0 : (1 - k) * (1 - k) * (prevLogV - logV);
     return l1 + l2 - (u - prevU);
   };
-  while (i < n) {
-    const t = data.times[i] as number;
-    const atRisk = n - i;
-    let d = 0;
-    let m = 0;
-    while (i + m < n && data.times[i + m] === t) {
-      d += data.failed[i + m] as number;
-      m++;
-    }
-    if (d > 0) {
-      const logU = dist.logCdf(t);
-      const logV = dist.logSf(t);
-      const u = Math.exp(logU);
-      total += segment(1 - S, logU, logV, u);
-      prevLogU = logU;
-      prevLogV = logV;
-      prevU = u;
-      S *= 1 - d / atRisk;
-    }
-    i += m;
-  }
+  forEachFailureTime(data, (t, atRisk, d) => {
+    const logU = dist.logCdf(t);
+    const logV = dist.logSf(t);
+    const u = Math.exp(logU);
+    total += segment(1 - S, logU, logV, u);
+    prevLogU = logU;
+    prevLogV = logV;
+    prevU = u;
+    S *= 1 - d / atRisk;
+  });
   if (S <= 0) {
     // K reaches 1 at the last failure: integrate to u = 1 with k = 1.
     total += -prevLogU - (1 - prevU);

@@ -105,3 +105,24 @@ function assemble(inTimes: LifeInput['times'], inFailed: LifeInput['failed']): L
     maxTime: times[n - 1] as number,
   };
 }
+
+/**
+ * Visit each distinct failure time in ascending order with the number at risk just before it and the
+ * number of failures at it (the Kaplan–Meier risk sets, Kaplan & Meier 1958); times at which only
+ * suspensions occur are passed over (they only shrink the later risk sets).
+ */
+export function forEachFailureTime(data: LifeData, visit: (time: number, atRisk: number, failures: number) => void): void {
+  const n = data.n;
+  let i = 0;
+  while (i < n) {
+    const t = data.times[i] as number;
+    let d = 0;
+    let m = 0;
+    while (i + m < n && data.times[i + m] === t) {
+      d += data.failed[i + m] as number;
+      m++;
+    }
+    if (d > 0) visit(t, n - i, d);
+    i += m;
+  }
+}

@@ -16,7 +16,7 @@
  */
 import { betaQuantile } from '../evidence/index.js';
 import { normalQuantile } from '../special/index.js';
-import type { LifeData } from './data.js';
+import { forEachFailureTime, type LifeData } from './data.js';
 
 export type PlotPositionMethod = 'johnson-benard' | 'kaplan-meier';
 
@@ -78,45 +78,32 @@ export function johnsonBenardPositions(data: LifeData, bandLevel: number): PlotP
 }
 
 export function kaplanMeierPositions(data: LifeData, bandLevel: number): PlotPoint[] {
-  const n = data.n;
   const z = normalQuantile(0.5 + bandLevel / 2);
   const out: PlotPoint[] = [];
   let S = 1;
   let logS = 0;
   let greenwood = 0;
-  let i = 0;
-  while (i < n) {
-    const t = data.times[i] as number;
-    const atRisk = n - i;
-    let d = 0;
-    let m = 0;
-    while (i + m < n && data.times[i + m] === t) {
-      d += data.failed[i + m] as number;
-      m++;
+  forEachFailureTime(data, (t, atRisk, d) => {
+    const sPrev = S;
+    S = S * (1 - d / atRisk);
+    logS += Math.log1p(-d / atRisk);
+    if (atRisk > d) greenwood += d / (atRisk * (atRisk - d));
+    const F = 1 - 0.5 * (sPrev + S);
+    let lower: number;
+    let upper: number;
+    if (S > 0 && logS < 0) {
+      // S^{exp(±z·σ/ln S)} with σ² = Greenwood's sum: the ln(-ln S) interval.
+      const w = (z * Math.sqrt(greenwood)) / logS;
+      const sLo = Math.exp(logS * Math.exp(-w));
+      const sHi = Math.exp(logS * Math.exp(w));
+      lower = 1 - Math.max(sLo, sHi);
+      upper = 1 - Math.min(sLo, sHi);
+    } else {
+      lower = S > 0 ? 0 : 1 - sPrev;
+      upper = 1;
     }
-    if (d > 0) {
-      const sPrev = S;
-      S = S * (1 - d / atRisk);
-      logS += Math.log1p(-d / atRisk);
-      if (atRisk > d) greenwood += d / (atRisk * (atRisk - d));
-      const F = 1 - 0.5 * (sPrev + S);
-      let lower: number;
-      let upper: number;
-      if (S > 0 && logS < 0) {
-        // S^{exp(±z·σ/ln S)} with σ² = Greenwood's sum: the ln(-ln S) interval.
-        const w = (z * Math.sqrt(greenwood)) / logS;
-        const sLo = Math.exp(logS * Math.exp(-w));
-        const sHi = Math.exp(logS * Math.exp(w));
-        lower = 1 - Math.max(sLo, sHi);
-        upper = 1 - Math.min(sLo, sHi);
-      } else {
-        lower = S > 0 ? 0 : 1 - sPrev;
-        upper = 1;
-      }
-      out.push({ time: t, F, lower: Math.min(lower, F), upper: Math.max(upper, F), rank: atRisk });
-    }
-    i += m;
-  }
+    out.push({ time: t, F, lower: Math.min(lower, F), upper: Math.max(upper, F), rank: atRisk });
+  });
   return out;
 }
 
