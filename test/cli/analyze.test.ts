@@ -1,37 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { spawn } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { runCli } from '../../cli/run.js';
+import { cli, root, scratchCsv } from '../helpers/cli.js';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
 const fixtures = join(root, 'test/fixtures/csv');
-const scratch = mkdtempSync(join(tmpdir(), 'plumbline-cli-'));
-
-/** Run the CLI from source (no build needed). */
-function cli(...args: string[]): Promise<{ status: number | null; stdout: string; stderr: string }> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'cli/main.ts', ...args], {
-      cwd: root,
-      env: { ...process.env, PLUMBLINE_DEBUG: '' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.setEncoding('utf8').on('data', (d: string) => (stdout += d));
-    child.stderr.setEncoding('utf8').on('data', (d: string) => (stderr += d));
-    child.on('error', reject);
-    child.on('close', (status) => resolve({ status, stdout, stderr }));
-  });
-}
-
-function tempCsv(name: string, text: string): string {
-  const path = join(scratch, name);
-  writeFileSync(path, text);
-  return path;
-}
+const tempCsv = scratchCsv('plumbline-cli-');
 
 describe.concurrent('plumbline analyze --json', () => {
   it('prints one JSON report with the required keys for a dataset', async () => {

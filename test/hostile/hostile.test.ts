@@ -7,7 +7,6 @@
  * trace, an internal error (CLI exit 70) or a 5xx (issue 6; exit codes per cli/run.ts, statuses per
  * server/API.md). Nothing may be dropped without being counted: rowsRead = n + Σ skipped.
  */
-import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -15,6 +14,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { InputError, analyze, readColumn, type AnalysisReport, type ErrorPlace } from '../../core/index.js';
 import { runCli as runCliInProcess } from '../../cli/run.js';
+import { cli } from '../helpers/cli.js';
 import { createApp, type PlumblineApp } from '../../server/app.js';
 import { CASES, type HostileCase } from './cases.js';
 
@@ -115,16 +115,10 @@ interface CliRun {
   readonly stderr: string;
 }
 
-function runCli(args: readonly string[]): Promise<CliRun> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'cli/main.ts', ...args], { cwd: process.cwd(), env: { ...process.env, PLUMBLINE_DEBUG: '' } });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.on('data', (d: Buffer) => (stdout += d.toString()));
-    child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-    child.on('error', reject);
-    child.on('close', (code) => resolve({ code, stdout, stderr }));
-  });
+/** The spawned CLI (test/helpers/cli.ts), its exit status as `code`. */
+async function runCli(args: readonly string[]): Promise<CliRun> {
+  const r = await cli(...args);
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
 /** CLI arguments for a case. */
