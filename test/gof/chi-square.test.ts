@@ -2,18 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { getFamily, prepareSample, type FamilyName } from '../../core/index.js';
 import { chiSquareTest } from '../../core/gof/index.js';
 import { fixture, rel } from './fixture.js';
+import { CHI_SQUARE_UPPER_CRITICAL } from '../helpers/chi-square-table.js';
 
 // Upper critical values of chi-square, from shared/references.md (SciPy chi2.ppf, agreeing with
-// NIST/SEMATECH e-Handbook §1.3.6.7.4), printed to 4 decimals.
-const TABLE: [number, number, number, number][] = [
-  [1, 2.7055, 3.8415, 6.6349],
-  [2, 4.6052, 5.9915, 9.2103],
-  [3, 6.2514, 7.8147, 11.3449],
-  [5, 9.2364, 11.0705, 15.0863],
-  [6, 10.6446, 12.5916, 16.8119],
-  [10, 15.9872, 18.307, 23.2093],
-  [29, 39.0875, 42.557, 49.5879],
-];
+// NIST/SEMATECH e-Handbook §1.3.6.7.4), printed to 4 decimals (test/helpers/chi-square-table.ts).
+const TABLE = CHI_SQUARE_UPPER_CRITICAL;
 
 /** A sample of n values and a model with m "estimated" parameters giving dof = k - 1 - m. */
 function testWithDof(dof: number, alpha: number) {

@@ -15,6 +15,7 @@ import {
   logGammaQ,
 } from '../../core/special/index.js';
 import { relErr, section, TOL, worst } from './fixture.js';
+import { CHI_SQUARE_UPPER_CRITICAL } from '../helpers/chi-square-table.js';
 
 function check(name: string, f: (u: number, v: number) => number, tol = TOL): void {
   const s = section(name);
@@ -84,15 +85,7 @@ describe('chi-square distribution', () => {
     check('chiSquareIsf', chiSquareIsf);
   });
   it('upper critical values in ../shared/references.md (SciPy chi2.ppf, agree with NIST/SEMATECH §1.3.6.7.4), to the 4 printed decimals', () => {
-    const table: [number, number, number, number][] = [
-      [1, 2.7055, 3.8415, 6.6349],
-      [2, 4.6052, 5.9915, 9.2103],
-      [3, 6.2514, 7.8147, 11.3449],
-      [5, 9.2364, 11.0705, 15.0863],
-      [6, 10.6446, 12.5916, 16.8119],
-      [10, 15.9872, 18.307, 23.2093],
-      [29, 39.0875, 42.557, 49.5879],
-    ];
+    const table = CHI_SQUARE_UPPER_CRITICAL; // test/helpers/chi-square-table.ts
     for (const [df, a10, a05, a01] of table) {
       expect(chiSquareIsf(0.1, df)).toBeCloseTo(a10, 4);
       expect(chiSquareIsf(0.05, df)).toBeCloseTo(a05, 4);
