@@ -5,7 +5,7 @@ import { hazardChart } from '../charts/hazard.js';
 import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
 import type { ChartOptions } from '../charts/options.js';
 import { returnPeriodChart } from '../charts/return-period.js';
-import type { ChartSlot } from './decision.js';
+import { capital, type ChartSlot } from './decision.js';
 
 export interface SlotContext {
   readonly report: DatasetReport & { readonly evidence?: Evidence };
@@ -16,7 +16,7 @@ export interface SlotContext {
 /** Draw one slot into `box`; null when the report lacks what it needs. */
 export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
   const r = ctx.report;
-  const labels = Object.fromEntries(r.candidates.map((c) => [c.family, c.label]));
+  const labels = Object.fromEntries(r.candidates.map((c) => [c.family, capital(c.label)]));
   const selected = r.candidates.some((c) => c.family === ctx.selected) ? ctx.selected : (r.candidates[0]?.family ?? '');
   switch (slot) {
     case 'life-probability':
@@ -24,12 +24,12 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
     case 'hazard':
       return r.life ? hazardChart(box, { curves: r.life.curves, labels, selected }, options) : null;
     case 'return-period':
-      return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates, selected }, options) : null;
+      return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates.map((c) => ({ ...c, label: capital(c.label) })), selected }, options) : null;
     case 'capability-histogram': {
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);
       if (!r.capability || !ev || !ce) return null;
-      return capabilityHistogramChart(box, { histogram: ce.histogram, densities: ev.densities, lsl: r.capability.lsl, usl: r.capability.usl, target: r.capability.target, dataMin: ev.min, dataMax: ev.max, selected }, options);
+      return capabilityHistogramChart(box, { histogram: ce.histogram, densities: { ...ev.densities, curves: ev.densities.curves.map((c) => ({ ...c, label: capital(c.label) })) }, lsl: r.capability.lsl, usl: r.capability.usl, target: r.capability.target, dataMin: ev.min, dataMax: ev.max, selected }, options);
     }
   }
 }

@@ -31,6 +31,8 @@ export interface DecisionBlock {
   readonly charts: readonly ChartSlot[];
 }
 
+/** A model's label with a capital first letter, as in the ranking table. */
+export const capital = (label: string): string => (label ? label[0]!.toUpperCase() + label.slice(1) : label);
 const pct = (c: number): string => `${sig(100 * c, 3)} %`;
 const end = (v: number | null | undefined, open: string): string => (v === null || v === undefined ? open : sig(v));
 const withU = (v: string, u: string): string => (u ? `${v} ${u}` : v);
@@ -122,7 +124,7 @@ function capabilityBlock(r: DatasetReport, u: string): DecisionBlock | null {
       rows: cap.percentile.indices.map((x) => [x.name, sig(x.estimate, 4)]),
     });
   }
-  const ppmRows = r.candidates.filter((c) => c.ppmOutOfSpec).map((c) => [c.label, c.rejectedBy.length === 0 ? 'passes' : `rejected (${c.rejectedBy.join(', ')})`, sig(c.ppmOutOfSpec!.belowLsl, 3), sig(c.ppmOutOfSpec!.aboveUsl, 3), sig(c.ppmOutOfSpec!.total, 3)]);
+  const ppmRows = r.candidates.filter((c) => c.ppmOutOfSpec).map((c) => [capital(c.label), c.rejectedBy.length === 0 ? 'passes' : `rejected (${c.rejectedBy.join(', ')})`, sig(c.ppmOutOfSpec!.belowLsl, 3), sig(c.ppmOutOfSpec!.aboveUsl, 3), sig(c.ppmOutOfSpec!.total, 3)]);
   ppmRows.push(['Normal, overall mean and sd', '', sig(cap.normalPpm.belowLsl, 3), sig(cap.normalPpm.aboveUsl, 3), sig(cap.normalPpm.total, 3)]);
   tables.push({ caption: 'Parts per million outside the tolerance from each fitted model\'s tails.', head: ['Model', 'Tests', 'Below LSL', 'Above USL', 'Total ppm'], rows: ppmRows });
   if (cap.resolution.warning) lines.push({ kind: 'warning', text: `Gauge resolution: ${cap.resolution.warning}` });
@@ -153,7 +155,7 @@ function sensitivityBlock(r: DatasetReport): DecisionBlock | null {
   if (!rows || rows.length === 0) return null;
   const families: string[] = [];
   const labels = new Map<string, string>();
-  for (const row of rows) for (const v of row.values) if (!labels.has(v.family)) { labels.set(v.family, v.label); families.push(v.family); }
+  for (const row of rows) for (const v of row.values) if (!labels.has(v.family)) { labels.set(v.family, capital(v.label)); families.push(v.family); }
   const none = rows.some((x) => x.basis !== 'passing');
   const lines: DecisionLine[] = [
     { kind: none ? 'warning' : 'note', text: none ? 'No model passes every test: the numbers below are shown under all of them, none of which describes the data well.' : 'Only models that no test rejects are listed. A wide spread means the choice of model, not the data, decides the number.' },
@@ -177,7 +179,8 @@ function sensitivityBlock(r: DatasetReport): DecisionBlock | null {
 
 /** The blocks to show, in order, for the selected candidate. Empty when the report has no workflow section. */
 export function decisionBlocks(r: DatasetReport, selected: string | null, units: string): DecisionBlock[] {
-  const c = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
+  const found = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
+  const c = found ? { ...found, label: capital(found.label) } : undefined;
   const u = units.trim();
   return [lifeBlock(r, c, u), floodBlock(r, c, u), capabilityBlock(r, u), trendBlock(r), sensitivityBlock(r)].filter((b): b is DecisionBlock => b !== null);
 }
