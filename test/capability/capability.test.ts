@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
   c4,
@@ -12,11 +11,11 @@ import {
 import { normal } from '../../core/families/index.js';
 import type { Distribution } from '../../core/families/index.js';
 import { prepareSample } from '../../core/sample.js';
+import { readFixture, relFloored as rel } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/capability.py (SciPy 1.17.1).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/capability.json', import.meta.url), 'utf8'));
+const fx = readFixture('capability.json');
 
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 const byName = (list: readonly { name: string }[], name: string) => {
   const r = list.find((x) => x.name === name);
   if (!r) throw new Error(`no ${name}`);

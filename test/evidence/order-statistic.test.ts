@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 // The evidence folder's own entry: these helpers are not part of the core's public API.
 import { betaQuantile, incompleteBeta, orderStatisticInterval } from '../../core/evidence/index.js';
+import { rel } from '../helpers/fixtures.js';
 
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 
 describe('Beta quantiles for the order-statistic band', () => {
   it('matches SciPy beta.ppf', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { getFamily, prepareSample, createRng, type Distribution } from '../../core/index.js';
 import { probabilityPlot } from '../../core/evidence/index.js';
+import { relFloored as rel } from '../helpers/fixtures.js';
 
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
 function dist(family: 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential', p: Record<string, number>): Distribution {
   return getFamily(family).make(p);

@@ -1,10 +1,10 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { floodFrequency } from '../../core/flood/index.js';
+import { readFixture } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/flood.py (mpmath-refined GEV and Gumbel log-likelihoods of
 // the Port Pirie series, Coles 2001 Example 3.4.1).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/flood.json', import.meta.url), 'utf8'));
+const fx = readFixture('flood.json');
 
 describe('floodFrequency on Port Pirie annual maxima, 1923-1987', () => {
   const gevRef = fx.fits.find((x: { name: string }) => x.name === 'port-pirie');

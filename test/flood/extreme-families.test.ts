@@ -1,12 +1,12 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { fitGev, getFamily, gev, gumbel } from '../../core/families/index.js';
 import { createRng } from '../../core/random/index.js';
 import { prepareSample } from '../../core/sample.js';
+import { readFixture } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/flood.py (SciPy 1.17.1 gumbel_r / genextreme with c = -ξ,
 // mpmath at 40-50 digits for the distribution functions and for the tightly refined MLEs).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/flood.json', import.meta.url), 'utf8'));
+const fx = readFixture('flood.json');
 const rel = (a: number, b: number): number => (a === b ? 0 : Math.abs(a - b) / Math.max(Math.abs(b), 1e-300));
 
 describe('GEV and Gumbel distribution functions vs mpmath (fixture)', () => {

@@ -1,14 +1,13 @@
-import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { fitGev, getFamily, gumbel } from '../../core/families/index.js';
 import { exceedanceRisk, periodForRisk, plottingPositions, returnLevels } from '../../core/flood/index.js';
 import { prepareSample } from '../../core/sample.js';
+import { readFixture, relFloored as rel } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/flood.py (SciPy 1.17.1: fitted isf(1/T); profile-likelihood
 // intervals by scipy.optimize Nelder–Mead inner maxima and brentq on the deviance).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/flood.json', import.meta.url), 'utf8'));
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
+const fx = readFixture('flood.json');
 const periods = [2, 10, 50, 100, 1000];
 
 function fitOf(f: { family: string; values: number[] }) {

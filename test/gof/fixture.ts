@@ -1,5 +1,5 @@
 /** The committed SciPy/mpmath fixture of scripts/fixtures/gof.py. */
-import { readFileSync } from 'node:fs';
+import { readFixture, rel } from '../helpers/fixtures.js';
 
 export interface GofFixture {
   chiSquareCritical: { df: number; alpha: number; critical: number }[];
@@ -29,9 +29,7 @@ export interface GofFixture {
   samples: { family: string; parameters: Record<string, number>; values: number[]; a2: number }[];
 }
 
-export const fixture: GofFixture = JSON.parse(readFileSync(new URL('../fixtures/gof.json', import.meta.url), 'utf8')) as GofFixture;
+export const fixture: GofFixture = readFixture('gof.json') as GofFixture;
 
-/** Relative difference. */
-export function rel(a: number, b: number): number {
-  return Math.abs(a - b) / Math.abs(b);
-}
+/** Relative difference |a - b| / |b|. */
+export { rel };

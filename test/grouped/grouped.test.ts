@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { type FamilyName, getFamily, normal } from '../../core/families/index.js';
 import {
@@ -11,11 +10,11 @@ import {
   mergeCells,
   prepareGrouped,
 } from '../../core/grouped/index.js';
+import { readFixture, relFloored as rel } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/grouped.py (SciPy 1.17.1: the same grouped likelihood
 // maximised by scipy.optimize.minimize Nelder–Mead then Newton polishing on central differences; chi-square with the same merging and refitting rule).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/grouped.json', import.meta.url), 'utf8'));
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
+const fx = readFixture('grouped.json');
 const num = (v: number | string): number => (v === 'Infinity' ? Number.POSITIVE_INFINITY : v === '-Infinity' ? Number.NEGATIVE_INFINITY : (v as number));
 
 function dataOf(s: { lower: (number | string)[]; upper: (number | string)[]; count: number[] }) {

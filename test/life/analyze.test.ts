@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { analyzeLife } from '../../core/life/index.js';
+import { readFixture } from '../helpers/fixtures.js';
 
-const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
+const fx = readFixture('life.json');
 const nist = { times: fx.nist.times as number[], failed: fx.nist.failed as number[] };
 
 describe('analyzeLife', () => {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
 import { getFamily } from '../../core/families/index.js';
 import { bLife, fitCensored, prepareLifeData, reliabilityAt, parameterInterval, LIFE_FAMILIES, type CensoredFitSuccess } from '../../core/life/index.js';
+import { readFixture } from '../helpers/fixtures.js';
 
 // Fixture: scripts/fixtures/life.py (profile bounds solved with mpmath + SciPy brentq).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
+const fx = readFixture('life.json');
 const nist = prepareLifeData({ times: fx.nist.times, failed: fx.nist.failed });
 const sim = prepareLifeData({ times: fx.simulated.times, failed: fx.simulated.failed });
 const fitOf = (fam: (typeof LIFE_FAMILIES)[number], d = nist): CensoredFitSuccess => {

@@ -1,13 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { readFileSync } from 'node:fs';
 import { getFamily } from '../../core/families/index.js';
 import { prepareSample } from '../../core/sample.js';
 import { censoredLogLikelihood, fitCensored, prepareLifeData, LIFE_FAMILIES, type LifeFamilyName } from '../../core/life/index.js';
+import { expectReferenceFit, readFixture, rel } from '../helpers/fixtures.js';
 
 // Fixture: scripts/fixtures/life.py (SciPy 1.17.1 CensoredData fits refined by mpmath score roots).
-const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
-const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
+const fx = readFixture('life.json');
 
 describe('censored maximum likelihood', () => {
   const nist = prepareLifeData({ times: fx.nist.times, failed: fx.nist.failed });
@@ -31,15 +30,7 @@ describe('censored maximum likelihood', () => {
         // SciPy's own fit is compared at 1e-5 (the tolerance its optimiser reached here).
         const ref = fx[set].fits[fam];
         const data = prepareLifeData({ times: fx[set].times, failed: fx[set].failed });
-        const f = fitCensored(fam, data);
-        expect(f.ok).toBe(true);
-        if (!f.ok) return;
-        expect(f.converged).toBe(true);
-        for (const [k, v] of Object.entries(ref.parameters as Record<string, number>)) {
-          expect(rel(f.parameters[k] as number, v)).toBeLessThan(1e-8);
-          expect(rel(f.parameters[k] as number, ref.scipy[k])).toBeLessThan(1e-5);
-        }
-        expect(rel(f.logLikelihood, ref.logLikelihood)).toBeLessThan(1e-12);
+        expectReferenceFit(fitCensored(fam, data), ref);
       });
     }
   }

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
 import { getFamily } from '../../core/families/index.js';
 import { buildLifeData, censoredAndersonDarling, censoredGofBootstrap, fitCensored, prepareLifeData } from '../../core/life/index.js';
 import { censoringDistribution } from '../../core/life/bootstrap.js';
+import { readFixture } from '../helpers/fixtures.js';
 
-const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
+const fx = readFixture('life.json');
 // D1 check set (references.md, SciPy): A² at the MLE for each family.
 const D1 = [12.4, 15.1, 9.8, 22.7, 18.3, 11.6, 14.9, 27.5, 10.2, 13.7, 19.8, 8.9, 16.4, 24.1, 12.9, 17.6, 14.2, 31.3, 11.1, 15.8];
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
 import { johnsonBenardPositions, kaplanMeierPositions, plotPositions, prepareLifeData, weibullScaleY } from '../../core/life/index.js';
+import { readFixture } from '../helpers/fixtures.js';
 
-const fx = JSON.parse(readFileSync(new URL('../fixtures/life.json', import.meta.url), 'utf8'));
+const fx = readFixture('life.json');
 
 describe('probability-plot positions with suspensions', () => {
   it('with no suspensions, Johnson ranks are 1..n and Benard gives (i - 0.3)/(n + 0.4)', () => {
