@@ -212,3 +212,19 @@ export function blockHtml(b: DecisionBlock, chartSvg: (slot: ChartSlot) => strin
   const charts = b.charts.map((s) => `<figure>${chartSvg(s)}</figure>`).join('');
   return `<section class="decision" data-block="${e(b.id)}"><h3>${e(b.title)}</h3><p class="small">${e(b.lead)}</p>${tables}${charts}<ul>${lines}</ul></section>`;
 }
+
+/** One sentence with the first decision number, for the top of the page (null when there is none). */
+export function headline(r: DatasetReport, selected: string | null, units: string): string | null {
+  const found = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
+  if (!found) return null;
+  const label = capital(found.label);
+  const u = units.trim();
+  const b = found.bLives?.[0];
+  if (r.life && b) return `B${sig(b.percent, 3)} life under ${label}: ${withU(sig(b.estimate), u)} (two-sided ${pct(b.confidence)} bounds ${sig(b.lower)} to ${sig(b.upper)}), from ${r.life.failures} failures and ${r.life.suspensions} suspensions.`;
+  const rl = found.returnLevels?.[found.returnLevels.length - 1];
+  if (r.flood && rl) return `${sig(rl.period)}-year level under ${label}: ${withU(sig(rl.estimate), u)} (${pct(rl.confidence)} interval ${end(rl.lower, 'open')} to ${end(rl.upper, 'unbounded')})${rl.beyondRecord ? ', far beyond the record' : ''}.`;
+  const cap = r.capability;
+  const ppk = cap?.overall.find((x) => x.name === 'Ppk');
+  if (cap && ppk) return `Ppk ${sig(ppk.estimate, 3)} (lower bound ${sig(ppk.lower, 3)})${cap.normality && !cap.normality.passes ? '; the normal model fails its test, see the percentile method' : ''}; ${sig(found.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}.`;
+  return null;
+}

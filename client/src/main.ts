@@ -5,7 +5,7 @@
  * results to views.
  */
 import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry, type DemoSettings } from './api.js';
-import { blockHtml, blockNode, decisionBlocks } from './decision.js';
+import { blockHtml, blockNode, decisionBlocks, headline } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { candidateCells } from './candidate-cells.js';
@@ -124,6 +124,7 @@ const $ = {
   usl: byId<HTMLInputElement>('usl-input'),
   target: byId<HTMLInputElement>('target-input'),
   decisionName: byId('decision-name'),
+  headline: byId('headline'),
   decisionBody: byId('decision-body'),
   decisionEmpty: byId('decision-empty'),
   lifeScaleRow: byId('life-scale-row'),
@@ -744,9 +745,16 @@ function lifeScale(): LifeScale {
 function renderDecision(): void {
   const resp = state.response;
   clear($.decisionBody);
-  if (!resp) return;
+  if (!resp) {
+    $.headline.hidden = true;
+    return;
+  }
   const blocks = decisionBlocks(resp, state.selected, units());
   $.decisionEmpty.hidden = blocks.length > 0;
+  const head = headline(resp, state.selected, units());
+  $.headline.hidden = head === null;
+  clear($.headline);
+  if (head !== null) $.headline.append(el('strong', {}, 'Decision number: '), head, ' ', el('a', { href: '#decision' }, 'All numbers and cautions (5)'));
   $.lifeScaleRow.hidden = !resp.life;
   $.decisionName.textContent = displayLabel(resp.candidates.find((c) => c.family === state.selected)?.label ?? 'the selected model');
   const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };

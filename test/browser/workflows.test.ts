@@ -65,6 +65,8 @@ describe.skipIf(SKIP_BROWSER)('trade workflows on the page', () => {
     await expect(page.locator('[data-block="life"]').textContent()).resolves.toMatch(/30 units on test: 22 failed, 8 suspended/);
     await expect(page.locator('[data-block="life"] table').first().textContent()).resolves.toContain('B10');
     expect(await page.locator('#status-select').inputValue()).toBe('3');
+    // The first decision number is stated above the table, with its bounds.
+    await expect(page.locator('#headline').textContent()).resolves.toMatch(/B10 life under Weibull: [\d.]+ h \(two-sided 90 % bounds/);
     await expect(page.locator('#demo-settings').textContent()).resolves.toMatch(/^Demo settings: /);
     expect(await page.locator('[data-slot="life-probability"] circle[data-kind="point"]').count()).toBe(22);
     await page.screenshot({ path: join(OUT, 'life-open-1366x768.png') });
