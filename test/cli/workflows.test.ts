@@ -5,19 +5,25 @@
 import { describe, expect, it } from 'vitest';
 import { join } from 'node:path';
 import { runCli } from '../../cli/run.js';
-import { cli, root, scratchCsv } from '../helpers/cli.js';
+import { cli, root, scratchCsv, type SpawnedCli } from '../helpers/cli.js';
 
 const tempCsv = scratchCsv('plumbline-workflows-');
 
 const ISSUE2_KEYS = ['software', 'n', 'summary', 'options', 'rankingRule', 'candidates', 'notApplicable', 'warnings', 'methods', 'input'];
 
+/** Spawn `plumbline` with JSON output: no stderr, exit 0, and every issue-2 key in the report. */
+async function analyzeJson(...args: string[]): Promise<{ r: SpawnedCli; j: any }> {
+  const r = await cli(...args);
+  expect(r.stderr).toBe('');
+  expect(r.status).toBe(0);
+  const j = JSON.parse(r.stdout);
+  for (const k of ISSUE2_KEYS) expect(j).toHaveProperty(k);
+  return { r, j };
+}
+
 describe.concurrent('plumbline analyze: trade workflows', () => {
   it('life data: bearing-life.csv with --censor-column status --b-life 10 (datasets/README.md: 30 units, 22 failed, 8 censored at 2500 h)', async () => {
-    const r = await cli('analyze', 'datasets/bearing-life.csv', '--column', 'hours', '--censor-column', 'status', '--b-life', '10', '--replicates', '19', '--json');
-    expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
-    const j = JSON.parse(r.stdout);
-    for (const k of ISSUE2_KEYS) expect(j).toHaveProperty(k);
+    const { r, j } = await analyzeJson('analyze', 'datasets/bearing-life.csv', '--column', 'hours', '--censor-column', 'status', '--b-life', '10', '--replicates', '19', '--json');
     expect(j.dataKind).toBe('censored');
     expect(j.n).toBe(30);
     expect(j.life.failures).toBe(22);
@@ -49,11 +55,7 @@ describe.concurrent('plumbline analyze: trade workflows', () => {
   });
 
   it('flood: river-peaks.csv with --return-periods and --design-life (datasets/README.md: 60 annual peaks)', async () => {
-    const r = await cli('analyze', 'datasets/river-peaks.csv', '--column', 'peak_flow_m3s', '--order-column', 'year', '--return-periods', '2,10,100', '--design-life', '50', '--replicates', '19', '--json');
-    expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
-    const j = JSON.parse(r.stdout);
-    for (const k of ISSUE2_KEYS) expect(j).toHaveProperty(k);
+    const { j } = await analyzeJson('analyze', 'datasets/river-peaks.csv', '--column', 'peak_flow_m3s', '--order-column', 'year', '--return-periods', '2,10,100', '--design-life', '50', '--replicates', '19', '--json');
     expect(j.options.families).toContain('gev');
     expect(j.flood.recordLength).toBe(60);
     for (const c of j.candidates) {
@@ -78,11 +80,7 @@ describe.concurrent('plumbline analyze: trade workflows', () => {
   });
 
   it('capability: shaft-diameter.csv with --lsl/--usl --subgroup-column (datasets/README.md: 25 subgroups of 5)', async () => {
-    const r = await cli('analyze', 'datasets/shaft-diameter.csv', '--column', 'diameter_mm', '--lsl', '24.99', '--usl', '25.01', '--subgroup-column', 'subgroup', '--json');
-    expect(r.stderr).toBe('');
-    expect(r.status).toBe(0);
-    const j = JSON.parse(r.stdout);
-    for (const k of ISSUE2_KEYS) expect(j).toHaveProperty(k);
+    const { j } = await analyzeJson('analyze', 'datasets/shaft-diameter.csv', '--column', 'diameter_mm', '--lsl', '24.99', '--usl', '25.01', '--subgroup-column', 'subgroup', '--json');
     const cap = j.capability;
     expect(cap.n).toBe(125);
     expect(cap.within.subgroups).toBe(25);
