@@ -244,7 +244,8 @@ function applyDemoSettings(settings: DemoSettings | undefined): void {
   $.relTime.value = list(f['reliabilityTimes']);
   $.periods.value = list(f['returnPeriods']);
   $.designLife.value = typeof f['designLife'] === 'number' ? String(f['designLife']) : '';
-  if (typeof f['plottingPosition'] === 'string') $.plotPos.value = f['plottingPosition'];
+  $.plotPos.value = typeof f['plottingPosition'] === 'string' ? f['plottingPosition'] : 'weibull';
+  $.bounds.value = f['boundMethod'] === 'fisher-matrix' ? 'fisher-matrix' : 'likelihood-ratio';
   $.lsl.value = typeof f['lsl'] === 'number' ? String(f['lsl']) : '';
   $.usl.value = typeof f['usl'] === 'number' ? String(f['usl']) : '';
   $.target.value = typeof f['target'] === 'number' ? String(f['target']) : '';
