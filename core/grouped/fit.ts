@@ -11,21 +11,14 @@
  * represented one neighbouring class width beyond their finite limit), repeated in proportion to
  * the counts (at most about 2000 pseudo-values).
  */
-import { getFamily, type Family, type FamilyName, type NotApplicable, type Parameters } from '../families/index.js';
+import { getFamily, type Family, type FamilyName, type FitSuccess, type NotApplicable, type Parameters } from '../families/index.js';
 import { IDENTITY, LOG, maximize, type Transform } from '../optimize/index.js';
 import { prepareSample } from '../sample.js';
 import { logClassProbability } from './class-probability.js';
 import type { GroupedData } from './classes.js';
 
-export interface GroupedFitSuccess {
-  readonly ok: true;
-  readonly family: FamilyName;
-  readonly parameters: Parameters;
-  readonly logLikelihood: number;
-  readonly iterations: number;
-  readonly converged: boolean;
-  readonly method: string;
-}
+/** A family's fit result (core/families) without warnings; `logLikelihood` is the grouped one. */
+export type GroupedFitSuccess = Omit<FitSuccess, 'warnings'>;
 
 export type GroupedFitOutcome = GroupedFitSuccess | NotApplicable;
 
