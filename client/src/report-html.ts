@@ -87,12 +87,15 @@ export function buildReportHtml(ctx: ReportContext): string {
     ['Model shown in the charts', selected ? `${selected.label} (rank ${selected.rank})` : ctx.selected],
   ];
 
+  // One reason shared by every candidate (e.g. censored data) is printed once below the table.
+  const reasons = new Set(r.candidates.map((c) => (c.chiSquare.computable ? '' : c.chiSquare.reason)));
+  const sharedReason = reasons.size === 1 && !reasons.has('') ? [...reasons][0]! : null;
   const rows = r.candidates
     .map((c) => {
       const k = candidateCells(c);
       const chi = k.chiComputable
         ? `<td class="num">${e(k.chiSquare)}<div class="small">${e(k.chiSquareNote)}</div></td><td class="num">${e(k.dof)}</td><td class="num">${e(k.chiP)}</td>`
-        : `<td colspan="3">${e(`not computed: ${k.chiSquareNote}`)}</td>`;
+        : `<td colspan="3">${e(sharedReason !== null ? 'not computed (reason below the table)' : `not computed: ${k.chiSquareNote}`)}</td>`;
       return (
         `<tr${c.family === ctx.selected ? ' class="selected"' : ''}><td class="num">${e(k.rank)}</td><td><strong>${e(k.model)}</strong></td>` +
         `<td>${e(k.parameters)}</td><td class="num">${e(k.logLikelihood)}</td><td class="num">${e(k.aicc)}<div class="small">${e(k.deltaAicc)}</div></td>` +
@@ -104,7 +107,8 @@ export function buildReportHtml(ctx: ReportContext): string {
     .join('');
   const table =
     `<table class="ranking"><thead><tr><th>#</th><th>Model</th><th>Parameters</th><th>ln L</th><th>AICc (Δ)</th><th>χ²</th>` +
-    `<th>dof [k−1]</th><th>p (χ²) [k−1]</th><th>A²</th><th>p (A²)</th><th>Verdict at α = ${e(o.alpha)}</th></tr></thead><tbody>${rows}</tbody></table>`;
+    `<th>dof [k−1]</th><th>p (χ²) [k−1]</th><th>A²</th><th>p (A²)</th><th>Verdict at α = ${e(o.alpha)}</th></tr></thead><tbody>${rows}</tbody></table>` +
+    (sharedReason !== null ? `<p class="small">Chi-square not computed for any model: ${e(sharedReason)}</p>` : '');
 
   const na =
     r.notApplicable.length === 0
