@@ -12,7 +12,7 @@ import { normalQuantile } from '../special/index.js';
 import { IDENTITY, LOG, between, numericalGradient, observedInformation, profileInterval } from '../optimize/index.js';
 import type { LifeData } from './data.js';
 import { logLikelihoodOf, type CensoredFitSuccess } from './fit.js';
-import { lifeModel, toParameters, toVector } from './models.js';
+import { lifeModel, toParameters, toVector, type LifeFamilyName } from './models.js';
 
 export type BoundMethod = 'likelihood-ratio' | 'fisher-matrix';
 
@@ -38,22 +38,30 @@ export interface ReliabilityAt extends BoundedEstimate {
 const LR_TEXT = 'likelihood ratio (profile likelihood), two-sided';
 const FM_TEXT = 'Fisher matrix (observed information, delta method on ln x_p; on x_p for the normal model), two-sided';
 
+/**
+ * The log-likelihood `ll` at the parameters whose p-quantile is x_p and whose other parameters are
+ * `others` (models.ts `fromQuantile`); -∞ where those parameters are not finite or not valid.
+ */
+function logLikelihoodAtQuantile(family: LifeFamilyName, ll: (v: Float64Array) => number, others: Float64Array, p: number, xp: number): number {
+  const model = lifeModel(family);
+  try {
+    const params = model.fromQuantile(Array.from(others), p, xp);
+    for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
+    getFamily(family).make(params);
+    return ll(toVector(model, params));
+  } catch {
+    return Number.NEGATIVE_INFINITY;
+  }
+}
+
 /** The log-likelihood with parameter vector [x_p, other parameters...] for a fixed p. */
 function quantileParametrised(fit: CensoredFitSuccess, data: LifeData, p: number) {
   const model = lifeModel(fit.family);
   const ll = logLikelihoodOf(fit.family, data);
-  const fam = getFamily(fit.family);
   return (v: Float64Array): number => {
     const xp = v[0] as number;
     if (!Number.isFinite(xp) || (model.quantileScale === 'log' && !(xp > 0))) return Number.NEGATIVE_INFINITY;
-    try {
-      const params = model.fromQuantile(Array.from(v.subarray(1)), p, xp);
-      for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
-      fam.make(params);
-      return ll(toVector(model, params));
-    } catch {
-      return Number.NEGATIVE_INFINITY;
-    }
+    return logLikelihoodAtQuantile(fit.family, ll, v.subarray(1), p, xp);
   };
 }
 
@@ -137,14 +145,7 @@ export function reliabilityAt(fit: CensoredFitSuccess, data: LifeData, time: num
   const ll = (v: Float64Array): number => {
     const p = v[0] as number;
     if (!(p > 0 && p < 1)) return Number.NEGATIVE_INFINITY;
-    try {
-      const params = model.fromQuantile(Array.from(v.subarray(1)), p, time);
-      for (const k of model.names) if (!Number.isFinite(params[k] as number)) return Number.NEGATIVE_INFINITY;
-      fam.make(params);
-      return llFull(toVector(model, params));
-    } catch {
-      return Number.NEGATIVE_INFINITY;
-    }
+    return logLikelihoodAtQuantile(fit.family, llFull, v.subarray(1), p, time);
   };
   const o = othersOf(fit);
   const p0 = dist.cdf(time);
