@@ -84,7 +84,7 @@ function floodBlock(r: DatasetReport, c: DatasetCandidate | undefined, u: string
     tables.push({
       caption: `Chance of at least one exceedance within a design life of ${f.designLife.years} years, 1 − (1 − 1/T)^L (independent years).`,
       head: ['Return period T [years]', `Chance in ${f.designLife.years} years`],
-      rows: f.designLife.exceedance.map((x) => [sig(x.period), pct(x.probability)]),
+      rows: f.designLife.exceedance.map((x) => [sig(x.period), x.probability > 0.999 ? '> 99.9 %' : pct(x.probability)]),
     });
   }
   lines.push({ kind: 'note', text: `Plotting positions: ${f.plottingPositions.description}.` });
