@@ -121,6 +121,16 @@ export interface MethodNote {
   readonly source: string;
 }
 
+/** The analysis options as resolved (defaults filled in) and echoed in the report. */
+export interface ReportOptions {
+  readonly families: readonly FamilyName[];
+  readonly alpha: number;
+  readonly bins: number | null;
+  readonly pMethod: PMethod;
+  readonly bootstrapReplicates: number;
+  readonly seed: number;
+}
+
 export interface AnalysisReport {
   readonly software: { readonly name: 'plumbline'; readonly version: string };
   readonly n: number;
@@ -131,14 +141,7 @@ export interface AnalysisReport {
     readonly sd: number;
     readonly distinct: number;
   };
-  readonly options: {
-    readonly families: readonly FamilyName[];
-    readonly alpha: number;
-    readonly bins: number | null;
-    readonly pMethod: PMethod;
-    readonly bootstrapReplicates: number;
-    readonly seed: number;
-  };
+  readonly options: ReportOptions;
   readonly rankingRule: string;
   readonly candidates: readonly CandidateReport[];
   readonly notApplicable: readonly NotApplicableReport[];
