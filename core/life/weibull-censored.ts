@@ -4,8 +4,9 @@
  *   g(c) = Σ_all t^c ln t / Σ_all t^c - 1/c - (1/r) Σ_failures ln t = 0,   scale = (Σ_all t^c / r)^(1/c),
  * with r failures. Times enter as y = ln t - ln max t ≤ 0 (g is unchanged by the shift), so the
  * weights e^{c·y} lie in (0, 1]. g is increasing (g' = weighted variance of y + 1/c²); solved by
- * Newton kept inside a bracket found by doubling/halving, falling back to bisection in ln c.
+ * Newton kept inside a bracket found by doubling/halving (core/special newtonBracketed).
  */
+import { newtonBracketed } from '../special/index.js';
 import type { LifeData } from './data.js';
 
 export interface WeibullCensoredFit {
@@ -57,25 +58,24 @@ export function fitWeibullCensored(data: LifeData, relTol = 1e-13): WeibullCenso
   if (!(gd(lo)[0] <= 0 && gd(hi)[0] >= 0)) {
     return { shape: Number.NaN, scale: Number.NaN, iterations: it, converged: false };
   }
-  let c = Math.sqrt(lo * hi);
-  let converged = false;
-  for (let k = 0; k < 200; k++) {
-    it++;
-    const [g, dg] = gd(c);
-    if (g === 0) {
-      converged = true;
-      break;
-    }
-    if (g < 0) lo = c;
-    else hi = c;
-    let next = c - g / dg;
-    if (!(next > lo && next < hi) || !Number.isFinite(next)) next = Math.sqrt(lo * hi);
-    const done = Math.abs(next - c) <= relTol * c || (hi - lo) <= relTol * c;
-    c = next;
-    if (done) {
-      converged = true;
-      break;
-    }
+  let c = lo;
+  let converged = true;
+  if (lo < hi) {
+    // core/special newtonBracketed (rtsafe): Newton steps, bisection whenever a step leaves the bracket.
+    const out = { f: 0, df: 0 };
+    const root = newtonBracketed(
+      (x) => {
+        [out.f, out.df] = gd(x);
+        return out;
+      },
+      lo,
+      hi,
+      Math.sqrt(lo * hi),
+      { relTol },
+    );
+    c = root.root;
+    converged = root.converged;
+    it += root.iterations;
   }
   let s0 = 0;
   for (let i = 0; i < n; i++) s0 += (counts[i] as number) * Math.exp(c * (y[i] as number));
