@@ -46,7 +46,7 @@ export const CENSORED_AD_METHOD =
   'Anderson–Darling A² on the Kaplan–Meier estimate (Anderson–Darling weight on the product-limit process, cf. Koziol & Green 1976), p-value by parametric bootstrap that refits every replicate and reproduces the censoring: suspensions censored at their own run times, failures at a time drawn from the Kaplan–Meier censoring distribution beyond their failure time (Type I censoring is reproduced exactly; with staggered withdrawals the p-value is approximate and somewhat liberal: 8.6 % of true-model p-values fell at or below 0.05 in a check here)';
 
 export function censoredGofBootstrap(fit: CensoredFitSuccess, data: LifeData, opts: BootstrapOptions = {}): CensoredGofResult {
-  const B = opts.replicates ?? 200;
+  const B = opts.replicates ?? 999;
   const seed = opts.seed ?? 20261201;
   const fam = getFamily(fit.family);
   const observed = censoredAndersonDarling(fam.make(fit.parameters), data);

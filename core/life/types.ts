@@ -17,7 +17,7 @@ export interface LifeOptions {
   readonly boundMethod?: BoundMethod;
   /** Times at which to report reliability with bounds (default none). */
   readonly reliabilityTimes?: readonly number[];
-  /** Bootstrap replicates for the censored Anderson–Darling p-value (default 200; 0 turns it off). */
+  /** Bootstrap replicates for the censored Anderson–Darling p-value (default 999, as for complete samples; 0 turns it off). */
   readonly bootstrapReplicates?: number;
   readonly seed?: number;
   /** Probability-plot positions (default 'johnson-benard'). */

@@ -17,7 +17,7 @@ import { quantityNumber, sensitivityRows } from './sensitivity.js';
 import type { DatasetCandidate, DatasetOptions, DatasetReport, LifeSection } from './types.js';
 
 /** Censored bootstrap replicates when none are asked for (each replicate refits a censored MLE). */
-export const DEFAULT_LIFE_REPLICATES = 200;
+export const DEFAULT_LIFE_REPLICATES = 999;
 
 const BOUND_TEXT = {
   'likelihood-ratio': 'likelihood-ratio (profile likelihood of the B-life, χ²₁; Meeker & Escobar 1998 §8.3)',
