@@ -15,6 +15,7 @@
  * d2 = 1.128379, 1.692569, 2.058751, 2.325929 for n = 2..5, and against an independent SciPy
  * integration (scripts/fixtures/capability.py).
  */
+import { CompensatedSum } from '../compensated.js';
 import { InputError } from '../errors.js';
 import { lnGamma, normalCdf } from '../special/index.js';
 
@@ -47,23 +48,18 @@ export function d2(n: number): number {
   // The integrand is even; integrate [0, 12] in 96 panels and double.
   const panels = 96;
   const h = 12 / panels;
-  let s = 0;
-  let c = 0;
+  const sum = new CompensatedSum();
   for (let k = 0; k < panels; k++) {
     const mid = (k + 0.5) * h;
     for (let j = 0; j < GL_X.length; j++) {
       const dx = 0.5 * h * (GL_X[j] as number);
       const w = 0.5 * h * (GL_W[j] as number);
       for (const x of [mid - dx, mid + dx]) {
-        const term = w * integrand(x);
-        const t = s + term;
-        if (Math.abs(s) >= Math.abs(term)) c += s - t + term;
-        else c += term - t + s;
-        s = t;
+        sum.add(w * integrand(x));
       }
     }
   }
-  const value = 2 * (s + c);
+  const value = 2 * sum.value;
   d2Cache.set(n, value);
   return value;
 }

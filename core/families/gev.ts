@@ -29,6 +29,7 @@
 import { maximize, between, IDENTITY, LOG } from '../optimize/index.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
+import { CompensatedSum } from '../compensated.js';
 import { lnGamma, log1mexp } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { EULER_GAMMA, gumbel, powerOfTwoRescale } from './gumbel.js';
@@ -187,18 +188,15 @@ function applicable(sample: Sample): NotApplicable | null {
 export function gevLogLikelihood(sorted: ArrayLike<number>, mu: number, sigma: number, xi: number): number {
   if (!(sigma > 0) || !Number.isFinite(mu) || !Number.isFinite(xi)) return Number.NEGATIVE_INFINITY;
   const n = sorted.length;
-  let s = 0;
-  let c = 0;
+  const sum = new CompensatedSum();
   for (let i = 0; i < n; i++) {
     const h = hOf(xi, ((sorted[i] as number) - mu) / sigma);
     if (h !== h) return Number.NEGATIVE_INFINITY;
     const v = -(1 + xi) * h - Math.exp(-h);
     if (!Number.isFinite(v)) return Number.NEGATIVE_INFINITY;
-    const t = s + v;
-    c += Math.abs(s) >= Math.abs(v) ? s - t + v : v - t + s;
-    s = t;
+    sum.add(v);
   }
-  return -n * Math.log(sigma) + s + c;
+  return -n * Math.log(sigma) + sum.value;
 }
 
 /**

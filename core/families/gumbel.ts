@@ -15,6 +15,7 @@
  */
 import type { Rng } from '../random/index.js';
 import { prepareSample, type Sample } from '../sample.js';
+import { CompensatedSum } from '../compensated.js';
 import { log1mexp } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { positiveRootNewton } from './newton.js';
@@ -121,16 +122,12 @@ function sums(sorted: Float64Array, xmin: number, xbar: number, beta: number, ou
 
 /** ln L of a Gumbel model at (μ, β) (compensated). */
 export function gumbelLogLikelihood(sorted: ArrayLike<number>, mu: number, beta: number): number {
-  let s = 0;
-  let c = 0;
+  const sum = new CompensatedSum();
   for (let i = 0; i < sorted.length; i++) {
     const z = ((sorted[i] as number) - mu) / beta;
-    const v = -z - Math.exp(-z);
-    const t = s + v;
-    c += Math.abs(s) >= Math.abs(v) ? s - t + v : v - t + s;
-    s = t;
+    sum.add(-z - Math.exp(-z));
   }
-  return -sorted.length * Math.log(beta) + s + c;
+  return -sorted.length * Math.log(beta) + sum.value;
 }
 
 /**

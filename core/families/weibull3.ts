@@ -21,6 +21,7 @@
  * The Anderson–Darling p-value of a threshold model is by parametric bootstrap (no table).
  */
 import type { Rng } from '../random/index.js';
+import { kahanSum } from '../compensated.js';
 import { prepareSample, type Sample } from '../sample.js';
 import { below, brentRoot, maximize, LOG, type Transform } from '../optimize/index.js';
 import { checkApplicable } from './applicability.js';
@@ -123,16 +124,7 @@ function logLik3(spec: ThresholdSpec, sorted: Float64Array): (v: Float64Array) =
     } catch {
       return Number.NEGATIVE_INFINITY;
     }
-    let s = 0;
-    let c = 0;
-    for (let i = 0; i < sorted.length; i++) {
-      const x = d.logPdf(sorted[i] as number);
-      const t = s + x;
-      if (Math.abs(s) >= Math.abs(x)) c += s - t + x;
-      else c += x - t + s;
-      s = t;
-    }
-    const r = s + c;
+    const r = kahanSum(sorted, (x) => d.logPdf(x));
     return Number.isNaN(r) ? Number.NEGATIVE_INFINITY : r;
   };
 }

@@ -20,6 +20,7 @@ import { InputError } from '../errors.js';
 import { getFamily, type FamilyName, type Parameters } from '../families/index.js';
 import { between, IDENTITY, LOG, numericalGradient, observedInformation, profileInterval, type Transform } from '../optimize/index.js';
 import type { Sample } from '../sample.js';
+import { CompensatedSum } from '../compensated.js';
 import { normalQuantile } from '../special/index.js';
 
 export type ReturnLevelMethod = 'profile' | 'delta';
@@ -77,16 +78,13 @@ export function gevQuantileOffset(xi: number, y: number): number {
 }
 
 function sumLogPdf(sorted: Float64Array, logPdf: (x: number) => number): number {
-  let s = 0;
-  let c = 0;
+  const sum = new CompensatedSum();
   for (let i = 0; i < sorted.length; i++) {
     const v = logPdf(sorted[i] as number);
     if (!Number.isFinite(v)) return Number.NEGATIVE_INFINITY;
-    const t = s + v;
-    c += Math.abs(s) >= Math.abs(v) ? s - t + v : v - t + s;
-    s = t;
+    sum.add(v);
   }
-  return s + c;
+  return sum.value;
 }
 
 function validatePeriods(periods: readonly number[]): void {

@@ -12,6 +12,7 @@
  * the counts (at most about 2000 pseudo-values).
  */
 import { getFamily, type Family, type FamilyName, type FitSuccess, type NotApplicable, type Parameters } from '../families/index.js';
+import { CompensatedSum } from '../compensated.js';
 import { IDENTITY, LOG, maximize, type Transform } from '../optimize/index.js';
 import { prepareSample } from '../sample.js';
 import { logClassProbability } from './class-probability.js';
@@ -30,18 +31,15 @@ export function groupedLogLikelihood(family: Family, parameters: Parameters, dat
   } catch {
     return Number.NEGATIVE_INFINITY;
   }
-  let s = 0;
-  let c = 0;
+  const sum = new CompensatedSum();
   for (let j = 0; j < data.classes; j++) {
     const cnt = data.count[j] as number;
     if (cnt === 0) continue;
     const v = cnt * logClassProbability(d, data.lower[j] as number, data.upper[j] as number);
     if (!(v > Number.NEGATIVE_INFINITY)) return Number.NEGATIVE_INFINITY;
-    const t = s + v;
-    c += Math.abs(s) >= Math.abs(v) ? s - t + v : v - t + s;
-    s = t;
+    sum.add(v);
   }
-  return s + c;
+  return sum.value;
 }
 
 /** Representative points of the classes, for the starting values. */
