@@ -7,9 +7,8 @@
 import { CompensatedSum } from '../compensated.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
-import { normalCdf, normalIsf, normalLogCdf, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
+import { normalCdf, normalIsf, normalLogCdf, normalLogCdfSfAt, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
-import { standardNormalLogCdfSfAt } from './normal.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
 
@@ -56,9 +55,9 @@ class LognormalDistribution implements Distribution {
   logSf(x: number): number {
     return normalLogSf(this.z(x));
   }
-  /** logCdf and logSf of each x together (see standardNormalLogCdfSfAt). */
+  /** logCdf and logSf of each x together, from one tail evaluation each (special normalLogCdfSfAt). */
   logCdfSfInto(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
-    for (let i = 0; i < xs.length; i++) standardNormalLogCdfSfAt(this.z(xs[i] as number), outLogCdf, outLogSf, i);
+    for (let i = 0; i < xs.length; i++) normalLogCdfSfAt(this.z(xs[i] as number), outLogCdf, outLogSf, i);
   }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;

@@ -7,7 +7,7 @@
  */
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
-import { log1mexp, normalCdf, normalIsf, normalLogCdf, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
+import { normalCdf, normalIsf, normalLogCdf, normalLogCdfSfAt, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
 import { checkApplicable } from './applicability.js';
 import { mleStandardDeviation, sampleMean } from './moments.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
@@ -16,27 +16,6 @@ import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Paramet
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 const SUPPORT: Interval = Object.freeze({ lower: Number.NEGATIVE_INFINITY, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ mean: REAL, sd: POSITIVE });
-
-/**
- * ln Φ(z) into outLogCdf[i] and ln(1 − Φ(z)) into outLogSf[i], with one tail-accurate evaluation:
- * the tail (the side at most ½) from ln Φ(−|z|), the other side as ln(1 − tail) = log1mexp(ln tail),
- * which is accurate because 1 − tail ≥ ½. Used by the batch form of the normal and lognormal
- * families (the Anderson–Darling hot loop).
- */
-export function standardNormalLogCdfSfAt(z: number, outLogCdf: Float64Array, outLogSf: Float64Array, i: number): void {
-  if (z <= 0) {
-    const lc = normalLogCdf(z);
-    outLogCdf[i] = lc;
-    outLogSf[i] = log1mexp(lc);
-  } else if (z > 0) {
-    const ls = normalLogSf(z);
-    outLogSf[i] = ls;
-    outLogCdf[i] = log1mexp(ls);
-  } else {
-    outLogCdf[i] = Number.NaN;
-    outLogSf[i] = Number.NaN;
-  }
-}
 
 class NormalDistribution implements Distribution {
   readonly family = 'normal' as const;
@@ -69,11 +48,11 @@ class NormalDistribution implements Distribution {
   logSf(x: number): number {
     return normalLogSf((x - this.mu) / this.sigma);
   }
-  /** logCdf and logSf of each x together (see standardNormalLogCdfSfAt). */
+  /** logCdf and logSf of each x together, from one tail evaluation each (special normalLogCdfSfAt). */
   logCdfSfInto(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
     const mu = this.mu;
     const sigma = this.sigma;
-    for (let i = 0; i < xs.length; i++) standardNormalLogCdfSfAt(((xs[i] as number) - mu) / sigma, outLogCdf, outLogSf, i);
+    for (let i = 0; i < xs.length; i++) normalLogCdfSfAt(((xs[i] as number) - mu) / sigma, outLogCdf, outLogSf, i);
   }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;

@@ -3,7 +3,7 @@
  * its algorithm and published source.
  */
 export { erf, erfc, erfcx } from './erf.js';
-export { normalCdf, normalLogCdf, normalLogPdf, normalLogSf, normalPdf, normalPdfOverCdf, normalSf } from './normal.js';
+export { normalCdf, normalLogCdf, normalLogCdfSfAt, normalLogPdf, normalLogSf, normalPdf, normalPdfOverCdf, normalSf } from './normal.js';
 export { normalIsf, normalLogIsf, normalLogQuantile, normalQuantile } from './normal-quantile.js';
 export { lnGamma, lnGamma1p, lnGammaStirlingCorrection } from './gamma-function.js';
 export { digamma, trigamma } from './polygamma.js';

@@ -21,16 +21,34 @@ function centralHalf(z: number): number {
   return 0.5 * erfSmall(z * SQRT1_2);
 }
 
+/** |t| above which Φ(−t) underflows: Φ(−38.5) < 2^-1074. */
+const T_UNDERFLOW = 38.5;
+/**
+ * e^{−h²/2} at h = k/16, k = 0..616 (h up to T_UNDERFLOW): the exact part of Cody's split, looked up
+ * instead of evaluated. h² = k²/256 is exact, so entry k is bit for bit Math.exp(−0.5·h·h).
+ */
+const EXP_HALF_H2 = new Float64Array(Math.ceil(T_UNDERFLOW * 16) + 1);
+for (let k = 0; k < EXP_HALF_H2.length; k++) EXP_HALF_H2[k] = Math.exp(-(k * k) / 512);
+
 /** e^{−z²/2} with full relative precision. */
 function expMinusHalfSquare(z: number): number {
-  const h = Math.trunc(z * 16) / 16;
-  return Math.exp(-0.5 * h * h) * Math.exp(-0.5 * (z - h) * (z + h));
+  const t = Math.abs(z);
+  const k = Math.trunc(t * 16);
+  const h = k / 16;
+  const exact = k < EXP_HALF_H2.length ? (EXP_HALF_H2[k] as number) : Math.exp(-0.5 * h * h);
+  return exact * Math.exp(-0.5 * (t - h) * (t + h));
+}
+
+/** Φ(−t) for t > Z_SMALL, given e = erfcx(t/√2). */
+function lowerTailFrom(t: number, e: number): number {
+  if (t > T_UNDERFLOW) return 0;
+  return 0.5 * e * expMinusHalfSquare(t);
 }
 
 /** Φ(−t) for t > Z_SMALL. */
 function lowerTail(t: number): number {
-  if (t > 38.5) return 0; // Φ(−38.5) < 2^-1074
-  return 0.5 * erfcxLarge(t * SQRT1_2) * expMinusHalfSquare(t);
+  if (t > T_UNDERFLOW) return 0;
+  return lowerTailFrom(t, erfcxLarge(t * SQRT1_2));
 }
 
 /** ln Φ(−t) for t > Z_SMALL. */
@@ -62,6 +80,35 @@ export function normalLogCdf(z: number): number {
 /** ln(1 − Φ(z)) = ln Φ(−z), finite and accurate for very large z. */
 export function normalLogSf(z: number): number {
   return normalLogCdf(-z);
+}
+
+/**
+ * ln Φ(z) into outLogCdf[i] and ln(1 − Φ(z)) into outLogSf[i] from one erf/erfcx evaluation, the
+ * same numbers as normalLogCdf(z) and normalLogSf(z) (bit for bit: the same operations, shared):
+ * near the centre ln(½ ± ½ erf(|z|/√2)); in a tail, t = |z|, the smaller side
+ * ln(½ erfcx(t/√2)) − t²/2 and the larger log1p(−½ erfcx(t/√2) e^{−t²/2}).
+ */
+export function normalLogCdfSfAt(z: number, outLogCdf: Float64Array, outLogSf: Float64Array, i: number): void {
+  if (z < -Z_SMALL || z > Z_SMALL) {
+    const t = Math.abs(z);
+    const e = erfcxLarge(t * SQRT1_2);
+    const small = Math.log(0.5 * e) - 0.5 * t * t;
+    const large = Math.log1p(-lowerTailFrom(t, e));
+    if (z < 0) {
+      outLogCdf[i] = small;
+      outLogSf[i] = large;
+    } else {
+      outLogCdf[i] = large;
+      outLogSf[i] = small;
+    }
+  } else if (z === z) {
+    const c = centralHalf(z);
+    outLogCdf[i] = Math.log(0.5 + c);
+    outLogSf[i] = Math.log(0.5 - c);
+  } else {
+    outLogCdf[i] = Number.NaN;
+    outLogSf[i] = Number.NaN;
+  }
 }
 
 /** Standard normal density φ(z), with e^{−z²/2} formed without rounding loss. */

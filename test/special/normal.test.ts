@@ -7,6 +7,7 @@ import {
   normalCdf,
   normalIsf,
   normalLogCdf,
+  normalLogCdfSfAt,
   normalLogIsf,
   normalLogQuantile,
   normalLogSf,
@@ -14,6 +15,9 @@ import {
   normalSf,
 } from '../../core/special/index.js';
 import { relErr, section, TOL, worst } from './fixture.js';
+
+/** Cody's first-interval edge in z (0.46875·√2), where the central and tail forms meet. */
+const Z_EDGE = 0.46875 * Math.SQRT2;
 
 function check1(name: string, f: (x: number) => number, tol = TOL): void {
   const s = section(name);
@@ -98,5 +102,35 @@ describe('normal quantile (Wichura 1988, AS 241) against SciPy ndtri / ndtri_exp
     expect(normalQuantile(1.5)).toBeNaN();
     expect(normalLogQuantile(0)).toBe(Number.POSITIVE_INFINITY);
     expect(normalLogQuantile(Number.NEGATIVE_INFINITY)).toBe(Number.NEGATIVE_INFINITY);
+  });
+});
+
+describe('normalLogCdfSfAt: ln Φ and ln(1 − Φ) at one z from one erfcx evaluation', () => {
+  const cdf = new Float64Array(1);
+  const sf = new Float64Array(1);
+  const both = (z: number): [number, number] => {
+    normalLogCdfSfAt(z, cdf, sf, 0);
+    return [cdf[0] as number, sf[0] as number];
+  };
+  it('equals normalLogCdf(z) and normalLogSf(z) bit for bit (z from -50 to 50 in steps of 1/64, random z, edges)', () => {
+    const zs: number[] = [0, -0, Z_EDGE, -Z_EDGE, Z_EDGE * (1 + 2 ** -52), 38.5, -38.5, 38.5000001, 1e6, -1e6, Infinity, -Infinity, NaN];
+    for (let k = -3200; k <= 3200; k++) zs.push(k / 64, k / 64 + 1e-9);
+    for (const z of zs) {
+      const [c, s] = both(z);
+      expect(Object.is(c, normalLogCdf(z)), `ln Φ(${z})`).toBe(true);
+      expect(Object.is(s, normalLogSf(z)), `ln(1 − Φ(${z}))`).toBe(true);
+    }
+    fc.assert(
+      fc.property(fc.double({ min: -60, max: 60, noNaN: true }), (z) => {
+        const [c, s] = both(z);
+        expect(Object.is(c, normalLogCdf(z))).toBe(true);
+        expect(Object.is(s, normalLogSf(z))).toBe(true);
+      }),
+      { seed: 20261201, numRuns: 5000 },
+    );
+  });
+  it('against SciPy log_ndtr / mpmath (test/fixtures/special.json) to 1e-12 relative, both sides', () => {
+    check1('normalLogCdf', (z) => both(z)[0]);
+    check1('normalLogCdf', (z) => both(-z)[1]);
   });
 });
