@@ -84,3 +84,20 @@ function gev(rng: Rng, mu: number, sigma: number, xi: number): number {
 //    intervals (hours) between failures of the air-conditioning of one aircraft, as shipped in
 //    R's boot package (`aircondit`).
 write('aircondit.csv', ['hours'], [3, 5, 7, 18, 43, 85, 91, 98, 100, 130, 230, 487].map((h) => [h]));
+
+// 6. inspection-classes.csv: GROUPED counts. An inspection crew's tally of 180 corrosion pit
+//    depths on a tank floor of 3.0 mm plate, in 0.25 mm classes from 0 to 3.0 mm (lower, upper,
+//    count): lognormal depths, median 0.8 mm, log-sd 0.45 (a depth beyond the plate is drawn again).
+{
+  const rng = createRng(SEED, 6);
+  const width = 0.25;
+  const classes = 12;
+  const counts = new Array<number>(classes).fill(0);
+  for (let p = 0; p < 180; p++) {
+    let depth: number;
+    do depth = 0.8 * Math.exp(0.45 * rng.normal());
+    while (depth >= classes * width);
+    counts[Math.floor(depth / width)]! += 1;
+  }
+  write('inspection-classes.csv', ['lower', 'upper', 'count'], counts.map((c, j) => [(j * width).toFixed(2), ((j + 1) * width).toFixed(2), c]));
+}

@@ -29,7 +29,8 @@ export interface DemoSettings {
  * Chosen for the invented scenarios of datasets/README.md: the bearing test's status column and
  * B10 (the usual bearing rating life), reliability at 1000 h; the river's years, common design
  * return periods including one far beyond the 60-year record; the shaft's drawing tolerance
- * 25 ± 0.010 mm (an invented tolerance) with its subgroups of five.
+ * 25 ± 0.010 mm (an invented tolerance) with its subgroups of five; the inspection tally is read as
+ * class limits with counts (the page recognises the lower, upper and count columns; no request fields).
  */
 export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
   'bearing-life': {
@@ -41,6 +42,11 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
     column: 'peak_flow_m3s',
     fields: { families: ['normal', 'lognormal', 'gamma', 'weibull', 'exponential', 'gumbel', 'gev'], orderColumn: 'year', returnPeriods: [2, 10, 50, 100, 200], designLife: 50, plottingPosition: 'gringorten', confidence: 0.9 },
     description: 'column peak_flow_m3s; the five general models plus Gumbel and GEV; year column year (trend check); return periods 2, 10, 50, 100, 200 years; design life 50 years; Gringorten plotting positions; 90 % intervals',
+  },
+  'inspection-classes': {
+    column: 'count',
+    fields: {},
+    description: 'class limits with counts: lower limit column lower, upper limit column upper, count column count (pit depths in mm); the five general models; the chi-square runs on the classes given',
   },
   'shaft-diameter': {
     column: 'diameter_mm',

@@ -5,16 +5,21 @@
  * chi-square approximation (Cochran 1954; common practice).
  */
 import { axisBottom, axisLeft, max as d3max, scaleBand, scaleLinear } from 'd3';
-import type { BinCountsEvidence } from '../src/types.js';
+import type { BinCountsRow } from '../src/types.js';
 import { sig } from '../src/format.js';
 import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, round } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
+/** A bin's counts; residual and contribution are shown when the core gave them (grouped cells carry only counts). */
+export type BinCountsChartRow = Omit<BinCountsRow, 'pearsonResidual' | 'contribution'> & Partial<Pick<BinCountsRow, 'pearsonResidual' | 'contribution'>>;
+
 export interface BinCountsChartData {
-  readonly bins: BinCountsEvidence;
+  readonly bins: { readonly rows: readonly BinCountsChartRow[] };
   readonly family: string;
   readonly label: string;
+  /** What a bar is: 'bin' (equal-probability bins, the default) or 'class' (grouped counts, merged classes). */
+  readonly cell?: 'bin' | 'class';
 }
 
 export const MIN_EXPECTED = 5;
@@ -22,11 +27,15 @@ export const MIN_EXPECTED = 5;
 export function binCountsChart(container: Element, data: BinCountsChartData, options: ChartOptions): SVGSVGElement {
   const rows = data.bins.rows;
   const style = styleFor(data.family);
-  const title = `Observed vs expected count per bin, ${data.label}`;
-  const worst = [...rows].sort((a, b) => Math.abs(b.pearsonResidual) - Math.abs(a.pearsonResidual))[0];
+  const cell = data.cell ?? 'bin';
+  const Cell = cell === 'bin' ? 'Bin' : 'Class';
+  const title = `Observed vs expected count per ${cell}, ${data.label}`;
+  const worst = rows.every((r) => r.pearsonResidual !== undefined)
+    ? [...rows].sort((a, b) => Math.abs(b.pearsonResidual ?? 0) - Math.abs(a.pearsonResidual ?? 0))[0]
+    : undefined;
   const description =
-    `${rows.length} bins. Bars: observed counts; marks: counts expected under the ${data.label} fit. ` +
-    (worst ? `Largest departure in bin ${worst.index + 1}: observed ${worst.observed}, expected ${sig(worst.expected, 3)}.` : '');
+    `${rows.length} ${cell === 'bin' ? 'bins' : 'classes'}. Bars: observed counts; marks: counts expected under the ${data.label} fit. ` +
+    (worst ? `Largest departure in ${cell} ${worst.index + 1}: observed ${worst.observed}, expected ${sig(worst.expected, 3)}.` : '');
   const frame = createFrame(container, options, title, description);
   drawLegend(
     frame,
@@ -38,7 +47,7 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     options.width,
   );
   if (rows.length === 0) {
-    drawEmpty(frame, 'No bins to draw.');
+    drawEmpty(frame, `No ${cell === 'bin' ? 'bins' : 'classes'} to draw.`);
     return frame.svg.node()!;
   }
   const x = scaleBand<number>()
@@ -67,8 +76,8 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     bar
       .append('title')
       .text(
-        `Bin ${r.index + 1}: [${lo}, ${hi}) ${options.units}: observed ${r.observed}, expected ${sig(r.expected, 3)}, ` +
-          `residual ${sig(r.pearsonResidual, 3)}, adds ${sig(r.contribution, 3)} to chi-square`,
+        `${Cell} ${r.index + 1}: ${cell === 'bin' ? '[' : '('}${lo}, ${hi}${cell === 'bin' ? ')' : ']'} ${options.units}: observed ${r.observed}, expected ${sig(r.expected, 3)}` +
+          (r.pearsonResidual !== undefined && r.contribution !== undefined ? `, residual ${sig(r.pearsonResidual, 3)}, adds ${sig(r.contribution, 3)} to chi-square` : ''),
       );
     g.append('line')
       .attr('data-kind', 'expected')
@@ -92,7 +101,7 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
   const axis = axisBottom(x)
     .tickValues(rows.map((r) => r.index).filter((i) => i % every === 0))
     .tickFormat((i) => String(Number(i) + 1));
-  drawXAxis(frame, axis, 'Bin number (low to high values; edges in the bins table)');
+  drawXAxis(frame, axis, cell === 'bin' ? 'Bin number (low to high values; edges in the bins table)' : 'Class after merging (low to high; limits in the table)');
   drawYAxis(frame, axisLeft(y).ticks(5), 'Count');
   return frame.svg.node()!;
 }

@@ -2,7 +2,7 @@
  * The page's calls to the local server (server/API.md). Every failure becomes an `ApiError`
  * carrying the server's message, so the page can show it as it is.
  */
-import type { DatasetReport, Evidence, SkipCount } from './types.js';
+import type { DatasetReport, Evidence, GroupedDatasetReport, SkipCount } from './types.js';
 
 export interface InputSummary {
   readonly source: 'values' | 'csv';
@@ -19,7 +19,7 @@ export interface InputSummary {
   readonly otherColumns?: readonly { readonly role: string; readonly column: string }[];
 }
 
-export type AnalyzeResponse = DatasetReport & { readonly evidence?: Evidence; readonly input?: InputSummary };
+export type AnalyzeResponse = (DatasetReport | GroupedDatasetReport) & { readonly evidence?: Evidence; readonly input?: InputSummary };
 
 export interface CsvRequestOptions {
   readonly decimal?: '.' | ',';
@@ -53,6 +53,14 @@ export interface AnalyzeRequest {
   readonly lsl?: number;
   readonly usl?: number;
   readonly target?: number;
+}
+
+/** Grouped counts (server/API.md `grouped`): class limits with counts instead of a value column. */
+export interface GroupedRequest {
+  readonly grouped: readonly { readonly lower: number | null; readonly upper: number | null; readonly count: number }[];
+  readonly families: readonly string[];
+  readonly alpha: number;
+  readonly seed?: number;
 }
 
 /** A demo's decision settings (server/demo.ts). */
@@ -137,6 +145,7 @@ export const api = {
   demo: (name: string) => call<DemoFile>('GET', `/api/demo/${encodeURIComponent(name)}`),
   demoAnalysis: () => call<DemoAnalysis>('GET', '/api/demo-analysis'),
   analyze: (req: AnalyzeRequest, signal?: AbortSignal) => call<AnalyzeResponse>('POST', '/api/analyze', req, signal),
+  analyzeGrouped: (req: GroupedRequest, signal?: AbortSignal) => call<AnalyzeResponse>('POST', '/api/analyze', req, signal),
   startJob: (req: AnalyzeRequest & { client: string }) => call<{ id: string; state: string }>('POST', '/api/jobs', req),
   job: (id: string, signal?: AbortSignal) => call<JobStatus>('GET', `/api/jobs/${encodeURIComponent(id)}`, undefined, signal),
   cancelJob: (id: string) => call<{ id: string; state: string }>('DELETE', `/api/jobs/${encodeURIComponent(id)}`),

@@ -2,7 +2,7 @@
  * The ranking table's cells as plain text, shared by the page and the exported report so that
  * both say exactly the same thing. Pure: report in, strings out.
  */
-import type { CandidateReport } from './types.js';
+import type { CandidateReport, GroupedCandidateReport } from './types.js';
 import { fixed, pValue, sig } from './format.js';
 
 export interface CandidateCells {
@@ -24,6 +24,8 @@ export interface CandidateCells {
   readonly chiPBracket: string;
   readonly chiP: string;
   readonly chiComputable: boolean;
+  /** False for grouped counts: no Anderson–Darling test (the reason is `adMethodDetail`). */
+  readonly adOffered: boolean;
   readonly adStatistic: string;
   readonly adP: string;
   readonly adMethod: string;
@@ -35,20 +37,28 @@ export interface CandidateCells {
 
 const TEST_NAMES: Readonly<Record<string, string>> = { 'chi-square': 'χ²', 'anderson-darling': 'A²' };
 
-export function parametersText(c: CandidateReport): string {
+export function parametersText(c: CandidateReport | GroupedCandidateReport): string {
   return Object.entries(c.parameters)
     .map(([name, v]) => `${name} ${sig(v, 5)}`)
     .join(' · ');
 }
 
-export function candidateCells(c: CandidateReport): CandidateCells {
+/** A ranking row: a complete-sample or censored candidate, or a grouped-counts one (chi-square on the given classes, k − 1 − m exact; no A²). */
+export function candidateCells(c: CandidateReport | GroupedCandidateReport): CandidateCells {
   const chi = c.chiSquare;
   const ad = c.andersonDarling;
   const rejected = c.rejectedBy.length > 0;
+  const adOffered = !('offered' in ad);
   const adMethod =
-    ad.method === 'bootstrap'
-      ? `bootstrap, B = ${ad.replicates ?? '?'}${ad.monteCarloStandardError !== undefined ? `, ± ${sig(ad.monteCarloStandardError, 2)}` : ''}`
-      : 'published formula';
+    'offered' in ad
+      ? 'grouped data'
+      : ad.method === 'bootstrap'
+        ? `bootstrap, B = ${ad.replicates ?? '?'}${ad.monteCarloStandardError !== undefined ? `, ± ${sig(ad.monteCarloStandardError, 2)}` : ''}`
+        : 'published formula';
+  // Grouped counts: the test runs on the given classes (merged to ≥ 5 expected), k − 1 − m is exact, no bracket.
+  const grouped = chi.computable && 'classesGiven' in chi ? chi : null;
+  const upper = chi.computable && !('classesGiven' in chi) ? chi : null;
+  const note = grouped ? `k = ${grouped.k} of ${grouped.classesGiven} classes` : upper ? `k = ${upper.k} bins` : '';
   return {
     rank: String(c.rank),
     model: c.label ? c.label[0]!.toUpperCase() + c.label.slice(1) : c.family,
@@ -58,18 +68,19 @@ export function candidateCells(c: CandidateReport): CandidateCells {
     deltaAicc: `Δ ${fixed(c.deltaAicc, 2)}`,
     chiComputable: chi.computable,
     chiSquare: chi.computable ? sig(chi.statistic, 4) : 'not computed',
-    chiSquareNote: chi.computable ? `k = ${chi.k} bins` : chi.reason,
-    chiSquareShort: chi.computable ? `k = ${chi.k} bins` : (chi.reason.split(/[:.;]/)[0] ?? chi.reason).trim(),
-    dof: chi.computable ? `${chi.dof} [${chi.dofUpper}]` : '—',
-    chiP: chi.computable ? `${pValue(chi.pValue)} [${pValue(chi.pValueUpper)}]` : '—',
+    chiSquareNote: chi.computable ? note : chi.reason,
+    chiSquareShort: chi.computable ? note : (chi.reason.split(/[:.;]/)[0] ?? chi.reason).trim(),
+    dof: upper ? `${upper.dof} [${upper.dofUpper}]` : grouped ? `${grouped.dof} (exact)` : '—',
+    chiP: upper ? `${pValue(upper.pValue)} [${pValue(upper.pValueUpper)}]` : grouped ? pValue(grouped.pValue) : '—',
     dofMain: chi.computable ? String(chi.dof) : '—',
-    dofBracket: chi.computable ? `[${chi.dofUpper}]` : '',
+    dofBracket: upper ? `[${upper.dofUpper}]` : grouped ? 'k − 1 − m, exact' : '',
     chiPMain: chi.computable ? pValue(chi.pValue) : '—',
-    chiPBracket: chi.computable ? `[${pValue(chi.pValueUpper)}]` : '',
-    adStatistic: sig(ad.statistic, 4),
-    adP: pValue(ad.pValue, ad.pValueIs),
+    chiPBracket: upper ? `[${pValue(upper.pValueUpper)}]` : '',
+    adOffered,
+    adStatistic: 'offered' in ad ? 'not offered' : sig(ad.statistic, 4),
+    adP: 'offered' in ad ? '—' : pValue(ad.pValue, ad.pValueIs),
     adMethod,
-    adMethodDetail: ad.methodDetail,
+    adMethodDetail: 'offered' in ad ? ad.reason : ad.methodDetail,
     rejected,
     badge: rejected ? `✗ rejected by ${c.rejectedBy.map((t) => TEST_NAMES[t] ?? t).join(' and ')}` : '✓ not rejected',
     verdict: c.verdict,

@@ -19,6 +19,8 @@ import { binsCsv } from './bins-csv.js';
 import { skipLine } from './skip-words.js';
 import { styleFor } from '../charts/palette.js';
 import { guessFromColumn } from './units-guess.js';
+import { binCountsChart } from '../charts/bin-counts.js';
+import { cellRows, chartCells, classRows, defaultGroupedColumns, groupedText, guessGroupedColumns, isGrouped, readGroupedClasses, type GroupedColumns } from './grouped-view.js';
 
 // ---------------------------------------------------------------------------------------------
 // State
@@ -45,6 +47,9 @@ const state = {
   demos: [] as DemoEntry[],
   /** Column roles (1-based column index, or 0 for none). */
   roles: { status: 0, subgroup: 0, order: 0 },
+  /** One value per row, or class limits with counts (lower, upper, count columns). */
+  shape: 'values' as 'values' | 'grouped',
+  groupedCols: { lower: 1, upper: 2, count: 3 } as GroupedColumns,
 };
 
 type Workflow = Pick<AnalyzeRequest, 'statusColumn' | 'subgroupColumn' | 'orderColumn' | 'confidence' | 'bLifePercents' | 'boundMethod' | 'reliabilityTimes' | 'returnPeriods' | 'designLife' | 'plottingPosition' | 'lsl' | 'usl' | 'target'>;
@@ -129,7 +134,31 @@ const $ = {
   decisionEmpty: byId('decision-empty'),
   lifeScaleRow: byId('life-scale-row'),
   lifeScale: byId<HTMLSelectElement>('life-scale-select'),
+  shapeSelect: byId<HTMLSelectElement>('shape-select'),
+  groupedColsBox: byId('grouped-cols'),
+  valueCols: byId('value-cols'),
+  lowerSelect: byId<HTMLSelectElement>('lower-select'),
+  upperSelect: byId<HTMLSelectElement>('upper-select'),
+  countSelect: byId<HTMLSelectElement>('count-select'),
+  groupedEvidence: byId('grouped-evidence'),
+  groupedNoValues: byId('grouped-novalues'),
+  groupedTest: byId('grouped-test'),
+  chartGrouped: byId('chart-grouped'),
+  capGrouped: byId('cap-grouped'),
+  groupedCells: byId<HTMLTableElement>('grouped-cells'),
+  groupedRule: byId('grouped-rule'),
+  groupedAd: byId('grouped-ad'),
+  groupedClasses: byId<HTMLTableElement>('grouped-classes'),
+  valueCharts: byId('value-charts'),
+  binsDetail: byId('bins-detail'),
+  rankingHelp: byId('ranking-help'),
+  thChi: byId('th-chi'),
+  thDof: byId('th-dof'),
+  thChiP: byId('th-chip'),
 };
+
+/** The page's words that change for grouped counts, as first written in index.html. */
+const ORIGINAL = { rankingHelp: $.rankingHelp.innerHTML, decisionEmpty: $.decisionEmpty.innerHTML, thChi: $.thChi.textContent ?? '', thChiTitle: $.thChi.title, thDof: $.thDof.textContent ?? '', thDofTitle: $.thDof.title, thChiP: $.thChiP.textContent ?? '', thChiPTitle: $.thChiP.title };
 
 /** A comma- or space-separated list of numbers; null (with the problem shown) when unusable. */
 function numberList(input: HTMLInputElement, ok: (x: number) => boolean, rule: string): number[] | null | undefined {
@@ -392,6 +421,7 @@ function loadSource(source: Source, opts: { header?: boolean; column?: number } 
   const header = opts.header ?? !firstLineIsNumber(source.csv, decimal());
   $.headerCheck.checked = header;
   rescanColumns(opts.column);
+  guessShape();
   for (const b of $.demoList.querySelectorAll('button')) b.setAttribute('aria-pressed', String(source.kind === 'demo' && b.dataset['name'] === source.name));
   scheduleRun(0);
 }
@@ -410,8 +440,34 @@ function rescanColumns(prefer?: number): void {
   }
   showColumns(state.columns, state.column);
   showRoles();
+  showGroupedColumns();
   suggestQuantity();
   noteCensoring();
+}
+
+/** Fill the lower / upper / count selects (keeping a choice that still exists) and show the chosen data shape. */
+function showGroupedColumns(): void {
+  const has = (i: number) => state.columns.some((c) => c.index === i);
+  const g = state.groupedCols;
+  if (!(has(g.lower) && has(g.upper) && has(g.count))) state.groupedCols = defaultGroupedColumns(state.columns);
+  const fill = (sel: HTMLSelectElement, chosen: number): void => {
+    clear(sel);
+    for (const c of state.columns) sel.append(el('option', { value: String(c.index), selected: c.index === chosen }, `${c.index}. ${c.label}`));
+  };
+  fill($.lowerSelect, state.groupedCols.lower);
+  fill($.upperSelect, state.groupedCols.upper);
+  fill($.countSelect, state.groupedCols.count);
+  $.shapeSelect.value = state.shape;
+  $.groupedColsBox.hidden = state.shape !== 'grouped';
+  $.valueCols.hidden = state.shape === 'grouped';
+}
+
+/** A new file: read it as class limits with counts when its header names lower, upper and count columns. */
+function guessShape(): void {
+  const g = guessGroupedColumns(state.columns);
+  state.shape = g ? 'grouped' : 'values';
+  if (g) state.groupedCols = g;
+  showGroupedColumns();
 }
 
 const STATUS_NAME = /^(status|state|censor(ed|ing)?|cens|event|failed|failure|suspended|suspension|runout|run_out)$/i;
@@ -549,6 +605,10 @@ async function run(): Promise<void> {
   const gen = ++state.generation;
   stopCurrent();
   showError(null);
+  if (state.shape === 'grouped') {
+    await runGrouped(source, settings, gen);
+    return;
+  }
   const req: AnalyzeRequest = {
     ...settings,
     csv: source.csv,
@@ -609,6 +669,33 @@ async function run(): Promise<void> {
   }
 }
 
+/** Class limits with counts: read the three columns here (the core's CSV reader) and send the classes (server/API.md `grouped`). */
+async function runGrouped(source: Source, settings: NonNullable<ReturnType<typeof readSettings>>, gen: number): Promise<void> {
+  const label = (i: number) => state.columns.find((c) => c.index === i)?.label ?? `#${i}`;
+  const g = state.groupedCols;
+  const column = `${label(g.lower)}–${label(g.upper)}, ${label(g.count)}`;
+  state.requestedBins = null;
+  try {
+    if (new Set([g.lower, g.upper, g.count]).size !== 3) throw new Error('Choose three different columns for the lower limit, the upper limit and the count.');
+    const grouped = readGroupedClasses(source.csv, g, { header: $.headerCheck.checked, decimal: decimal() });
+    setStatus(`Fitting the class counts of ${source.name}…`);
+    const ac = new AbortController();
+    state.abort = ac;
+    const resp = await api.analyzeGrouped({ grouped, families: settings.families, alpha: settings.alpha, ...(settings.seed !== undefined ? { seed: settings.seed } : {}) }, ac.signal);
+    state.abort = null;
+    if (gen !== state.generation) return;
+    setProgress(false);
+    state.shownFor = { source: source.name, column };
+    applyResponse(resp);
+  } catch (err) {
+    if (gen !== state.generation) return;
+    if (err instanceof DOMException && err.name === 'AbortError') return;
+    const message = err instanceof Error ? err.message : String(err);
+    showError(`${source.name}, classes ${column}: ${message}`);
+    setStatus(state.response ? 'The results below are from the previous analysis.' : '');
+  }
+}
+
 // ---------------------------------------------------------------------------------------------
 // Showing results
 
@@ -622,13 +709,19 @@ function applyResponse(resp: AnalyzeResponse): void {
   const best = resp.candidates[0];
   setStatus(
     best
-      ? `Done: ${resp.candidates.length} model${resp.candidates.length === 1 ? '' : 's'} fitted to ${resp.n} values of ${state.shownFor.column} from ${state.shownFor.source}.`
+      ? `Done: ${resp.candidates.length} model${resp.candidates.length === 1 ? '' : 's'} fitted to ${isGrouped(resp) ? `${resp.n} counted in ${resp.grouped.classes.length} classes` : `${resp.n} values of ${state.shownFor.column}`} from ${state.shownFor.source}.`
       : 'No model could be fitted to these values.',
   );
   $.foot.textContent = `${resp.software.name} ${resp.software.version} · analysed on this computer by the local server; nothing is sent elsewhere.`;
 }
 
 function renderCounts(resp: AnalyzeResponse): void {
+  if (isGrouped(resp)) {
+    $.counts.textContent = `n = ${resp.n} counted in ${resp.grouped.classes.length} classes · no individual values`;
+    clear($.skips);
+    $.binsHint.textContent = 'For class counts the chi-square runs on the classes given (merged to at least 5 expected); the bins setting is not used.';
+    return;
+  }
   const input = resp.input;
   const skipped = input?.skipped ?? [];
   const totalSkipped = skipped.reduce((s, k) => s + k.count, 0);
@@ -642,7 +735,7 @@ function renderCounts(resp: AnalyzeResponse): void {
   const most = Math.floor(resp.n / 5);
   $.bins.max = String(Math.max(3, most));
   const sel = resp.candidates.find((c) => c.family === state.selected) ?? resp.candidates[0];
-  const used = sel && sel.chiSquare.computable ? ` For ${displayLabel(sel.label)}: ${sel.chiSquare.kRule}` : '';
+  const used = sel && sel.chiSquare.computable && 'kRule' in sel.chiSquare ? ` For ${displayLabel(sel.label)}: ${sel.chiSquare.kRule}` : '';
   $.binsHint.textContent =
     `Bins have equal probability under each model, so each expects n/k values. The chi-square approximation needs at least 5 expected per bin: ` +
     `with n = ${resp.n}, k can be at most ${most}.${used}`;
@@ -650,13 +743,27 @@ function renderCounts(resp: AnalyzeResponse): void {
 
 function renderRanking(resp: AnalyzeResponse): void {
   $.rankingRule.textContent = resp.rankingRule;
+  const grouped = isGrouped(resp);
+  $.thChi.textContent = grouped ? 'χ² (classes)' : ORIGINAL.thChi;
+  $.thChi.title = grouped ? 'Pearson chi-square on the given classes, merged to at least 5 expected' : ORIGINAL.thChiTitle;
+  $.thDof.textContent = grouped ? 'dof k−1−m' : ORIGINAL.thDof;
+  $.thDof.title = grouped ? 'Degrees of freedom k−1−m, exact for grouped counts (k merged classes, m estimated parameters)' : ORIGINAL.thDofTitle;
+  $.thChiP.textContent = grouped ? 'p (χ²)' : ORIGINAL.thChiP;
+  $.thChiP.title = grouped ? 'p with k−1−m dof' : ORIGINAL.thChiPTitle;
+  if (grouped) {
+    $.rankingHelp.textContent =
+      'Select a model (click its row, or Tab to it and press Enter) to draw its class counts below. For class counts χ² runs on the classes ' +
+      'given, merged to at least 5 expected, with k−1−m degrees of freedom, exact here; Anderson–Darling is not offered (see the note below the chart).';
+  } else $.rankingHelp.innerHTML = ORIGINAL.rankingHelp;
   const best = resp.candidates[0];
   const a = resp.options.alpha;
   if (!best) $.summaryLine.textContent = 'No candidate could be fitted.';
   else if (resp.candidates.every((c) => c.rejectedBy.length > 0)) {
     $.summaryLine.textContent = `Every model tried is rejected at α = ${a}. None of them describes these data well enough to base a decision on.`;
   } else if (best.rejectedBy.length === 0) {
-    $.summaryLine.textContent = `Best by AICc: ${displayLabel(best.label)}. Neither test rejects it at α = ${a}; check the evidence below, above all in the tail your decision depends on.`;
+    $.summaryLine.textContent = grouped
+      ? `Best by AICc: ${displayLabel(best.label)}. The chi-square on the classes does not reject it at α = ${a} (the only test for class counts); check the class counts below.`
+      : `Best by AICc: ${displayLabel(best.label)}. Neither test rejects it at α = ${a}; check the evidence below, above all in the tail your decision depends on.`;
   } else {
     const firstOk = resp.candidates.find((c) => c.rejectedBy.length === 0);
     $.summaryLine.textContent = `Best by AICc: ${displayLabel(best.label)}, but it is rejected at α = ${a}.${firstOk ? ` The best model not rejected is ${displayLabel(firstOk.label)} (rank ${firstOk.rank}).` : ''}`;
@@ -686,11 +793,15 @@ function renderRanking(resp: AnalyzeResponse): void {
     } else {
       row.append(el('td', { colspan: 3, className: 'na-cell', title: k.chiSquareNote }, 'not computed', el('span', { className: 'sub wrap' }, `${k.chiSquareShort} (see the notes below the table)`)));
     }
-    row.append(
-      el('td', { className: 'num' }, k.adStatistic),
-      el('td', { className: 'num', title: k.adMethodDetail }, k.adP, el('span', { className: 'sub' }, k.adMethod)),
-      el('td', {}, el('span', { className: `verdict ${k.rejected ? 'no' : 'ok'}` }, k.badge)),
-    );
+    if (k.adOffered) {
+      row.append(
+        el('td', { className: 'num' }, k.adStatistic),
+        el('td', { className: 'num', title: k.adMethodDetail }, k.adP, el('span', { className: 'sub' }, k.adMethod)),
+      );
+    } else {
+      row.append(el('td', { colspan: 2, className: 'na-cell ad-not-offered', title: k.adMethodDetail }, k.adStatistic, el('span', { className: 'sub wrap' }, 'needs individual values (see the note below the chart)')));
+    }
+    row.append(el('td', {}, el('span', { className: `verdict ${k.rejected ? 'no' : 'ok'}` }, k.badge)));
     row.setAttribute('aria-label', `Rank ${k.rank}, ${displayLabel(k.model)}: ${k.badge}. ${k.verdict}`);
     const words = el('tr', { className: 'cand-words', 'aria-hidden': 'true' }, el('td', {}), el('td', { colspan: 10 }, k.verdict));
     group.append(row, words);
@@ -746,10 +857,14 @@ function lifeScale(): LifeScale {
 function renderDecision(): void {
   const resp = state.response;
   clear($.decisionBody);
-  if (!resp) {
+  if (!resp || isGrouped(resp)) {
     $.headline.hidden = true;
+    $.lifeScaleRow.hidden = true;
+    $.decisionEmpty.hidden = !resp;
+    if (resp) $.decisionEmpty.textContent = 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.';
     return;
   }
+  $.decisionEmpty.innerHTML = ORIGINAL.decisionEmpty;
   const blocks = decisionBlocks(resp, state.selected, units());
   $.decisionEmpty.hidden = blocks.length > 0;
   const head = headline(resp, state.selected, units());
@@ -776,6 +891,7 @@ function renderDecision(): void {
 
 /** The decision blocks as report HTML, charts at report size. */
 function decisionReportHtml(resp: AnalyzeResponse): string {
+  if (isGrouped(resp)) return '';
   const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };
   return decisionBlocks(resp, state.selected, units())
     .map((b) =>
@@ -800,6 +916,14 @@ function units(): string {
 function renderEvidence(): void {
   const resp = state.response;
   const fam = state.selected;
+  const grouped = isGrouped(resp);
+  $.groupedEvidence.hidden = !grouped;
+  $.valueCharts.hidden = grouped;
+  $.binsDetail.hidden = grouped;
+  if (grouped && fam) {
+    renderGroupedEvidence(resp, fam);
+    return;
+  }
   if (!resp || !fam || !resp.evidence) return;
   const ce = evidenceFor(resp.evidence, fam);
   $.evidenceName.textContent = ce ? displayLabel(ce.label) : labelOf(fam);
@@ -813,6 +937,39 @@ function renderEvidence(): void {
       (pp.thinned ? ` Drawn with ${pp.points.x.length} of ${pp.total} points (extremes kept).` : '');
     renderBinsTable(ce);
   }
+}
+
+/** The observed-vs-expected chart of the selected model's (merged) classes, with its cells and the notes. */
+function groupedChart(resp: Extract<AnalyzeResponse, { dataKind: 'grouped' }>, fam: string, box: Element, size: { width: number; height: number }): SVGSVGElement | null {
+  const c = resp.candidates.find((x) => x.family === fam);
+  if (!c) return null;
+  return binCountsChart(box, { bins: { rows: chartCells(c) }, family: c.family, label: c.label, cell: 'class' }, { ...size, units: units(), quantity: $.quantity.value.trim() || 'Value' });
+}
+
+function renderGroupedEvidence(resp: Extract<AnalyzeResponse, { dataKind: 'grouped' }>, fam: string): void {
+  const c = resp.candidates.find((x) => x.family === fam);
+  $.evidenceName.textContent = c ? displayLabel(c.label) : labelOf(fam);
+  const t = groupedText(resp, c);
+  $.groupedNoValues.textContent = `${t.summary} ${t.noValues}`;
+  $.groupedTest.textContent = t.test;
+  $.groupedRule.textContent = `Degrees of freedom: ${t.rule}`;
+  $.groupedAd.textContent = t.adNote;
+  clear($.chartGrouped);
+  groupedChart(resp, fam, $.chartGrouped, chartSize($.chartGrouped));
+  $.capGrouped.textContent = 'Grey bars: counts in each class after merging; coloured marks: counts the model expects; dashed line: 5 expected, the usual minimum for the chi-square approximation.';
+  const u = units();
+  const table = (node: HTMLTableElement, rows: string[][], caption: string): void => {
+    clear(node);
+    const [head, ...body] = rows;
+    if (!head) return;
+    node.append(
+      el('caption', { className: 'muted small' }, caption),
+      el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { scope: 'col' }, h)))),
+      el('tbody', {}, ...body.map((r) => el('tr', {}, ...r.map((v) => el('td', {}, v))))),
+    );
+  };
+  table($.groupedCells, c ? cellRows(c) : [], `${c?.label ?? ''}: classes merged to at least 5 expected${u ? `, limits in ${u}` : ''}`);
+  table($.groupedClasses, classRows(resp), `Classes as read${u ? `, limits in ${u}` : ''}`);
 }
 
 function edgeText(x: number | null, isLower: boolean): string {
@@ -851,6 +1008,23 @@ function needResult(): AnalyzeResponse | null {
 
 function exportHtml(): void {
   const resp = needResult();
+  if (resp && isGrouped(resp) && state.selected) {
+    const svg = groupedChart(resp, state.selected, el('div'), { width: 760, height: 440 });
+    const html = buildReportHtml({
+      response: resp,
+      selected: state.selected,
+      sourceName: state.shownFor.source,
+      column: state.shownFor.column,
+      units: units(),
+      quantity: $.quantity.value.trim(),
+      generatedAt: new Date(),
+      charts: svg ? [{ svg: svg.outerHTML, caption: $.capGrouped.textContent ?? '' }] : [],
+      binsTable: [],
+      requestedBins: null,
+    });
+    download(exportName('html'), html, 'text/html;charset=utf-8');
+    return;
+  }
   if (!resp || !resp.evidence || !state.selected) return;
   const holder = el('div');
   const targets = { histogram: el('div'), probability: el('div'), bins: el('div'), cdf: el('div') };
@@ -889,6 +1063,10 @@ function exportJson(): void {
 
 function exportCsv(): void {
   const resp = needResult();
+  if (resp && isGrouped(resp)) {
+    showError('Class counts have no equal-probability bins table; the HTML report and the JSON hold the merged classes.');
+    return;
+  }
   if (!resp || !resp.evidence || !state.selected) return;
   const ce = evidenceFor(resp.evidence, state.selected);
   if (!ce) return;
@@ -940,6 +1118,20 @@ function wire(): void {
     noteCensoring();
     scheduleRun(0);
   });
+  $.shapeSelect.addEventListener('change', () => {
+    state.shape = $.shapeSelect.value === 'grouped' ? 'grouped' : 'values';
+    showGroupedColumns();
+    scheduleRun(0);
+  });
+  const classCol = (sel: HTMLSelectElement, key: keyof GroupedColumns): void => {
+    sel.addEventListener('change', () => {
+      state.groupedCols = { ...state.groupedCols, [key]: Number(sel.value) };
+      scheduleRun(0);
+    });
+  };
+  classCol($.lowerSelect, 'lower');
+  classCol($.upperSelect, 'upper');
+  classCol($.countSelect, 'count');
   $.headerCheck.addEventListener('change', () => {
     rescanColumns(state.column);
     scheduleRun(0);

@@ -9,6 +9,7 @@ import { escapeHtml as e } from './escape.js';
 import { sig } from './format.js';
 import type { AnalyzeResponse } from './api.js';
 import { skipLine } from './skip-words.js';
+import { cellRows, classRows, groupedText, isGrouped } from './grouped-view.js';
 
 export interface ReportContext {
   readonly response: AnalyzeResponse;
@@ -59,6 +60,7 @@ export function buildReportHtml(ctx: ReportContext): string {
   const skipped = input?.skipped ?? [];
   const totalSkipped = skipped.reduce((s, k) => s + k.count, 0);
   const selectedChi = selected?.chiSquare;
+  const grouped = isGrouped(r) ? r : null;
 
   const record: [string, string][] = [
     ['Software', `${r.software.name} ${r.software.version}`],
@@ -72,18 +74,27 @@ export function buildReportHtml(ctx: ReportContext): string {
   if (input?.rowsRead !== undefined) record.push(['Data rows read', String(input.rowsRead)]);
   record.push(['Rows skipped', totalSkipped === 0 ? 'none' : `${totalSkipped}: ${skipped.map(skipLine).join('; ')}`]);
   if (input?.blankLines) record.push(['Blank lines passed over', String(input.blankLines)]);
-  record.push(['Data summary', `min ${sig(r.summary.min)}, max ${sig(r.summary.max)}, mean ${sig(r.summary.mean)}, sd ${sig(r.summary.sd)}, ${r.summary.distinct} distinct values`]);
+  record.push([grouped ? 'Data summary (from class midpoints weighted by the counts; approximate)' : 'Data summary', `min ${sig(r.summary.min)}, max ${sig(r.summary.max)}, mean ${sig(r.summary.mean)}, sd ${sig(r.summary.sd)}, ${r.summary.distinct} distinct values`]);
 
   const settings: [string, string][] = [
     ['Models tried', o.families.join(', ')],
     ['Significance level α', String(o.alpha)],
+    grouped
+      ? [
+          'Chi-square cells',
+          `the ${grouped.grouped.classes.length} classes given, merged left to right to at least 5 expected` +
+            (selectedChi && selectedChi.computable ? `; k = ${selectedChi.k} cells for ${selected?.label ?? ''}` : ''),
+        ]
+      : [
+          'Chi-square bins',
+          `${ctx.requestedBins === null ? 'automatic' : `requested k = ${ctx.requestedBins}`}` +
+            (selectedChi && selectedChi.computable && 'kRule' in selectedChi ? `; used k = ${selectedChi.k} for ${selected?.label ?? ''} (${selectedChi.kRule})` : ''),
+        ],
     [
-      'Chi-square bins',
-      `${ctx.requestedBins === null ? 'automatic' : `requested k = ${ctx.requestedBins}`}` +
-        (selectedChi && selectedChi.computable ? `; used k = ${selectedChi.k} for ${selected?.label ?? ''} (${selectedChi.kRule})` : ''),
+      'Anderson–Darling p-value',
+      grouped ? 'not offered for class counts (reason in the class counts section)' : o.pMethod === 'bootstrap' ? `parametric bootstrap, B = ${o.bootstrapReplicates}` : 'published formula for each family',
     ],
-    ['Anderson–Darling p-value', o.pMethod === 'bootstrap' ? `parametric bootstrap, B = ${o.bootstrapReplicates}` : 'published formula for each family'],
-    ['Random seed', String(o.seed)],
+    ...(grouped ? [] : [['Random seed', String(o.seed)] as [string, string]]),
     ['Model shown in the charts', selected ? `${selected.label} (rank ${selected.rank})` : ctx.selected],
   ];
 
@@ -100,14 +111,16 @@ export function buildReportHtml(ctx: ReportContext): string {
         `<tr${c.family === ctx.selected ? ' class="selected"' : ''}><td class="num">${e(k.rank)}</td><td><strong>${e(k.model)}</strong></td>` +
         `<td>${e(k.parameters)}</td><td class="num">${e(k.logLikelihood)}</td><td class="num">${e(k.aicc)}<div class="small">${e(k.deltaAicc)}</div></td>` +
         chi +
-        `<td class="num">${e(k.adStatistic)}</td><td class="num">${e(k.adP)}<div class="small">${e(k.adMethod)}</div></td>` +
+        (k.adOffered
+          ? `<td class="num">${e(k.adStatistic)}</td><td class="num">${e(k.adP)}<div class="small">${e(k.adMethod)}</div></td>`
+          : `<td colspan="2">${e(k.adStatistic)}<div class="small">needs individual values (reason below)</div></td>`) +
         `<td><span class="${k.rejected ? 'no' : 'ok'}">${e(k.badge)}</span><div class="small">${e(k.verdict)}</div></td></tr>`
       );
     })
     .join('');
   const table =
     `<table class="ranking"><thead><tr><th>#</th><th>Model</th><th>Parameters</th><th>ln L</th><th>AICc (Δ)</th><th>χ²</th>` +
-    `<th>dof [k−1]</th><th>p (χ²) [k−1]</th><th>A²</th><th>p (A²)</th><th>Verdict at α = ${e(o.alpha)}</th></tr></thead><tbody>${rows}</tbody></table>` +
+    `<th>${grouped ? 'dof k−1−m' : 'dof [k−1]'}</th><th>${grouped ? 'p (χ²)' : 'p (χ²) [k−1]'}</th><th>A²</th><th>p (A²)</th><th>Verdict at α = ${e(o.alpha)}</th></tr></thead><tbody>${rows}</tbody></table>` +
     (sharedReason !== null ? `<p class="small">Chi-square not computed for any model: ${e(sharedReason)}</p>` : '');
 
   const na =
@@ -125,6 +138,27 @@ export function buildReportHtml(ctx: ReportContext): string {
       : `<table><thead><tr>${head.map((h) => `<th>${e(h)}</th>`).join('')}</tr></thead><tbody>${body
           .map((row) => `<tr>${row.map((v) => `<td class="num">${e(v)}</td>`).join('')}</tr>`)
           .join('')}</tbody></table>` + (units ? `<p class="small">Bin edges in ${e(units)}.</p>` : '');
+  let groupedSection = '';
+  if (grouped) {
+    const gc = grouped.candidates.find((c) => c.family === ctx.selected);
+    const t = groupedText(grouped, gc);
+    const table = (rows: string[][], caption: string): string => {
+      const [h, ...b] = rows;
+      return h === undefined
+        ? ''
+        : `<table><caption class="small">${e(caption)}</caption><thead><tr>${h.map((x) => `<th>${e(x)}</th>`).join('')}</tr></thead><tbody>${b
+            .map((row) => `<tr>${row.map((v) => `<td class="num">${e(v)}</td>`).join('')}</tr>`)
+            .join('')}</tbody></table>`;
+    };
+    groupedSection =
+      `<h2 id="grouped-counts">Class counts: chi-square on the classes for ${e(gc?.label ?? ctx.selected)}</h2>` +
+      `<p>${e(t.summary)}</p><p>${e(t.test)}</p>${figures}` +
+      table(gc ? cellRows(gc) : [], `Classes merged to at least 5 expected${units ? `, limits in ${units}` : ''}`) +
+      `<p class="small">Degrees of freedom: ${e(t.rule)}</p>` +
+      `<p class="caution"><strong>Anderson–Darling not offered.</strong> ${e(t.adNote)}</p>` +
+      `<p class="small">${e(t.noValues)}</p>` +
+      table(classRows(grouped), `Classes as read${units ? `, limits in ${units}` : ''}`);
+  }
   const methods = `<ol class="methods">${r.methods
     .map((m) => `<li><strong>${e(m.topic)}.</strong> ${e(m.description)} <span class="small">Source: ${e(m.source)}</span></li>`)
     .join('')}</ol>`;
@@ -139,10 +173,14 @@ export function buildReportHtml(ctx: ReportContext): string {
 <p class="caution"><strong>Caution.</strong> These are statistical results, not approvals. A part's life, a design flood or a safety-critical dimension taken from them must be reviewed under the governing codes and standards and by a licensed or otherwise qualified engineer before it is used.</p>
 <h2>Inputs</h2>${kv(record)}
 <h2>Settings</h2>${kv(settings)}
-<h2>Candidate models, best first</h2><p class="small">${e(r.rankingRule)} The chi-square p is given with k−1−m degrees of freedom and, in brackets, with k−1 (Chernoff–Lehmann: the true p lies between).</p>${table}${na}${warn}
+<h2>Candidate models, best first</h2><p class="small">${e(r.rankingRule)} ${
+    grouped
+      ? 'For class counts the chi-square runs on the classes given, merged to at least 5 expected, with k−1−m degrees of freedom (exact here); Anderson–Darling is not offered.'
+      : 'The chi-square p is given with k−1−m degrees of freedom and, in brackets, with k−1 (Chernoff–Lehmann: the true p lies between).'
+  }</p>${table}${na}${warn}
 ${ctx.decisionHtml ? `<h2>Decision numbers under ${e(selected?.label ?? ctx.selected)}</h2>${ctx.decisionHtml}` : ''}
-<h2>Evidence for ${e(selected?.label ?? ctx.selected)}</h2>${figures}
-<h2>Bins for ${e(selected?.label ?? ctx.selected)}</h2>${bins}
+${grouped ? groupedSection : `<h2>Evidence for ${e(selected?.label ?? ctx.selected)}</h2>${figures}
+<h2>Bins for ${e(selected?.label ?? ctx.selected)}</h2>${bins}`}
 <h2>Methods and sources</h2>${methods}
 <p class="small">Generated by ${e(r.software.name)} ${e(r.software.version)} on ${e(when)}. ln L: log-likelihood at the maximum-likelihood estimate; AICc: corrected Akaike information criterion (lower is better).</p>
 </body></html>

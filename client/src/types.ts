@@ -5,6 +5,8 @@
 export type {
   AnalysisReport,
   DatasetReport,
+  GroupedDatasetReport,
+  GroupedCandidateReport,
   DatasetCandidate,
   CandidateReport,
   NotApplicableReport,
