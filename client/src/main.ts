@@ -468,6 +468,7 @@ function guessShape(): void {
   state.shape = g ? 'grouped' : 'values';
   if (g) state.groupedCols = g;
   showGroupedColumns();
+  suggestQuantity();
 }
 
 const STATUS_NAME = /^(status|state|censor(ed|ing)?|cens|event|failed|failure|suspended|suspension|runout|run_out)$/i;
@@ -505,7 +506,11 @@ function columnLabel(): string {
 
 /** Pre-fill "what was measured" and the units from the column name while the user has not typed them. */
 function suggestQuantity(): void {
-  const guess = guessFromColumn(columnLabel());
+  // Class counts: the measured quantity is named by the class limits, not by the count column.
+  const lowerLabel = state.columns.find((c) => c.index === state.groupedCols.lower)?.label ?? '';
+  const raw = guessFromColumn(state.shape === 'grouped' ? lowerLabel : columnLabel());
+  const bare = raw.quantity.replace(/\b(lower|low|lo|from|min|limit|bound|edge|class)\b/gi, ' ').replace(/\s+/g, ' ').trim();
+  const guess = state.shape === 'grouped' ? { quantity: bare ? bare[0]!.toUpperCase() + bare.slice(1) : '', units: raw.units } : raw;
   if ($.quantity.dataset['typed'] !== 'yes') $.quantity.value = guess.quantity;
   if ($.units.dataset['typed'] !== 'yes') $.units.value = guess.units;
   const fromName = $.quantity.dataset['typed'] !== 'yes' || $.units.dataset['typed'] !== 'yes';
@@ -1121,6 +1126,7 @@ function wire(): void {
   $.shapeSelect.addEventListener('change', () => {
     state.shape = $.shapeSelect.value === 'grouped' ? 'grouped' : 'values';
     showGroupedColumns();
+    suggestQuantity();
     scheduleRun(0);
   });
   const classCol = (sel: HTMLSelectElement, key: keyof GroupedColumns): void => {

@@ -66,10 +66,10 @@ export function buildReportHtml(ctx: ReportContext): string {
     ['Software', `${r.software.name} ${r.software.version}`],
     ['Report generated', when],
     ['Data source', ctx.sourceName],
-    ['Value column', ctx.column],
+    [isGrouped(r) ? 'Class columns (lower–upper, count)' : 'Value column', ctx.column],
     ['Quantity', ctx.quantity || '(not given)'],
     ['Units', units || '(not given)'],
-    ['Values analysed (n)', String(r.n)],
+    [isGrouped(r) ? 'Total count (n)' : 'Values analysed (n)', String(r.n)],
   ];
   if (input?.rowsRead !== undefined) record.push(['Data rows read', String(input.rowsRead)]);
   record.push(['Rows skipped', totalSkipped === 0 ? 'none' : `${totalSkipped}: ${skipped.map(skipLine).join('; ')}`]);

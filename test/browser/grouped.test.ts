@@ -82,6 +82,14 @@ describe.skipIf(SKIP_BROWSER)('grouped counts on the page', () => {
     await waitDone(/^Done: .* 180 counted in 12 classes from tally\.csv/);
     expect(await page.locator('#shape-select').inputValue()).toBe('grouped');
     expect(await page.locator('.ad-not-offered').count()).toBeGreaterThan(0);
+    // Back to a file of individual values: the value charts and the usual headings return.
+    await page.click('#demo-list button[data-name="pump-seal-wear"]');
+    await waitDone(/^Done: .* 80 values/);
+    expect(await page.locator('#shape-select').inputValue()).toBe('values');
+    expect(await page.locator('#value-charts').isVisible()).toBe(true);
+    expect(await page.locator('#grouped-evidence').isVisible()).toBe(false);
+    expect(await page.locator('#th-dof').textContent()).toBe('dof [k−1]');
+    expect(await page.locator('.ad-not-offered').count()).toBe(0);
     expect(problems).toEqual([]);
   });
 });
