@@ -59,6 +59,12 @@ class LognormalDistribution implements Distribution {
   logCdfSfInto(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
     for (let i = 0; i < xs.length; i++) normalLogCdfSfAt(this.z(xs[i] as number), outLogCdf, outLogSf, i);
   }
+  /** The same from ln x (the sample's cached logs, all finite since x > 0): z = (ln x - μ)/σ as above. */
+  logCdfSfFromLogsInto(logs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
+    const mu = this.mu;
+    const sigma = this.sigma;
+    for (let i = 0; i < logs.length; i++) normalLogCdfSfAt(((logs[i] as number) - mu) / sigma, outLogCdf, outLogSf, i);
+  }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
     if (p === 0) return 0;

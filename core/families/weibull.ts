@@ -92,6 +92,17 @@ class WeibullDistribution implements Distribution {
       outLogSf[i] = -u;
     }
   }
+  /** The same from ln x (the sample's cached logs of x > 0): t = k(ln x - ln λ) as above. */
+  logCdfSfFromLogsInto(logs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void {
+    const k = this.k;
+    const logScale = this.logScale;
+    for (let i = 0; i < logs.length; i++) {
+      const t = k * ((logs[i] as number) - logScale);
+      const u = Math.exp(t);
+      outLogCdf[i] = t < TINY_EXPONENT ? t - 0.5 * u : log1mexp(-u);
+      outLogSf[i] = -u;
+    }
+  }
   quantile(p: number): number {
     if (!(p >= 0 && p <= 1)) return Number.NaN;
     if (p === 0) return 0;

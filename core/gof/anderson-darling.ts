@@ -17,6 +17,11 @@ export interface LogCdfSf {
   logSf(x: number): number;
   /** Batch form (see Distribution.logCdfSfInto); used when present. */
   logCdfSfInto?(xs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void;
+  /**
+   * The batch form from ln x instead of x (same numbers: the family forms ln x itself otherwise);
+   * used when present and the caller passes the sample's cached logs, saving one Math.log a point.
+   */
+  logCdfSfFromLogsInto?(logs: Float64Array, outLogCdf: Float64Array, outLogSf: Float64Array): void;
 }
 
 /** Points per batch call: small enough to stay in cache, large enough to amortise the call. */
@@ -26,8 +31,12 @@ const LOG_CDF = new Float64Array(CHUNK);
 const LOG_SF = new Float64Array(CHUNK);
 const XS = new Float64Array(CHUNK);
 
-/** A² of the ascending sample `sorted` under `dist`. */
-export function andersonDarlingStatistic(dist: LogCdfSf, sorted: ArrayLike<number>): number {
+/**
+ * A² of the ascending sample `sorted` under `dist`. `logs`, when given, must be ln of `sorted`
+ * element by element (the Sample's cached logs()); it is used only by distributions with
+ * logCdfSfFromLogsInto.
+ */
+export function andersonDarlingStatistic(dist: LogCdfSf, sorted: ArrayLike<number>, logs?: Float64Array | null): number {
   const n = sorted.length;
   const s = new CompensatedSum();
   if (dist.logCdfSfInto === undefined) {
@@ -38,18 +47,22 @@ export function andersonDarlingStatistic(dist: LogCdfSf, sorted: ArrayLike<numbe
     return -n - s.value / n;
   }
   // Same terms, same order, from the batch form in chunks.
+  const fromLogs = logs !== undefined && logs !== null && logs.length === n ? dist.logCdfSfFromLogsInto : undefined;
   const typed = sorted instanceof Float64Array;
   for (let start = 0; start < n; start += CHUNK) {
     const len = Math.min(CHUNK, n - start);
-    let xs: Float64Array;
-    if (typed) xs = sorted.subarray(start, start + len);
-    else {
-      xs = len === CHUNK ? XS : XS.subarray(0, len);
-      for (let j = 0; j < len; j++) xs[j] = sorted[start + j] as number;
-    }
     const lc = len === CHUNK ? LOG_CDF : LOG_CDF.subarray(0, len);
     const ls = len === CHUNK ? LOG_SF : LOG_SF.subarray(0, len);
-    dist.logCdfSfInto(xs, lc, ls);
+    if (fromLogs !== undefined) fromLogs.call(dist, (logs as Float64Array).subarray(start, start + len), lc, ls);
+    else {
+      let xs: Float64Array;
+      if (typed) xs = sorted.subarray(start, start + len);
+      else {
+        xs = len === CHUNK ? XS : XS.subarray(0, len);
+        for (let j = 0; j < len; j++) xs[j] = sorted[start + j] as number;
+      }
+      dist.logCdfSfInto(xs, lc, ls);
+    }
     for (let j = 0; j < len; j++) {
       const i = start + j + 1;
       s.add((2 * i - 1) * (lc[j] as number) + (2 * (n - i) + 1) * (ls[j] as number));
