@@ -139,6 +139,58 @@ async function call<T>(method: string, url: string, body?: unknown, signal?: Abo
   return json as T;
 }
 
+/** Where a request with a large body is: its body going up (bytes sent of total), then the server working. */
+export type SendStage = { readonly stage: 'sending'; readonly loaded: number; readonly total: number } | { readonly stage: 'waiting' };
+
+/**
+ * POST a JSON body with XMLHttpRequest, whose `upload` events tell how much of the body has gone
+ * (fetch gives no upload progress without streaming bodies, which need HTTP/2). Same errors as
+ * `call`; an abort rejects with a DOMException named AbortError, as fetch does.
+ */
+function postWithProgress<T>(url: string, body: unknown, onStage: (s: SendStage) => void, signal?: AbortSignal): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    if (signal?.aborted) {
+      reject(new DOMException('The request was aborted.', 'AbortError'));
+      return;
+    }
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', url);
+    xhr.setRequestHeader('Accept', 'application/json');
+    xhr.setRequestHeader('Content-Type', 'application/json');
+    xhr.responseType = 'text';
+    const onAbort = (): void => xhr.abort();
+    signal?.addEventListener('abort', onAbort, { once: true });
+    const done = (): void => signal?.removeEventListener('abort', onAbort);
+    xhr.upload.addEventListener('progress', (ev) => onStage({ stage: 'sending', loaded: ev.loaded, total: ev.lengthComputable ? ev.total : 0 }));
+    xhr.upload.addEventListener('load', () => onStage({ stage: 'waiting' }));
+    xhr.addEventListener('abort', () => {
+      done();
+      reject(new DOMException('The request was aborted.', 'AbortError'));
+    });
+    xhr.addEventListener('error', () => {
+      done();
+      reject(new ApiError(0, 'The local server could not be reached.'));
+    });
+    xhr.addEventListener('load', () => {
+      done();
+      const text = xhr.responseText;
+      let json: unknown = undefined;
+      try {
+        json = text ? JSON.parse(text) : undefined;
+      } catch {
+        json = undefined;
+      }
+      if (xhr.status < 200 || xhr.status >= 300) {
+        const err = (json as { error?: { message?: string; code?: string; field?: string } } | undefined)?.error;
+        reject(new ApiError(xhr.status, err?.message ?? `The server answered ${xhr.status} ${xhr.statusText}.`, err?.code, err?.field));
+        return;
+      }
+      resolve(json as T);
+    });
+    xhr.send(JSON.stringify(body));
+  });
+}
+
 export const api = {
   health: () => call<{ ok: boolean; version: string; jobsRunning: number }>('GET', '/api/health'),
   demoList: () => call<{ datasets: DemoEntry[] }>('GET', '/api/demo'),
@@ -147,6 +199,11 @@ export const api = {
   analyze: (req: AnalyzeRequest, signal?: AbortSignal) => call<AnalyzeResponse>('POST', '/api/analyze', req, signal),
   analyzeGrouped: (req: GroupedRequest, signal?: AbortSignal) => call<AnalyzeResponse>('POST', '/api/analyze', req, signal),
   startJob: (req: AnalyzeRequest & { client: string }) => call<{ id: string; state: string }>('POST', '/api/jobs', req),
+  /** `analyze` and `startJob` with progress of the upload (for large files). */
+  analyzeWithProgress: (req: AnalyzeRequest, onStage: (s: SendStage) => void, signal?: AbortSignal) =>
+    postWithProgress<AnalyzeResponse>('/api/analyze', req, onStage, signal),
+  startJobWithProgress: (req: AnalyzeRequest & { client: string }, onStage: (s: SendStage) => void, signal?: AbortSignal) =>
+    postWithProgress<{ id: string; state: string }>('/api/jobs', req, onStage, signal),
   job: (id: string, signal?: AbortSignal) => call<JobStatus>('GET', `/api/jobs/${encodeURIComponent(id)}`, undefined, signal),
   cancelJob: (id: string) => call<{ id: string; state: string }>('DELETE', `/api/jobs/${encodeURIComponent(id)}`),
 };

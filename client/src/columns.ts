@@ -25,7 +25,8 @@ function head(text: string, lines: number): string {
 
 /** Does the first non-blank line start with a number (so the text has no header line)? */
 export function firstLineIsNumber(text: string, decimal: '.' | ','): boolean {
-  const line = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/).find((l) => l.trim() !== '');
+  // Only the start is looked at: splitting a 10^6-row text would hold the page for a long moment.
+  const line = head(text, 64).replace(/^\uFEFF/, '').split(/\r\n|\r|\n/).find((l) => l.trim() !== '');
   if (line === undefined) return false;
   // With decimal commas the comma is part of a number, so only ; and tab separate fields.
   const first = line.split(decimal === ',' ? /[;\t]/ : /[,;\t]/)[0] ?? line;

@@ -4,7 +4,8 @@
  * All statistics come from the server's report; this file only wires inputs to requests and
  * results to views.
  */
-import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry, type DemoSettings } from './api.js';
+import { api, ApiError, type AnalyzeRequest, type AnalyzeResponse, type DemoEntry, type DemoSettings, type SendStage } from './api.js';
+import { readFileText } from './read-file.js';
 import { blockHtml, blockNode, decisionBlocks, headline } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
@@ -30,6 +31,8 @@ interface Source {
   /** What the user knows it by: the demo's name or the file's name. */
   readonly name: string;
   readonly csv: string;
+  /** About how many rows (line breaks counted while reading a file), for the progress line. */
+  readonly rows?: number;
 }
 
 const state = {
@@ -41,6 +44,8 @@ const state = {
   shownFor: { source: '', column: '' },
   selected: null as string | null,
   generation: 0,
+  /** Bumped by every new file and by Stop, so a slower earlier read is dropped. */
+  loadGeneration: 0,
   abort: null as AbortController | null,
   jobId: null as string | null,
   requestedBins: null as number | null,
@@ -89,6 +94,7 @@ const $ = {
   progressWrap: byId('progress-wrap'),
   progress: byId<HTMLProgressElement>('progress'),
   progressText: byId('progress-text'),
+  progressLabel: byId('progress-label'),
   cancel: byId<HTMLButtonElement>('cancel-button'),
   error: byId('error'),
   rankingRule: byId('ranking-rule'),
@@ -535,18 +541,46 @@ async function loadDemo(name: string): Promise<void> {
   }
 }
 
+/** Files above this size show the reading / sending / analysing stages (common practice, no source). */
+const LARGE_BYTES = 1 << 20;
+
+function megabytes(bytes: number): string {
+  return `${(bytes / 1e6).toFixed(bytes < 1e7 ? 1 : 0)} MB`;
+}
+
 async function loadFile(file: File): Promise<void> {
+  const gen = ++state.loadGeneration;
+  // A new file replaces whatever was being analysed.
+  state.generation++;
+  stopCurrent();
+  if (timer !== undefined) clearTimeout(timer);
+  const large = file.size > LARGE_BYTES;
   try {
-    const text = await file.text();
-    if (text.trim() === '') {
+    if (large) {
+      setStatus(`Reading ${file.name} (${megabytes(file.size)})…`);
+      setProgress(true, 0, `0 MB of ${megabytes(file.size)}`, 'Reading the file');
+    }
+    const read = await readFileText(
+      file,
+      (loaded, total) => {
+        if (large && gen === state.loadGeneration) setProgress(true, total > 0 ? loaded / total : null, `${megabytes(loaded)} of ${megabytes(total)}`, 'Reading the file');
+      },
+      () => gen !== state.loadGeneration,
+    );
+    if (!read || gen !== state.loadGeneration) return;
+    const text = read.text;
+    if (large) setProgress(false);
+    if (!/\S/.test(text)) {
       showError(`${file.name} is empty: there are no values to analyse.`);
       return;
     }
     $.quantity.dataset['typed'] = '';
     state.roles = { status: 0, subgroup: 0, order: 0 };
     $.demoSettings.hidden = true;
-    loadSource({ kind: 'file', name: file.name, csv: text });
+    loadSource({ kind: 'file', name: file.name, csv: text, rows: read.lines });
   } catch (err) {
+    if (gen !== state.loadGeneration) return;
+    setProgress(false);
     showError(`Could not read ${file.name}: ${err instanceof Error ? err.message : String(err)}`);
   }
 }
@@ -591,10 +625,14 @@ function stopCurrent(): void {
   }
 }
 
-function setProgress(visible: boolean, fraction = 0, text = ''): void {
+/** Show or hide the progress line; `fraction` null is an indeterminate bar (work of unknown length). */
+function setProgress(visible: boolean, fraction: number | null = 0, text = '', label = 'Bootstrap running'): void {
   $.progressWrap.hidden = !visible;
-  $.progress.value = fraction;
+  if (fraction === null) $.progress.removeAttribute('value');
+  else $.progress.value = fraction;
   $.progressText.textContent = text;
+  $.progressLabel.textContent = label;
+  $.progressWrap.dataset['stage'] = visible ? label : '';
 }
 
 const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
@@ -623,12 +661,25 @@ async function run(): Promise<void> {
   };
   const column = columnLabel();
   state.requestedBins = settings.bins;
+  // A large body: say how much has gone up, then that the server is at work (it parses the CSV in a worker).
+  const large = source.csv.length > LARGE_BYTES;
+  const dataRows = source.rows !== undefined ? source.rows - ($.headerCheck.checked ? 1 : 0) : undefined;
+  const rowsNote = dataRows !== undefined ? `about ${dataRows.toLocaleString('en-US')} rows` : 'the values';
+  const onStage = (s: SendStage): void => {
+    if (gen !== state.generation) return;
+    if (s.stage === 'sending') setProgress(true, s.total > 0 ? s.loaded / s.total : null, s.total > 0 ? `${megabytes(s.loaded)} of ${megabytes(s.total)}` : 'starting', 'Sending to the local server');
+    else if (req.pMethod === 'bootstrap') setProgress(true, 0, '0%');
+    else setProgress(true, null, `reading and fitting ${rowsNote} of ${column}`, 'Analysing');
+  };
   try {
     let resp: AnalyzeResponse | undefined;
     if (req.pMethod === 'bootstrap') {
       setStatus(`Fitting ${column} with bootstrap p-values (B = ${req.replicates ?? 999})… the page stays usable; changing a setting starts again.`);
       setProgress(true, 0, '0%');
-      const job = await api.startJob({ ...req, client: CLIENT_ID });
+      const ac = new AbortController();
+      state.abort = ac;
+      const job = large ? await api.startJobWithProgress({ ...req, client: CLIENT_ID }, onStage, ac.signal) : await api.startJob({ ...req, client: CLIENT_ID });
+      if (state.abort === ac) state.abort = null;
       if (gen !== state.generation) {
         api.cancelJob(job.id).catch(() => undefined);
         return;
@@ -653,10 +704,11 @@ async function run(): Promise<void> {
       }
       state.jobId = null;
     } else {
-      setStatus(`Fitting ${column}…`);
+      setStatus(large ? `Fitting ${column} (${rowsNote})… the page stays usable; changing a setting starts again.` : `Fitting ${column}…`);
       const ac = new AbortController();
       state.abort = ac;
-      resp = await api.analyze(req, ac.signal);
+      if (large) onStage({ stage: 'sending', loaded: 0, total: 0 });
+      resp = large ? await api.analyzeWithProgress(req, onStage, ac.signal) : await api.analyze(req, ac.signal);
       state.abort = null;
     }
     if (gen !== state.generation || !resp) return;
@@ -1171,10 +1223,12 @@ function wire(): void {
   for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => scheduleRun());
   $.run.addEventListener('click', () => scheduleRun(0));
   $.cancel.addEventListener('click', () => {
+    const stage = $.progressWrap.dataset['stage'] ?? '';
     state.generation++;
+    state.loadGeneration++;
     stopCurrent();
     setProgress(false);
-    setStatus('Bootstrap stopped. The results shown (if any) are from the previous analysis.');
+    setStatus(`${stage === 'Bootstrap running' ? 'Bootstrap stopped' : 'Stopped'}. The results shown (if any) are from the previous analysis.`);
   });
 
   $.quantity.addEventListener('input', () => {
