@@ -4,14 +4,22 @@
  * exit code 2 for a problem with the input or the options, 70 for an internal error.
  */
 import { runCli } from './run.js';
+import { isWorkerRun, runSecondThread } from './second-thread.js';
 
-process.stdout.on('error', (e: NodeJS.ErrnoException) => {
-  // A closed pipe (e.g. `| head`) is not an error of ours.
-  if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
-  throw e;
-});
+if (isWorkerRun()) runSecondThread();
+else {
+  process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+    // A closed pipe (e.g. `| head`) is not an error of ours.
+    if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw e;
+  });
 
-process.exitCode = runCli(process.argv.slice(2), {
-  out: (s) => process.stdout.write(s),
-  err: (s) => process.stderr.write(s),
-});
+  const self = new URL(import.meta.url);
+  process.exitCode = runCli(process.argv.slice(2), {
+    out: (s) => process.stdout.write(s),
+    err: (s) => process.stderr.write(s),
+    // The second thread runs this same file; only from the built JavaScript (not from sources
+    // run through a TypeScript loader, which a worker would not inherit reliably).
+    ...(self.pathname.endsWith('.js') ? { workerEntry: self } : {}),
+  });
+}

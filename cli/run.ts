@@ -19,12 +19,15 @@ import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
 import { needsTable, readDataset, withFileRow } from './read-dataset.js';
 import { readInputText } from './read-input.js';
+import { secondThread } from './second-thread.js';
 import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
 
 export interface CliIo {
   out(s: string): void;
   err(s: string): void;
+  /** The command's own module file, to run the second thread from (cli/second-thread.ts); none: one thread. */
+  readonly workerEntry?: URL;
 }
 
 /** Exit codes (sysexits.h style for the internal error). */
@@ -127,7 +130,8 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
   }
   let report: AnyDatasetReport;
   try {
-    report = analyzeDataset(dataset, datasetOptions(args));
+    const options = datasetOptions(args);
+    report = analyzeDataset(dataset, io.workerEntry ? { ...options, delegated: secondThread(io.workerEntry, options) } : options);
   } catch (e) {
     throw withFileRow(e, fileLabel, dataset.grouped ? rowNumbers : undefined);
   }

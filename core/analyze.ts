@@ -69,6 +69,25 @@ export interface AnalyzeOptions {
   readonly onProgress?: (p: BootstrapProgress) => void;
   /** Cancellation, checked between bootstrap replicates. */
   readonly signal?: CancelSignal;
+  /**
+   * Families evaluated elsewhere (e.g. the CLI's second thread, with evaluateFamilies on the same
+   * sorted values); the report is the same as without it.
+   */
+  readonly delegated?: DelegatedFamilies;
+}
+
+/** Fit, A² and chi-square of one family, as plain data (structured-clone safe). */
+export type EvaluatedFamily =
+  | { readonly family: FamilyName; readonly ok: true; readonly outcome: FitSuccess; readonly a2: number; readonly chiSquare: ChiSquareReport; readonly table: AdPValue | null }
+  | { readonly family: FamilyName; readonly ok: false; readonly notApplicable: NotApplicableReport };
+
+/** Families whose evaluation planAnalysis hands off (see AnalyzeOptions.delegated). */
+export interface DelegatedFamilies {
+  readonly families: readonly FamilyName[];
+  /** Called once with the prepared sample, before the other families are evaluated here. */
+  start(sample: Sample): void;
+  /** Called after them: the delegated families' results (any order), or null to evaluate them here. */
+  collect(): readonly EvaluatedFamily[] | null;
 }
 
 export interface ResolvedOptions {
@@ -178,9 +197,17 @@ export function planAnalysis(values: ArrayLike<number> | Sample, options: Analyz
   const candidates: FittedCandidate[] = [];
   const notApplicable: NotApplicableReport[] = [];
   const jobs: BootstrapJob[] = [];
+  const delegated = options.delegated;
+  const away = new Set(delegated ? delegated.families.filter((f) => opts.families.includes(f)) : []);
+  if (delegated && away.size > 0) delegated.start(sample);
+  const results = new Map<FamilyName, Evaluated>();
+  for (const name of opts.families) if (!away.has(name)) results.set(name, evaluateFamily(getFamily(name), sample, opts));
+  if (delegated && away.size > 0) {
+    for (const r of delegated.collect() ?? []) if (away.has(r.family)) results.set(r.family, r);
+  }
   for (const name of opts.families) {
     const family = getFamily(name);
-    const evaluated = evaluateFamily(family, sample, opts);
+    const evaluated = results.get(name) ?? evaluateFamily(family, sample, opts);
     if (!evaluated.ok) {
       notApplicable.push(evaluated.notApplicable);
       continue;
@@ -207,6 +234,17 @@ export function planAnalysis(values: ArrayLike<number> | Sample, options: Analyz
 type Evaluated =
   | { readonly ok: true; readonly outcome: FitSuccess; readonly a2: number; readonly chiSquare: ChiSquareReport; readonly table: AdPValue | null }
   | { readonly ok: false; readonly notApplicable: NotApplicableReport };
+
+/**
+ * The per-family part of planAnalysis (fit, A², chi-square, table p-value) for `families` only,
+ * as plain data: what another thread computes for AnalyzeOptions.delegated. `values` must be the
+ * same values (the Sample sorts them the same way, so every number is the same).
+ */
+export function evaluateFamilies(values: ArrayLike<number> | Sample, families: readonly FamilyName[], options: AnalyzeOptions = {}): EvaluatedFamily[] {
+  const opts = resolveOptions({ ...options, families });
+  const sample = isSample(values) ? values : prepareSample(values);
+  return opts.families.map((name) => ({ family: name, ...evaluateFamily(getFamily(name), sample, opts) }));
+}
 
 /** Whether every number the report would carry for this fit is a real number (not NaN/±Infinity). */
 function nonFiniteIn(outcome: FitSuccess, a2: number, chiSquare: ChiSquareReport, table: AdPValue | null): string | null {

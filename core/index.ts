@@ -16,12 +16,13 @@ export {
   PLUMBLINE_VERSION,
   analyze,
   analyzeAsync,
+  evaluateFamilies,
   finishAnalysis,
   planAnalysis,
   resolveOptions,
   runPlanBootstrap,
 } from './analyze.js';
-export type { AnalysisPlan, AnalyzeOptions, BootstrapProgress, BootstrapRunner, ResolvedOptions } from './analyze.js';
+export type { AnalysisPlan, AnalyzeOptions, DelegatedFamilies, EvaluatedFamily, BootstrapProgress, BootstrapRunner, ResolvedOptions } from './analyze.js';
 export { RANKING_RULE, informationCriteria, rankCandidates } from './rank.js';
 export {
   DEFAULT_BOOTSTRAP_REPLICATES,

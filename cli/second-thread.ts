@@ -1,0 +1,117 @@
+/**
+ * The CLI's second thread for large samples: on this 2-core machine the per-family work (fit, A²,
+ * chi-square) of the five families is most of the time at 10^6 values, so the gamma and Weibull
+ * families are evaluated on a worker_thread (core `evaluateFamilies`) while the main thread
+ * evaluates the others (core `planAnalysis` with `delegated`). The sorted sample is shared through
+ * a SharedArrayBuffer (one copy, no sort in the worker: the same sorted values, so the same
+ * numbers); results come back as plain data and planAnalysis combines them in family order, so
+ * the report is byte-identical to the one-thread run. The main thread stays synchronous: it
+ * blocks on an Atomics flag the worker sets after posting, then takes the message with
+ * receiveMessageOnPort. Any failure (worker error, timeout) falls back to evaluating those
+ * families on the main thread. Below PARALLEL_MIN_N values the ~40-90 ms of starting a worker
+ * costs more than it saves, so nothing is started.
+ *
+ * The worker runs the same file as the command (the one-file bundle dist/cli/main.js), which
+ * branches on `isWorkerRun()` at its top.
+ */
+import { MessageChannel, Worker, isMainThread, receiveMessageOnPort, workerData, type MessagePort } from 'node:worker_threads';
+import {
+  evaluateFamilies,
+  prepareSample,
+  type DelegatedFamilies,
+  type EvaluatedFamily,
+  type FamilyName,
+  type Sample,
+} from '../core/index.js';
+
+/** Smallest sample for which the second thread is used (common practice, no source: measured here). */
+export const PARALLEL_MIN_N = 200_000;
+/** The families handed to the worker: the two with iterative fits and incomplete-gamma tails. */
+const AWAY: readonly FamilyName[] = ['lognormal', 'gamma'];
+/** How long the main thread waits for the worker before doing its share itself. */
+const WAIT_MS = 120_000;
+
+/** The options evaluateFamilies needs (the rest of the report is built on the main thread). */
+export interface SecondThreadOptions {
+  readonly alpha?: number;
+  readonly bins?: number | null;
+  readonly pMethod?: 'table' | 'bootstrap';
+  readonly bootstrapReplicates?: number;
+  readonly seed?: number;
+}
+
+interface WorkerInput {
+  readonly plumblineSecondThread: true;
+  readonly values: SharedArrayBuffer;
+  readonly flag: SharedArrayBuffer;
+  readonly port: MessagePort;
+  readonly families: readonly FamilyName[];
+  readonly options: SecondThreadOptions;
+}
+
+type WorkerOutput = { readonly results: readonly EvaluatedFamily[] } | { readonly error: string };
+
+/** Whether this thread is the CLI's second thread (then call runSecondThread instead of the CLI). */
+export function isWorkerRun(): boolean {
+  return !isMainThread && (workerData as Partial<WorkerInput> | null)?.plumblineSecondThread === true;
+}
+
+/** The worker's side: evaluate its families on the shared sorted values, post, raise the flag. */
+export function runSecondThread(): void {
+  const d = workerData as WorkerInput;
+  const flag = new Int32Array(d.flag);
+  let out: WorkerOutput;
+  try {
+    const sample = prepareSample(new Float64Array(d.values), { alreadySorted: true });
+    out = { results: evaluateFamilies(sample, d.families, d.options) };
+  } catch (e) {
+    out = { error: e instanceof Error ? e.message : String(e) };
+  }
+  try {
+    d.port.postMessage(out);
+  } finally {
+    Atomics.store(flag, 0, 1);
+    Atomics.notify(flag, 0);
+    d.port.close();
+  }
+}
+
+/**
+ * The `delegated` option for analyzeDataset: starts the worker (from `entry`, the running
+ * command's own file) once the sample is prepared, if it is large enough.
+ */
+export function secondThread(entry: URL, options: SecondThreadOptions): DelegatedFamilies {
+  let worker: Worker | null = null;
+  let port: MessagePort | null = null;
+  let flag: Int32Array | null = null;
+  return {
+    families: AWAY,
+    start(sample: Sample): void {
+      if (sample.n < PARALLEL_MIN_N) return;
+      try {
+        const values = new SharedArrayBuffer(sample.n * Float64Array.BYTES_PER_ELEMENT);
+        new Float64Array(values).set(sample.sorted);
+        const flagBuffer = new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT);
+        const channel = new MessageChannel();
+        const input: WorkerInput = { plumblineSecondThread: true, values, flag: flagBuffer, port: channel.port2, families: AWAY, options };
+        worker = new Worker(entry, { workerData: input, transferList: [channel.port2] });
+        worker.on('error', () => {}); // reported as a missing result: collect() falls back
+        worker.unref();
+        port = channel.port1;
+        flag = new Int32Array(flagBuffer);
+      } catch {
+        worker = null;
+      }
+    },
+    collect(): readonly EvaluatedFamily[] | null {
+      if (worker === null || port === null || flag === null) return null;
+      const w = worker;
+      worker = null;
+      const done = Atomics.wait(flag, 0, 0, WAIT_MS) !== 'timed-out';
+      const m = done ? (receiveMessageOnPort(port)?.message as WorkerOutput | undefined) : undefined;
+      port.close();
+      if (!done) void w.terminate();
+      return m !== undefined && 'results' in m ? m.results : null;
+    },
+  };
+}
