@@ -667,7 +667,8 @@ async function run(): Promise<void> {
   const rowsNote = dataRows !== undefined ? `about ${dataRows.toLocaleString('en-US')} rows` : 'the values';
   const onStage = (s: SendStage): void => {
     if (gen !== state.generation) return;
-    if (s.stage === 'sending') setProgress(true, s.total > 0 ? s.loaded / s.total : null, s.total > 0 ? `${megabytes(s.loaded)} of ${megabytes(s.total)}` : 'starting', 'Sending to the local server');
+    if (s.stage === 'packing') setProgress(true, s.done / s.total, `packing ${megabytes(s.done)} of ${megabytes(s.total)}`, 'Sending to the local server');
+    else if (s.stage === 'sending') setProgress(true, s.total > 0 ? s.loaded / s.total : null, s.total > 0 ? `${megabytes(s.loaded)} of ${megabytes(s.total)}` : 'starting', 'Sending to the local server');
     else if (req.pMethod === 'bootstrap') setProgress(true, 0, '0%');
     else setProgress(true, null, `reading and fitting ${rowsNote} of ${column}`, 'Analysing');
   };
