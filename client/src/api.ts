@@ -160,7 +160,7 @@ const nextTask = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
  * escapes, which JSON.parse joins back into the same pair (ECMA-262 JSON.parse, JSON.stringify
  * QuoteJSONString).
  */
-async function packBody(csv: string, rest: Record<string, unknown>, onStage: (s: SendStage) => void, signal?: AbortSignal): Promise<Blob> {
+export async function packBody(csv: string, rest: Record<string, unknown>, onStage: (s: SendStage) => void, signal?: AbortSignal): Promise<Blob> {
   const enc = new TextEncoder();
   const parts: BlobPart[] = [enc.encode('{"csv":"')];
   for (let at = 0; at < csv.length; at += PACK_CHARS) {
