@@ -1297,7 +1297,10 @@ function syncSettingsFrom(resp: AnalyzeResponse): void {
   $.alpha.value = String(o.alpha);
   $.bins.value = o.bins === null ? '' : String(o.bins);
   for (const b of $.familyBoxes.querySelectorAll<HTMLInputElement>('input[name="family"]')) b.checked = o.families.includes(b.value as never);
-  const radio = document.querySelector<HTMLInputElement>(`input[name="pmethod"][value="${o.pMethod}"]`);
+  // A censored sample's A² is always bootstrapped; the setting stays on the published formula so that
+  // the next file the user loads does not start a bootstrap it did not ask for.
+  const method = (resp as { dataKind?: string }).dataKind === 'censored' ? 'table' : o.pMethod;
+  const radio = document.querySelector<HTMLInputElement>(`input[name="pmethod"][value="${method}"]`);
   if (radio) radio.checked = true;
   $.replicates.value = String(o.bootstrapReplicates);
   $.seed.value = String(o.seed);
