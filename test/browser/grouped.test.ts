@@ -5,37 +5,25 @@
  * chart per class; export the HTML report and find the class counts section. Then upload the same
  * file under another name with setInputFiles. Screenshot at 1366×768 into test-output/.
  */
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { CHROMIUM, CHROMIUM_ARGS, ROOT, SKIP_BROWSER, ensureClientBuilt, startServer, type RunningServer } from './server-process.js';
-
-const OUT = join(ROOT, 'test-output');
+import type { Page } from 'playwright-core';
+import { ROOT, SKIP_BROWSER } from './server-process.js';
+import { OUT, openSession, type BrowserSession } from './session.js';
 
 describe.skipIf(SKIP_BROWSER)('grouped counts on the page', () => {
-  let server: RunningServer;
-  let browser: Browser;
+  let session: BrowserSession;
   let page: Page;
   const problems: string[] = [];
 
   beforeAll(async () => {
-    mkdirSync(OUT, { recursive: true });
-    await ensureClientBuilt();
-    server = await startServer();
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
-    const context = await browser.newContext({ viewport: { width: 1366, height: 768 }, acceptDownloads: true });
-    page = await context.newPage();
-    page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-    page.on('console', (m) => {
-      if (m.type() === 'error') problems.push(m.text());
-    });
-    await page.goto(server.url);
+    session = await openSession({ problems, acceptDownloads: true, open: true });
+    page = session.page;
   }, 180_000);
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
+    await session?.close();
   });
 
   const waitDone = (what: RegExp) =>

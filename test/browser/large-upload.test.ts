@@ -10,14 +10,13 @@
  * normal values around 50 with standard deviation 5, one identifier column and one value column.
  * Screenshots during progress and after go to test-output/large-upload-*.png (git-ignored).
  */
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { CHROMIUM, CHROMIUM_ARGS, ROOT, SKIP_BROWSER, ensureClientBuilt, startServer, type RunningServer } from './server-process.js';
-
-const OUT = join(ROOT, 'test-output');
+import type { Page } from 'playwright-core';
+import { SKIP_BROWSER, type RunningServer } from './server-process.js';
+import { OUT, openSession, type BrowserSession } from './session.js';
 const N = 1_000_000;
 
 function mulberry32(seed: number): () => number {
@@ -43,32 +42,23 @@ function bigCsv(n: number, seed: number): string {
 }
 
 describe.skipIf(SKIP_BROWSER)('a 10^6-row upload in Chromium', () => {
+  let session: BrowserSession;
   let server: RunningServer;
-  let browser: Browser;
   let page: Page;
   let dir: string;
   let file: string;
   const problems: string[] = [];
 
   beforeAll(async () => {
-    mkdirSync(OUT, { recursive: true });
     dir = mkdtempSync(join(tmpdir(), 'plumbline-large-'));
     file = join(dir, 'gauge-million.csv');
     writeFileSync(file, bigCsv(N, 20261201));
-    await ensureClientBuilt();
-    server = await startServer();
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
-    const context = await browser.newContext({ viewport: { width: 1366, height: 768 } });
-    page = await context.newPage();
-    page.on('console', (m) => {
-      if (m.type() === 'error' || /Content.Security.Policy/i.test(m.text())) problems.push(m.text());
-    });
-    page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+    session = await openSession({ problems, csp: true });
+    ({ server, page } = session);
   }, 180_000);
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
+    await session?.close();
     if (dir) rmSync(dir, { recursive: true, force: true });
   });
 

@@ -8,13 +8,12 @@
  * Run locally: `apt-get install -y chromium`, then `npx vitest run test/browser`.
  * Skipped only when /usr/bin/chromium is absent and CI is not set.
  */
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { CHROMIUM, CHROMIUM_ARGS, ROOT, SKIP_BROWSER, ensureClientBuilt, startServer, type RunningServer } from './server-process.js';
-
-const OUT = join(ROOT, 'test-output');
+import type { Page } from 'playwright-core';
+import { SKIP_BROWSER, type RunningServer } from './server-process.js';
+import { OUT, openSession, type BrowserSession } from './session.js';
 
 // An invented fatigue test: an identifier, a cycle count in thousands, the load, a note; one
 // row with a missing load ("NA") that must be counted as skipped, not silently dropped.
@@ -25,27 +24,18 @@ const CSV =
   '\r\nS99,50,NA,"<b>not measured</b>"\r\n';
 
 describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
+  let session: BrowserSession;
   let server: RunningServer;
-  let browser: Browser;
   let page: Page;
   const consoleProblems: string[] = [];
 
   beforeAll(async () => {
-    mkdirSync(OUT, { recursive: true });
-    await ensureClientBuilt();
-    server = await startServer();
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
-    const context = await browser.newContext({ viewport: { width: 1366, height: 768 }, acceptDownloads: true });
-    page = await context.newPage();
-    page.on('console', (m) => {
-      if (m.type() === 'error' || /Content.Security.Policy/i.test(m.text())) consoleProblems.push(m.text());
-    });
-    page.on('pageerror', (e) => consoleProblems.push(`page error: ${e.message}`));
+    session = await openSession({ problems: consoleProblems, acceptDownloads: true, csp: true });
+    ({ server, page } = session);
   }, 180_000);
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
+    await session?.close();
   });
 
   async function waitForDone(what: RegExp): Promise<void> {
