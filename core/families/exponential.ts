@@ -7,10 +7,10 @@
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { log1mexp } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { sampleMean } from './moments.js';
-import { POSITIVE, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { POSITIVE } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ rate: POSITIVE });
@@ -82,13 +82,8 @@ class ExponentialDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  return new ExponentialDistribution(readParameter('exponential', parameters, 'rate', BOUNDS.rate));
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('exponential', 'exponential', sample, 'positive');
-}
+const basics = familyBasics({ name: 'exponential', label: 'exponential', bounds: BOUNDS, support: 'positive', build: (p) => new ExponentialDistribution(p.rate) });
+const { make, applicable } = basics;
 
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
@@ -115,14 +110,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const exponential: Family = Object.freeze({
-  name: 'exponential',
-  label: 'exponential',
-  parameterNames: Object.freeze(['rate']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 1,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const exponential: Family = basics.family({ fit, random });

@@ -28,10 +28,10 @@ import {
   trigamma,
 } from '../special/index.js';
 import type { ValueAndDerivative } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { sampleMean } from './moments.js';
-import { POSITIVE, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { POSITIVE } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ shape: POSITIVE, scale: POSITIVE });
@@ -131,15 +131,8 @@ class GammaDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const shape = readParameter('gamma', parameters, 'shape', BOUNDS.shape);
-  const scale = readParameter('gamma', parameters, 'scale', BOUNDS.scale);
-  return new GammaDistribution(shape, scale);
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('gamma', 'gamma', sample, 'positive');
-}
+const basics = familyBasics({ name: 'gamma', label: 'gamma', bounds: BOUNDS, support: 'positive', build: (p) => new GammaDistribution(p.shape, p.scale) });
+const { make, applicable } = basics;
 
 /** Shift k up to at least this before using the asymptotic series below. */
 const SERIES_FROM = 20;
@@ -251,14 +244,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const gamma: Family = Object.freeze({
-  name: 'gamma',
-  label: 'gamma',
-  parameterNames: Object.freeze(['shape', 'scale']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 2,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const gamma: Family = basics.family({ fit, random });

@@ -31,9 +31,9 @@ import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
 import { lnGamma, log1mexp } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { EULER_GAMMA, gumbel, powerOfTwoRescale } from './gumbel.js';
-import { POSITIVE, REAL, readParameter } from './parameters.js';
+import { POSITIVE, REAL } from './parameters.js';
 import type { Distribution, Family, FitOutcome, FitSuccess, NotApplicable, Parameters } from './types.js';
 
 const BOUNDS = Object.freeze({ location: REAL, scale: POSITIVE, shape: REAL });
@@ -168,15 +168,11 @@ class GevDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const location = readParameter('gev', parameters, 'location', BOUNDS.location);
-  const scale = readParameter('gev', parameters, 'scale', BOUNDS.scale);
-  const shape = readParameter('gev', parameters, 'shape', BOUNDS.shape);
-  return new GevDistribution(location, scale, shape);
-}
+const basics = familyBasics({ name: 'gev', label: 'GEV', bounds: BOUNDS, support: 'real', build: (p) => new GevDistribution(p.location, p.scale, p.shape) });
+const { make } = basics;
 
 function applicable(sample: Sample): NotApplicable | null {
-  const na = checkApplicable('gev', 'GEV', sample, 'real');
+  const na = basics.applicable(sample);
   if (na) return na;
   if (sample.n < 3) {
     return { ok: false, family: 'gev', reason: `the GEV model has 3 parameters and needs at least 3 values; the sample has ${sample.n}`, offendingCount: 0 };
@@ -341,14 +337,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const gev: Family = Object.freeze({
-  name: 'gev',
-  label: 'GEV',
-  parameterNames: Object.freeze(['location', 'scale', 'shape']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 3,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const gev: Family = basics.family({ applicable, fit, random });

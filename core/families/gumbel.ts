@@ -17,10 +17,10 @@ import type { Rng } from '../random/index.js';
 import { prepareSample, type Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
 import { log1mexp } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { positiveRootNewton } from './newton.js';
-import { POSITIVE, REAL, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { POSITIVE, REAL } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 /** Euler–Mascheroni constant. */
 export const EULER_GAMMA = 0.5772156649015329;
@@ -85,15 +85,8 @@ class GumbelDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const location = readParameter('gumbel', parameters, 'location', BOUNDS.location);
-  const scale = readParameter('gumbel', parameters, 'scale', BOUNDS.scale);
-  return new GumbelDistribution(location, scale);
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('gumbel', 'Gumbel', sample, 'real');
-}
+const basics = familyBasics({ name: 'gumbel', label: 'Gumbel', bounds: BOUNDS, support: 'real', build: (p) => new GumbelDistribution(p.location, p.scale) });
+const { make, applicable } = basics;
 
 /** Σw, Σw·y, Σw·y² with w = exp(-(x - x_min)/β), y = x - x̄ (compensated first two). */
 function sums(sorted: Float64Array, xmin: number, xbar: number, beta: number, out: Float64Array): void {
@@ -212,14 +205,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const gumbel: Family = Object.freeze({
-  name: 'gumbel',
-  label: 'Gumbel',
-  parameterNames: Object.freeze(['location', 'scale']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 2,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const gumbel: Family = basics.family({ fit, random });

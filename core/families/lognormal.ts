@@ -8,9 +8,9 @@ import { CompensatedSum } from '../compensated.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { normalCdf, normalIsf, normalLogCdf, normalLogCdfSfAt, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
-import { POSITIVE, REAL, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { familyBasics } from './define.js';
+import { POSITIVE, REAL } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
@@ -86,15 +86,8 @@ class LognormalDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const meanlog = readParameter('lognormal', parameters, 'meanlog', BOUNDS.meanlog);
-  const sdlog = readParameter('lognormal', parameters, 'sdlog', BOUNDS.sdlog);
-  return new LognormalDistribution(meanlog, sdlog);
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('lognormal', 'lognormal', sample, 'positive');
-}
+const basics = familyBasics({ name: 'lognormal', label: 'lognormal', bounds: BOUNDS, support: 'positive', build: (p) => new LognormalDistribution(p.meanlog, p.sdlog) });
+const { make, applicable } = basics;
 
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
@@ -131,14 +124,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const lognormal: Family = Object.freeze({
-  name: 'lognormal',
-  label: 'lognormal',
-  parameterNames: Object.freeze(['meanlog', 'sdlog']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 2,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const lognormal: Family = basics.family({ fit, random });

@@ -8,10 +8,10 @@
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { normalCdf, normalIsf, normalLogCdf, normalLogCdfSfAt, normalLogSf, normalQuantile, normalSf } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { mleStandardDeviation, sampleMean } from './moments.js';
-import { POSITIVE, REAL, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { POSITIVE, REAL } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 const SUPPORT: Interval = Object.freeze({ lower: Number.NEGATIVE_INFINITY, upper: Number.POSITIVE_INFINITY });
@@ -74,15 +74,8 @@ class NormalDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const mean = readParameter('normal', parameters, 'mean', BOUNDS.mean);
-  const sd = readParameter('normal', parameters, 'sd', BOUNDS.sd);
-  return new NormalDistribution(mean, sd);
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('normal', 'normal', sample, 'real');
-}
+const basics = familyBasics({ name: 'normal', label: 'normal', bounds: BOUNDS, support: 'real', build: (p) => new NormalDistribution(p.mean, p.sd) });
+const { make, applicable } = basics;
 
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
@@ -112,14 +105,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const normal: Family = Object.freeze({
-  name: 'normal',
-  label: 'normal',
-  parameterNames: Object.freeze(['mean', 'sd']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 2,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const normal: Family = basics.family({ fit, random });

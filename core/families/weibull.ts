@@ -16,10 +16,10 @@
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { lnGamma, log1mexp } from '../special/index.js';
-import { checkApplicable } from './applicability.js';
+import { familyBasics } from './define.js';
 import { positiveRootNewton } from './newton.js';
-import { POSITIVE, readParameter } from './parameters.js';
-import type { Distribution, Family, FitOutcome, Interval, NotApplicable, Parameters } from './types.js';
+import { POSITIVE } from './parameters.js';
+import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
 
 const SUPPORT: Interval = Object.freeze({ lower: 0, upper: Number.POSITIVE_INFINITY });
 const BOUNDS = Object.freeze({ shape: POSITIVE, scale: POSITIVE });
@@ -127,15 +127,8 @@ class WeibullDistribution implements Distribution {
   }
 }
 
-function make(parameters: Parameters): Distribution {
-  const shape = readParameter('weibull', parameters, 'shape', BOUNDS.shape);
-  const scale = readParameter('weibull', parameters, 'scale', BOUNDS.scale);
-  return new WeibullDistribution(shape, scale);
-}
-
-function applicable(sample: Sample): NotApplicable | null {
-  return checkApplicable('weibull', 'Weibull', sample, 'positive');
-}
+const basics = familyBasics({ name: 'weibull', label: 'Weibull', bounds: BOUNDS, support: 'positive', build: (p) => new WeibullDistribution(p.shape, p.scale) });
+const { make, applicable } = basics;
 
 /**
  * One pass over the logs at shape c: S0 = Σw, S1 = Σw·y, S2 = Σw·y² with w = exp(c·y),
@@ -240,14 +233,4 @@ function random(parameters: Parameters, rng: Rng, n: number): Float64Array {
   return out;
 }
 
-export const weibull: Family = Object.freeze({
-  name: 'weibull',
-  label: 'Weibull',
-  parameterNames: Object.freeze(['shape', 'scale']),
-  parameterBounds: BOUNDS,
-  estimatedParameters: 2,
-  make,
-  applicable,
-  fit,
-  random,
-});
+export const weibull: Family = basics.family({ fit, random });
