@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { ROOT, SKIP_BROWSER } from './server-process.js';
-import { OUT, openSession, type BrowserSession } from './session.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
 
 describe.skipIf(SKIP_BROWSER)('grouped counts on the page', () => {
   let session: BrowserSession;
@@ -26,8 +26,7 @@ describe.skipIf(SKIP_BROWSER)('grouped counts on the page', () => {
     await session?.close();
   });
 
-  const waitDone = (what: RegExp) =>
-    page.waitForFunction((src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''), what.source, { timeout: 120_000 });
+  const waitDone = (what: RegExp): Promise<void> => waitForStatus(page, what, 120_000);
 
   it('inspection classes demo: grouped fits, chi-square on the merged classes, AD not offered; the report has the section', { timeout: 240_000 }, async () => {
     await waitDone(/^Done: /);

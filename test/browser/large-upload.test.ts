@@ -16,7 +16,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { SKIP_BROWSER, type RunningServer } from './server-process.js';
-import { OUT, openSession, type BrowserSession } from './session.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
 const N = 1_000_000;
 
 function mulberry32(seed: number): () => number {
@@ -64,10 +64,10 @@ describe.skipIf(SKIP_BROWSER)('a 10^6-row upload in Chromium', () => {
 
   it('shows the stages while reading, sending and analysing, then n = 1000000 with thinned charts', async () => {
     await page.goto(server.url);
-    await page.waitForFunction(() => /^Done:/.test(document.getElementById('status')?.textContent ?? ''), undefined, { timeout: 60_000 });
+    await waitForStatus(page, /^Done:/, 60_000);
     // The opening demo uses bootstrap p-values; a million values are fitted with the formula ones here.
     await page.check('input[name="pmethod"][value="table"]');
-    await page.waitForFunction(() => /^Done:/.test(document.getElementById('status')?.textContent ?? ''), undefined, { timeout: 60_000 });
+    await waitForStatus(page, /^Done:/, 60_000);
     // Record every stage label the progress line shows.
     await page.evaluate(() => {
       const w = window as unknown as { __stages: string[]; __longTasks: number[] };
@@ -101,7 +101,7 @@ describe.skipIf(SKIP_BROWSER)('a 10^6-row upload in Chromium', () => {
     });
     await page.fill('#alpha-input', '0.1');
     await page.press('#alpha-input', 'Tab');
-    await page.waitForFunction(() => /^Done:.*gauge-million\.csv/.test(document.getElementById('status')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    await waitForStatus(page, /^Done:.*gauge-million\.csv/, 120_000);
     const elapsed = Date.now() - started;
     console.log(`10^6-row upload, file chosen to result shown: ${elapsed} ms (not asserted)`);
     expect(await page.locator('#status').textContent()).toContain(`${N} values of strength_MPa`);

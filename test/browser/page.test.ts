@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { SKIP_BROWSER, type RunningServer } from './server-process.js';
-import { OUT, openSession, type BrowserSession } from './session.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
 
 // An invented fatigue test: an identifier, a cycle count in thousands, the load, a note; one
 // row with a missing load ("NA") that must be counted as skipped, not silently dropped.
@@ -38,13 +38,7 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     await session?.close();
   });
 
-  async function waitForDone(what: RegExp): Promise<void> {
-    await page.waitForFunction(
-      (src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''),
-      what.source,
-      { timeout: 60_000 },
-    );
-  }
+  const waitForDone = (what: RegExp): Promise<void> => waitForStatus(page, what, 60_000);
 
   const rows = () => page.locator('#ranking-table tr.cand-main');
 

@@ -2,6 +2,7 @@
  * The one set-up shared by the browser tests: make sure test-output/ exists, build the page if
  * needed, start the real server, launch Chromium with a 1366×768 page, and collect console errors
  * and page errors into the test's own list. `close()` stops the browser, then the server.
+ * `waitForStatus` is the one wait on the page's status line.
  */
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
@@ -54,4 +55,13 @@ export async function openSession(opts: SessionOptions): Promise<BrowserSession>
       await server.stop();
     },
   };
+}
+
+/** Wait until the page's status line (#status) matches `what` (a pattern without flags). */
+export async function waitForStatus(page: Page, what: RegExp, timeoutMs: number): Promise<void> {
+  await page.waitForFunction(
+    (src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''),
+    what.source,
+    { timeout: timeoutMs },
+  );
 }

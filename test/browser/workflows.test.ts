@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { SKIP_BROWSER } from './server-process.js';
-import { OUT, openSession, type BrowserSession } from './session.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
 
 describe.skipIf(SKIP_BROWSER)('trade workflows on the page', () => {
   let session: BrowserSession;
@@ -24,8 +24,7 @@ describe.skipIf(SKIP_BROWSER)('trade workflows on the page', () => {
     await session?.close();
   });
 
-  const waitDone = (what: RegExp) =>
-    page.waitForFunction((src) => new RegExp(src).test(document.getElementById('status')?.textContent ?? ''), what.source, { timeout: 120_000 });
+  const waitDone = (what: RegExp): Promise<void> => waitForStatus(page, what, 120_000);
 
   async function exportReport(name: string): Promise<string> {
     const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
