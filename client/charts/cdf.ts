@@ -7,9 +7,9 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { CdfEvidence } from '../src/types.js';
 import { axisLabel } from '../src/format.js';
-import { createFrame, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, drawFittedCurves, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
-import { INK, styleFor } from './palette.js';
+import { INK } from './palette.js';
 
 export interface CdfChartData {
   readonly cdf: CdfEvidence;
@@ -43,21 +43,7 @@ export function cdfChart(container: Element, data: CdfChartData, options: ChartO
 
   const ordered = [...curves].sort((a, b) => Number(a.family === data.selected) - Number(b.family === data.selected));
   const coarse = noteIfCoarse(frame, data.cdf.fitted.x, data.xDomain);
-  for (const c of coarse ? [] : ordered) {
-    const s = styleFor(c.family);
-    const emph = c.family === data.selected;
-    const pts = data.cdf.fitted.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
-    g.append('path')
-      .attr('data-kind', 'curve')
-      .attr('data-family', c.family)
-      .attr('d', pathThrough(pts))
-      .attr('stroke', s.colour)
-      .attr('stroke-width', emph ? 3 : 1.6)
-      .attr('stroke-dasharray', s.dash || null)
-      .attr('stroke-opacity', emph ? 1 : 0.85)
-      .append('title')
-      .text(`${c.label} fitted CDF`);
-  }
+  if (!coarse) drawFittedCurves(g, data.cdf.fitted.x, ordered, data.selected, x, y, 'fitted CDF');
 
   // Right-continuous steps: flat at the previous level up to x[j], then up to p[j].
   let d = `M${round(x(data.xDomain[0]))},${round(y(0))}`;

@@ -226,6 +226,33 @@ export const FEW_CURVE_POINTS = 12;
  * drawn range: straight segments between far-apart points would misrepresent the fit, so the
  * caller leaves the curves out and this note says why.
  */
+/** One fitted curve per family on a shared x grid; the selected family drawn heavier. */
+export function drawFittedCurves(
+  g: Group,
+  gridX: readonly number[],
+  curves: readonly { readonly family: string; readonly label: string; readonly y: readonly (number | null)[] }[],
+  selected: string,
+  x: (v: number) => number,
+  y: (v: number) => number,
+  what: string,
+): void {
+  for (const c of curves) {
+    const s = styleFor(c.family);
+    const emph = c.family === selected;
+    const pts = gridX.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
+    g.append('path')
+      .attr('data-kind', 'curve')
+      .attr('data-family', c.family)
+      .attr('d', pathThrough(pts))
+      .attr('stroke', s.colour)
+      .attr('stroke-width', emph ? 3 : 1.6)
+      .attr('stroke-dasharray', s.dash || null)
+      .attr('stroke-opacity', emph ? 1 : 0.85)
+      .append('title')
+      .text(`${c.label} ${what}`);
+  }
+}
+
 export function noteIfCoarse(frame: Frame, gridX: readonly number[], domain: readonly [number, number]): boolean {
   let inside = 0;
   for (const v of gridX) if (v >= domain[0] && v <= domain[1]) inside++;

@@ -6,9 +6,9 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear } from 'd3';
 import type { FittedCurves, HistogramEvidence } from '../src/types.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, drawFittedCurves, noteIfCoarse, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
-import { INK, styleFor } from './palette.js';
+import { INK } from './palette.js';
 
 export interface HistogramChartData {
   readonly histogram: HistogramEvidence;
@@ -92,22 +92,7 @@ export function histogramChart(container: Element, data: HistogramChartData, opt
 
   const curves = frame.plot.append('g').attr('clip-path', `url(#${clipId})`).attr('fill', 'none');
   const coarse = noteIfCoarse(frame, data.densities.x, data.xDomain);
-  for (const c of coarse ? [] : ordered) {
-    const s = styleFor(c.family);
-    const emph = c.family === data.selected;
-    const pts = data.densities.x.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
-    curves
-      .append('path')
-      .attr('data-kind', 'curve')
-      .attr('data-family', c.family)
-      .attr('d', pathThrough(pts))
-      .attr('stroke', s.colour)
-      .attr('stroke-width', emph ? 3 : 1.6)
-      .attr('stroke-dasharray', s.dash || null)
-      .attr('stroke-opacity', emph ? 1 : 0.85)
-      .append('title')
-      .text(`${c.label} fitted density`);
-  }
+  if (!coarse) drawFittedCurves(curves, data.densities.x, ordered, data.selected, x, y, 'fitted density');
 
   drawXAxis(frame, axisBottom(x).ticks(Math.max(3, Math.floor(frame.innerWidth / 80))), axisLabel(quantity, options.units));
   const yLabel = options.units.trim() ? `Density [per ${options.units.trim()}]` : 'Density';
