@@ -46,3 +46,4 @@ export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_P
 export type * from './evidence/types.js';
 export type * from './workflow/index.js';
 export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync } from './workflow/index.js';
+export * from './batch/index.js';
