@@ -83,6 +83,11 @@ function requireJson(req: Request, _res: Response, next: NextFunction): void {
   next();
 }
 
+/** zlib's errors (gzip, deflate: code Z_*; brotli: ERR__* / ERR_BROTLI*) while body-parser inflates a body. */
+function isDecompressionError(err: unknown): err is Error {
+  return err instanceof Error && /^(Z_|ERR__|ERR_BROTLI)/.test(String((err as { code?: unknown }).code ?? ''));
+}
+
 function methodNotAllowed(allowed: string): RequestHandler {
   return (req, res) => {
     res.setHeader('Allow', allowed);
@@ -111,7 +116,24 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
 
   // Bodies are taken as bytes and parsed in a worker thread (pool.ts), so a 50 MB upload never
   // blocks the main thread; express.raw still enforces the limit (413).
-  const raw = express.raw({ limit: bodyLimit, type: 'application/json' });
+  const rawParser = express.raw({ limit: bodyLimit, type: 'application/json' });
+  // A body that does not decode as its Content-Encoding says is the client's fault: name the coding.
+  const raw: RequestHandler = (req, res, next) => {
+    rawParser(req, res, (err?: unknown) => {
+      if (isDecompressionError(err)) {
+        const coding = String(req.headers['content-encoding'] ?? '').slice(0, 40);
+        next(
+          new HttpError(
+            400,
+            `The request body does not decode as its header Content-Encoding: ${coding} says (${err.message}). Send plain JSON without a Content-Encoding header, or compress the body as the header says.`,
+            { code: 'bad-request' },
+          ),
+        );
+        return;
+      }
+      next(err);
+    });
+  };
   const bodyBytes = (req: Request): Uint8Array => {
     const b: unknown = req.body;
     if (b instanceof Uint8Array && b.byteLength > 0) return b;

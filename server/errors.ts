@@ -64,6 +64,13 @@ export function clientFault(err: unknown): { status: number; body: ErrorBody } |
     const place = err.place && Object.keys(err.place).length > 0 ? { place: err.place } : {};
     return { status: err.code === 'cancelled' ? 409 : 400, body: { message: err.message, code: err.code, ...place } };
   }
+  // A route parameter whose percent-encoding is not valid UTF-8 (the router's decodeURIComponent).
+  if (err instanceof URIError && (err as { status?: unknown }).status === 400) {
+    return {
+      status: 400,
+      body: { message: `The address has bad percent-encoding (${err.message.replace(/^Failed to decode param /, 'in ').slice(0, 120)}): each %XY must be two hex digits and together they must spell UTF-8 text.`, code: 'bad-request' },
+    };
+  }
   // body-parser (express.json) errors carry a 4xx status and a type.
   if (typeof err === 'object' && err !== null && 'type' in err && 'status' in err) {
     const e = err as { type: unknown; status: unknown; limit?: unknown; message?: unknown };
@@ -80,8 +87,9 @@ export function clientFault(err: unknown): { status: number; body: ErrorBody } |
           };
         case 'entity.parse.failed':
           return { status: 400, body: { message: `The request body is not valid JSON (${String(e.message ?? 'parse error')}).`, code: 'bad-request' } };
-        case 'charset.unsupported':
         case 'encoding.unsupported':
+          return { status: 415, body: { message: `Unsupported Content-Encoding: ${String(e.message ?? '')}. Send the JSON uncompressed, or as gzip, deflate or br.`, code: 'unsupported-media-type' } };
+        case 'charset.unsupported':
           return { status: 415, body: { message: `Unsupported body encoding: ${String(e.message ?? '')}. Send UTF-8 JSON.`, code: 'unsupported-media-type' } };
         case 'request.aborted':
           return { status: 400, body: { message: 'The request was aborted by the client.', code: 'bad-request' } };

@@ -27,11 +27,11 @@ export function rawGet(server: Server, path: string): Promise<{ status: number; 
 }
 
 /** POST raw bytes as application/json to a listening server. */
-export function rawPost(server: Server, path: string, body: Buffer): Promise<{ status: number; body: string }> {
+export function rawPost(server: Server, path: string, body: Buffer, headers: Record<string, string> = {}): Promise<{ status: number; body: string }> {
   const { port } = server.address() as AddressInfo;
   return new Promise((resolve, reject) => {
     const req = httpRequest(
-      { host: '127.0.0.1', port, path, method: 'POST', headers: { 'content-type': 'application/json', 'content-length': String(body.length) } },
+      { host: '127.0.0.1', port, path, method: 'POST', headers: { 'content-type': 'application/json', 'content-length': String(body.length), ...headers } },
       (res) => {
         let text = '';
         res.setEncoding('utf8');
