@@ -293,7 +293,11 @@ function evaluateFamily(family: Family, sample: Sample, opts: ResolvedOptions): 
   };
   try {
     const outcome = family.fit(sample);
-    if (!outcome.ok) return { ok: false, notApplicable: { family: family.name, reason: outcome.reason, offendingCount: outcome.offendingCount } };
+    if (!outcome.ok) {
+      // No interior maximum (a threshold model on the edge) is its own kind: not ranked, not tested.
+      const kind = 'kind' in outcome ? { kind: outcome.kind } : {};
+      return { ok: false, notApplicable: { family: family.name, reason: outcome.reason, offendingCount: outcome.offendingCount, ...kind } };
+    }
     const dist = family.make(outcome.parameters);
     // Families that can work from ln x get the sample's cached logs (same numbers, one Math.log a point saved).
     const a2 = andersonDarlingStatistic(dist, sample.sorted, 'logCdfSfFromLogsInto' in dist && sample.nonPositive === 0 ? sample.logs() : null);
@@ -509,7 +513,7 @@ function warningsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[],
   if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {
     w.push(`Every candidate is rejected at α = ${formatNumber(plan.options.alpha)}: none of these models describes the data well; the ranking only says which is least bad.`);
   }
-  for (const na of notApplicable) w.push(`${na.family}: not applicable. ${na.reason}`);
+  for (const na of notApplicable) w.push(`${na.family}: ${na.kind === 'no-interior-maximum' ? 'not ranked or tested' : 'not applicable'}. ${na.reason}`);
   return w;
 }
 

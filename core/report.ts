@@ -113,6 +113,12 @@ export interface NotApplicableReport {
   readonly family: FamilyName;
   readonly reason: string;
   readonly offendingCount: number;
+  /**
+   * 'no-interior-maximum': the likelihood has no maximum on these data (a threshold model whose
+   * likelihood is unbounded at the smallest value), so there is no fit to rank or test. Absent for
+   * an ordinary not-applicable family.
+   */
+  readonly kind?: 'no-interior-maximum';
 }
 
 export interface MethodNote {

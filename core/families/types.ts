@@ -2,7 +2,7 @@ import type { Sample } from '../sample.js';
 import type { Rng } from '../random/index.js';
 
 /** Names of the model families Plumbline can fit. */
-export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential' | 'gumbel' | 'gev' | 'weibull3' | 'lognormal3';
+export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential' | 'gumbel' | 'gev' | 'weibull3' | 'lognormal3' | 'pearson3' | 'logpearson3';
 
 /** Parameters by role name, e.g. `{ shape: 1.4, scale: 722 }`. Never positional. */
 export type Parameters = Readonly<Record<string, number>>;
@@ -70,7 +70,24 @@ export interface NotApplicable {
   readonly offendingCount: number;
 }
 
-export type FitOutcome = FitSuccess | NotApplicable;
+/**
+ * The likelihood has no interior maximum on this sample: it keeps rising towards the edge of the
+ * parameter space (a threshold model whose likelihood is unbounded as the threshold approaches the
+ * smallest value, or whose threshold runs off to -∞). There is no maximum-likelihood estimate, so
+ * this is not a fit: it is never ranked, tested, or used for a decision number.
+ */
+export interface NoInteriorMaximum {
+  readonly ok: false;
+  readonly kind: 'no-interior-maximum';
+  readonly family: FamilyName;
+  /** What happened and what applies instead, in plain words. */
+  readonly reason: string;
+  readonly offendingCount: 0;
+  /** Where the likelihood keeps rising. */
+  readonly edge: 'threshold-at-smallest-value' | 'threshold-to-minus-infinity';
+}
+
+export type FitOutcome = FitSuccess | NotApplicable | NoInteriorMaximum;
 
 export interface Family {
   readonly name: FamilyName;

@@ -14,8 +14,11 @@
  *     change sign there, golden-section search on the profile and Newton polishing of all three
  *     parameters (core/optimize) are used instead.
  *  3. When the profile keeps rising as γ → m (no interior maximum: the Weibull likelihood is
- *     unbounded there when the shape is < 1), or keeps rising as γ → -∞ (no finite threshold), the
- *     fit is reported with `converged: false` and a warning, never as a sound estimate.
+ *     unbounded there when the shape is < 1), or keeps rising as γ → -∞ (no finite threshold),
+ *     there is no maximum-likelihood estimate: the outcome is `NoInteriorMaximum` (not a fit), so
+ *     it is never ranked, tested or used for a decision number. The log-likelihood at the end of
+ *     the search grid is arbitrary (it grows without bound as the grid is extended), so no
+ *     number from it is reported.
  * Smith (1985, Biometrika 72:67-90): for shape > 2 the estimate is regular; for 1 < shape ≤ 2 it
  * exists but its usual standard errors do not hold; for shape < 1 no local maximum need exist.
  * The Anderson–Darling p-value of a threshold model is by parametric bootstrap (no table).
@@ -26,7 +29,7 @@ import { prepareSample, type Sample } from '../sample.js';
 import { below, brentRoot, maximize, LOG, type Transform } from '../optimize/index.js';
 import { checkApplicable } from './applicability.js';
 import { POSITIVE, REAL, readParameter } from './parameters.js';
-import type { Distribution, Family, FamilyName, FitOutcome, FitSuccess, NotApplicable, ParameterBound, Parameters } from './types.js';
+import type { Distribution, Family, FamilyName, FitOutcome, FitSuccess, NoInteriorMaximum, NotApplicable, ParameterBound, Parameters } from './types.js';
 import { weibull } from './weibull.js';
 
 /** A two-parameter distribution moved right by `threshold`. */
@@ -129,6 +132,22 @@ function logLik3(spec: ThresholdSpec, sorted: Float64Array): (v: Float64Array) =
   };
 }
 
+/** The outcome when the profile keeps rising to an edge of the threshold's range. */
+function noInteriorMaximum(spec: ThresholdSpec, smallest: number, where: 'min' | 'far'): NoInteriorMaximum {
+  const reason =
+    where === 'min'
+      ? `The ${spec.label} likelihood has no interior maximum on these data: the likelihood is unbounded as the threshold approaches the smallest value (${String(smallest)}), so there is no maximum-likelihood estimate and the model is not ranked or tested. Use the two-parameter model, or a threshold chosen by another published method.`
+      : `The ${spec.label} likelihood has no interior maximum on these data: it keeps increasing as the threshold moves far below the data (no finite threshold), so there is no maximum-likelihood estimate and the model is not ranked or tested. Use the two-parameter model.`;
+  return {
+    ok: false,
+    kind: 'no-interior-maximum',
+    family: spec.name,
+    reason,
+    offendingCount: 0,
+    edge: where === 'min' ? 'threshold-at-smallest-value' : 'threshold-to-minus-infinity',
+  };
+}
+
 export function fitWithThreshold(spec: ThresholdSpec, sample: Sample): FitOutcome {
   const na = applicableThreshold(spec, sample);
   if (na) return na;
@@ -167,26 +186,9 @@ export function fitWithThreshold(spec: ThresholdSpec, sample: Sample): FitOutcom
     if (v >= (lls[i - 1] as number) && v >= (lls[i + 1] as number) && Number.isFinite(v) && (best < 0 || v > (lls[best] as number))) best = i;
   }
   const warnings: string[] = [];
-  const baseFail = (where: 'min' | 'far'): FitOutcome => {
-    const i = where === 'min' ? 0 : GRID_POINTS - 1;
-    const r = profileAt(us[i] as number);
-    if (!r.params) return { ok: false, family: spec.name, reason: `the ${spec.label} likelihood could not be evaluated`, offendingCount: 0 };
-    const th = m - Math.exp(us[i] as number);
-    const text =
-      where === 'min'
-        ? `The ${spec.label} likelihood keeps increasing as the threshold approaches the smallest value (${String(m)}); there is no interior maximum (for a Weibull, shape < 1), so the threshold shown sits on that bound and is not a sound maximum-likelihood estimate. Prefer the two-parameter model.`
-        : `The ${spec.label} likelihood keeps increasing as the threshold moves far below the data: the data show no finite threshold. Prefer the two-parameter model.`;
-    return {
-      ok: true,
-      family: spec.name,
-      parameters: Object.freeze({ ...r.params, threshold: th }),
-      logLikelihood: r.ll,
-      iterations: evaluations,
-      converged: false,
-      method: `profile likelihood over the threshold on a log grid; no interior maximum: ${where === 'min' ? 'estimate on the bound at the smallest value' : 'threshold runs off to -∞'}`,
-      warnings: [text],
-    } as FitSuccess;
-  };
+  const baseFail = (where: 'min' | 'far'): FitOutcome => noInteriorMaximum(spec, m, where);
+  const notEvaluable: NotApplicable = { ok: false, family: spec.name, reason: `the ${spec.label} likelihood could not be evaluated`, offendingCount: 0 };
+  if (!lls.some(Number.isFinite)) return notEvaluable;
   if (best < 0) {
     const iMax = lls.indexOf(Math.max(...lls.filter(Number.isFinite)));
     return baseFail(iMax >= GRID_POINTS / 2 ? 'far' : 'min');
@@ -241,7 +243,7 @@ export function fitWithThreshold(spec: ThresholdSpec, sample: Sample): FitOutcom
     how = 'golden-section search on the profile';
   }
   const prof = profileAt(uStar);
-  if (!prof.params) return baseFail('min');
+  if (!prof.params) return notEvaluable;
   const ll = logLik3(spec, xs);
   let theta = Float64Array.from([...spec.baseNames.map((k) => prof.params![k] as number), m - Math.exp(uStar)]);
   let value = ll(theta);

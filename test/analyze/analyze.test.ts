@@ -4,6 +4,7 @@ import {
   PlumblineError,
   analyze,
   analyzeAsync,
+  analyzeDataset,
   combineBootstrapCounts,
   finishAnalysis,
   planAnalysis,
@@ -13,6 +14,7 @@ import {
   type AnalysisReport,
   type BootstrapRunner,
 } from '../../core/index.js';
+import { readFixture } from '../helpers/fixtures.js';
 
 // D1 of shared/references.md (made up only to check arithmetic).
 const D1 = [12.4, 15.1, 9.8, 22.7, 18.3, 11.6, 14.9, 27.5, 10.2, 13.7, 19.8, 8.9, 16.4, 24.1, 12.9, 17.6, 14.2, 31.3, 11.1, 15.8];
@@ -200,5 +202,30 @@ describe('plan / execute split', () => {
     }
     expect(err).toBeInstanceOf(PlumblineError);
     expect((err as PlumblineError).code).toBe('cancelled');
+  });
+});
+
+describe('a threshold fit with no interior maximum is not ranked or tested', () => {
+  // Fixture: scripts/fixtures/threshold.py — 30 values from an exponential with mean 40 (numpy
+  // default_rng(1)); SciPy's weibull_min profile log-likelihood is still rising at a threshold
+  // 1e-14 × range below the smallest value (Smith 1985, Biometrika 72:67-90: unbounded for shape < 1).
+  const sample: number[] = readFixture('threshold.json').exponentialMean40.sample;
+
+  it('weibull3 is listed as no-interior-maximum, absent from the ranking, and the verdicts are the two-parameter models\'', () => {
+    const r = analyze(sample, { families: ['exponential', 'weibull', 'weibull3'], bootstrapReplicates: 19 });
+    expect(r.candidates.map((c) => c.family).sort()).toEqual(['exponential', 'weibull']);
+    expect(r.candidates[0]?.rank).toBe(1);
+    const na = r.notApplicable.find((x) => x.family === 'weibull3');
+    expect(na?.kind).toBe('no-interior-maximum');
+    expect(na?.reason).toMatch(/no interior maximum/);
+    expect(r.warnings.join('\n')).toMatch(/weibull3: not ranked or tested/);
+  });
+
+  it('and stays out of the decision numbers and the sensitivity table', () => {
+    const r = analyzeDataset({ values: sample }, { families: ['exponential', 'weibull', 'weibull3'], usl: 200, bootstrapReplicates: 19 });
+    expect(r.candidates.some((c) => c.family === 'weibull3')).toBe(false);
+    const rows = JSON.stringify(r.sensitivity ?? []);
+    expect(rows).not.toMatch(/weibull3/);
+    expect(rows).toMatch(/exponential/);
   });
 });
