@@ -42,8 +42,9 @@ export {
 } from './gof/index.js';
 export type { BootstrapCounts, BootstrapJob, CancelSignal } from './gof/index.js';
 export * from './csv/index.js';
-export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS } from './evidence/index.js';
+export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS, CENSORED_BINS, type CensoredEvidenceInput } from './evidence/index.js';
 export type * from './evidence/types.js';
 export type * from './workflow/index.js';
 export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync } from './workflow/index.js';
 export * from './batch/index.js';
+export * from './options/index.js';

@@ -33,6 +33,12 @@ export type OptionValueKind =
   | 'columns' // a comma-separated list of columns
   | 'text'; // free text (e.g. a delimiter), checked by `pattern` when given
 
+/** The CLI, and the JSON API (which the page's request builder speaks). */
+export type OptionSurface = 'cli' | 'api';
+
+/** A parsed option value (`null`: off / absent). */
+export type OptionValue = number | boolean | string | readonly number[] | readonly string[] | null;
+
 export interface OptionSpec {
   /** camelCase name: the JSON/API field, the page's form key, the docs' row. */
   readonly name: string;
@@ -59,6 +65,28 @@ export interface OptionSpec {
   readonly appliesTo: readonly OptionScope[];
   /** One line of help, shown by --help, the page and the docs. */
   readonly help: string;
+  /**
+   * Where the option exists: the command line, the JSON API (the page builds API requests), or both
+   * (the default). E.g. `--json` is CLI-only; the evidence settings are API-only.
+   */
+  readonly surfaces?: readonly OptionSurface[];
+  /** On the CLI the option is a flag without a value that sets this value (e.g. --decimal-comma sets ','). */
+  readonly cliFlagValue?: string | boolean;
+  /** In JSON the field sits inside this object (e.g. 'csvOptions' for `csvOptions.delimiter`). */
+  readonly jsonParent?: 'csvOptions' | 'evidenceOptions';
+  /**
+   * A column option whose data a `values` request gives as an array field instead (e.g. 'status' for
+   * the status column); the combination rules count either as the option being given.
+   */
+  readonly jsonData?: string;
+  /** A 'text' option's value must match this (JavaScript RegExp source, `u` flag). */
+  readonly pattern?: string;
+  /** Words for `pattern`, e.g. 'one character (not a quote or line break)'. */
+  readonly patternWords?: string;
+  /** What one item of a 'choice'/'choices' option is called in messages ('family'). */
+  readonly itemNoun?: string;
+  /** The core's option key when it differs from `name` (the core's DatasetOptions). */
+  readonly coreName?: string;
   /** The section of --help, the page's form and the docs it is listed under. */
   readonly group: 'input' | 'fitting' | 'tests' | 'life' | 'flood' | 'capability' | 'trend' | 'batch' | 'output';
 }

@@ -1,0 +1,55 @@
+/** Process-capability options: specification limits, target, subgroups. */
+import type { OptionSpec } from './spec.js';
+
+export const CAPABILITY_OPTIONS: readonly OptionSpec[] = [
+  {
+    name: 'lsl',
+    cli: '--lsl',
+    kind: 'number',
+    unit: 'same unit as the data',
+    default: null,
+    appliesTo: ['capability'],
+    help: 'lower specification limit (one or both limits turn on capability)',
+    group: 'capability',
+  },
+  {
+    name: 'usl',
+    cli: '--usl',
+    kind: 'number',
+    unit: 'same unit as the data',
+    default: null,
+    appliesTo: ['capability'],
+    help: 'upper specification limit',
+    group: 'capability',
+  },
+  {
+    name: 'target',
+    cli: '--target',
+    kind: 'number',
+    unit: 'same unit as the data',
+    default: null,
+    appliesTo: ['capability'],
+    help: 'target value (Cpm, with both limits)',
+    group: 'capability',
+  },
+  {
+    name: 'subgroupColumn',
+    cli: '--subgroup-column',
+    kind: 'column',
+    jsonData: 'subgroups',
+    default: null,
+    appliesTo: ['capability'],
+    help: 'subgroup labels: Cp and Cpk from the within-subgroup sigma',
+    group: 'capability',
+  },
+  {
+    name: 'withinMethod',
+    cli: '--within-method',
+    kind: 'choice',
+    choices: ['pooled', 'range'],
+    default: 'pooled',
+    appliesTo: ['capability'],
+    help: 'within-subgroup sigma: pooled (s_p/c4) or range (mean range/d2)',
+    group: 'capability',
+  },
+];
