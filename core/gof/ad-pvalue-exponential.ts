@@ -8,6 +8,7 @@
  *   0.51 ≤ A* < 0.95   p = exp(0.9209 - 3.353A* + 0.300A*²)
  *   A* ≥ 0.95          p = exp(0.731 - 3.009A* + 0.15A*²)
  */
+import type { AdPValue } from './ad-pvalue-types.js';
 
 /** A* = A²(1 + 0.6/n). */
 export function exponentialCaseModified(a2: number, n: number): number {
@@ -16,7 +17,8 @@ export function exponentialCaseModified(a2: number, n: number): number {
 
 /**
  * p-value of A*. The last branch's quadratic turns upward at A* ≈ 10; its value there is
- * already below 1e-6 (5.8e-7), so beyond the turning point the p-value is held at the minimum.
+ * already below 1e-6 (5.8e-7), so beyond the turning point the number is held at the minimum,
+ * which is then only an upper bound on p (`exponentialCaseResult` says so).
  */
 export function exponentialCasePValue(aStar: number): number {
   let p: number;
@@ -31,7 +33,15 @@ export function exponentialCasePValue(aStar: number): number {
 }
 
 /** Where exp(0.731 - 3.009A + 0.15A²) has its minimum: A = 3.009 / 0.3. */
-const EXPONENTIAL_TURNING_POINT = 3.009 / 0.3;
+export const EXPONENTIAL_TURNING_POINT = 3.009 / 0.3;
+
+/**
+ * The p-value of A* as the report carries it: an estimate inside the formula's range; beyond the
+ * turning point, where the formula stops decreasing, only the bound p < (its minimum, 5.8e-7).
+ */
+export function exponentialCaseResult(aStar: number): Pick<AdPValue, 'pValue' | 'pValueIs'> {
+  return { pValue: exponentialCasePValue(aStar), pValueIs: aStar > EXPONENTIAL_TURNING_POINT ? 'upper-bound' : 'estimate' };
+}
 
 /** Upper critical values of A* (D'Agostino & Stephens 1986). */
 export const EXPONENTIAL_CASE_CRITICAL = [

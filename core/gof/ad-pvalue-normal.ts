@@ -11,6 +11,7 @@
  *
  * The formula is not continuous at its branch edges (0.50152 vs 0.49823 at 0.34), as published.
  */
+import type { AdPValue } from './ad-pvalue-types.js';
 
 /** A* = A²(1 + 0.75/n + 2.25/n²). */
 export function normalCaseModified(a2: number, n: number): number {
@@ -32,9 +33,18 @@ export function normalCasePValue(aStar: number): number {
 
 /**
  * The last branch's quadratic has its minimum at A* = 5.709/(2·0.0186) ≈ 153.5 (p ≈ 1e-190) and
- * would rise again beyond it; the p-value is held at that minimum there (our guard, no source).
+ * would rise again beyond it; the number is held at that minimum there, which is then only an
+ * upper bound on p (our guard, no source; `normalCaseResult` says so).
  */
-const NORMAL_TURNING_POINT = 5.709 / (2 * 0.0186);
+export const NORMAL_TURNING_POINT = 5.709 / (2 * 0.0186);
+
+/**
+ * The p-value of A* as the report carries it: an estimate inside the formula's range; beyond the
+ * turning point only the bound p < (the formula's minimum, about 1e-190).
+ */
+export function normalCaseResult(aStar: number): Pick<AdPValue, 'pValue' | 'pValueIs'> {
+  return { pValue: normalCasePValue(aStar), pValueIs: aStar > NORMAL_TURNING_POINT ? 'upper-bound' : 'estimate' };
+}
 
 /** Upper critical values of A* (D'Agostino & Stephens 1986, Table 4.7). */
 export const NORMAL_CASE_CRITICAL = [

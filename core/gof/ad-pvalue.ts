@@ -8,8 +8,8 @@ import type { Sample } from '../sample.js';
 import { formatNumber } from './format.js';
 import { andersonDarlingStatistic } from './anderson-darling.js';
 import type { AdPValue } from './ad-pvalue-types.js';
-import { normalCaseModified, normalCasePValue } from './ad-pvalue-normal.js';
-import { exponentialCaseModified, exponentialCasePValue } from './ad-pvalue-exponential.js';
+import { NORMAL_TURNING_POINT, normalCaseModified, normalCasePValue, normalCaseResult } from './ad-pvalue-normal.js';
+import { EXPONENTIAL_TURNING_POINT, exponentialCaseModified, exponentialCasePValue, exponentialCaseResult } from './ad-pvalue-exponential.js';
 import { weibullCaseModified, weibullCasePValue } from './ad-pvalue-weibull.js';
 import { gammaCasePValue } from './ad-pvalue-gamma.js';
 import { GAMMA_AD_TABLE } from './ad-gamma-table.js';
@@ -42,24 +42,23 @@ export function tablePValue(family: FamilyName, parameters: Parameters, sample: 
       const aStar = normalCaseModified(tableA2, n);
       const on = family === 'normal' ? 'x' : 'ln x';
       return {
-        pValue: normalCasePValue(aStar),
-        pValueIs: 'estimate',
+        ...normalCaseResult(aStar),
         modifiedStatistic: aStar,
         tableStatistic: tableA2,
         methodDetail:
           `Normal case with mean and variance estimated, on ${on}: D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, Table 4.9 formula, ` +
           `entered with A* = A²(1 + 0.75/n + 2.25/n²) where this A² (${formatNumber(tableA2)}) uses the n - 1 standard deviation as the table does; ` +
-          `the reported statistic (${formatNumber(a2)}) is A² at the maximum-likelihood fit.`,
+          `the reported statistic (${formatNumber(a2)}) is A² at the maximum-likelihood fit. Beyond A* = ${formatNumber(NORMAL_TURNING_POINT)}, where the formula stops decreasing, the p-value is only the bound p < ${formatNumber(normalCasePValue(NORMAL_TURNING_POINT))}.`,
       };
     }
     case 'exponential': {
       const aStar = exponentialCaseModified(a2, n);
       return {
-        pValue: exponentialCasePValue(aStar),
-        pValueIs: 'estimate',
+        ...exponentialCaseResult(aStar),
         modifiedStatistic: aStar,
         methodDetail:
-          "Exponential case, origin known (0), mean estimated: D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, ch. 4 p-value formula, entered with A* = A²(1 + 0.6/n).",
+          "Exponential case, origin known (0), mean estimated: D'Agostino & Stephens (1986), Goodness-of-Fit Techniques, ch. 4 p-value formula, entered with A* = A²(1 + 0.6/n). " +
+          `Beyond A* = ${formatNumber(EXPONENTIAL_TURNING_POINT)}, where the formula stops decreasing, the p-value is only the bound p < ${formatNumber(exponentialCasePValue(EXPONENTIAL_TURNING_POINT))}.`,
       };
     }
     case 'weibull':

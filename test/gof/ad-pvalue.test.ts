@@ -1,16 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { getFamily, prepareSample } from '../../core/index.js';
+import { analyze, getFamily, prepareSample } from '../../core/index.js';
 import {
   EXPONENTIAL_CASE_CRITICAL,
+  EXPONENTIAL_TURNING_POINT,
   GAMMA_AD_TABLE,
   NORMAL_CASE_CRITICAL,
   WEIBULL_CASE_CRITICAL,
   andersonDarlingStatistic,
   exponentialCasePValue,
+  exponentialCaseResult,
   gammaCasePValue,
   gammaCriticalValues,
   normalCaseModified,
   normalCasePValue,
+  normalCaseResult,
   tablePValue,
   weibullCasePValue,
 } from '../../core/gof/index.js';
@@ -130,5 +133,33 @@ describe('gamma, simulated shape grid (scripts/simulate-ad-tables.ts)', () => {
     expect(gammaCasePValue(0.3, 3)).toMatchObject({ pValue: 0.25, pValueIs: 'lower-bound' });
     expect(gammaCasePValue(3, 3)).toMatchObject({ pValue: 0.01, pValueIs: 'upper-bound' });
     expect(gammaCasePValue(r1.values[2] as number, 1).pValue).toBeCloseTo(0.05, 12);
+  });
+});
+
+describe('past the formula range the p-value is a bound, printed as one', () => {
+  // D'Agostino & Stephens (1986) ch. 4 formulas: the last branch's quadratic turns upward (exponential at
+  // A* = 3.009/0.3 ≈ 10.03, normal at 5.709/0.0372 ≈ 153.5); beyond it the number held is only p < minimum.
+  it('exponential: A* = 34.8 and 233.5 give pValueIs upper-bound at the formula minimum 5.8e-7', () => {
+    for (const aStar of [34.8, 233.5]) {
+      const r = exponentialCaseResult(aStar);
+      expect(r.pValueIs).toBe('upper-bound');
+      expect(r.pValue).toBeCloseTo(5.8e-7, 8);
+    }
+    expect(exponentialCaseResult(5).pValueIs).toBe('estimate');
+    expect(exponentialCaseResult(EXPONENTIAL_TURNING_POINT).pValueIs).toBe('estimate');
+  });
+  it('normal: A* past 153.5 is a bound; inside it an estimate', () => {
+    expect(normalCaseResult(200).pValueIs).toBe('upper-bound');
+    expect(normalCaseResult(100).pValueIs).toBe('estimate');
+  });
+  it('an analysis with a far-off exponential fit says "p < 5.8e-7" in its decision', () => {
+    // 40 values from a normal far from 0 with tiny spread: the exponential fit is absurd and A* is huge.
+    const xs = Array.from({ length: 40 }, (_, i) => 1000 + i * 0.01);
+    const r = analyze(xs, { families: ['exponential', 'normal'] });
+    const e = r.candidates.find((c) => c.family === 'exponential');
+    expect(e?.andersonDarling.modifiedStatistic).toBeGreaterThan(EXPONENTIAL_TURNING_POINT);
+    expect(e?.andersonDarling.pValueIs).toBe('upper-bound');
+    expect(e?.andersonDarling.decision).toMatch(/p < 5\.8\d*e-7/);
+    expect(e?.andersonDarling.rejected).toBe(true);
   });
 });
