@@ -12,3 +12,7 @@ export { checkResolution } from './resolution.js';
 export type { ResolutionCheck } from './resolution.js';
 export { groupByLabel, withinSigma } from './within.js';
 export type { WithinMethod, WithinSigma } from './within.js';
+export { boxCoxInverse, boxCoxLogLikelihood, boxCoxRange, boxCoxTransform, fitBoxCox, LAMBDA_LIMIT } from './boxcox.js';
+export type { BoxCoxFit } from './boxcox.js';
+export { fitJohnson, hazenQuantile, johnsonCdf, johnsonLogPdf, johnsonQuantile, johnsonSf, johnsonSupport, johnsonX, johnsonZ, JOHNSON_ZETA, SL_TOLERANCE } from './johnson.js';
+export type { JohnsonFit, JohnsonParameters, JohnsonType } from './johnson.js';
