@@ -16,6 +16,16 @@ import { lifeModel, toParameters, toVector, type LifeFamilyName } from './models
 
 export type BoundMethod = 'likelihood-ratio' | 'fisher-matrix';
 
+/**
+ * Where the bounds get the log-likelihood of a family's parameter vector: right-censored LifeData,
+ * or any other likelihood given as a function (e.g. interval-censored data, interval-likelihood.ts).
+ */
+export type LikelihoodSource = LifeData | { readonly logLikelihoodOf: (family: LifeFamilyName) => (v: Float64Array) => number };
+
+function likelihoodOf(family: LifeFamilyName, data: LikelihoodSource): (v: Float64Array) => number {
+  return 'logLikelihoodOf' in data ? data.logLikelihoodOf(family) : logLikelihoodOf(family, data);
+}
+
 export interface BoundedEstimate {
   readonly estimate: number;
   readonly lower: number;
@@ -55,9 +65,9 @@ function logLikelihoodAtQuantile(family: LifeFamilyName, ll: (v: Float64Array) =
 }
 
 /** The log-likelihood with parameter vector [x_p, other parameters...] for a fixed p. */
-function quantileParametrised(fit: CensoredFitSuccess, data: LifeData, p: number) {
+function quantileParametrised(fit: CensoredFitSuccess, data: LikelihoodSource, p: number) {
   const model = lifeModel(fit.family);
-  const ll = logLikelihoodOf(fit.family, data);
+  const ll = likelihoodOf(fit.family, data);
   return (v: Float64Array): number => {
     const xp = v[0] as number;
     if (!Number.isFinite(xp) || (model.quantileScale === 'log' && !(xp > 0))) return Number.NEGATIVE_INFINITY;
@@ -78,9 +88,9 @@ function othersOf(fit: CensoredFitSuccess): { values: number[]; transforms: Retu
   return { values, transforms };
 }
 
-function waldLog(fit: CensoredFitSuccess, data: LifeData, g: (v: Float64Array) => number, confidence: number) {
+function waldLog(fit: CensoredFitSuccess, data: LikelihoodSource, g: (v: Float64Array) => number, confidence: number) {
   const model = lifeModel(fit.family);
-  const ll = logLikelihoodOf(fit.family, data);
+  const ll = likelihoodOf(fit.family, data);
   const theta = toVector(model, fit.parameters);
   const info = observedInformation(ll, theta);
   if (!info.covariance) return null;
@@ -94,7 +104,7 @@ function waldLog(fit: CensoredFitSuccess, data: LifeData, g: (v: Float64Array) =
   return { lower: c - z * Math.sqrt(v), upper: c + z * Math.sqrt(v) };
 }
 
-export function bLife(fit: CensoredFitSuccess, data: LifeData, percent: number, confidence: number, method: BoundMethod = 'likelihood-ratio'): BLife {
+export function bLife(fit: CensoredFitSuccess, data: LikelihoodSource, percent: number, confidence: number, method: BoundMethod = 'likelihood-ratio'): BLife {
   if (!(percent > 0 && percent < 100)) throw new RangeError(`B-life percent must be in (0, 100), got ${percent}`);
   if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must be in (0, 1), got ${confidence}`);
   const p = percent / 100;
@@ -121,7 +131,7 @@ export function bLife(fit: CensoredFitSuccess, data: LifeData, percent: number, 
   return { percent, estimate, lower: iv.lower, upper: iv.upper, confidence, method: LR_TEXT, boundsFound: iv.lowerFound && iv.upperFound };
 }
 
-export function reliabilityAt(fit: CensoredFitSuccess, data: LifeData, time: number, confidence: number, method: BoundMethod = 'likelihood-ratio'): ReliabilityAt {
+export function reliabilityAt(fit: CensoredFitSuccess, data: LikelihoodSource, time: number, confidence: number, method: BoundMethod = 'likelihood-ratio'): ReliabilityAt {
   if (!(time > 0)) throw new RangeError(`reliability time must be > 0, got ${time}`);
   const fam = getFamily(fit.family);
   const model = lifeModel(fit.family);
@@ -141,7 +151,7 @@ export function reliabilityAt(fit: CensoredFitSuccess, data: LifeData, time: num
     };
   }
   // Parameter of interest: p = F(time), with x_p = time fixed.
-  const llFull = logLikelihoodOf(fit.family, data);
+  const llFull = likelihoodOf(fit.family, data);
   const ll = (v: Float64Array): number => {
     const p = v[0] as number;
     if (!(p > 0 && p < 1)) return Number.NEGATIVE_INFINITY;
@@ -163,9 +173,9 @@ export function reliabilityAt(fit: CensoredFitSuccess, data: LifeData, time: num
 }
 
 /** Profile-likelihood interval of one named parameter (e.g. the Weibull shape). */
-export function parameterInterval(fit: CensoredFitSuccess, data: LifeData, name: string, confidence: number): BoundedEstimate {
+export function parameterInterval(fit: CensoredFitSuccess, data: LikelihoodSource, name: string, confidence: number): BoundedEstimate {
   const model = lifeModel(fit.family);
-  const ll = logLikelihoodOf(fit.family, data);
+  const ll = likelihoodOf(fit.family, data);
   const idx = model.names.indexOf(name);
   if (idx < 0) throw new RangeError(`${fit.family} has no parameter ${name}`);
   const x = toVector(model, fit.parameters);
