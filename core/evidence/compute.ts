@@ -1,6 +1,9 @@
 /**
  * computeEvidence: everything the page's charts need, from the prepared sample and the report's
  * candidates. Pure; the full sample is used for every number, thinning is for drawing only.
+ * With `censoring` (the same values with a status, 1 failed / 0 suspended) the evidence follows
+ * the censoring (censored.ts): failures at suspension-aware positions, suspensions marked where
+ * they are, the Kaplan–Meier step for the distribution function, and no bins.
  */
 import { InputError } from '../errors.js';
 import { getFamily, type Distribution } from '../families/index.js';
@@ -8,7 +11,8 @@ import type { AnalysisReport, CandidateReport } from '../report.js';
 import type { Sample } from '../sample.js';
 import { empiricalCdf } from './ecdf.js';
 import { cdfCurve, commonGrid, densityCurve } from './grid.js';
-import { binCounts, candidateBins, histogramEvidence } from './histogram.js';
+import { CENSORED_BINS, censoredPositions, censoredProbabilityPlot, censoringEvidence, kaplanMeierCdf, prepareCensored, type CensoredEvidenceInput } from './censored.js';
+import { binCounts, candidateBins, histogramEvidence, notApplicableBins, notApplicableHistogram } from './histogram.js';
 import { orderStatisticInterval } from './orderStatistic.js';
 import { probabilityPlot } from './probabilityPlot.js';
 import { MIN_THIN_CAP } from './thin.js';
@@ -35,6 +39,7 @@ export function computeEvidence(
   sample: Sample,
   report: Pick<AnalysisReport, 'candidates'> | { readonly candidates: readonly EvidenceCandidate[] },
   options: EvidenceOptions = {},
+  censoring?: CensoredEvidenceInput,
 ): Evidence {
   const maxPoints = checkOption('maxPoints', options.maxPoints, MIN_THIN_CAP, 1_000_000, true, DEFAULT_MAX_POINTS);
   const gridPoints = checkOption('gridPoints', options.gridPoints, 16, 2000, true, DEFAULT_GRID_POINTS);
@@ -46,7 +51,19 @@ export function computeEvidence(
     dist: getFamily(c.family).make(c.parameters),
   }));
   const bandCache = new Map<number, ReturnType<typeof orderStatisticInterval>>();
+  const life = censoring ? prepareCensored(sorted, censoring) : null;
+  const method = censoring?.positions ?? lifePositionsOf(report) ?? 'johnson-benard';
+  const positions = life ? censoredPositions(life, method, 1 - bandAlpha) : [];
   const candidates: CandidateEvidence[] = fitted.map(({ c, dist }) => {
+    if (life) {
+      return {
+        family: c.family,
+        label: c.label,
+        histogram: notApplicableHistogram(CENSORED_BINS),
+        probabilityPlot: censoredProbabilityPlot(dist, life, positions, method, maxPoints, 1 - bandAlpha),
+        bins: notApplicableBins(CENSORED_BINS),
+      };
+    }
     const bins = candidateBins(dist, sorted, c.chiSquare);
     return {
       family: c.family,
@@ -94,9 +111,17 @@ export function computeEvidence(
     maxPoints,
     densities: { x: grid, curves: fitted.map(({ c, dist }) => densityCurve(dist, c.label, grid)) },
     cdf: {
-      empirical: empiricalCdf(sorted, maxPoints),
+      empirical: life ? kaplanMeierCdf(life, maxPoints) : empiricalCdf(sorted, maxPoints),
       fitted: { x: grid, curves: fitted.map(({ c, dist }) => cdfCurve(dist, c.label, grid)) },
     },
     candidates,
+    censoring: life ? censoringEvidence(life, method, maxPoints) : null,
   };
+}
+
+/** The plotting positions a life report used (its `life.plot.method`), if the report has them. */
+function lifePositionsOf(report: object): 'johnson-benard' | 'kaplan-meier' | undefined {
+  const life = (report as { readonly life?: { readonly plot?: { readonly method?: unknown } } }).life;
+  const m = life?.plot?.method;
+  return m === 'kaplan-meier' || m === 'johnson-benard' ? m : undefined;
 }

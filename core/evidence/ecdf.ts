@@ -6,6 +6,8 @@
 import type { CdfEvidence } from './types.js';
 import { thinMonotone } from './thin.js';
 
+const NO_SUSPENSIONS = { x: [], p: [], thinned: false, total: 0 } as const;
+
 export function empiricalCdf(sorted: ArrayLike<number>, cap: number): CdfEvidence['empirical'] {
   const n = sorted.length;
   // Distinct values and their cumulative counts (one pass; the arrays are as long as the
@@ -32,5 +34,5 @@ export function empiricalCdf(sorted: ArrayLike<number>, cap: number): CdfEvidenc
     outC[j] = c[idx] as number;
     outP[j] = (c[idx] as number) / n;
   });
-  return { x: outX, cumulativeCount: outC, p: outP, thinned: keep.length < m, total: m };
+  return { estimator: 'empirical', x: outX, cumulativeCount: outC, p: outP, thinned: keep.length < m, total: m, suspensions: NO_SUSPENSIONS };
 }

@@ -11,7 +11,7 @@
 import type { Distribution } from '../families/index.js';
 import { equiprobableBins, maxBinCount, mooreBinCount } from '../gof/index.js';
 import type { BinRow, ChiSquareReport } from '../report.js';
-import type { BinCountsEvidence, HistogramBar, HistogramEvidence } from './types.js';
+import type { BinCountsEvidence, HistogramBar, HistogramEvidence, NotApplicableEvidence } from './types.js';
 
 export const DISPLAY_EDGE_RULE =
   'An open outer bin (edge at ±infinity, or a support edge such as 0 lying further from the data than the data\'s own range) is drawn from its inner edge to the data extreme, or one neighbouring-bin width beyond the inner edge when that reaches further; other finite edges are drawn where they are.';
@@ -97,12 +97,13 @@ export function histogramBars(rows: readonly BinRow[], n: number, dataMin: numbe
 }
 
 export function histogramEvidence(source: 'report' | 'display', rows: readonly BinRow[], n: number, dataMin: number, dataMax: number): HistogramEvidence {
-  return { source, k: rows.length, bars: histogramBars(rows, n, dataMin, dataMax), displayEdgeRule: DISPLAY_EDGE_RULE };
+  return { source, notApplicable: null, k: rows.length, bars: histogramBars(rows, n, dataMin, dataMax), displayEdgeRule: DISPLAY_EDGE_RULE };
 }
 
 export function binCounts(source: 'report' | 'display', rows: readonly BinRow[]): BinCountsEvidence {
   return {
     source,
+    notApplicable: null,
     rows: rows.map((r, index) => {
       const d = r.observed - r.expected;
       return {
@@ -116,4 +117,13 @@ export function binCounts(source: 'report' | 'display', rows: readonly BinRow[])
       };
     }),
   };
+}
+
+/** A censored sample's histogram and bins: none, with the reason (`notApplicable`). */
+export function notApplicableHistogram(na: NotApplicableEvidence): HistogramEvidence {
+  return { source: 'not-applicable', notApplicable: na, k: 0, bars: [], displayEdgeRule: na.reason };
+}
+
+export function notApplicableBins(na: NotApplicableEvidence): BinCountsEvidence {
+  return { source: 'not-applicable', notApplicable: na, rows: [] };
 }

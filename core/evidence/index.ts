@@ -7,3 +7,4 @@ export { betaQuantile, incompleteBeta, orderStatisticInterval } from './orderSta
 export { BERNARD, BLOM, plottingPosition, probabilityPlot, scaleFor, scaleY } from './probabilityPlot.js';
 export { empiricalCdf } from './ecdf.js';
 export { binCounts, displayBinCount, histogramBars, DISPLAY_EDGE_RULE } from './histogram.js';
+export { CENSORED_BINS, JOHNSON_POSITIONS, KAPLAN_MEIER_POSITIONS, kaplanMeierCdf, type CensoredEvidenceInput } from './censored.js';

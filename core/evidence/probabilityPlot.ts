@@ -168,6 +168,7 @@ export function probabilityPlot(
       description: `Pointwise ${fmtPct(level)} band for each order statistic: the i-th of n uniform order statistics is Beta(i, n + 1 - i); its ${fmtPct(bandAlpha / 2)} and ${fmtPct(1 - bandAlpha / 2)} quantiles mapped through the fitted quantile function. Not a simultaneous band.`,
     },
     probabilityTicks: ticks,
+    suspensions: [],
     thinned: keep.length < m,
     total: n,
     omitted,

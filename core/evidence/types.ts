@@ -39,6 +39,37 @@ export interface Evidence {
   readonly cdf: CdfEvidence;
   /** Per-candidate charts (same order as `report.candidates`; look up by `family`). */
   readonly candidates: readonly CandidateEvidence[];
+  /** Right-censored samples (a status column): the failure and suspension times and how the
+   *  failures are placed; null for a complete sample. */
+  readonly censoring: CensoringEvidence | null;
+}
+
+/** Why a binned chart or table is not given: bins need every unit in a known class, and a
+ *  suspension is known only to lie beyond its run time. */
+export interface NotApplicableEvidence {
+  readonly cause: 'censored';
+  readonly reason: string;
+}
+
+/** Times marked on the charts of a censored sample (thinned for drawing, extremes kept). */
+export interface TimeMarks {
+  readonly x: readonly number[];
+  readonly thinned: boolean;
+  /** Count before thinning. */
+  readonly total: number;
+}
+
+export interface CensoringEvidence {
+  readonly failures: number;
+  readonly suspensions: number;
+  /** How the failures are placed on the probability plot and the distribution-function chart. */
+  readonly method: 'johnson-benard' | 'kaplan-meier';
+  readonly plottingPosition: PlottingPosition;
+  /** Failure times and suspension times, each ascending (for marks along the axis). */
+  readonly failureTimes: TimeMarks;
+  readonly suspensionTimes: TimeMarks;
+  /** Why the sample gets no chi-square bins, histogram bars or observed-vs-expected bins. */
+  readonly binsNotApplicable: NotApplicableEvidence;
 }
 
 /** Curves for several candidates on a common, ascending x grid. */
@@ -58,8 +89,12 @@ export interface FittedCurve {
 
 export interface CdfEvidence {
   /** Empirical CDF as a right-continuous step function: at each x[j] (ascending distinct data
-   *  values, thinned) the cumulative count of observations ≤ x[j]. The last count is n. */
+   *  values, thinned) the cumulative count of observations ≤ x[j]. The last count is n.
+   *  Censored sample (`estimator` 'kaplan-meier'): the steps are at the distinct failure times,
+   *  p is the Kaplan–Meier estimate 1 − Ŝ(x) (it stays below 1 when the largest time is a
+   *  suspension) and cumulativeCount the number of failures ≤ x. */
   readonly empirical: {
+    readonly estimator: 'empirical' | 'kaplan-meier';
     readonly x: readonly number[];
     readonly cumulativeCount: readonly number[];
     /** cumulativeCount / n. */
@@ -67,6 +102,8 @@ export interface CdfEvidence {
     readonly thinned: boolean;
     /** Number of distinct values (steps) before thinning. */
     readonly total: number;
+    /** Suspensions marked where they are: time and the step's height there (empty when complete). */
+    readonly suspensions: { readonly x: readonly number[]; readonly p: readonly number[]; readonly thinned: boolean; readonly total: number };
   };
   /** Fitted CDFs on the same grid as `densities.x`. */
   readonly fitted: FittedCurves;
@@ -101,8 +138,10 @@ export interface HistogramBar {
 
 export interface HistogramEvidence {
   /** "report" when the bins are the candidate's chi-square bins; "display" when the chi-square
-   *  test was not computable and the bins were made here (equiprobable under the fit, k stated). */
-  readonly source: 'report' | 'display';
+   *  test was not computable and the bins were made here (equiprobable under the fit, k stated);
+   *  "not-applicable" for a censored sample (no bars; `notApplicable` says why). */
+  readonly source: 'report' | 'display' | 'not-applicable';
+  readonly notApplicable: NotApplicableEvidence | null;
   readonly k: number;
   readonly bars: readonly HistogramBar[];
   /** How the finite display edges of the outer bins were chosen, in words. */
@@ -122,7 +161,9 @@ export interface BinCountsRow {
 }
 
 export interface BinCountsEvidence {
-  readonly source: 'report' | 'display';
+  readonly source: 'report' | 'display' | 'not-applicable';
+  /** Set for a censored sample, whose rows are empty. */
+  readonly notApplicable: NotApplicableEvidence | null;
   readonly rows: readonly BinCountsRow[];
 }
 
@@ -155,7 +196,9 @@ export interface ProbabilityPlotEvidence {
   readonly xLabel: string;
   readonly yLabel: string;
   readonly plottingPosition: PlottingPosition;
-  /** Data points (thinned for drawing): x = transformed order statistic, y = transformed position. */
+  /** Data points (thinned for drawing): x = transformed order statistic, y = transformed position.
+   *  Censored sample: failures only, rank = Johnson's adjusted rank (or, for Kaplan–Meier, the
+   *  number at risk). */
   readonly points: { readonly x: readonly number[]; readonly y: readonly number[]; readonly rank: readonly number[] };
   /** The fitted model as a line: horizontal coordinate of the fitted quantile at each plotted y
    *  (its own y array: a rank where the fitted quantile is not finite on the scale is left out). */
@@ -174,8 +217,11 @@ export interface ProbabilityPlotEvidence {
   };
   /** Probability ticks for the vertical axis (absent for the Q–Q scale). */
   readonly probabilityTicks: readonly ProbabilityTick[];
+  /** Censored sample: suspension times on the horizontal coordinate (xTransform applied; thinned),
+   *  to be marked along the axis: they have no plotting position. Empty for a complete sample. */
+  readonly suspensions: readonly number[];
   readonly thinned: boolean;
-  /** n before thinning. */
+  /** Points before thinning (n, or the number of failures of a censored sample). */
   readonly total: number;
   /** Points left out because a coordinate was undefined (e.g. ln of a value ≤ 0). */
   readonly omitted: number;

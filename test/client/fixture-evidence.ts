@@ -36,6 +36,7 @@ const plot = (scale: ProbabilityPlotEvidence['scale'], xTransform: 'identity' | 
       { p: 0.9, y: 1.2816 },
       { p: 0.95, y: 1.645 },
     ],
+    suspensions: [],
     thinned: false,
     total: 10,
     omitted: 0,
@@ -74,6 +75,8 @@ export const EVIDENCE: Evidence = {
   },
   cdf: {
     empirical: {
+      estimator: 'empirical',
+      suspensions: { x: [], p: [], thinned: false, total: 0 },
       x: [12, 25, 33, 41, 47, 52, 58, 66, 79, 95],
       cumulativeCount: [2, 4, 6, 8, 10, 12, 14, 16, 18, 20],
       p: [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1],
@@ -92,16 +95,17 @@ export const EVIDENCE: Evidence = {
     {
       family: 'weibull',
       label: 'Weibull',
-      histogram: { source: 'report', k: 4, bars, displayEdgeRule: 'Open outer bins are drawn to the data extremes.' },
+      histogram: { source: 'report', notApplicable: null, k: 4, bars, displayEdgeRule: 'Open outer bins are drawn to the data extremes.' },
       probabilityPlot: plot('weibull', 'ln'),
-      bins: { source: 'report', rows },
+      bins: { source: 'report', notApplicable: null, rows },
     },
     {
       family: 'normal',
       label: 'Normal',
-      histogram: { source: 'report', k: 4, bars, displayEdgeRule: 'Open outer bins are drawn to the data extremes.' },
+      histogram: { source: 'report', notApplicable: null, k: 4, bars, displayEdgeRule: 'Open outer bins are drawn to the data extremes.' },
       probabilityPlot: plot('normal', 'identity'),
-      bins: { source: 'report', rows },
+      bins: { source: 'report', notApplicable: null, rows },
     },
   ],
+  censoring: null,
 };
