@@ -59,7 +59,7 @@ export function centredLogs(values: ArrayLike<number>): CentredLogs {
   for (let i = 0; i < n; i++) {
     const x = values[i] as number;
     if (!(x > 0) || !Number.isFinite(x)) {
-      throw new InputError(`The Box–Cox transformation needs positive finite values (value ${i + 1} is ${String(x)}).`, { value: String(x) }, 'not-applicable');
+      throw new InputError(`The Box–Cox transformation needs positive finite values (value ${i + 1} is ${String(x)}).`, { value: String(x) }, 'bad-input');
     }
     u[i] = Math.log(x);
     s.add(u[i] as number);
