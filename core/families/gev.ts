@@ -26,7 +26,7 @@
  * Starts: the Gumbel fit (ξ = 0) and the probability-weighted-moment estimate of Hosking, Wallis
  * & Wood (1985, Technometrics 27:251-261); the better likelihood wins.
  */
-import { maximize, between, IDENTITY, LOG } from '../optimize/index.js';
+import { maximize, affine, between, LOG } from '../optimize/index.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
@@ -272,7 +272,11 @@ export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotAp
   if (g.ok) starts.push([g.parameters.location as number, g.parameters.scale as number, 0]);
   const pwm = gevPwmStart(xs);
   if (pwm) starts.push([pwm.location, pwm.scale, Math.max(-0.9 * guard, Math.min(0.9 * guard, pwm.shape))]);
-  const transforms = [IDENTITY, LOG, between(-guard, guard)];
+  // Location measured from the median in units of the starting scale: the search, its numerical
+  // derivatives and its stopping tests are then the same in any units (scale-free convergence).
+  const spread = starts[0]?.[1] ?? (sample.max - sample.min);
+  const locationTr = affine(xs[Math.floor(sample.n / 2)] as number, spread > 0 && Number.isFinite(spread) ? spread : 1);
+  const transforms = [locationTr, LOG, between(-guard, guard)];
   let best: ReturnType<typeof maximize> | null = null;
   for (const s of starts) {
     if (!Number.isFinite(ll(Float64Array.from(s)))) continue;
@@ -290,7 +294,7 @@ export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotAp
   const onGuard = Math.abs(xi) > guard * (1 - 1e-4);
   if (onGuard) {
     const fixed = xi > 0 ? guard : -guard;
-    const r = maximize((th) => gevLogLikelihood(xs, th[0] as number, th[1] as number, fixed), [mu, sigma], { transforms: [IDENTITY, LOG], xtol: 1e-10 });
+    const r = maximize((th) => gevLogLikelihood(xs, th[0] as number, th[1] as number, fixed), [mu, sigma], { transforms: [locationTr, LOG], xtol: 1e-10 });
     mu = r.x[0] as number;
     sigma = r.x[1] as number;
     xi = fixed;

@@ -18,7 +18,7 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName, type Parameters } from '../families/index.js';
-import { between, IDENTITY, LOG, numericalGradient, observedInformation, profileInterval, type Transform } from '../optimize/index.js';
+import { affine, between, LOG, numericalGradient, observedInformation, profileInterval, type Transform } from '../optimize/index.js';
 import type { Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
 import { normalQuantile } from '../special/index.js';
@@ -176,7 +176,8 @@ export function returnLevels(
           return beta > 0 ? llNatural(Float64Array.of((th[0] as number) + beta * Math.log(y), beta)) : Number.NEGATIVE_INFINITY;
         };
         start = [estimate, beta0];
-        transforms = [IDENTITY, LOG];
+        // z_T from the estimate in units of the fitted scale: scale-free steps and stopping tests.
+        transforms = [affine(estimate, beta0), LOG];
       } else {
         const guard = opts.shapeGuard ?? 0.5;
         const sigma0 = fit.parameters.scale as number;
@@ -189,7 +190,7 @@ export function returnLevels(
             return s > 0 ? llNatural(Float64Array.of((th[0] as number) - s * gevQuantileOffset(xi0, y), s, xi0)) : Number.NEGATIVE_INFINITY;
           };
           start = [estimate, sigma0];
-          transforms = [IDENTITY, LOG];
+          transforms = [affine(estimate, sigma0), LOG];
         } else {
           ll = (th) => {
             const s = th[1] as number;
@@ -198,7 +199,7 @@ export function returnLevels(
             return llNatural(Float64Array.of((th[0] as number) - s * gevQuantileOffset(xi, y), s, xi));
           };
           start = [estimate, sigma0, xi0];
-          transforms = [IDENTITY, LOG, between(-guard, guard)];
+          transforms = [affine(estimate, sigma0), LOG, between(-guard, guard)];
         }
       }
       const r = profileInterval(ll, { x: start, value: ll0 }, 0, level, { transforms, tolerance: 1e-10 });

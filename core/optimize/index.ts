@@ -9,4 +9,4 @@ export { profileInterval, profileLogLikelihood, chiSquare1Quantile, type Profile
 export { nelderMead, type SimplexResult } from './nelder-mead.js';
 export { brentRoot, type RootResult } from './root.js';
 export { cholesky, choleskySolve, inverseSpd } from './linalg.js';
-export { IDENTITY, LOG, above, below, between, toFreeVector, fromFreeVector, type Transform } from './transforms.js';
+export { IDENTITY, LOG, above, affine, below, between, toFreeVector, fromFreeVector, type Transform } from './transforms.js';

@@ -17,6 +17,22 @@ export const IDENTITY: Transform = Object.freeze({
   fromFree: (z: number) => z,
 });
 
+/**
+ * For a location-like parameter: z = (θ - center)/spread, with `spread` the data's own scale (e.g.
+ * a fitted scale parameter). The free coordinate then has typical size 1 whatever the units, so the
+ * maximiser's steps, numerical derivatives and stopping tests (all relative to max(|z|, 1)) are
+ * scale-free (the "typical size" scaling of Dennis & Schnabel 1983, Numerical Methods for
+ * Unconstrained Optimization, §7.1 [from memory]).
+ */
+export function affine(center: number, spread: number): Transform {
+  if (!(spread > 0 && Number.isFinite(spread)) || !Number.isFinite(center)) throw new RangeError(`affine: need a finite center and a positive finite spread, got ${center}, ${spread}`);
+  return {
+    name: `(θ - ${center})/${spread}`,
+    toFree: (t: number) => (t - center) / spread,
+    fromFree: (z: number) => center + z * spread,
+  };
+}
+
 /** For a parameter > 0: z = ln θ. */
 export const LOG: Transform = Object.freeze({
   name: 'log',

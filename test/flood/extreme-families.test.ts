@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { fitGev, getFamily, gev, gumbel } from '../../core/families/index.js';
 import { createRng } from '../../core/random/index.js';
 import { prepareSample } from '../../core/sample.js';
+import { returnLevels } from '../../core/flood/index.js';
 import { readFixture } from '../helpers/fixtures.js';
 
 // Reference values: scripts/fixtures/flood.py (SciPy 1.17.1 gumbel_r / genextreme with c = -ξ,
@@ -149,5 +150,37 @@ describe('magnitudes near the ends of the double range (exact power-of-two resca
       expect(Math.abs((v1.parameters.shape as number) - (v0.parameters.shape as number))).toBeLessThan(1e-8);
       expect(rel(g1.logLikelihood, g0.logLikelihood - f.values.length * Math.log(c))).toBeLessThan(1e-12);
     }
+  });
+});
+
+describe('scale-free convergence (units do not change whether the fit converges)', () => {
+  it('every fixture record × 1e-9 and × 1e9: GEV converges to the fixture MLE scaled (≤ 2e-8), same shape', () => {
+    // Reference: the roots refined by scripts/fixtures/flood.py; ML is equivariant under x -> c·x, so
+    // the MLE of c·x is (c·μ, c·σ, ξ) (common practice, no source). 2e-8 rather than DEVELOPERS.md's
+    // 1e-8: c·x is rounded value by value, and the solver stops at a free-space step of 1e-10 on a
+    // likelihood that is flat to rounding over about 1e-8 in σ (measured 1.06e-8 on one record).
+    for (const f of fx.fits.filter((x: { family: string }) => x.family === 'gev')) {
+      for (const c of [1e-9, 1e9]) {
+        const r = fitGev(prepareSample((f.values as number[]).map((v) => v * c)));
+        if (!r.ok) throw new Error('fit failed');
+        expect(r.converged, `${f.name} × ${c}`).toBe(true);
+        expect(Math.abs((r.parameters.shape as number) - f.mle.shape), `${f.name} × ${c}`).toBeLessThan(2e-8);
+        expect(rel((r.parameters.scale as number) / c, f.mle.scale)).toBeLessThan(2e-8);
+        expect(rel((r.parameters.location as number) / c, f.mle.location)).toBeLessThan(2e-8);
+      }
+    }
+  });
+  it('GEV return-level profile intervals scale with the data (× 1e-9)', () => {
+    const f = fx.fits.find((x: { name: string }) => x.name === 'port-pirie');
+    const c = 1e-9;
+    const a = fitGev(prepareSample(f.values));
+    const sb = prepareSample((f.values as number[]).map((v) => v * c));
+    const b = fitGev(sb);
+    if (!a.ok || !b.ok) throw new Error('fit failed');
+    const ra = returnLevels(prepareSample(f.values), a, [100]).levels[0];
+    const rb = returnLevels(sb, b, [100]).levels[0];
+    if (!ra || !rb) throw new Error('no level');
+    expect(rel(rb.lower / c, ra.lower)).toBeLessThan(1e-6);
+    expect(rel(rb.upper / c, ra.upper)).toBeLessThan(1e-6);
   });
 });
