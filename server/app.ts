@@ -88,6 +88,15 @@ function isDecompressionError(err: unknown): err is Error {
   return err instanceof Error && /^(Z_|ERR__|ERR_BROTLI)/.test(String((err as { code?: unknown }).code ?? ''));
 }
 
+/** A signal that aborts when the connection closes before the response was sent. */
+function clientGone(res: Response): AbortSignal {
+  const controller = new AbortController();
+  res.on('close', () => {
+    if (!res.writableFinished) controller.abort();
+  });
+  return controller.signal;
+}
+
 function methodNotAllowed(allowed: string): RequestHandler {
   return (req, res) => {
     res.setHeader('Allow', allowed);
@@ -150,18 +159,15 @@ export function createApp(options: AppOptions = {}): PlumblineApp {
 
   app.post('/api/analyze', requireJson, raw, async (req, res) => {
     const body = bodyBytes(req);
-    const controller = new AbortController();
-    // A client that goes away stops its bootstrap.
-    res.on('close', () => {
-      if (!res.writableFinished) controller.abort();
-    });
-    const { json } = await pool.analyze(body, 'analyze', { signal: controller.signal });
+    // A client that goes away stops its planning and its bootstrap.
+    const { json } = await pool.analyze(body, 'analyze', { signal: clientGone(res) });
     sendJson(res, 200, json);
   });
   app.all('/api/analyze', methodNotAllowed('POST'));
 
   app.post('/api/jobs', requireJson, raw, async (req, res) => {
-    const view = await jobs.create(bodyBytes(req));
+    // Until the 202 is sent, a client that goes away stops the planning of its job.
+    const view = await jobs.create(bodyBytes(req), clientGone(res));
     sendJson(res, 202, JSON.stringify({ id: view.id, state: view.state, progress: view.progress }));
   });
   app.all('/api/jobs', methodNotAllowed('POST'));

@@ -38,6 +38,22 @@ export class ClientFault extends Error {
   }
 }
 
+/**
+ * A worker thread died while running part of an analysis (a crash or out of memory, not the
+ * request's fault): the analysis stopped and can be retried. Its message is for the user.
+ */
+export class WorkerFailed extends Error {
+  readonly detail: string;
+  constructor(cause: unknown) {
+    super(WORKER_FAILED_MESSAGE);
+    this.name = 'WorkerFailed';
+    this.detail = cause instanceof Error ? cause.message : String(cause);
+  }
+}
+
+/** What the client is told when a worker died under its analysis. */
+export const WORKER_FAILED_MESSAGE = 'The analysis stopped because a worker failed; it can be retried.';
+
 export function badRequest(message: string, field?: string, code = 'bad-request'): HttpError {
   return new HttpError(400, message, field === undefined ? { code } : { field, code });
 }
@@ -115,6 +131,12 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     const fault = clientFault(err);
     if (fault) {
       sendError(res, fault.status, fault.body);
+      return;
+    }
+    if (err instanceof WorkerFailed) {
+      log(`worker failed on ${req.method} ${req.path}: ${err.detail}`);
+      res.setHeader('Retry-After', '1');
+      sendError(res, 503, { message: err.message, code: 'worker-failed' });
       return;
     }
     log(`internal error on ${req.method} ${req.path}`, err);

@@ -7,7 +7,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { isPlumblineError } from '../core/index.js';
-import { clientFault, HttpError, type ErrorBody, type Logger } from './errors.js';
+import { clientFault, HttpError, WorkerFailed, type ErrorBody, type Logger } from './errors.js';
 import type { WorkerPool } from './pool.js';
 
 export type JobState = 'running' | 'done' | 'cancelled' | 'failed';
@@ -68,20 +68,35 @@ export class JobManager {
     this.log = opts.log ?? (() => {});
   }
 
+  /** Requests holding a slot while their body is planned (not yet jobs). */
+  private planning = 0;
+
   get running(): number {
     let k = 0;
     for (const j of this.jobs.values()) if (j.state === 'running') k++;
     return k;
   }
 
-  /** Plan and start a job from a raw JSON body. Rejects with a 4xx fault on bad input or overload. */
-  async create(body: Uint8Array): Promise<JobView> {
+  /**
+   * Plan and start a job from a raw JSON body. Rejects with a 4xx fault on bad input or overload.
+   * The slot is reserved before planning is awaited, so the limit holds for simultaneous requests.
+   */
+  async create(body: Uint8Array, signal?: AbortSignal): Promise<JobView> {
     this.sweep();
-    if (this.running >= this.maxRunning) {
-      throw new HttpError(429, `Too many analyses are running (${this.maxRunning}); wait for one to finish or cancel one.`, { code: 'too-many-jobs' });
+    if (this.running + this.planning >= this.maxRunning) {
+      throw new HttpError(429, `Too many analyses are running (the limit is ${this.maxRunning} at once); wait for one to finish or cancel one.`, { code: 'too-many-jobs' });
     }
+    this.planning++;
+    try {
+      return await this.start(body, signal);
+    } finally {
+      this.planning--;
+    }
+  }
+
+  private async start(body: Uint8Array, signal: AbortSignal | undefined): Promise<JobView> {
     const seq = ++this.arrivals;
-    const planned = await this.pool.plan(body, 'job');
+    const planned = await this.pool.plan(body, 'job', signal);
     // A new job from the same client replaces its previous one. Order is by arrival, not by the
     // end of planning: a request overtaken by a newer one from the same client starts cancelled.
     let stale = false;
@@ -137,7 +152,10 @@ export class JobManager {
         const fault = clientFault(e);
         job.state = 'failed';
         if (fault) job.error = fault.body;
-        else {
+        else if (e instanceof WorkerFailed) {
+          this.log(`job ${id}: worker failed (${e.detail})`);
+          job.error = { message: e.message, code: 'worker-failed' };
+        } else {
           this.log(`job ${id} failed`, e);
           job.error = { message: 'Internal error; the server log has the details.' };
         }

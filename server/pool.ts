@@ -21,7 +21,7 @@ import {
   type BootstrapCounts,
   type BootstrapJob,
 } from '../core/index.js';
-import { ClientFault, type Logger } from './errors.js';
+import { ClientFault, WorkerFailed, type Logger } from './errors.js';
 import type { BodyKind, FromWorker, ToWorker } from './pool-messages.js';
 
 export interface RunOptions {
@@ -43,6 +43,8 @@ interface Task {
   done: number;
   readonly onProgress?: (delta: number) => void;
   readonly settle: (m: FromWorker | Error) => void;
+  /** Its requester has gone (a plan whose client left while a worker was planning it). */
+  abandoned?: boolean;
 }
 
 interface Slot {
@@ -50,6 +52,10 @@ interface Slot {
   task: Task | null;
   readonly affine: Task[];
   alive: boolean;
+  /** Tokens of the plans this worker keeps for their finish. */
+  readonly kept: Set<number>;
+  /** Called if this worker dies (the analyses whose plans it keeps stop their bootstrap). */
+  readonly onDeath: Set<() => void>;
 }
 
 /** A plan kept by a worker, waiting for its bootstrap. */
@@ -119,7 +125,7 @@ export class WorkerPool {
       settle,
     };
     if (opts.slot) {
-      if (!opts.slot.alive) throw new Error('the worker keeping this analysis has stopped');
+      if (!opts.slot.alive) throw new WorkerFailed('the worker keeping this analysis has stopped');
       opts.slot.affine.push(task);
     } else if (opts.urgent) this.urgent.push(task);
     else this.ranges.push(task);
@@ -127,12 +133,25 @@ export class WorkerPool {
     return { task, reply };
   }
 
-  /** Parse, validate and plan a request body in a worker. Client faults reject with ClientFault. */
-  async plan(body: Uint8Array, kind: BodyKind): Promise<PlanOutcome> {
+  /**
+   * Parse, validate and plan a request body in a worker. Client faults reject with ClientFault.
+   * When `signal` aborts (the client went away) a queued plan is dropped and a running one is
+   * stopped by ending its worker thread (planning is one synchronous step in the worker, so this
+   * is the only way to stop it); the pool starts a fresh worker in its place. Rejects 'cancelled'.
+   */
+  async plan(body: Uint8Array, kind: BodyKind, signal?: AbortSignal): Promise<PlanOutcome> {
+    if (signal?.aborted) throw new PlumblineError('cancelled', 'The analysis was cancelled: the client went away.');
     const copy = new Uint8Array(body.byteLength);
     copy.set(body);
     const { task, reply } = this.submit({ type: 'plan', body: copy, kind }, { transfer: [copy.buffer], urgent: true });
-    const m = await reply;
+    const abort = (): void => this.abortTask(task, 'The analysis was cancelled: the client went away.');
+    signal?.addEventListener('abort', abort, { once: true });
+    let m: FromWorker;
+    try {
+      m = await reply;
+    } finally {
+      signal?.removeEventListener('abort', abort);
+    }
     if (m.type === 'result') return { kind: 'result', json: m.json, ...(m.client !== undefined ? { client: m.client } : {}) };
     if (m.type === 'planned') {
       const slot = this.slotOf(task);
@@ -149,6 +168,7 @@ export class WorkerPool {
 
   /** Finish a kept plan with its bootstrap counts; returns the response JSON. */
   async finish(ticket: PlanTicket, counts: readonly BootstrapCounts[]): Promise<string> {
+    ticket.slot.kept.delete(ticket.token);
     const { reply } = this.submit({ type: 'finish', token: ticket.token, counts }, { slot: ticket.slot });
     const m = await reply;
     if (m.type === 'result') return m.json;
@@ -157,25 +177,42 @@ export class WorkerPool {
 
   /** Forget a kept plan (best effort). */
   drop(ticket: PlanTicket): void {
+    ticket.slot.kept.delete(ticket.token);
     if (!ticket.slot.alive || this.closed) return;
     this.submit({ type: 'drop', token: ticket.token }, { slot: ticket.slot }).reply.catch(() => {});
   }
 
   /** A whole request: plan, bootstrap on the pool, finish. Returns the response JSON. */
   async analyze(body: Uint8Array, kind: BodyKind, opts: RunOptions = {}): Promise<{ json: string; client?: string }> {
-    const planned = await this.plan(body, kind);
+    const planned = await this.plan(body, kind, opts.signal);
     if (planned.kind === 'result') return planned;
     return { json: await this.complete(planned, opts), ...(planned.client !== undefined ? { client: planned.client } : {}) };
   }
 
   /** Run a planned analysis's bootstrap and finish it (dropping the plan if cancelled or failed). */
   async complete(planned: Extract<PlanOutcome, { kind: 'planned' }>, opts: RunOptions = {}): Promise<string> {
+    // The bootstrap stops when the caller cancels, or when the worker keeping the plan dies.
+    const local = new AbortController();
+    let keeperDied = false;
+    const onDeath = (): void => {
+      keeperDied = true;
+      local.abort();
+    };
+    const onAbort = (): void => local.abort();
+    const { slot } = planned.ticket;
+    if (!slot.alive) throw new WorkerFailed('the worker keeping this analysis has stopped');
+    slot.onDeath.add(onDeath);
+    if (opts.signal?.aborted) local.abort();
+    else opts.signal?.addEventListener('abort', onAbort, { once: true });
     let counts: BootstrapCounts[];
     try {
-      counts = await this.run(planned.jobs, opts);
+      counts = await this.run(planned.jobs, { ...opts, signal: local.signal });
     } catch (e) {
       this.drop(planned.ticket);
-      throw e;
+      throw keeperDied ? new WorkerFailed('the worker keeping this analysis has stopped') : e;
+    } finally {
+      slot.onDeath.delete(onDeath);
+      opts.signal?.removeEventListener('abort', onAbort);
     }
     return this.finish(planned.ticket, counts);
   }
@@ -223,12 +260,47 @@ export class WorkerPool {
       const counts = await Promise.all(perJob);
       if (counts.some((c) => c.cancelled)) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
       return counts;
+    } catch (e) {
+      // One range failed (its worker died): stop the others at once instead of letting them run on.
+      abort();
+      throw e;
     } finally {
       opts.signal?.removeEventListener('abort', abort);
     }
   }
 
   private readonly taskSlot = new Map<number, Slot>();
+
+  /** Stop one task: dropped from its queue, or its worker ended if it is running (see plan). */
+  private abortTask(task: Task, message: string): void {
+    const err = new PlumblineError('cancelled', message);
+    const qi = this.urgent.indexOf(task);
+    if (qi >= 0) {
+      this.urgent.splice(qi, 1);
+      task.settle(err);
+      return;
+    }
+    const slot = this.slots.find((s) => s.task === task);
+    if (!slot) return; // finished already
+    if (slot.kept.size > 0 || slot.affine.length > 0) {
+      // The worker keeps other requests' plans: let this planning run out, and drop its result.
+      task.abandoned = true;
+      task.settle(err);
+      return;
+    }
+    this.retire(slot);
+    slot.task = null;
+    task.settle(err);
+    this.dispatch();
+  }
+
+  /** Take a worker out of the pool and end its thread (its exit is then not a failure). */
+  private retire(slot: Slot): void {
+    const i = this.slots.indexOf(slot);
+    if (i >= 0) this.slots.splice(i, 1);
+    slot.alive = false;
+    void slot.worker.terminate().catch(() => {});
+  }
 
   private slotOf(task: Task): Slot {
     const s = this.taskSlot.get(task.id);
@@ -249,7 +321,7 @@ export class WorkerPool {
   private spawn(): Slot {
     const worker = new Worker(WORKER_URL);
     worker.unref();
-    const slot: Slot = { worker, task: null, affine: [], alive: true };
+    const slot: Slot = { worker, task: null, affine: [], alive: true, kept: new Set(), onDeath: new Set() };
     worker.on('message', (m: FromWorker) => this.onMessage(slot, m));
     worker.on('error', (e) => this.onFailure(slot, e));
     worker.on('exit', (code) => {
@@ -273,7 +345,11 @@ export class WorkerPool {
       t.onProgress?.(m.counts.completed - t.done);
       t.done = m.counts.completed;
     }
-    if (m.type === 'planned') this.taskSlot.set(t.id, slot);
+    if (m.type === 'planned') {
+      slot.kept.add(t.id);
+      if (t.abandoned) this.drop({ slot, token: t.id });
+      else this.taskSlot.set(t.id, slot);
+    }
     t.settle(m);
     this.dispatch();
   }
@@ -284,12 +360,13 @@ export class WorkerPool {
     this.slots.splice(i, 1);
     slot.alive = false;
     this.log('worker died', e);
-    const err = e instanceof Error ? e : new Error(String(e));
     const t = slot.task;
     slot.task = null;
     void slot.worker.terminate().catch(() => {});
-    if (t) t.settle(err);
-    for (const a of slot.affine.splice(0)) a.settle(new Error('the worker keeping this analysis has stopped'));
+    if (t) t.settle(new WorkerFailed(e));
+    for (const a of slot.affine.splice(0)) a.settle(new WorkerFailed(e));
+    for (const f of [...slot.onDeath]) f();
+    slot.onDeath.clear();
     this.dispatch();
   }
 
