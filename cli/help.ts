@@ -1,8 +1,101 @@
-/** The text of `plumbline --help`. */
-import { DEFAULT_FAMILIES, allFamilies } from '../core/index.js';
+/** The text of `plumbline --help`: the frame is written here, the options come from the table. */
+import { aliasWords, optionsOn, ruleWords, type OptionSpec } from '../core/index.js';
+
+/** Heading (and a line under it) of each group of options, in the order listed. */
+const GROUPS: readonly { readonly group: OptionSpec['group']; readonly title: string }[] = [
+  { group: 'input', title: 'Reading the file' },
+  { group: 'fitting', title: 'Models and intervals' },
+  { group: 'tests', title: 'Fit tests' },
+  { group: 'life', title: 'Life data (a status column: 1 = failed, 0 = still running or removed unfailed)' },
+  { group: 'flood', title: 'Flood frequency (annual maxima)' },
+  { group: 'capability', title: 'Process capability' },
+  { group: 'trend', title: 'Trend' },
+  { group: 'batch', title: 'Many series in one run' },
+  { group: 'output', title: 'Output' },
+];
+
+const WIDTH = 100;
+
+/** What the flag takes, e.g. 'LIST', 'X', 'NAME|INDEX', 'table|bootstrap'. */
+function metavar(spec: OptionSpec): string {
+  if (spec.cliFlagValue !== undefined || spec.kind === 'boolean') return '';
+  switch (spec.kind) {
+    case 'number':
+      return 'X';
+    case 'integer':
+      return 'N';
+    case 'choice':
+      return (spec.choices ?? []).join('|');
+    case 'numbers':
+    case 'choices':
+    case 'columns':
+      return 'LIST';
+    case 'column':
+      return 'NAME|INDEX';
+    default:
+      return 'TEXT';
+  }
+}
+
+function defaultWords(spec: OptionSpec): string {
+  const d = spec.default;
+  if (d === null || spec.kind === 'boolean' || spec.cliFlagValue !== undefined) return '';
+  const shown = Array.isArray(d) ? d.join(',') : String(d);
+  return `default ${shown}`;
+}
+
+/** The words after the flag: help, then the rule and default in brackets. */
+function describe(spec: OptionSpec): string {
+  const notes: string[] = [];
+  if (spec.kind !== 'boolean' && spec.cliFlagValue === undefined && spec.kind !== 'column' && spec.kind !== 'columns' && spec.kind !== 'text') {
+    notes.push(spec.kind === 'choice' || spec.kind === 'choices' ? `${spec.kind === 'choices' ? 'any of' : 'one of'} ${(spec.choices ?? []).join(', ')}` : ruleWords(spec));
+  }
+  if (spec.unit) notes.push(spec.unit);
+  const d = defaultWords(spec);
+  if (d) notes.push(d);
+  const aliases = aliasWords(spec);
+  if (aliases && spec.kind === 'choice') notes.push(`also ${aliases}`);
+  return notes.length > 0 ? `${spec.help} (${notes.join('; ')})` : spec.help;
+}
+
+/** Wrap `text` to WIDTH with a hanging indent. */
+function wrap(first: string, text: string, indent: number): string {
+  const words = text.split(/\s+/);
+  const lines: string[] = [];
+  let line = first.padEnd(indent);
+  if (first.length >= indent) {
+    lines.push(first);
+    line = ' '.repeat(indent);
+  }
+  let empty = true;
+  for (const w of words) {
+    if (!empty && line.length + 1 + w.length > WIDTH) {
+      lines.push(line);
+      line = ' '.repeat(indent);
+      empty = true;
+    }
+    line += (empty ? '' : ' ') + w;
+    empty = false;
+  }
+  lines.push(line);
+  return lines.join('\n');
+}
+
+/** The options part of --help, grouped as the table groups them. */
+export function optionsHelp(): string {
+  const cli = optionsOn('cli');
+  const parts: string[] = [];
+  for (const { group, title } of GROUPS) {
+    const list = cli.filter((s) => s.group === group);
+    if (list.length === 0) continue;
+    parts.push(title);
+    for (const s of list) parts.push(wrap(`  ${s.cli}${metavar(s) ? ` ${metavar(s)}` : ''}`, describe(s), 27));
+    parts.push('');
+  }
+  return parts.join('\n');
+}
 
 export function helpText(): string {
-  const known = allFamilies().map((f) => f.name).join(', ');
   return `plumbline: fit continuous probability models to a column of measurements, test each fit,
 and rank the candidates.
 
@@ -12,55 +105,10 @@ Usage
   plumbline --version
 
 FILE is a CSV file with a header row (comma, semicolon or tab separated, detected), or - to read
-standard input.
+standard input. Column names are matched exactly, then ignoring case; quote names with spaces.
+Lists are comma-separated, e.g. --b-life 1,10,50.
 
-Options
-  --column NAME|INDEX    the value column: a header name (exact, then ignoring case; quote names
-                         with spaces) or a 1-based index. May be left out for a one-column file.
-  --json                 print one JSON report on standard output instead of the text report
-  --families LIST        candidate models, comma-separated (default: ${DEFAULT_FAMILIES.join(',')});
-                         known: ${known}
-  --alpha A              significance level of the fit tests, 0 < A < 1 (default 0.05)
-  --bins K               number of equiprobable chi-square bins (default: chosen by rule); refused
-                         with the largest allowed K if some bin would expect fewer than 5 values
-  --p-method METHOD      Anderson-Darling p-values: table (published tables, the default) or
-                         bootstrap (parametric bootstrap, refitting every replicate)
-  --replicates B         bootstrap replicates (default 999)
-  --seed S               bootstrap seed, a whole number (default fixed, so runs repeat exactly)
-  --skip-invalid         drop rows whose value is blank, a missing-value marker (NA, n/a, -),
-                         NaN, infinite or not a number, and report how many were dropped and why;
-                         without it such a cell stops the run with its row, column and value
-  --decimal-comma        numbers use a decimal comma (1,5); never guessed
-  --delimiter X          field delimiter: one character, or tab, comma, semicolon
-  --no-header            the first line is data; columns are then #1, #2, ...
-
-Life data (a status column: 1 = failed, 0 = still running or removed unfailed)
-  --censor-column NAME   the status column; the value column holds the times. Fits by censored
-                         maximum likelihood; n counts all units
-  --b-life LIST          B-lives to report, percents, e.g. 1,10,50 (default 10)
-  --reliability-at LIST  times at which to report the reliability with its bounds, e.g. 500,1000
-  --bounds lr|fisher     likelihood-ratio (default) or Fisher-matrix bounds
-  --confidence C         two-sided level of every interval, 0 < C < 1 (default 0.90)
-
-Flood frequency (annual maxima)
-  --return-periods LIST  return periods in years, each > 1, e.g. 2,10,100; adds gumbel and gev to
-                         the default models
-  --design-life L        years: the chance of at least one exceedance of each return level
-  --plotting-position P  weibull (i/(n+1), default), gringorten or cunnane
-
-Process capability
-  --lsl A, --usl B       specification limits (one or both)
-  --target T             target value (Cpm, with both limits)
-  --subgroup-column NAME subgroup labels: Cp and Cpk from the within-subgroup sigma
-
-Trend
-  --order-column NAME    time or year of each value (distinct): Mann-Kendall test and Sen's slope
-  --trend                the same on the rows in their file order
-
-Grouped counts
-  --grouped              the file holds classes: columns lower, upper, count (by default), or
-  --lower-column NAME, --upper-column NAME, --count-column NAME
-
+${optionsHelp()}
 Exit status
   0 success, 2 a problem with the input or the options (one line on standard error),
   70 an internal error (please report it).

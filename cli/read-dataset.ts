@@ -17,7 +17,7 @@ import {
   type TableResult,
   type TextColumn,
 } from '../core/index.js';
-import type { AnalyzeArgs } from './args.js';
+import { columnArg, flagArg, type AnalyzeArgs } from './args.js';
 
 export interface DatasetRead {
   readonly input: DatasetInput;
@@ -31,7 +31,7 @@ export interface DatasetRead {
 
 /** Whether the run needs more than the one value column. */
 export function needsTable(args: AnalyzeArgs): boolean {
-  return args.grouped || args.censorColumn !== undefined || args.subgroupColumn !== undefined || args.orderColumn !== undefined;
+  return flagArg(args, 'grouped') || ['statusColumn', 'subgroupColumn', 'orderColumn'].some((name) => columnArg(args, name) !== undefined);
 }
 
 function selector(s: string): string | number {
@@ -61,8 +61,8 @@ function statusOf(col: TextColumn, rows: Int32Array, file: string): Uint8Array {
 }
 
 export function readDataset(text: string, args: AnalyzeArgs, file: string, csv: { delimiter?: string; decimal: '.' | ','; skipInvalid: boolean; header: boolean }): DatasetRead {
-  if (args.grouped) {
-    const names = { lower: args.lowerColumn ?? 'lower', upper: args.upperColumn ?? 'upper', count: args.countColumn ?? 'count' };
+  if (flagArg(args, 'grouped')) {
+    const names = { lower: columnArg(args, 'lowerColumn') ?? 'lower', upper: columnArg(args, 'upperColumn') ?? 'upper', count: columnArg(args, 'countColumn') ?? 'count' };
     const t = readColumns(
       text,
       [
@@ -87,21 +87,25 @@ export function readDataset(text: string, args: AnalyzeArgs, file: string, csv: 
       rowNumbers: t.rowNumbers,
     };
   }
-  if (args.column === undefined) {
+  const valueColumn = columnArg(args, 'column');
+  if (valueColumn === undefined) {
     throw new InputError('with --censor-column, --subgroup-column or --order-column, name the value column with --column NAME', {}, 'bad-option');
   }
-  const requests: ColumnRequest[] = [{ select: selector(args.column), kind: 'number' }];
+  const requests: ColumnRequest[] = [{ select: selector(valueColumn), kind: 'number' }];
   const roles: { role: 'status' | 'subgroup' | 'order'; label: string }[] = [];
-  if (args.censorColumn !== undefined) {
-    requests.push({ select: selector(args.censorColumn), kind: 'text' });
+  const statusColumnText = columnArg(args, 'statusColumn');
+  if (statusColumnText !== undefined) {
+    requests.push({ select: selector(statusColumnText), kind: 'text' });
     roles.push({ role: 'status', label: 'status' });
   }
-  if (args.subgroupColumn !== undefined) {
-    requests.push({ select: selector(args.subgroupColumn), kind: 'text' });
+  const subgroupColumnText = columnArg(args, 'subgroupColumn');
+  if (subgroupColumnText !== undefined) {
+    requests.push({ select: selector(subgroupColumnText), kind: 'text' });
     roles.push({ role: 'subgroup', label: 'subgroups' });
   }
-  if (args.orderColumn !== undefined) {
-    requests.push({ select: selector(args.orderColumn), kind: 'number' });
+  const orderColumnText = columnArg(args, 'orderColumn');
+  if (orderColumnText !== undefined) {
+    requests.push({ select: selector(orderColumnText), kind: 'number' });
     roles.push({ role: 'order', label: 'order' });
   }
   const t = readColumns(text, requests, csv);

@@ -6,15 +6,15 @@ import {
   InputError,
   PLUMBLINE_VERSION,
   analyzeDataset,
+  datasetOptionsFrom,
   isPlumblineError,
   readColumn,
   type AnyDatasetReport,
   type ColumnResult,
   type DatasetInput,
-  type DatasetOptions,
   type PlumblineError,
 } from '../core/index.js';
-import { parseArgs, type AnalyzeArgs } from './args.js';
+import { columnArg, csvArgs, flagArg, parseArgs, type AnalyzeArgs } from './args.js';
 import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
 import { needsTable, readDataset, withFileRow } from './read-dataset.js';
@@ -71,48 +71,15 @@ export type JsonReport = AnyDatasetReport & {
  */
 function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array } {
   const source = readInputText(args.file);
-  const decimal = args.decimalComma ? ',' : '.';
+  const csv = csvArgs(args);
   if (needsTable(args)) {
-    const d = readDataset(source.text, args, fileLabel, {
-      ...(args.delimiter !== undefined ? { delimiter: args.delimiter } : {}),
-      decimal,
-      skipInvalid: args.skipInvalid,
-      header: !args.noHeader,
-    });
-    const input = cliInput(fileLabel, d.column, decimal, source.encoding, source.warnings);
+    const d = readDataset(source.text, args, fileLabel, csv);
+    const input = cliInput(fileLabel, d.column, csv.decimal, source.encoding, source.warnings);
     return { read: d.column, input: { ...input, otherColumns: d.extraColumns }, dataset: d.input, rowNumbers: d.rowNumbers };
   }
-  const read = readColumn(source.text, {
-    ...(args.column !== undefined ? { column: args.column } : {}),
-    ...(args.delimiter !== undefined ? { delimiter: args.delimiter } : {}),
-    decimal,
-    skipInvalid: args.skipInvalid,
-    header: !args.noHeader,
-  });
-  return { read, input: cliInput(fileLabel, read, decimal, source.encoding, source.warnings), dataset: { values: read.values } };
-}
-
-/** The workflow options of the core from the command line. */
-function datasetOptions(args: AnalyzeArgs): DatasetOptions {
-  return {
-    ...(args.families !== undefined ? { families: args.families } : {}),
-    ...(args.alpha !== undefined ? { alpha: args.alpha } : {}),
-    ...(args.bins !== undefined ? { bins: args.bins } : {}),
-    ...(args.pMethod !== undefined ? { pMethod: args.pMethod } : {}),
-    ...(args.replicates !== undefined ? { bootstrapReplicates: args.replicates } : {}),
-    ...(args.seed !== undefined ? { seed: args.seed } : {}),
-    ...(args.confidence !== undefined ? { confidence: args.confidence } : {}),
-    ...(args.bLife !== undefined ? { bLifePercents: args.bLife } : {}),
-    ...(args.bounds !== undefined ? { boundMethod: args.bounds } : {}),
-    ...(args.reliabilityAt !== undefined ? { reliabilityTimes: args.reliabilityAt } : {}),
-    ...(args.returnPeriods !== undefined ? { returnPeriods: args.returnPeriods } : {}),
-    ...(args.designLife !== undefined ? { designLife: args.designLife } : {}),
-    ...(args.plottingPosition !== undefined ? { plottingPosition: args.plottingPosition } : {}),
-    ...(args.lsl !== undefined ? { lsl: args.lsl } : {}),
-    ...(args.usl !== undefined ? { usl: args.usl } : {}),
-    ...(args.target !== undefined ? { target: args.target } : {}),
-    ...(args.trend ? { trend: true } : {}),
-  };
+  const column = columnArg(args, 'column');
+  const read = readColumn(source.text, { ...(column !== undefined ? { column } : {}), ...csv });
+  return { read, input: cliInput(fileLabel, read, csv.decimal, source.encoding, source.warnings), dataset: { values: read.values } };
 }
 
 function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
@@ -130,13 +97,13 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
   }
   let report: AnyDatasetReport;
   try {
-    const options = datasetOptions(args);
+    const options = datasetOptionsFrom(args.options);
     report = analyzeDataset(dataset, io.workerEntry ? { ...options, delegated: secondThread(io.workerEntry, options) } : options);
   } catch (e) {
     throw withFileRow(e, fileLabel, dataset.grouped ? rowNumbers : undefined);
   }
   const inputShown: CliInput = { ...input, warnings: input.warnings.map(asOptions) };
-  if (args.json) {
+  if (flagArg(args, 'json')) {
     const out: JsonReport = { ...report, input: inputShown };
     io.out(`${JSON.stringify(out, null, 2)}\n`);
   } else {

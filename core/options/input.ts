@@ -36,7 +36,7 @@ export const INPUT_OPTIONS: readonly OptionSpec[] = [
     jsonParent: 'csvOptions',
     default: '.',
     appliesTo: ['input'],
-    help: 'the decimal mark; the flag --decimal-comma reads 1,5 as one and a half (never guessed)',
+    help: 'numbers use a decimal comma (1,5 is one and a half); never guessed',
     group: 'input',
   },
   {
@@ -57,7 +57,7 @@ export const INPUT_OPTIONS: readonly OptionSpec[] = [
     jsonParent: 'csvOptions',
     default: true,
     appliesTo: ['input'],
-    help: 'the first line holds column names; --no-header reads it as data and names the columns #1, #2, ...',
+    help: 'whether the first line holds column names; without them (--no-header) it is data and the columns are #1, #2, ...',
     group: 'input',
   },
   {

@@ -1,6 +1,6 @@
 /**
  * The accept/refuse rule of one option in words, shared by every message of the CLI, the API, the
- * page and the docs: e.g. "a number between 0 and 1 (exclusive)", "a whole number from 19 to 100000",
+ * page and the docs: e.g. "a number between 0 and 1, exclusive", "a whole number from 19 to 100000",
  * '"table" or "bootstrap"'.
  */
 import type { OptionSpec } from './spec.js';
@@ -17,7 +17,7 @@ function rangeWords(spec: OptionSpec): string {
   const lo = min !== undefined ? String(min) : undefined;
   const hi = max !== undefined ? String(max) : undefined;
   if (lo !== undefined && hi !== undefined) {
-    if (spec.minExclusive && spec.maxExclusive) return `between ${lo} and ${hi} (exclusive)`;
+    if (spec.minExclusive && spec.maxExclusive) return `between ${lo} and ${hi}, exclusive`;
     if (spec.minExclusive) return `above ${lo} and at most ${hi}`;
     if (spec.maxExclusive) return `from ${lo} and below ${hi}`;
     return `from ${lo} to ${hi}`;

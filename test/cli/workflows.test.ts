@@ -44,7 +44,7 @@ describe.concurrent('plumbline analyze: trade workflows', () => {
   });
 
   it('life data text report: the life section with its cautions', async () => {
-    const r = await cli('analyze', 'datasets/bearing-life.csv', '--column', 'hours', '--censor-column', 'status', '--b-life', '1,10', '--reliability-at', '1000', '--bounds', 'fisher', '--replicates', '9');
+    const r = await cli('analyze', 'datasets/bearing-life.csv', '--column', 'hours', '--censor-column', 'status', '--b-life', '1,10', '--reliability-at', '1000', '--bounds', 'fisher', '--replicates', '19');
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^Life data$/m);
     expect(r.stdout).toMatch(/22 failed, 8 suspended/);
@@ -133,13 +133,13 @@ describe.concurrent('plumbline analyze: trade workflows', () => {
   it('options are validated with one-line errors (exit 2; in-process through runCli, the function main.ts calls)', () => {
     const cases: [string[], RegExp][] = [
       [['--b-life', '10'], /--b-life needs --censor-column/],
-      [['--censor-column', 'status', '--b-life', '0,10'], /--b-life: "0" is not a percent/],
-      [['--censor-column', 'status', '--bounds', 'exact'], /--bounds is "lr"/],
-      [['--censor-column', 'status', '--confidence', '1.5'], /--confidence needs a level between 0 and 1/],
-      [['--return-periods', '1,10'], /--return-periods: "1" is not a return period/],
+      [['--censor-column', 'status', '--b-life', '0,10'], /--b-life: "0" is not a number between 0 and 100, exclusive/],
+      [['--censor-column', 'status', '--bounds', 'exact'], /--bounds must be "likelihood-ratio" or "fisher-matrix"/],
+      [['--censor-column', 'status', '--confidence', '1.5'], /--confidence must be a number between 0 and 1, exclusive/],
+      [['--return-periods', '1,10'], /--return-periods: "1" is not a number above 1/],
       [['--design-life', '50'], /--design-life needs --return-periods/],
       [['--lsl', '3', '--usl', '2'], /--lsl \(3\) must be below --usl \(2\)/],
-      [['--subgroup-column', 'unit'], /--subgroup-column needs --lsl and\/or --usl/],
+      [['--subgroup-column', 'unit'], /--subgroup-column needs --lsl or --usl/],
       [['--censor-column', 'status', '--lsl', '100'], /--censor-column cannot be combined/],
       [['--censor-column', 'nosuch'], /nosuch/],
     ];
