@@ -12,6 +12,7 @@
  *   --workers N         bootstrap worker threads (default and maximum: available parallelism)
  */
 import { readFileSync } from 'node:fs';
+import { createServer } from 'node:http';
 import { basename } from 'node:path';
 import { createApp, DEFAULT_BODY_LIMIT, type AppOptions, type DemoChoice } from './app.js';
 import { guessValueColumn } from './demo.js';
@@ -97,8 +98,18 @@ function main(): void {
     options.demo = demo;
   }
   const app = createApp(options);
-  app.pool.warm();
-  const server = app.listen(port, host, () => {
+  // The address is printed only once listening has succeeded ('listening'); a failure to listen
+  // is one line on stderr and exit 2 (express 5's app.listen calls its callback on error too).
+  const server = createServer(app);
+  server.once('error', (e: NodeJS.ErrnoException) => {
+    const where = `${host.includes(':') && !host.startsWith('[') ? `[${host}]` : host}:${port}`;
+    if (e.code === 'EADDRINUSE') fail(`${where} is already in use (another program, or another Plumbline, is listening there); stop it or choose another port with --port N`);
+    if (e.code === 'EACCES') fail(`no permission to listen on ${where}; choose a port above 1023 with --port N`);
+    if (e.code === 'EADDRNOTAVAIL') fail(`cannot listen on ${where}: this machine has no such address`);
+    fail(`cannot listen on ${where}: ${e.message}`);
+  });
+  server.listen(port, host, () => {
+    app.pool.warm();
     const addr = server.address();
     const actualPort = typeof addr === 'object' && addr !== null ? addr.port : port;
     const shown = host.includes(':') && !host.startsWith('[') ? `[${host}]` : host;
@@ -107,7 +118,6 @@ function main(): void {
     }
     console.log(`Plumbline is running at http://${shown}:${actualPort}/  (workers: ${app.pool.size}; Ctrl-C to stop)`);
   });
-  server.on('error', (e) => fail(`cannot listen on ${host}:${port}: ${e.message}`));
   const stop = (): void => {
     server.close();
     void app.shutdown().finally(() => process.exit(0));

@@ -1,4 +1,5 @@
 import { spawn } from 'node:child_process';
+import { createServer, type AddressInfo } from 'node:net';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
@@ -45,6 +46,23 @@ describe('server/main.ts', () => {
     const allowed = await start(['--port', '0', '--host', '127.0.0.2', '--allow-remote']);
     expect(allowed.url).toMatch(/^http:\/\/127\.0\.0\.2:\d+\/$/);
     expect(allowed.err).toMatch(/WARNING: listening on 127\.0\.0\.2, reachable from other machines/);
+  });
+
+  it('on a busy port: exits 2 with one line saying so, and never prints the address', async () => {
+    const blocker = createServer();
+    await new Promise<void>((r) => blocker.listen(0, '127.0.0.1', r));
+    const { port } = blocker.address() as AddressInfo;
+    try {
+      const r = await start(['--port', String(port)]);
+      expect(r.url).toBeNull();
+      expect(r.code).toBe(2);
+      expect(r.out).not.toMatch(/running at/);
+      const lines = r.err.trim().split('\n');
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toMatch(new RegExp(`127\\.0\\.0\\.1:${port} is already in use.*--port`));
+    } finally {
+      blocker.close();
+    }
   });
 
   it('rejects unknown options with a message', async () => {
