@@ -17,6 +17,7 @@ import type { Sample } from '../sample.js';
 import { prepareSample } from '../sample.js';
 import { normalCdf } from '../special/index.js';
 import { cpm, normalIndices, type IndexEstimate, type SpecLimits } from './indices.js';
+import { c4 } from './constants.js';
 import { percentileCapability, type PercentileCapability } from './percentile.js';
 import type { PpmOutOfSpec } from './ppm.js';
 import { checkResolution, type ResolutionCheck } from './resolution.js';
@@ -120,7 +121,9 @@ export function capability(input: Sample | ArrayLike<number>, opts: CapabilityOp
     const w = withinSigma(groups, opts.withinMethod ?? 'pooled');
     if (w.singletons > 0) warnings.push(`${w.singletons} subgroup(s) of a single value carry no within-subgroup information and were skipped.`);
     if (w.method === 'range') warnings.push('The R̄/d2 intervals use approximate degrees of freedom (0.9·k·(n̄ - 1)).');
-    within = { ...w, indices: normalIndices(mean, w.sigma, limits, n, w.dof, alpha, false) };
+    // The Cp interval uses the sd with the chi-square law: pooled s_p (= σ̂·c4), not the c4-corrected σ̂.
+    const basis = w.method === 'pooled' ? { sd: w.sigma * c4(w.dof + 1), exact: true } : { sd: w.sigma, exact: false };
+    within = { ...w, indices: normalIndices(mean, w.sigma, limits, n, w.dof, alpha, false, basis) };
   }
 
   const normalPpm: PpmOutOfSpec = (() => {

@@ -5,8 +5,12 @@
  *   Cpk = min(Cpu, Cpl) over the limits that are given
  * with σ the within-subgroup sigma (Cp, Cpk) or the overall sample standard deviation with
  * divisor n - 1 (Pp, Ppk; same formulas). Intervals, two-sided at confidence 1 - α:
- * - Cp / Pp: the chi-square interval Ĉp·√(χ²_{α/2,ν}/ν) to Ĉp·√(χ²_{1-α/2,ν}/ν), exact for normal data
- *   because ν σ̂²/σ² ~ χ²_ν (e.g. Kotz & Johnson 1993, Process Capability Indices, ch. 2 [from memory]).
+ * - Cp / Pp: the chi-square interval C_s·√(χ²_{α/2,ν}/ν) to C_s·√(χ²_{1-α/2,ν}/ν), where C_s is the
+ *   index computed with the standard deviation s for which ν s²/σ² ~ χ²_ν (the n - 1 sd overall; the
+ *   pooled s_p within, before any c4 bias correction). Exact for normal data (e.g. Kotz & Johnson
+ *   1993, Process Capability Indices, ch. 2 [from memory]). The point estimate may use a
+ *   bias-corrected σ̂ = s/c4; the interval must not (it would be c4 times the exact one). For R̄/d2
+ *   the chi-square law holds only approximately (effective ν), and the method text says so.
  * - Cpk / Ppk and the one-sided Cpu, Cpl: Bissell's (1990) normal approximation,
  *   Ĉ ± z_{1-α/2}·√(1/(9N) + Ĉ²/(2ν)) (Bissell, A. F. 1990, "How reliable is your capability index?",
  *   Applied Statistics 39:331-340). The 1/(9N) term is the mean's uncertainty (N all values) and
@@ -38,6 +42,13 @@ export interface SpecLimits {
 }
 
 export const CHI_SQUARE_METHOD = 'chi-square interval on ν degrees of freedom (exact for normal data)';
+export const CHI_SQUARE_APPROXIMATE_METHOD = 'chi-square interval on the effective degrees of freedom ν (approximate: the within sigma is not exactly chi-square distributed)';
+
+/** The standard deviation whose law is ν s²/σ² ~ χ²_ν (exactly or approximately), for the Cp/Pp interval. */
+export interface ChiSquareBasis {
+  readonly sd: number;
+  readonly exact: boolean;
+}
 export const BISSELL_METHOD = "Bissell (1990) normal approximation, Ĉ ± z·√(1/(9N) + Ĉ²/(2ν))";
 export const BOYLES_METHOD = 'Boyles (1991) chi-square approximation on ν* = n(1 + λ²)²/(1 + 2λ²)';
 
@@ -81,13 +92,18 @@ export function normalIndices(
   nu: number,
   alpha: number,
   overall: boolean,
+  /** The sd with ν s²/σ² ~ χ²_ν when it differs from `sigma` (default: `sigma`, exact). */
+  basis: ChiSquareBasis = { sd: sigma, exact: true },
 ): IndexEstimate[] {
   const names = overall
     ? ({ p: 'Pp', k: 'Ppk', u: 'Ppu', l: 'Ppl' } as const)
     : ({ p: 'Cp', k: 'Cpk', u: 'Cpu', l: 'Cpl' } as const);
   const out: IndexEstimate[] = [];
   const { lsl, usl } = limits;
-  if (lsl !== null && usl !== null) out.push(chiSquareInterval(names.p, (usl - lsl) / (6 * sigma), nu, alpha));
+  if (lsl !== null && usl !== null) {
+    const onBasis = chiSquareInterval(names.p, (usl - lsl) / (6 * basis.sd), nu, alpha, basis.exact ? CHI_SQUARE_METHOD : CHI_SQUARE_APPROXIMATE_METHOD);
+    out.push({ ...onBasis, estimate: (usl - lsl) / (6 * sigma) });
+  }
   const cu = usl !== null ? (usl - mean) / (3 * sigma) : null;
   const cl = lsl !== null ? (mean - lsl) / (3 * sigma) : null;
   const ck = cu === null ? cl : cl === null ? cu : Math.min(cu, cl);
