@@ -19,3 +19,5 @@ export { prepareIntervalLifeData, intervalInputFromTimes, censoringKind, type In
 export { intervalLogLikelihood, intervalLogLikelihoodOf } from './interval-likelihood.js';
 export { fitInterval } from './interval-likelihood-fit.js';
 export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval, type TurnbullOptions } from './turnbull.js';
+export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
+export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
