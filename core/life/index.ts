@@ -21,3 +21,4 @@ export { fitInterval } from './interval-likelihood-fit.js';
 export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval, type TurnbullOptions } from './turnbull.js';
 export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
 export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
+export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
