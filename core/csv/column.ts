@@ -12,21 +12,26 @@ import type { ColumnOptions, ColumnRequest, ColumnResult, CsvOptions, NumberColu
  * otherwise the column must be named.
  */
 export function readColumn(text: string, options: ColumnOptions = {}): ColumnResult {
-  const table = scanTable(
-    text,
-    (header, fieldCount): ColumnRequest[] => {
-      if (options.column !== undefined) return [{ select: options.column, kind: 'number' }];
-      if (fieldCount === 1) return [{ select: 1, kind: 'number' }];
-      const names: string[] = [];
-      for (let j = 0; j < fieldCount && j < 12; j++) names.push(`${j + 1} ${JSON.stringify(columnLabel(header, j))}`);
+  return columnResult(scanTable(text, columnPlan(options), options));
+}
+
+/** The one column readColumn reads: the chosen one, or the only one. */
+export function columnPlan(options: ColumnOptions): (header: readonly string[], fieldCount: number) => ColumnRequest[] {
+  return (header, fieldCount): ColumnRequest[] => {
+    if (options.column !== undefined) return [{ select: options.column, kind: 'number' }];
+    if (fieldCount === 1) return [{ select: 1, kind: 'number' }];
+    const names: string[] = [];
+    for (let j = 0; j < fieldCount && j < 12; j++) names.push(`${j + 1} ${JSON.stringify(columnLabel(header, j))}`);
       throw new InputError(
         `the file has ${fieldCount} columns; choose one by name or index (${names.join(', ')}${fieldCount > 12 ? ', ...' : ''})`,
         {},
         'no-column',
       );
-    },
-    options,
-  );
+  };
+}
+
+/** A one-column table as a ColumnResult. */
+export function columnResult(table: TableResult): ColumnResult {
   const col = table.columns[0] as NumberColumn;
   return {
     values: col.values,

@@ -6,3 +6,4 @@ export { parseStrictNumber } from './number.js';
 export { delimiterName } from './delimiter.js';
 export { REASON_WORDS as SKIP_REASON_WORDS } from './classify.js';
 export type * from './types.js';
+export { ColumnPieces, lastRecordEnd } from './pieces.js';

@@ -150,7 +150,7 @@ function checkText(text: string, start: number): void {
   }
 }
 
-const REASON_ORDER: readonly SkipReason[] = [
+export const REASON_ORDER: readonly SkipReason[] = [
   'blank',
   'missing-marker',
   'nan',
@@ -169,10 +169,58 @@ interface SkipTally {
 }
 
 /**
+ * What the first piece of a file read in pieces learned, for reading a later piece: the header, the
+ * record width, the delimiter, and the file line the later piece starts on (so every row number,
+ * in errors, skip counts and `rowNumbers`, is the file's own line).
+ */
+export interface Continuation {
+  readonly header: readonly string[];
+  readonly fieldCount: number;
+  readonly delimiter: string;
+  readonly delimiterDetected: boolean;
+  readonly firstLine: number;
+}
+
+/** One piece's table with what a next piece needs; its summary warnings are left to the caller. */
+export interface TablePiece {
+  readonly table: TableResult;
+  /** The context a following piece continues from (its `firstLine` is the line after this piece). */
+  readonly next: Continuation;
+}
+
+/**
+ * The warnings that sum up a whole read (blank lines, dropped rows by reason, no data rows), added
+ * once to a whole file's result: by scanTable, or by a reader of pieces from the merged totals.
+ */
+export function summaryWarnings(blankLines: number, skipped: readonly SkipCount[], rowsRead: number): string[] {
+  const warnings: string[] = [];
+  if (blankLines > 0) warnings.push(`${blankLines} blank line${blankLines === 1 ? '' : 's'} passed over`);
+  if (skipped.length > 0) {
+    const total = skipped.reduce((a, s) => a + s.count, 0);
+    warnings.push(
+      `${total} row${total === 1 ? '' : 's'} dropped: ` +
+        skipped.map((s) => `${s.count} ${REASON_WORDS[s.reason]} (first at row ${s.firstRow}${s.firstValue ? `, ${showValue(s.firstValue)}` : ''})`).join('; '),
+    );
+  }
+  if (rowsRead === 0) warnings.push('the file has no data rows');
+  return warnings;
+}
+
+/**
  * Read the requested columns of a CSV text in one pass. Rows are kept only when every requested
  * cell is valid, so all returned columns stay aligned with `rowNumbers`.
  */
 export function scanTable(text: string, plan: RequestPlan, options: CsvOptions = {}): TableResult {
+  const { table } = scanTablePiece(text, plan, options, null);
+  return { ...table, warnings: [...table.warnings, ...summaryWarnings(table.blankLines, table.skipped, table.rowsRead)] };
+}
+
+/**
+ * Read one piece of a CSV text: the whole file or its first piece (`continuation` null: byte-order
+ * mark, blank lines, delimiter and header handled here), or a later piece holding whole records
+ * only, read with the first piece's context. The result leaves out the summary warnings.
+ */
+export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOptions, continuation: Continuation | null): TablePiece {
   const decimal = options.decimal ?? '.';
   if (decimal !== '.' && decimal !== ',') {
     throw new InputError(`decimal separator must be "." or ",", got ${showValue(String(decimal))}`, {}, 'bad-option');
@@ -183,13 +231,13 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
   const n = text.length;
   const warnings: string[] = [];
 
-  let i = n > 0 && text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let i = continuation === null && n > 0 && text.charCodeAt(0) === 0xfeff ? 1 : 0;
   checkText(text, i);
-  let line = 1;
+  let line = continuation?.firstLine ?? 1;
   let blankLines = 0;
 
   // Blank lines before the header.
-  for (;;) {
+  for (; continuation === null; ) {
     let k = i;
     while (k < n && ((text.charCodeAt(k) === SPACE) || text.charCodeAt(k) === TAB)) k++;
     if (k >= n) {
@@ -204,7 +252,7 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
     i = k + 1;
     if (c === CR && i < n && text.charCodeAt(i) === LF) i++;
   }
-  if (i >= n) {
+  if (i >= n && continuation === null) {
     throw new InputError(
       blankLines > 0 ? 'the file has only blank lines: no header and no data' : 'the file is empty: no header and no data',
       {},
@@ -215,7 +263,10 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
   // Delimiter.
   let delimiter: string;
   let delimiterDetected: boolean;
-  if (options.delimiter !== undefined) {
+  if (continuation !== null) {
+    delimiter = continuation.delimiter;
+    delimiterDetected = continuation.delimiterDetected;
+  } else if (options.delimiter !== undefined) {
     delimiter = options.delimiter;
     delimiterDetected = false;
     if (delimiter.length !== 1 || delimiter === '"' || delimiter === '\r' || delimiter === '\n') {
@@ -232,17 +283,19 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
     warnings.push(...guess.warnings);
   }
   const delim = delimiter === '' ? -1 : delimiter.charCodeAt(0);
-  if (decimal === ',' && delimiter === ',') {
+  if (decimal === ',' && delimiter === ',' && continuation === null) {
     warnings.push('the delimiter and the decimal separator are both commas: decimal values must be quoted');
   }
 
   // Header (or the first record's width when there is none).
   const firstLine = line;
   const cur: Cursor = { i, line };
-  const first = readRecordStrings(text, cur, delim, []);
-  const fieldCount = first.length;
+  const first = continuation === null ? readRecordStrings(text, cur, delim, []) : [];
+  const fieldCount = continuation?.fieldCount ?? first.length;
   let header: string[];
-  if (hasHeader) {
+  if (continuation !== null) {
+    header = [...continuation.header];
+  } else if (hasHeader) {
     header = first;
     i = cur.i;
     line = cur.line;
@@ -593,15 +646,6 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
     const t = tallies.get(reason);
     if (t) skipped.push({ reason, count: t.count, firstRow: t.firstRow, firstColumn: t.firstColumn, firstValue: t.firstValue });
   }
-  if (blankLines > 0) warnings.push(`${blankLines} blank line${blankLines === 1 ? '' : 's'} passed over`);
-  if (skipped.length > 0) {
-    const total = skipped.reduce((a, s) => a + s.count, 0);
-    warnings.push(
-      `${total} row${total === 1 ? '' : 's'} dropped: ` +
-        skipped.map((s) => `${s.count} ${REASON_WORDS[s.reason]} (first at row ${s.firstRow}${s.firstValue ? `, ${showValue(s.firstValue)}` : ''})`).join('; '),
-    );
-  }
-  if (rowsRead === 0) warnings.push('the file has no data rows');
 
   const columns: ColumnData[] = [];
   for (let s = 0; s < nSlots; s++) {
@@ -612,14 +656,17 @@ export function scanTable(text: string, plan: RequestPlan, options: CsvOptions =
     else columns.push({ kind: 'text', column, index, texts: texts[s] as string[] });
   }
   return {
-    columns,
-    rowNumbers: rowNumbers.slice(0, kept),
-    rowsRead,
-    skipped,
-    blankLines,
-    delimiter,
-    delimiterDetected,
-    header,
-    warnings,
+    table: {
+      columns,
+      rowNumbers: rowNumbers.slice(0, kept),
+      rowsRead,
+      skipped,
+      blankLines,
+      delimiter,
+      delimiterDetected,
+      header,
+      warnings,
+    },
+    next: { header, fieldCount, delimiter, delimiterDetected, firstLine: line },
   };
 }

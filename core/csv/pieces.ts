@@ -1,0 +1,128 @@
+/**
+ * Reading one numeric column of a file too large to hold as one string: the caller decodes the
+ * file's bytes in chunks and hands the text over piece by piece; each piece is cut after the last
+ * record that ends in it (a line break outside quotes, RFC 4180), read by the same scanner with the
+ * first piece's header and delimiter, and the counts are merged. The result equals readColumn on the
+ * whole text: the same values, row numbers, counts, warnings and errors.
+ */
+import { columnPlan, columnResult } from './column.js';
+import { REASON_ORDER, scanTablePiece, summaryWarnings, type Continuation } from './table.js';
+import type { ColumnOptions, ColumnResult, NumberColumn, SkipCount } from './types.js';
+
+const LF = 10;
+const CR = 13;
+const QUOTE = 34;
+
+/**
+ * Index just past the last complete record of `text` (0 when none ends in it): after the last line
+ * break outside quotes. A CR at the very end is not taken unless `atEnd` (its LF may come next).
+ */
+export function lastRecordEnd(text: string, atEnd: boolean): number {
+  let inQuote = false;
+  let end = 0;
+  const n = text.length;
+  let i = 0;
+  while (i < n) {
+    if (inQuote) {
+      const q = text.indexOf('"', i);
+      if (q < 0) break;
+      // A doubled quote stays inside; a single one closes (RFC 4180 §2.7).
+      if (q + 1 < n && text.charCodeAt(q + 1) === QUOTE) i = q + 2;
+      else {
+        inQuote = false;
+        i = q + 1;
+      }
+      continue;
+    }
+    const q = text.indexOf('"', i);
+    const stop = q < 0 ? n : q;
+    // The last line break before the next quote.
+    let k = stop - 1;
+    while (k >= i) {
+      const c = text.charCodeAt(k);
+      if (c === LF || c === CR) break;
+      k--;
+    }
+    if (k >= i) {
+      const c = text.charCodeAt(k);
+      if (c === CR && k === n - 1 && !atEnd) {
+        // Maybe the first half of CRLF: end before it, at an earlier break if any.
+        let j = k - 1;
+        while (j >= i && text.charCodeAt(j) !== LF && text.charCodeAt(j) !== CR) j--;
+        if (j >= i) end = j + 1;
+      } else end = k + 1;
+    }
+    if (q < 0) break;
+    inQuote = true;
+    i = q + 1;
+  }
+  return end;
+}
+
+function mergeSkipped(into: Map<string, SkipCount>, more: readonly SkipCount[]): void {
+  for (const s of more) {
+    const had = into.get(s.reason);
+    if (!had) into.set(s.reason, s);
+    else into.set(s.reason, { ...had, count: had.count + s.count });
+  }
+}
+
+/** Accumulates one column over pieces of a file's text (in order); `finish` gives the ColumnResult. */
+export class ColumnPieces {
+  private values = new Float64Array(1 << 16);
+  private kept = 0;
+  private rowsRead = 0;
+  private blankLines = 0;
+  private readonly skipped = new Map<string, SkipCount>();
+  private next: Continuation | null = null;
+  private first: ColumnResult | null = null;
+  private columnIndex = 0;
+
+  constructor(private readonly options: ColumnOptions) {}
+
+  /** Read one piece: whole records only (cut with lastRecordEnd), the file's first piece first. */
+  add(text: string): void {
+    if (text.length === 0) return;
+    const plan = this.next === null ? columnPlan(this.options) : [{ select: this.columnIndex, kind: 'number' as const }];
+    const piece = scanTablePiece(text, plan, this.options, this.next);
+    const col = piece.table.columns[0] as NumberColumn;
+    if (this.first === null) {
+      this.first = columnResult(piece.table);
+      this.columnIndex = col.index;
+    }
+    this.append(col.values);
+    this.rowsRead += piece.table.rowsRead;
+    this.blankLines += piece.table.blankLines;
+    mergeSkipped(this.skipped, piece.table.skipped);
+    this.next = piece.next;
+  }
+
+  private append(v: Float64Array): void {
+    if (this.kept + v.length > this.values.length) {
+      let cap = this.values.length;
+      while (cap < this.kept + v.length) cap *= 2;
+      const grown = new Float64Array(cap);
+      grown.set(this.values.subarray(0, this.kept));
+      this.values = grown;
+    }
+    this.values.set(v, this.kept);
+    this.kept += v.length;
+  }
+
+  finish(): ColumnResult {
+    if (this.first === null) {
+      // Nothing was read: let the scanner say so as it would for the whole (empty) text.
+      return columnResult(scanTablePiece('', columnPlan(this.options), this.options, null).table);
+    }
+    const skipped = REASON_ORDER.map((r) => this.skipped.get(r)).filter((s): s is SkipCount => s !== undefined);
+    const firstWarnings = this.first.warnings;
+    return {
+      ...this.first,
+      values: this.values.slice(0, this.kept),
+      rowsRead: this.rowsRead,
+      blankLines: this.blankLines,
+      skipped,
+      warnings: [...firstWarnings, ...summaryWarnings(this.blankLines, skipped, this.rowsRead)],
+    };
+  }
+}
