@@ -35,11 +35,21 @@ export function firstLineIsNumber(text: string, decimal: '.' | ','): boolean {
 
 export interface ColumnScan {
   readonly columns: readonly ColumnChoice[];
-  /** The suggested value column: the first mostly-numeric column that is not an identifier. */
+  /** The suggested value column: the first mostly-numeric column that is neither an identifier nor a row number. */
   readonly suggested: number;
 }
 
-const ID_LIKE = /^(id|index|row|no\.?|nr|#|serial|sample|unit|item|date|time|year)$/i;
+/** Header names of identifier and row-number columns (common practice, no source). */
+const ID_LIKE = /^(id|index|row|rows|no\.?|nr\.?|n°|#|lfd\.?\s*nr\.?|serial|sample|unit|item|date|time|year|pos|position)$/i;
+
+/** Is `values` the row numbers 1, 2, ..., n (or 0, 1, ..., n − 1) in order? Such a column counts rows; it is not a measurement. */
+export function isRowNumbers(values: ArrayLike<number>): boolean {
+  if (values.length < 3) return false;
+  const start = values[0];
+  if (start !== 0 && start !== 1) return false;
+  for (let i = 1; i < values.length; i++) if (values[i] !== start + i) return false;
+  return true;
+}
 
 export function scanColumns(text: string, options: { header: boolean; decimal: '.' | ',' }): ColumnScan {
   const sample = head(text, 200);
@@ -50,21 +60,73 @@ export function scanColumns(text: string, options: { header: boolean; decimal: '
     const name = options.header ? (probe.header[j] ?? '') : '';
     columns.push({ index: j + 1, label: name !== '' ? name : `#${j + 1}` });
   }
-  let suggested = 1;
-  let found = false;
+  let suggested = 0;
+  let firstNumeric = 0;
   for (const c of columns) {
     try {
       const t = readColumns(sample, [{ select: c.index, kind: 'number' }], { header: options.header, decimal: options.decimal, skipInvalid: true });
-      const kept = t.columns[0]?.kind === 'number' ? t.columns[0].values.length : 0;
-      if (kept >= Math.max(1, t.rowsRead / 2) && !ID_LIKE.test(c.label.trim())) {
+      const col = t.columns[0];
+      const values = col?.kind === 'number' ? col.values : new Float64Array(0);
+      if (values.length < Math.max(1, t.rowsRead / 2)) continue;
+      if (firstNumeric === 0) firstNumeric = c.index;
+      if (!ID_LIKE.test(c.label.trim()) && !isRowNumbers(values)) {
         suggested = c.index;
-        found = true;
         break;
       }
     } catch {
       // not a usable column; keep looking
     }
   }
-  if (!found && columns.length > 0) suggested = columns[0]!.index;
+  // No measurement-like column: rather a named column (whose problem the reader will state) than the row numbers.
+  if (suggested === 0) suggested = columns.find((c) => c.index !== firstNumeric && !ID_LIKE.test(c.label.trim()))?.index ?? columns[0]?.index ?? 1;
   return { columns, suggested };
+}
+
+/** What the first lines say about the decimal mark. */
+export interface DecimalGuess {
+  /** The mark to read with. */
+  readonly mark: '.' | ',';
+  /** True when the cells point to a decimal comma but could also be thousands separators (e.g. 1,250). */
+  readonly ambiguous: boolean;
+  /** A cell that shows it (for the note on screen), or ''. */
+  readonly example: string;
+}
+
+const COMMA_DECIMAL = /^[+-]?\d*,\d+([eE][+-]?\d+)?$/;
+const COMMA_THOUSANDS = /^[+-]?\d{1,3},\d{3}$/;
+const POINT_DECIMAL = /^[+-]?\d*\.\d+([eE][+-]?\d+)?$/;
+
+/**
+ * Guess the decimal mark from the first 64 lines: cells like 12,5 in a file whose fields are split
+ * by semicolons or tabs, and no cell like 12.5, mean a decimal comma (the spreadsheet export of
+ * locales that write 12,5). A comma-separated file cannot hold unquoted decimal commas, so it reads
+ * with a point. Cells that could also be thousands separators (1,250) make the guess ambiguous:
+ * the page offers the comma and keeps the point. The CLI never guesses; it hints per cell
+ * (core/csv numberHint: "it looks like a decimal comma"). Common practice, no source.
+ */
+export function guessDecimal(text: string): DecimalGuess {
+  const lines = head(text, 64).replace(/^\uFEFF/, '').split(/\r\n|\r|\n/).filter((l) => l.trim() !== '');
+  const splitter = lines.some((l) => l.includes(';')) ? ';' : lines.some((l) => l.includes('\t')) ? '\t' : null;
+  // Without semicolons or tabs, commas separate fields unless every line is one number (a pasted column).
+  if (splitter === null && lines.some((l) => l.includes(',') && !COMMA_DECIMAL.test(l.trim().replace(/^"(.*)"$/, '$1').trim()))) {
+    return { mark: '.', ambiguous: false, example: '' };
+  }
+  let comma = 0;
+  let thousands = 0;
+  let point = 0;
+  let example = '';
+  for (const line of lines) {
+    const cells = splitter ? line.split(splitter) : [line];
+    for (const raw of cells) {
+      const cell = raw.trim().replace(/^"(.*)"$/, '$1').trim();
+      if (COMMA_DECIMAL.test(cell)) {
+        comma++;
+        if (COMMA_THOUSANDS.test(cell)) thousands++;
+        if (example === '') example = cell;
+      } else if (POINT_DECIMAL.test(cell)) point++;
+    }
+  }
+  // One column pasted with decimal commas and no separator at all: the same evidence.
+  if (comma > 0 && point === 0) return { mark: thousands === comma ? '.' : ',', ambiguous: thousands === comma, example };
+  return { mark: '.', ambiguous: false, example: '' };
 }

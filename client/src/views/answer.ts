@@ -1,0 +1,91 @@
+/**
+ * The answer at the top of the page: the first decision number under the selected model, and the
+ * cautions that undermine it, said next to it (the selected model is rejected by a test, its fit
+ * did not converge, every model is rejected, a trend was found, the number lies far beyond the
+ * record, another acceptable model gives a very different number). Pure: report in, words out.
+ */
+import type { DatasetCandidate, DatasetReport } from '../../../core/index.js';
+import { capital } from '../families.js';
+import { pValue, sig } from '../format.js';
+import { end, pct, withU } from './numbers.js';
+
+export interface Answer {
+  /** The sentence with the number. */
+  readonly sentence: string;
+  /** What undermines it, most serious first; empty when nothing does. */
+  readonly cautions: readonly string[];
+  /** True when a caution says the number should not be used as it stands (rejected model, no convergence, trend). */
+  readonly undermined: boolean;
+}
+
+/** The sensitivity rows' quantity names (core/workflow quantityNumber: 6 significant digits, plain). */
+const q = (x: number): string => String(Number(x.toPrecision(6)));
+
+const TEST_WORDS: Readonly<Record<string, string>> = { 'chi-square': 'the chi-square test', 'anderson-darling': 'the Anderson–Darling test' };
+
+function testP(c: DatasetCandidate, test: string): string {
+  if (test === 'chi-square' && c.chiSquare.computable) return ` (p = ${pValue(c.chiSquare.pValue)})`;
+  if (test === 'anderson-darling' && !('offered' in c.andersonDarling)) return ` (p ${c.andersonDarling.pValueIs === 'estimate' ? '= ' : ''}${pValue(c.andersonDarling.pValue, c.andersonDarling.pValueIs)})`;
+  return '';
+}
+
+/** The first decision number's sentence and what quantity it is (for the spread caution). */
+function sentenceFor(r: DatasetReport, c: DatasetCandidate, u: string): { text: string; quantity: string | null } | null {
+  const label = capital(c.label);
+  const b = c.bLives?.[0];
+  if (r.life && b) {
+    return {
+      text: `B${sig(b.percent, 3)} life under ${label}: ${withU(sig(b.estimate), u)} (two-sided ${pct(b.confidence)} bounds ${sig(b.lower)} to ${sig(b.upper)}), from ${r.life.failures} failures and ${r.life.suspensions} suspensions.`,
+      quantity: `B${q(b.percent)} life`,
+    };
+  }
+  const rl = c.returnLevels?.[c.returnLevels.length - 1];
+  if (r.flood && rl) {
+    return {
+      text: `${sig(rl.period)}-year level under ${label}: ${withU(sig(rl.estimate), u)} (${pct(rl.confidence)} interval ${end(rl.lower, 'open')} to ${end(rl.upper, 'unbounded')})${rl.beyondRecord ? ', far beyond the record' : ''}.`,
+      quantity: `return level T=${q(rl.period)}`,
+    };
+  }
+  const cap = r.capability;
+  const ppk = cap?.overall.find((x) => x.name === 'Ppk');
+  if (cap && ppk) {
+    return {
+      text: `Ppk ${sig(ppk.estimate, 3)} (lower bound ${sig(ppk.lower, 3)})${cap.normality && !cap.normality.passes ? '; the normal model fails its test, see the percentile method' : ''}; ${sig(c.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}.`,
+      quantity: 'ppm out of spec',
+    };
+  }
+  return null;
+}
+
+export function answerFor(r: DatasetReport, selected: string | null, units: string): Answer | null {
+  const c = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
+  if (!c) return null;
+  const s = sentenceFor(r, c, units.trim());
+  if (!s) return null;
+  const label = capital(c.label);
+  const alpha = r.options.alpha;
+  const cautions: string[] = [];
+  let undermined = false;
+  if (c.rejectedBy.length > 0) {
+    undermined = true;
+    const tests = c.rejectedBy.map((t) => `${TEST_WORDS[t] ?? t}${testP(c, t)}`).join(' and ');
+    const ok = r.candidates.find((x) => x.rejectedBy.length === 0);
+    cautions.push(`${label} is rejected by ${tests} at α = ${alpha}: the data contradict this model, so do not design on this number.${ok ? ` The best model no test rejects is ${capital(ok.label)}.` : ' No model tried passes every test.'}`);
+  }
+  if (!c.fit.converged) {
+    undermined = true;
+    cautions.push(`The ${label} fit did not converge (${c.fit.method}, ${c.fit.iterations} iterations): the number is not a maximum-likelihood estimate.`);
+  }
+  if (r.trend?.trendDetected) {
+    undermined = true;
+    cautions.push(`A trend was found over time (Mann–Kendall p = ${pValue(r.trend.pValue)}): the values may not come from one distribution, which this number assumes.`);
+  }
+  const rl = c.returnLevels?.[c.returnLevels.length - 1];
+  if (r.flood && rl?.beyondRecord) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
+  const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity) : undefined;
+  if (row && row.values.length > 1 && row.min > 0 && row.max / row.min >= 1.25) {
+    cautions.push(`Across the ${row.basis === 'passing' ? 'models no test rejects' : 'models tried'} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see “What would change the answer”.`);
+  }
+  for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
+  return { sentence: s.text, cautions, undermined };
+}

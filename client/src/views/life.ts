@@ -1,0 +1,46 @@
+/** The life section (censored life data): B-lives with bounds, reliability, mean life. Pure. */
+import { sig } from '../format.js';
+import type { BlockLine, BlockTable, SectionView } from './block.js';
+import { pct, withU } from './numbers.js';
+
+export const lifeSection: SectionView = ({ report: r, selected: c, units: u }) => {
+  const life = r.life;
+  if (!life) return null;
+  const lines: BlockLine[] = [
+    { kind: 'fact', text: `${life.units} units on test: ${life.failures} failed, ${life.suspensions} suspended (still running or removed unfailed, treated as right-censored).` },
+    { kind: 'note', text: life.chiSquare.reason },
+  ];
+  const tables: BlockTable[] = [];
+  let answer: string | undefined;
+  if (c) {
+    const b = c.bLives?.[0];
+    if (b) answer = `B${sig(b.percent, 3)} life under ${c.label}: ${withU(sig(b.estimate), u)}, between ${sig(b.lower)} and ${sig(b.upper)} (two-sided ${pct(life.confidence)} bounds${b.boundsFound ? '' : ', search limit reached'}).`;
+    if (c.bLives && c.bLives.length > 0) {
+      tables.push({
+        caption: `B-lives under ${c.label}: the time by which the given share of units has failed; two-sided ${pct(life.confidence)} bounds (${c.bLifeMethod ?? life.boundMethod}).`,
+        head: ['Life', `Estimate${u ? ` [${u}]` : ''}`, 'Lower bound', 'Upper bound', 'Bounds closed'],
+        rows: c.bLives.map((x) => [`B${sig(x.percent, 3)}`, sig(x.estimate), sig(x.lower), sig(x.upper), x.boundsFound ? 'yes' : 'no: search limit shown']),
+      });
+    }
+    for (const rel of c.reliability ?? []) {
+      lines.push({
+        kind: 'fact',
+        text: `Reliability at ${withU(sig(rel.time), u)} under ${c.label}: ${sig(rel.estimate, 4)}; lower bound ${sig(rel.lower, 4)} (one-sided ${pct((1 + rel.confidence) / 2)}), upper ${sig(rel.upper, 4)}.`,
+      });
+    }
+    if (c.meanLife !== undefined) lines.push({ kind: 'fact', text: `Mean life under ${c.label}: ${withU(sig(c.meanLife), u)} (no bounds; the mean leans on the tail beyond the test).` });
+    for (const w of c.warnings ?? []) lines.push({ kind: 'warning', text: `${c.label}: ${w}` });
+  }
+  lines.push({ kind: 'note', text: `Plotting positions: ${life.plot.description}` });
+  for (const w of life.warnings) lines.push({ kind: 'warning', text: w });
+  for (const k of life.cautions) lines.push({ kind: 'caution', text: k });
+  return {
+    id: 'life',
+    title: 'Life of the units',
+    ...(answer ? { answer } : {}),
+    lead: 'Failures and suspensions together: how long until a share of units fails, and the chance a unit survives a given time.',
+    lines,
+    tables,
+    charts: ['life-probability', 'hazard'],
+  };
+};

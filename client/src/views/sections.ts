@@ -1,0 +1,25 @@
+/**
+ * The registry of trade sections on the page and in the exported report: a report section key
+ * mapped to its pure view (views/block.ts SectionView). To add a section: write one file
+ * views/<key>.ts exporting a SectionView and add one line here. The order here is the order on
+ * screen; "what would change the answer" (sensitivity) comes after the sections it compares.
+ */
+import type { SectionBlock, SectionInput, SectionView } from './block.js';
+import { capabilitySection } from './capability.js';
+import { floodSection } from './flood.js';
+import { lifeSection } from './life.js';
+import { sensitivitySection } from './sensitivity.js';
+import { trendSection } from './trend.js';
+
+export const SECTIONS: readonly { readonly key: string; readonly view: SectionView }[] = [
+  { key: 'life', view: lifeSection },
+  { key: 'flood', view: floodSection },
+  { key: 'capability', view: capabilitySection },
+  { key: 'trend', view: trendSection },
+  { key: 'sensitivity', view: sensitivitySection },
+];
+
+/** Every section the report carries, in registry order. */
+export function sectionBlocks(input: SectionInput): SectionBlock[] {
+  return SECTIONS.map((s) => s.view(input)).filter((b): b is SectionBlock => b !== null);
+}

@@ -1,0 +1,83 @@
+/**
+ * The answer at the top of the page (client/src/views/answer.ts) and the trade sections of the
+ * registry (views/sections.ts), from real reports of the core on the demo data (datasets/README.md:
+ * invented scenarios). The answer must say when the selected model is rejected, when a trend was
+ * found, and when the number lies beyond the record.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { analyzeDataset, readColumns, type DatasetReport, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { answerFor } from '../../client/src/views/answer.js';
+import { SECTIONS, sectionBlocks } from '../../client/src/views/sections.js';
+import { modelLabel } from '../../client/src/families.js';
+
+const read = (f: string, cols: string[]) => readColumns(readFileSync(join(process.cwd(), 'datasets', f), 'utf8'), cols.map((select) => ({ select, kind: select === 'status' ? ('text' as const) : ('number' as const) })));
+
+const bt = read('bearing-life.csv', ['hours', 'status']);
+const LIFE = analyzeDataset(
+  { values: (bt.columns[0] as NumberColumn).values, status: (bt.columns[1] as TextColumn).texts.map(Number) },
+  { families: ['weibull', 'lognormal', 'exponential'], bLifePercents: [10], bootstrapReplicates: 99, seed: 1 },
+) as DatasetReport;
+const rv = read('river-peaks.csv', ['peak_flow_m3s', 'year']);
+// The river peaks with an added drift of 12 m³/s a year (invented), so the Mann–Kendall test finds a trend.
+const peaks = (rv.columns[0] as NumberColumn).values;
+const years = (rv.columns[1] as NumberColumn).values;
+const FLOOD = analyzeDataset(
+  { values: peaks.map((v, i) => v + 12 * (years[i]! - years[0]!)), order: years },
+  { families: ['gumbel', 'gev'], returnPeriods: [10, 100, 200], seed: 1 },
+) as DatasetReport;
+
+describe('the answer', () => {
+  it('states the first B-life under the selected model with its bounds', () => {
+    const a = answerFor(LIFE, 'weibull', 'h')!;
+    expect(a.sentence).toMatch(/^B10 life under Weibull: [\d.]+ h \(two-sided 90 % bounds/);
+  });
+
+  it('says so when the selected model is rejected by a test, and names the best model no test rejects', () => {
+    const rejected = LIFE.candidates.find((c) => c.rejectedBy.length > 0);
+    expect(rejected, 'the bearing data reject at least one model (exponential)').toBeDefined();
+    const a = answerFor(LIFE, rejected!.family, 'h')!;
+    expect(a.undermined).toBe(true);
+    expect(a.cautions[0]).toMatch(new RegExp(`^${modelLabel(rejected!.family)} is rejected by the (Anderson–Darling|chi-square) test \\(p [=<]`));
+    expect(a.cautions[0]).toMatch(/do not design on this number/);
+    const passing = LIFE.candidates.find((c) => c.rejectedBy.length === 0);
+    if (passing) expect(a.cautions[0]).toContain(`best model no test rejects is ${modelLabel(passing.family)}`);
+  });
+
+  it('a model no test rejects carries no rejection caution', () => {
+    const ok = LIFE.candidates.find((c) => c.rejectedBy.length === 0)!;
+    expect(answerFor(LIFE, ok.family, 'h')!.cautions.join(' ')).not.toMatch(/rejected by/);
+  });
+
+  it('names a detected trend next to a return level, and the level beyond the record', () => {
+    expect(FLOOD.trend?.trendDetected, 'the drift added above is found').toBe(true);
+    const a = answerFor(FLOOD, 'gumbel', 'm³/s')!;
+    expect(a.sentence).toMatch(/^200-year level under Gumbel/);
+    expect(a.undermined).toBe(true);
+    expect(a.cautions.join(' ')).toMatch(/A trend was found over time \(Mann–Kendall p = /);
+    expect(a.cautions.join(' ')).toMatch(/more than twice the 60-year record/);
+  });
+
+  it('no decision number asked for: no answer', () => {
+    const plain = analyzeDataset({ values: (rv.columns[0] as NumberColumn).values }, { families: ['gumbel'], seed: 1 }) as DatasetReport;
+    expect(answerFor(plain, 'gumbel', '')).toBeNull();
+  });
+});
+
+describe('the section registry', () => {
+  it('maps each report section key to one view, in screen order', () => {
+    expect(SECTIONS.map((s) => s.key)).toEqual(['life', 'flood', 'capability', 'trend', 'sensitivity']);
+  });
+
+  it('shows only the sections the report carries; each leads with its answer where it has one', () => {
+    const c = FLOOD.candidates[0]!;
+    const blocks = sectionBlocks({ report: FLOOD, selected: { ...c, label: modelLabel(c.family) }, units: 'm³/s' });
+    expect(blocks.map((b) => b.id)).toEqual(['flood', 'trend', 'sensitivity']);
+    expect(blocks[0]!.answer).toMatch(/^200-year level under/);
+    expect(blocks[1]!.answer).toBe(FLOOD.trend!.decision);
+    // What would change it: a range across the acceptable models, in words.
+    const sens = blocks[2]!.lines.map((l) => l.text).join(' ');
+    expect(sens).toMatch(/return level T=200: from [\d.]+ \(.+\) to [\d.]+ \(.+\) across 2 models|only .+ gives it/);
+  });
+});
