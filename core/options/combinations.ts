@@ -111,7 +111,8 @@ export function checkCombinations(given: ReadonlyMap<string, OptionValue>, surfa
     if (!ruleApplies(rule, surface)) continue;
     if (rule.kind === 'needs') {
       if (has(rule.option) && !rule.anyOf.some(has)) {
-        const needed = rule.anyOf.map(show).join(' or ');
+        // On the API a needed true/false option is shown with its value ("evidence": true).
+        const needed = rule.anyOf.map((n) => (surface === 'api' && specOf(n).kind === 'boolean' ? `${show(n)}: true` : show(n))).join(' or ');
         return { ok: false, message: `${show(rule.option)} needs ${needed}${rule.why ? ` (${rule.why})` : ''}`, field: rule.option };
       }
     } else if (rule.kind === 'conflicts') {

@@ -105,9 +105,10 @@ describe('workflow fields through the API', () => {
     expect(res.body.error.message).toContain(field.replace(/\[.*$/, ''));
   });
 
-  it('passes the core\'s own option checks through as 400 (a design life without return periods)', async () => {
+  it('refuses an option combination the option table forbids with 400 (a design life without return periods)', async () => {
     const res = await request(app).post('/api/analyze').send({ values: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], designLife: 50 });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/design life needs return periods/);
+    expect(res.body.error.field).toBe('designLife');
+    expect(res.body.error.message).toMatch(/"designLife" needs "returnPeriods"/);
   });
 });
