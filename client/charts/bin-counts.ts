@@ -7,7 +7,7 @@
 import { axisBottom, axisLeft, max as d3max, scaleBand, scaleLinear } from 'd3';
 import type { BinCountsRow } from '../src/types.js';
 import { sig } from '../src/format.js';
-import { createFrame, drawEmpty, drawGrid, drawLegend, drawXAxis, drawYAxis, round } from './frame.js';
+import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis, round } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
@@ -15,7 +15,8 @@ import { INK, styleFor } from './palette.js';
 export type BinCountsChartRow = Omit<BinCountsRow, 'pearsonResidual' | 'contribution'> & Partial<Pick<BinCountsRow, 'pearsonResidual' | 'contribution'>>;
 
 export interface BinCountsChartData {
-  readonly bins: { readonly rows: readonly BinCountsChartRow[] };
+  /** `notApplicable` (a censored sample): no bins; the chart says why instead. */
+  readonly bins: { readonly rows: readonly BinCountsChartRow[]; readonly notApplicable?: { readonly reason: string } | null };
   readonly family: string;
   readonly label: string;
   /** What a bar is: 'bin' (equal-probability bins, the default) or 'class' (grouped counts, merged classes). */
@@ -29,34 +30,42 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
   const style = styleFor(data.family);
   const cell = data.cell ?? 'bin';
   const Cell = cell === 'bin' ? 'Bin' : 'Class';
-  const title = `Observed vs expected count per ${cell}, ${data.label}`;
+  const title = data.bins.notApplicable ? `Counts per bin: not applicable (censored)` : `Does each ${cell} hold what ${data.label} expects?`;
   const worst = rows.every((r) => r.pearsonResidual !== undefined)
     ? [...rows].sort((a, b) => Math.abs(b.pearsonResidual ?? 0) - Math.abs(a.pearsonResidual ?? 0))[0]
     : undefined;
   const description =
     `${rows.length} ${cell === 'bin' ? 'bins' : 'classes'}. Bars: observed counts; marks: counts expected under the ${data.label} fit. ` +
     (worst ? `Largest departure in ${cell} ${worst.index + 1}: observed ${worst.observed}, expected ${sig(worst.expected, 3)}.` : '');
-  const frame = createFrame(container, options, title, description);
-  drawLegend(
-    frame,
-    [
-      { key: 'data', label: 'Observed count', kind: 'bar' },
-      { key: data.family, label: `Expected (${data.label})`, kind: 'line', emphasis: true, style: { ...style, dash: '' } },
-      { key: 'ref', label: `${MIN_EXPECTED} expected (minimum)`, kind: 'reference' },
-    ],
-    options.width,
+  const na = data.bins.notApplicable ?? null;
+  const frame = createFrame(
+    container,
+    options,
+    title,
+    na ? na.reason : description,
+    na
+      ? {}
+      : {
+          legend: [
+            { key: 'data', label: 'Observed count', kind: 'bar' },
+            { key: data.family, label: `Expected (${data.label})`, kind: 'line', emphasis: true, style: { ...style, dash: '' } },
+            { key: 'ref', label: `${MIN_EXPECTED} expected (minimum)`, kind: 'reference' },
+          ],
+        },
   );
-  if (rows.length === 0) {
-    drawEmpty(frame, `No ${cell === 'bin' ? 'bins' : 'classes'} to draw.`);
+  if (na || rows.length === 0) {
+    drawEmpty(frame, na ? na.reason : `No ${cell === 'bin' ? 'bins' : 'classes'} to draw.`);
     return frame.svg.node()!;
   }
+  const top = Math.max(d3max(rows, (r) => Math.max(r.observed, r.expected)) ?? 0, MIN_EXPECTED) * 1.1;
+  const y = scaleLinear().domain([0, top]).range([frame.innerHeight, 0]).nice();
+  const yAxis = axisLeft(y).ticks(5);
+  fitYAxis(frame, yAxis);
   const x = scaleBand<number>()
     .domain(rows.map((r) => r.index))
     .range([0, frame.innerWidth])
     .paddingInner(0.18)
     .paddingOuter(0.1);
-  const top = Math.max(d3max(rows, (r) => Math.max(r.observed, r.expected)) ?? 0, MIN_EXPECTED) * 1.1;
-  const y = scaleLinear().domain([0, top]).range([frame.innerHeight, 0]).nice();
   drawGrid(frame, y.ticks(5).map((t) => y(t)));
   const g = frame.plot.append('g');
   for (const r of rows) {
@@ -102,6 +111,6 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     .tickValues(rows.map((r) => r.index).filter((i) => i % every === 0))
     .tickFormat((i) => String(Number(i) + 1));
   drawXAxis(frame, axis, cell === 'bin' ? 'Bin number (low to high values; edges in the bins table)' : 'Class after merging (low to high; limits in the table)');
-  drawYAxis(frame, axisLeft(y).ticks(5), 'Count');
+  drawYAxis(frame, yAxis, 'Count');
   return frame.svg.node()!;
 }

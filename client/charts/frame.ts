@@ -28,9 +28,23 @@ export interface Frame {
   readonly svg: Svg;
   /** The plotting area, translated by the margins. */
   readonly plot: Group;
-  readonly innerWidth: number;
+  /** Set by fitYAxis (the left margin is as wide as the y tick labels need). */
+  innerWidth: number;
   readonly innerHeight: number;
-  readonly margins: Margins;
+  margins: Margins;
+  /** Baseline of the y-axis title, which sits above the plot, level with its left edge (never
+   *  beside the tick labels, so the two cannot overlap). */
+  readonly yTitleY: number;
+  readonly width: number;
+}
+
+/** What createFrame lays out around the plot: legend rows at the top, notes under the x axis. */
+export interface FrameLayout {
+  readonly legend?: readonly LegendItem[];
+  /** Short notes printed under the x-axis title (e.g. a bar cut at the drawn range), never on the data. */
+  readonly notes?: readonly string[];
+  /** Room for labels drawn just above the plot area (e.g. limit names), in px. */
+  readonly headroom?: number;
 }
 
 let idCounter = 0;
@@ -44,12 +58,51 @@ export function resetIds(): void {
   idCounter = 0;
 }
 
+/**
+ * Width of a text in px, estimated from its characters (no measurement, so that jsdom, the
+ * browser and the exported report lay out alike). Deliberately generous for proportional
+ * sans-serif fonts: narrow glyphs 0.32 em, lower case 0.56 em, digits 0.6 em, upper case and
+ * symbols 0.7 em, m/w/M/W 0.86 em. Common practice, no source.
+ */
+export function textWidth(text: string, fontSize: number): number {
+  let em = 0;
+  for (const ch of text) {
+    if (' .,:;!|\'()[]ijlIft'.includes(ch)) em += 0.32;
+    else if ('mwMW%'.includes(ch)) em += 0.86;
+    else if (ch >= '0' && ch <= '9') em += 0.6;
+    else if (ch >= 'a' && ch <= 'z') em += 0.56;
+    else em += 0.7;
+  }
+  return em * fontSize;
+}
+
+/** Break a text into lines no wider than maxWidth (by the estimate above), at spaces. */
+export function wrapText(text: string, maxWidth: number, fontSize: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/).filter(Boolean)) {
+    const next = line ? `${line} ${word}` : word;
+    if (line && textWidth(next, fontSize) > maxWidth) {
+      lines.push(line);
+      line = word;
+    } else line = next;
+  }
+  if (line) lines.push(line);
+  return lines;
+}
+
+const TITLE_SIZE = 14;
+const LEGEND_ROW = 17;
+const NOTE_ROW = 14;
+const LEFT_MIN = 40;
+const RIGHT = 26;
+
 export function createFrame(
   container: Element,
   size: ChartSize,
   title: string,
   description: string,
-  margins: Margins = { top: 56, right: 18, bottom: 52, left: 64 },
+  layout: FrameLayout = {},
 ): Frame {
   const root = select(container);
   root.selectAll(':scope > svg').remove();
@@ -68,45 +121,98 @@ export function createFrame(
     .attr('fill', INK.text) as Svg;
   svg.append('title').attr('id', titleId).text(title);
   svg.append('desc').attr('id', descId).text(description);
-  svg.append('rect').attr('width', size.width).attr('height', size.height).attr('fill', '#ffffff');
-  svg
-    .append('text')
-    .attr('x', 8)
-    .attr('y', 18)
-    .attr('font-size', 14)
-    .attr('font-weight', 600)
-    .text(title);
+  svg.append('rect').attr('width', size.width).attr('height', size.height).attr('fill', INK.paper);
+  // Title, wrapped to the width.
+  const titleLines = wrapText(title, size.width - 16, TITLE_SIZE);
+  const t = svg.append('text').attr('data-kind', 'chart-title').attr('x', 8).attr('y', 18).attr('font-size', TITLE_SIZE).attr('font-weight', 600);
+  titleLines.forEach((line, i) => t.append('tspan').attr('x', 8).attr('dy', i === 0 ? 0 : 17).text(line));
+  let y = 18 + (titleLines.length - 1) * 17 + 8;
+  if (layout.legend && layout.legend.length > 0) y = drawLegend(svg, layout.legend, size.width, y + 10) + 6;
+  const yTitleY = y + 14;
+  const top = yTitleY + 12 + (layout.headroom ?? 0);
+  const notes = layout.notes ?? [];
+  const noteLines = notes.flatMap((n) => wrapText(n, size.width - 16, 10.5));
+  const bottom = 50 + noteLines.length * NOTE_ROW;
+  const margins: Margins = { top, right: RIGHT, bottom, left: LEFT_MIN };
   const innerWidth = Math.max(40, size.width - margins.left - margins.right);
   const innerHeight = Math.max(40, size.height - margins.top - margins.bottom);
-  const plot = svg.append('g').attr('transform', `translate(${margins.left},${margins.top})`) as Group;
-  return { svg, plot, innerWidth, innerHeight, margins };
+  if (noteLines.length > 0) {
+    const g = svg.append('g').attr('data-kind', 'notes').attr('font-size', 10.5).attr('fill', INK.muted);
+    noteLines.forEach((line, i) => g.append('text').attr('x', 8).attr('y', round(top + innerHeight + 48 + (i + 1) * NOTE_ROW - 2)).text(line));
+  }
+  const plot = svg.append('g').attr('data-kind', 'plot').attr('transform', `translate(${margins.left},${margins.top})`) as Group;
+  return { svg, plot, innerWidth, innerHeight, margins, yTitleY, width: size.width };
 }
 
-/** Draw the x axis along the bottom of the plot with its label. */
+/**
+ * Size the left margin to the y axis's tick labels (estimated widths) and move the plot: call
+ * after the y scale is made and before anything is drawn that depends on the plot's width.
+ */
+export function fitYAxis<D extends NumberValue>(frame: Frame, axis: Axis<D>): void {
+  const widest = Math.max(0, ...tickLabels(axis).map((l) => textWidth(l, 11)));
+  const left = Math.max(LEFT_MIN, Math.ceil(widest + 9 + 10));
+  frame.margins = { ...frame.margins, left };
+  frame.innerWidth = Math.max(40, frame.width - left - frame.margins.right);
+  frame.plot.attr('transform', `translate(${left},${frame.margins.top})`);
+}
+
+/** The tick labels an axis will draw (its tick values or its scale's ticks, formatted as it will). */
+export function tickLabels<D extends NumberValue>(axis: Axis<D>): string[] {
+  const scale = axis.scale() as unknown as { ticks?: (...a: unknown[]) => D[]; tickFormat?: (...a: unknown[]) => (d: D) => string; domain: () => D[] };
+  const args = axis.tickArguments();
+  const values = axis.tickValues() ?? (scale.ticks ? scale.ticks(...args) : scale.domain());
+  const fmt = axis.tickFormat() ?? (scale.tickFormat ? scale.tickFormat(...args) : (d: D) => String(d));
+  return [...values].map((v, i) => (fmt as (d: D, i: number) => string)(v, i));
+}
+
+/** Horizontal-axis tick values whose labels (centred on their ticks) keep at least 6 px apart,
+ *  kept greedily from the left. */
+export function keepApart(values: readonly number[], at: (v: number) => number, label: (v: number) => string): number[] {
+  const kept: number[] = [];
+  let right = -Infinity;
+  for (const v of [...values].sort((a, b) => at(a) - at(b))) {
+    const half = textWidth(label(v), 11) / 2;
+    if (at(v) - half >= right + 6) {
+      kept.push(v);
+      right = at(v) + half;
+    }
+  }
+  return kept;
+}
+
+/** Draw the x axis along the bottom of the plot with its title under the tick labels. */
 export function drawXAxis<D extends NumberValue>(frame: Frame, axis: Axis<D>, label: string): void {
-  const g = frame.plot.append('g').attr('transform', `translate(0,${frame.innerHeight})`).attr('aria-hidden', 'true');
+  const g = frame.plot.append('g').attr('data-kind', 'x-axis').attr('transform', `translate(0,${frame.innerHeight})`).attr('aria-hidden', 'true');
   g.call(axis);
   tidyAxis(g);
+  // A title wider than the chart is set smaller (down to 9 px) and centred on the whole chart.
+  const room = frame.width - 16;
+  const size = Math.max(9, Math.min(12, (12 * room) / Math.max(1, textWidth(label, 12))));
+  const half = textWidth(label, size) / 2;
+  const centre = Math.min(Math.max(frame.innerWidth / 2, 8 + half - frame.margins.left), frame.width - 8 - half - frame.margins.left);
   frame.plot
     .append('text')
-    .attr('x', frame.innerWidth / 2)
-    .attr('y', frame.innerHeight + 40)
+    .attr('data-kind', 'axis-title')
+    .attr('x', round(centre))
+    .attr('y', frame.innerHeight + 42)
     .attr('text-anchor', 'middle')
-    .attr('font-size', 12)
+    .attr('font-size', round(size))
     .text(label);
 }
 
-/** Draw the y axis along the left of the plot with its (rotated) label. */
+/** Draw the y axis along the left of the plot; its title sits above the plot, starting at the
+ *  SVG's left edge, with an arrow pointing up the axis. */
 export function drawYAxis<D extends NumberValue>(frame: Frame, axis: Axis<D>, label: string): void {
-  const g = frame.plot.append('g').attr('aria-hidden', 'true');
+  const g = frame.plot.append('g').attr('data-kind', 'y-axis').attr('aria-hidden', 'true');
   g.call(axis);
   tidyAxis(g);
-  frame.plot
+  frame.svg
     .append('text')
-    .attr('transform', `translate(${-frame.margins.left + 16},${frame.innerHeight / 2}) rotate(-90)`)
-    .attr('text-anchor', 'middle')
+    .attr('data-kind', 'axis-title')
+    .attr('x', 8)
+    .attr('y', frame.yTitleY)
     .attr('font-size', 12)
-    .text(label);
+    .text(`↑ ${label}`);
 }
 
 /** Light horizontal grid lines at the y ticks. */
@@ -135,27 +241,28 @@ export { axisBottom, axisLeft };
 export interface LegendItem {
   readonly key: string;
   readonly label: string;
-  /** 'line' (a curve), 'bar' (data bars), 'band' (a shaded band), 'point' (markers), 'step'. */
-  readonly kind: 'line' | 'bar' | 'band' | 'point' | 'step' | 'reference';
+  /** 'line' (a curve), 'bar' (data bars), 'band' (a shaded band), 'point' (markers), 'step',
+   *  'suspension' (open triangle), 'region' (shaded out-of-tolerance region), 'reference'. */
+  readonly kind: 'line' | 'bar' | 'band' | 'point' | 'step' | 'reference' | 'suspension' | 'region';
   readonly style?: SeriesStyle;
   readonly emphasis?: boolean;
 }
 
 /**
- * A legend in one or two rows above the plot. Widths are estimated from the character count
- * (no text measurement, so that jsdom and the browser draw the same thing).
+ * The legend: rows of entries above the plot, wrapped to the width, each entry as wide as its
+ * estimated text plus a gap. Returns the y of its last row.
  */
-export function drawLegend(frame: Frame, items: readonly LegendItem[], width: number): void {
-  const g = frame.svg.append('g').attr('transform', 'translate(8,30)').attr('font-size', 11);
+export function drawLegend(svg: Svg, items: readonly LegendItem[], width: number, top: number): number {
+  const g = svg.append('g').attr('data-kind', 'legend').attr('transform', `translate(8,${top})`).attr('font-size', 11);
   let x = 0;
   let y = 0;
   for (const item of items) {
-    const w = 30 + item.label.length * 6.2 + 14;
+    const w = 30 + textWidth(item.label, 11) + 16;
     if (x > 0 && x + w > width - 16) {
       x = 0;
-      y += 15;
+      y += LEGEND_ROW;
     }
-    const cell = g.append('g').attr('transform', `translate(${round(x)},${y})`);
+    const cell = g.append('g').attr('data-kind', 'legend-entry').attr('transform', `translate(${round(x)},${y})`);
     const style = item.style ?? styleFor(item.key);
     switch (item.kind) {
       case 'line':
@@ -178,8 +285,14 @@ export function drawLegend(frame: Frame, items: readonly LegendItem[], width: nu
       case 'point':
         cell.append('circle').attr('cx', 12).attr('cy', 0).attr('r', 3).attr('fill', INK.data);
         break;
+      case 'suspension':
+        cell.append('path').attr('d', suspensionMark(12, 0)).attr('fill', '#ffffff').attr('stroke', INK.suspension).attr('stroke-width', 1.3);
+        break;
       case 'step':
         cell.append('path').attr('d', 'M0,4H8V0H16V-4H24').attr('fill', 'none').attr('stroke', INK.data).attr('stroke-width', 1.6);
+        break;
+      case 'region':
+        cell.append('rect').attr('x', 0).attr('y', -5).attr('width', 24).attr('height', 10).attr('fill', INK.outside).attr('fill-opacity', 0.55).attr('stroke', INK.outsideEdge);
         break;
       case 'reference':
         cell
@@ -195,6 +308,28 @@ export function drawLegend(frame: Frame, items: readonly LegendItem[], width: nu
     }
     cell.append('text').attr('x', 30).attr('y', 4).text(item.label);
     x += w;
+  }
+  return top + y;
+}
+
+/** An open triangle pointing right (a unit still running past this time), centred at (x, y). */
+export function suspensionMark(x: number, y: number): string {
+  return `M${round(x - 4)},${round(y - 4.5)}L${round(x + 4.5)},${round(y)}L${round(x - 4)},${round(y + 4.5)}Z`;
+}
+
+/** Marks along the bottom of the plot at each x: failures as short ticks, suspensions as open
+ *  right-pointing triangles (the unit outlived this time). */
+export function drawTimeMarks(frame: Frame, xs: readonly number[], x: (v: number) => number, kind: 'failure' | 'suspension', what: string): void {
+  const g = frame.plot.append('g').attr('data-kind', kind === 'failure' ? 'failure-marks' : 'suspension-marks');
+  const y0 = frame.innerHeight;
+  if (kind === 'failure') {
+    let d = '';
+    for (const v of xs) d += `M${round(x(v))},${round(y0)}V${round(y0 - 9)}`;
+    g.append('path').attr('d', d).attr('stroke', INK.data).attr('stroke-width', 1.2).attr('fill', 'none').append('title').text(what);
+  } else {
+    let d = '';
+    for (const v of xs) d += suspensionMark(x(v), y0 - 16);
+    g.append('path').attr('d', d).attr('fill', '#ffffff').attr('fill-opacity', 0.8).attr('stroke', INK.suspension).attr('stroke-width', 1.3).append('title').text(what);
   }
 }
 
@@ -218,14 +353,13 @@ export function pathThrough(points: readonly (readonly [number, number])[]): str
   return d;
 }
 
-/** Minimum number of curve points inside the drawn range for a curve to look smooth. */
+/**
+ * Minimum number of curve points inside the drawn range for a curve to look smooth. With fewer,
+ * straight segments between far-apart points would misrepresent the fit: the caller leaves the
+ * curves out and puts `coarseNote`'s words in the chart's notes.
+ */
 export const FEW_CURVE_POINTS = 12;
 
-/**
- * A note in the plot's top-right corner when the fitted curves have few points inside the
- * drawn range: straight segments between far-apart points would misrepresent the fit, so the
- * caller leaves the curves out and this note says why.
- */
 /** One fitted curve per family on a shared x grid; the selected family drawn heavier. */
 export function drawFittedCurves(
   g: Group,
@@ -253,29 +387,22 @@ export function drawFittedCurves(
   }
 }
 
-export function noteIfCoarse(frame: Frame, gridX: readonly number[], domain: readonly [number, number]): boolean {
+export function coarseNote(gridX: readonly number[], domain: readonly [number, number]): string | null {
   let inside = 0;
   for (const v of gridX) if (v >= domain[0] && v <= domain[1]) inside++;
-  if (inside >= FEW_CURVE_POINTS) return false;
-  frame.plot
-    .append('text')
-    .attr('data-kind', 'coarse-note')
-    .attr('x', frame.innerWidth - 4)
-    .attr('y', 12)
-    .attr('text-anchor', 'end')
-    .attr('font-size', 11)
-    .attr('fill', INK.reference)
-    .text(`Fitted curves not drawn: only ${inside} curve point${inside === 1 ? '' : 's'} in this range`);
-  return true;
+  if (inside >= FEW_CURVE_POINTS) return null;
+  return `Fitted curves not drawn: only ${inside} curve point${inside === 1 ? '' : 's'} in this range.`;
 }
 
-/** A message drawn in place of a chart when there is nothing to draw, and why. */
+/** A message drawn in place of a chart when there is nothing to draw, and why (wrapped). */
 export function drawEmpty(frame: Frame, message: string): void {
-  frame.plot
+  const lines = wrapText(message, Math.max(120, frame.innerWidth - 20), 12);
+  const t = frame.plot
     .append('text')
-    .attr('x', frame.innerWidth / 2)
-    .attr('y', frame.innerHeight / 2)
+    .attr('data-kind', 'empty-note')
+    .attr('x', round(frame.innerWidth / 2))
+    .attr('y', round(frame.innerHeight / 2 - ((lines.length - 1) * 16) / 2))
     .attr('text-anchor', 'middle')
-    .attr('fill', INK.muted)
-    .text(message);
+    .attr('fill', INK.muted);
+  lines.forEach((line, i) => t.append('tspan').attr('x', round(frame.innerWidth / 2)).attr('dy', i === 0 ? 0 : 16).text(line));
 }

@@ -5,7 +5,7 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear, scaleLog } from 'd3';
 import type { LifeSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { styleFor } from './palette.js';
 import { logTicks } from './life-probability.js';
@@ -18,15 +18,16 @@ export interface HazardData {
 
 export function hazardChart(container: Element, data: HazardData, options: ChartOptions): SVGSVGElement {
   const u = options.units.trim();
-  const title = 'Hazard rate of the fitted models';
-  const frame = createFrame(container, options, title, 'Instantaneous failure rate of units still running, h(t) = f(t)/S(t), for each fitted model. Rising: wear-out; flat: random; falling: early failures.');
+  const title = 'Is the failure rate rising, flat or falling?';
   const items: LegendItem[] = data.curves.map((c) => ({ key: c.family, label: `${data.labels[c.family] ?? c.family}${c.family === data.selected ? ' (selected)' : ''}`, kind: 'line', emphasis: c.family === data.selected }));
-  drawLegend(frame, items, options.width);
+  const frame = createFrame(container, options, title, 'Instantaneous failure rate of units still running, h(t) = f(t)/S(t), for each fitted model. Rising: wear-out; flat: random; falling: early failures.', { legend: items });
   const times = data.curves[0]?.time ?? [1, 2];
-  const x = scaleLog().domain([times[0]!, times[times.length - 1]!]).range([0, frame.innerWidth]);
   const sel = data.curves.find((c) => c.family === data.selected) ?? data.curves[0];
   const top = (d3max(sel?.hazard ?? [1], (v) => (Number.isFinite(v) ? v : 0)) ?? 1) * 1.5 || 1;
   const y = scaleLinear().domain([0, top]).range([frame.innerHeight, 0]).nice();
+  const yAxis = axisLeft(y).ticks(5).tickFormat((v) => sig(Number(v), 3));
+  fitYAxis(frame, yAxis);
+  const x = scaleLog().domain([times[0]!, times[times.length - 1]!]).range([0, frame.innerWidth]);
   drawGrid(frame, y.ticks(5).map((t) => y(t)));
   const clipId = nextId('clip');
   frame.plot.append('clipPath').attr('id', clipId).append('rect').attr('width', frame.innerWidth).attr('height', frame.innerHeight);
@@ -43,7 +44,8 @@ export function hazardChart(container: Element, data: HazardData, options: Chart
       .attr('stroke-width', emph ? 3 : 1.5)
       .attr('stroke-dasharray', s.dash || null);
   }
-  drawXAxis(frame, axisBottom(x).tickValues(logTicks(x.domain() as [number, number])).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
-  drawYAxis(frame, axisLeft(y).ticks(5).tickFormat((v) => sig(Number(v), 3)), u ? `Failures per unit per ${u}` : 'Hazard rate');
+  const xt = keepApart(logTicks(x.domain() as [number, number]), (v) => x(v), (v) => sig(v, 3));
+  drawXAxis(frame, axisBottom(x).tickValues(xt).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
+  drawYAxis(frame, yAxis, u ? `Failures per unit per ${u}` : 'Hazard rate');
   return frame.svg.node()!;
 }

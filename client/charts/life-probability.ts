@@ -7,7 +7,7 @@
 import { axisBottom, axisLeft, scaleLinear, scaleLog } from 'd3';
 import type { LifeSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
@@ -61,22 +61,28 @@ function probit(p: number): number {
 
 export function lifeProbabilityChart(container: Element, data: LifeProbabilityData, options: ChartOptions): SVGSVGElement {
   const scaleName = data.scale === 'weibull' ? 'Weibull' : 'lognormal';
-  const title = `Failures on ${scaleName} probability paper`;
+  const title = `Do the failures follow the lines on ${scaleName} paper?`;
   const description =
     `Each failure at its plotting position (${data.plot.description}); ${data.suspensions} suspended units are not plotted but move the positions of later failures. ` +
     `Whiskers: pointwise ${Math.round(data.plot.bandLevel * 100)} % band. Lines: fitted models.`;
-  const frame = createFrame(container, options, title, description);
   const pts = data.plot[data.scale];
   const items: LegendItem[] = [{ key: 'data', label: `Failures (${pts.length})`, kind: 'point' }];
   for (const c of data.curves) items.push({ key: c.family, label: `${data.labels[c.family] ?? c.family}${c.family === data.selected ? ' (selected)' : ''}`, kind: 'line', emphasis: c.family === data.selected });
-  drawLegend(frame, items, options.width);
+  const frame = createFrame(container, options, title, description, { legend: items });
   const xs = [...pts.map((p) => p.x), ...data.curves.flatMap((c) => c.time.map((t) => Math.log(t)))];
   const ysPts = pts.flatMap((p) => [p.yLower, p.yUpper, p.y]).filter(Number.isFinite);
   const y0 = Math.min(...ysPts, scaleY(0.01, data.scale));
   const y1 = Math.max(...ysPts, scaleY(0.9, data.scale));
-  const x = scaleLog().domain([Math.exp(Math.min(...xs)), Math.exp(Math.max(...xs))]).range([0, frame.innerWidth]);
   const y = scaleLinear().domain([y0, y1]).range([frame.innerHeight, 0]);
-  const ticks = PERCENTS.filter((p) => scaleY(p / 100, data.scale) >= y0 && scaleY(p / 100, data.scale) <= y1);
+  const ticks: number[] = [];
+  for (const p of PERCENTS) {
+    const at = y(scaleY(p / 100, data.scale));
+    if (scaleY(p / 100, data.scale) < y0 || scaleY(p / 100, data.scale) > y1) continue;
+    if (ticks.length === 0 || Math.abs(at - y(scaleY(ticks[ticks.length - 1]! / 100, data.scale))) >= 14) ticks.push(p);
+  }
+  const yAxis = axisLeft(y).tickValues(ticks.map((p) => scaleY(p / 100, data.scale))).tickFormat((_v, i) => `${ticks[i]} %`);
+  fitYAxis(frame, yAxis);
+  const x = scaleLog().domain([Math.exp(Math.min(...xs)), Math.exp(Math.max(...xs))]).range([0, frame.innerWidth]);
   drawGrid(frame, ticks.map((p) => y(scaleY(p / 100, data.scale))));
   const clipId = nextId('clip');
   frame.plot.append('clipPath').attr('id', clipId).append('rect').attr('width', frame.innerWidth).attr('height', frame.innerHeight);
@@ -103,7 +109,8 @@ export function lifeProbabilityChart(container: Element, data: LifeProbabilityDa
     g.append('circle').attr('data-kind', 'point').attr('cx', px).attr('cy', round(y(p.y))).attr('r', 3.5).attr('fill', INK.data)
       .append('title').text(pp ? `Failure at ${sig(pp.time)} ${options.units}: F = ${sig(pp.F, 3)} (band ${sig(pp.lower, 3)} to ${sig(pp.upper, 3)})` : '');
   });
-  drawXAxis(frame, axisBottom(x).tickValues(logTicks(x.domain() as [number, number])).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
-  drawYAxis(frame, axisLeft(y).tickValues(ticks.map((p) => scaleY(p / 100, data.scale))).tickFormat((_v, i) => `${ticks[i]} %`), 'Fraction failed');
+  const xt = keepApart(logTicks(x.domain() as [number, number]), (v) => x(v), (v) => sig(v, 3));
+  drawXAxis(frame, axisBottom(x).tickValues(xt).tickFormat((v) => sig(Number(v), 3)), `${axisLabel(options.quantity ?? 'Time', options.units)} (log scale)`);
+  drawYAxis(frame, yAxis, 'Fraction failed');
   return frame.svg.node()!;
 }

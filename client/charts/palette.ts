@@ -32,17 +32,28 @@ const SPARE: readonly SeriesStyle[] = [
   { colour: '#000000', dash: '1 3', pattern: 'fine dots' },
 ];
 
-/** Neutral colours for the data themselves (bars, points, steps) and the page text. */
+/**
+ * Neutral colours for the data themselves (bars, points, steps), the chart paper and text. Our
+ * own scheme: a faintly warm paper, slate-blue data bars, and out-of-tolerance regions in a
+ * hatched sand tone rather than limit lines; text contrast ≥ 4.5:1 on the paper (WCAG 2.1, 1.4.3).
+ */
 export const INK = {
+  paper: '#fdfcf8',
   text: '#1b1b1b',
-  muted: '#5a5a5a',
-  grid: '#e3e3e3',
-  axis: '#444444',
-  barFill: '#d4d9de',
-  barStroke: '#6b7682',
-  data: '#222222',
+  muted: '#575757',
+  grid: '#e6e3da',
+  axis: '#4a4a4a',
+  barFill: '#cdd6e0',
+  barStroke: '#5d6f82',
+  data: '#1f2a36',
+  /** Suspensions (units still running): open marks in a slate tone. */
+  suspension: '#3d5a80',
   /** The minimum-expected-count reference line. */
-  reference: '#8a1c1c',
+  reference: '#7a3b00',
+  /** Out-of-tolerance region and its edge, and the text written in it. */
+  outside: '#f1d9a6',
+  outsideEdge: '#9a6700',
+  outsideText: '#5c3d00',
 } as const;
 
 export function styleFor(family: string, index = 0): SeriesStyle {

@@ -6,7 +6,7 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { DatasetCandidate, FloodSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawGrid, drawLegend, drawXAxis, drawYAxis, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough, round, type LegendItem } from './frame.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
@@ -26,17 +26,20 @@ const PERIOD_TICKS = [1.1, 2, 5, 10, 20, 50, 100, 200, 500, 1000, 10000];
 export function returnPeriodChart(container: Element, data: ReturnPeriodData, options: ChartOptions): SVGSVGElement {
   const f = data.flood;
   const title = 'Annual maxima and return levels';
-  const frame = createFrame(container, options, title, `Points: the ${f.recordLength} annual maxima at ${f.plottingPositions.description}. Lines: return levels of each model at the periods asked for, whiskers their ${Math.round(f.confidence * 100)} % intervals.`);
+  const edge = 2 * f.recordLength;
   const items: LegendItem[] = [{ key: 'data', label: `Annual maxima (${f.plottingPositions.formula})`, kind: 'point' }];
   const shown = data.candidates.filter((c) => c.returnLevels && c.returnLevels.length > 0);
   for (const c of shown) items.push({ key: c.family, label: `${c.label}${c.family === data.selected ? ' (selected)' : ''}`, kind: 'line', emphasis: c.family === data.selected });
-  drawLegend(frame, items, options.width);
+  const maxT0 = Math.max(...f.periods, ...f.plottingPositions.points.map((p) => p.returnPeriod));
+  if (edge < maxT0) items.push({ key: 'ref', label: `2 × record (${edge} y): beyond it the model's tail decides`, kind: 'reference' });
+  const frame = createFrame(container, options, title, `Points: the ${f.recordLength} annual maxima at ${f.plottingPositions.description}. Lines: return levels of each model at the periods asked for, whiskers their ${Math.round(f.confidence * 100)} % intervals.`, { legend: items });
   const pts = f.plottingPositions.points;
-  const maxT = Math.max(...f.periods, ...pts.map((p) => p.returnPeriod));
-  const x = scaleLinear().domain([Math.min(variate(1.1), ...pts.map((p) => p.gumbelVariate)), variate(maxT) + 0.3]).range([0, frame.innerWidth]);
   const sel = shown.find((c) => c.family === data.selected);
   const levels = [...pts.map((p) => p.value), ...(sel?.returnLevels ?? []).flatMap((r) => [r.estimate, r.upper ?? r.estimate, r.lower ?? r.estimate])];
   const y = scaleLinear().domain([Math.min(...levels), Math.max(...levels)]).range([frame.innerHeight, 0]).nice();
+  const yAxis = axisLeft(y).ticks(5);
+  fitYAxis(frame, yAxis);
+  const x = scaleLinear().domain([Math.min(variate(1.1), ...pts.map((p) => p.gumbelVariate)), variate(maxT0) + 0.3]).range([0, frame.innerWidth]);
   drawGrid(frame, y.ticks(5).map((t) => y(t)));
   const clipId = nextId('clip');
   frame.plot.append('clipPath').attr('id', clipId).append('rect').attr('width', frame.innerWidth).attr('height', frame.innerHeight);
@@ -64,14 +67,15 @@ export function returnPeriodChart(container: Element, data: ReturnPeriodData, op
       .append('title').text(`${sig(p.value)} ${options.units}: plotted at T = ${sig(p.returnPeriod, 3)} years`);
   }
   // Record-length marker: periods beyond twice the record rest on the model's tail.
-  const edge = 2 * f.recordLength;
+  // Record-length marker (named in the legend, not on the plot): periods beyond twice the record rest on the model's tail.
   if (variate(edge) < x.domain()[1]!) {
     const px = round(x(variate(edge)));
-    frame.plot.append('line').attr('data-kind', 'record-edge').attr('x1', px).attr('x2', px).attr('y1', 0).attr('y2', frame.innerHeight).attr('stroke', INK.reference).attr('stroke-dasharray', '4 3');
-    frame.plot.append('text').attr('x', px + 4).attr('y', 12).attr('font-size', 10).attr('fill', INK.reference).text(`2 × record (${edge} y)`);
+    frame.plot.append('line').attr('data-kind', 'record-edge').attr('x1', px).attr('x2', px).attr('y1', 0).attr('y2', frame.innerHeight).attr('stroke', INK.reference).attr('stroke-width', 1.2).attr('stroke-dasharray', '3 3')
+      .append('title').text(`2 × record (${edge} years)`);
   }
-  const ticks = PERIOD_TICKS.filter((T) => variate(T) >= x.domain()[0]! && variate(T) <= x.domain()[1]!);
+  const inRange = PERIOD_TICKS.filter((T) => variate(T) >= x.domain()[0]! && variate(T) <= x.domain()[1]!);
+  const ticks = keepApart(inRange, (T) => x(variate(T)), (T) => String(T));
   drawXAxis(frame, axisBottom(x).tickValues(ticks.map(variate)).tickFormat((_v, i) => String(ticks[i])), 'Return period T [years] (Gumbel scale)');
-  drawYAxis(frame, axisLeft(y).ticks(5), axisLabel(options.quantity ?? 'Annual maximum', options.units));
+  drawYAxis(frame, yAxis, axisLabel(options.quantity ?? 'Annual maximum', options.units));
   return frame.svg.node()!;
 }

@@ -24,6 +24,11 @@ function texts(svg: SVGSVGElement): string[] {
   return [...svg.querySelectorAll('text')].map((t) => t.textContent ?? '');
 }
 
+/** Axis titles (x first, then y without its leading arrow). */
+function axisTitles(svg: SVGSVGElement): string[] {
+  return [...svg.querySelectorAll('[data-kind="axis-title"]')].map((t) => (t.textContent ?? '').replace(/^↑ /, ''));
+}
+
 const weibull = EVIDENCE.candidates[0]!;
 const normal = EVIDENCE.candidates[1]!;
 
@@ -54,8 +59,7 @@ describe('histogram on the equal-probability bins', () => {
   it('labels the axes with the units and emphasises the selected curve', () => {
     const svg = draw();
     const t = texts(svg);
-    expect(t).toContain('Life [h]');
-    expect(t).toContain('Density [per h]');
+    expect(axisTitles(svg)).toEqual(['Life [h]', 'Density [per h]']);
     expect(t).toContain('Weibull (selected)');
     const sel = svg.querySelector('path[data-kind="curve"][data-family="weibull"]');
     const other = svg.querySelector('path[data-kind="curve"][data-family="normal"]');
@@ -83,8 +87,7 @@ describe('probability plot', () => {
     expect(svg.querySelectorAll('circle[data-kind="point"]')).toHaveLength(10);
     const t = texts(svg);
     for (const label of ['5%', '10%', '50%', '90%', '95%']) expect(t).toContain(label);
-    expect(t).toContain('Cumulative probability');
-    expect(t).toContain('Life [h]');
+    expect(axisTitles(svg)).toEqual(['Life [h]', 'Cumulative probability']);
   });
 
   it('on a ln scale labels the horizontal axis in data units, placing each value at ln(value)', () => {
@@ -141,7 +144,7 @@ describe('empirical CDF against fitted CDFs', () => {
     expect(vs).toHaveLength(10);
     expect(Math.min(...vs)).toBe(0); // y(1) is the top of the plot area
     expect(svg.querySelectorAll('path[data-kind="curve"]')).toHaveLength(2);
-    expect(texts(svg)).toContain('Share at or below');
+    expect(axisTitles(svg)).toEqual(['Life [h]', 'Share at or below']);
   });
 
   it('matches its snapshot (decimals rounded)', () => {
@@ -155,17 +158,21 @@ describe('coarse curve grids', () => {
     const sparse = { x: [0, 500, 1000], curves: EVIDENCE.densities.curves.map((c) => ({ ...c, y: [0.01, 0.01, 0.01] })) };
     const svg = histogramChart(host(), { histogram: weibull.histogram, densities: sparse, xDomain: EVIDENCE.xDomain, selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
     expect(svg.querySelectorAll('path[data-kind="curve"]')).toHaveLength(0);
-    expect(svg.querySelector('[data-kind="coarse-note"]')?.textContent).toMatch(/not drawn: only 0 curve points/);
+    expect(svg.querySelector('[data-kind="notes"]')?.textContent).toMatch(/not drawn: only 0 curve points/);
     const fine = histogramChart(host(), { histogram: weibull.histogram, densities: EVIDENCE.densities, xDomain: EVIDENCE.xDomain, selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
-    expect(fine.querySelector('[data-kind="coarse-note"]')).toBeNull();
+    expect(fine.querySelector('[data-kind="notes"]')).toBeNull();
   });
 });
 
 describe('bars cut at the drawn range', () => {
-  it('say where they really start and end (common practice, no source)', () => {
+  it('say where they really start and end, in notes under the axis and never on the curves (common practice, no source)', () => {
     const svg = histogramChart(host(), { histogram: weibull.histogram, densities: EVIDENCE.densities, xDomain: [30, 80], selected: 'weibull', selectedLabel: 'Weibull' }, OPTS);
-    const notes = [...svg.querySelectorAll('[data-kind="clip-note"]')].map((n) => n.textContent);
-    expect(notes).toEqual(['◂ bar starts at 5', 'bar ends at 105 ▸']);
+    const notes = [...svg.querySelectorAll('[data-kind="notes"] text')].map((n) => n.textContent);
+    expect(notes.slice(0, 2)).toEqual(['◂ The first bar starts at 5, left of the drawn range.', '▸ The last bar ends at 105, right of the drawn range.']);
+    // Nothing but marks and curves inside the plotting area: every text is outside the plot group.
+    const plot = svg.querySelector('[data-kind="plot"]')!;
+    const inPlot = [...plot.querySelectorAll(':scope > text')].map((t) => t.getAttribute('data-kind'));
+    expect(inPlot).toEqual(['axis-title']);
   });
 });
 

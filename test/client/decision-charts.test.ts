@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { analyzeDataset, computeEvidence, prepareSample, readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
-import { capabilityHistogramChart } from '../../client/charts/capability-histogram.js';
+import { capabilityHistogramChart, ppmText } from '../../client/charts/capability-histogram.js';
 import { hazardChart } from '../../client/charts/hazard.js';
 import { lifeProbabilityChart, logTicks } from '../../client/charts/life-probability.js';
 import { returnPeriodChart } from '../../client/charts/return-period.js';
@@ -34,6 +34,7 @@ const CAP_EV = computeEvidence(prepareSample(shaftValues), CAP);
 const OPTS = { width: 640, height: 400, units: 'h', quantity: 'Time' };
 const host = (): HTMLElement => document.body.appendChild(document.createElement('div'));
 const texts = (svg: SVGSVGElement): string[] => [...svg.querySelectorAll('text')].map((t) => t.textContent ?? '');
+const axisTitles = (svg: SVGSVGElement): string[] => [...svg.querySelectorAll('[data-kind="axis-title"]')].map((t) => (t.textContent ?? '').replace(/^↑ /, ''));
 
 beforeEach(() => {
   document.body.innerHTML = '';
@@ -45,9 +46,9 @@ describe('life charts', () => {
     const svg = lifeProbabilityChart(host(), { plot: LIFE.life!.plot, curves: LIFE.life!.curves, labels: { weibull: 'Weibull', lognormal: 'Lognormal' }, scale: 'weibull', selected: 'weibull', suspensions: 8 }, OPTS);
     expect(svg.querySelectorAll('circle[data-kind="point"]')).toHaveLength(22);
     expect(svg.querySelectorAll('path[data-kind="curve"]')).toHaveLength(2);
-    expect(texts(svg)).toContain('Failures on Weibull probability paper');
+    expect(texts(svg)).toContain('Do the failures follow the lines on Weibull paper?');
     expect(texts(svg)).toContain('10 %');
-    expect(texts(svg)).toContain('Time [h] (log scale)');
+    expect(axisTitles(svg)).toEqual(['Time [h] (log scale)', 'Fraction failed']);
     expect(normaliseSvg(svg.outerHTML)).toMatchSnapshot();
   });
 
@@ -58,7 +59,7 @@ describe('life charts', () => {
   it('hazard: a curve per model, rate axis per unit of time', () => {
     const svg = hazardChart(host(), { curves: LIFE.life!.curves, labels: { weibull: 'Weibull', lognormal: 'Lognormal' }, selected: 'weibull' }, OPTS);
     expect(svg.querySelectorAll('path[data-kind="curve"]')).toHaveLength(2);
-    expect(texts(svg)).toContain('Failures per unit per h');
+    expect(axisTitles(svg)).toEqual(['Time [h] (log scale)', 'Failures per unit per h']);
     expect(normaliseSvg(svg.outerHTML)).toMatchSnapshot();
   });
 });
@@ -69,17 +70,34 @@ describe('return-period chart', () => {
     expect(svg.querySelectorAll('circle[data-kind="point"]')).toHaveLength(60);
     expect(svg.querySelectorAll('line[data-kind="interval"]')).toHaveLength(3);
     expect(svg.querySelectorAll('line[data-kind="record-edge"]')).toHaveLength(1);
-    expect(texts(svg)).toContain('2 × record (120 y)');
+    // Named in the legend, not written on the plot over the curves.
+    expect(texts(svg)).toContain("2 × record (120 y): beyond it the model's tail decides");
+    expect(svg.querySelector('[data-kind="record-edge"] title')?.textContent).toBe('2 × record (120 years)');
     expect(normaliseSvg(svg.outerHTML)).toMatchSnapshot();
   });
 });
 
 describe('capability histogram', () => {
-  it('draws LSL, USL and target with their values and the bars inside the drawn range', () => {
+  it('shades the out-of-tolerance regions with the model\'s ppm written in them, the target dashed, the bars inside the drawn range', () => {
     const ce = CAP_EV.candidates[0]!;
-    const svg = capabilityHistogramChart(host(), { histogram: ce.histogram, densities: CAP_EV.densities, lsl: 24.99, usl: 25.01, target: 25, dataMin: CAP_EV.min, dataMax: CAP_EV.max, selected: 'normal' }, { ...OPTS, units: 'mm', quantity: 'Diameter' });
-    expect(svg.querySelectorAll('line[data-kind="limit"]')).toHaveLength(3);
-    expect(texts(svg)).toEqual(expect.arrayContaining(['LSL 24.99', 'USL 25.01', 'Target 25']));
+    const ppm = CAP.candidates[0]!.ppmOutOfSpec!;
+    const svg = capabilityHistogramChart(host(), { histogram: ce.histogram, densities: CAP_EV.densities, lsl: 24.99, usl: 25.01, target: 25, dataMin: CAP_EV.min, dataMax: CAP_EV.max, selected: 'normal', ppm }, { ...OPTS, units: 'mm', quantity: 'Diameter' });
+    const regions = [...svg.querySelectorAll('[data-kind="out-of-spec"]')];
+    expect(regions).toHaveLength(2);
+    expect(svg.querySelectorAll('line[data-kind="limit"]')).toHaveLength(2);
+    expect(svg.querySelectorAll('line[data-kind="target"]')).toHaveLength(1);
+    // The words in each region: the limit and the core's ppm beyond it (ppmText of belowLsl / aboveUsl).
+    expect(regions[0]!.querySelector('[data-kind="region-label"]')!.textContent).toContain('LSL 24.99');
+    expect(regions[0]!.querySelector('[data-kind="region-label"]')!.textContent).toContain(ppmText(ppm.belowLsl));
+    expect(regions[1]!.querySelector('[data-kind="region-label"]')!.textContent).toContain('USL 25.01');
+    expect(regions[1]!.querySelector('[data-kind="region-label"]')!.textContent).toContain(ppmText(ppm.aboveUsl));
+    // The region lies beyond its limit: the lower one ends at the LSL line, the upper one starts at the USL line.
+    const r0 = regions[0]!.querySelector('rect')!;
+    const r1 = regions[1]!.querySelector('rect')!;
+    const l = [...svg.querySelectorAll('line[data-kind="limit"]')].map((n) => Number(n.getAttribute('x1')));
+    expect(Number(r0.getAttribute('x')) + Number(r0.getAttribute('width'))).toBeCloseTo(l[0]!, 1);
+    expect(Number(r1.getAttribute('x'))).toBeCloseTo(l[1]!, 1);
+    expect(texts(svg)).toContain('Target 25');
     expect(svg.querySelectorAll('rect[data-kind="bar"]').length).toBe(ce.histogram.bars.length);
     expect(normaliseSvg(svg.outerHTML)).toMatchSnapshot();
   });
