@@ -140,13 +140,26 @@ function bracketScore(c: CentredLogs): [number, number] {
   return [lo, hi];
 }
 
+function lambdaOf(c: CentredLogs): number {
+  const [lo, hi] = bracketScore(c);
+  return findRoot((l) => evaluate(c, l).score, lo, hi, { relTol: 1e-13, absTol: 1e-14 }).root;
+}
+
+function checkSize(values: ArrayLike<number>): void {
+  if (values.length < 3) throw new InputError('The Box–Cox transformation needs at least 3 values.', {}, 'not-computable');
+}
+
+/** λ̂ alone (for bootstrap replicates). */
+export function fitBoxCoxLambda(values: ArrayLike<number>): number {
+  checkSize(values);
+  return lambdaOf(centredLogs(values));
+}
+
 /** λ̂ by maximum likelihood and its profile-likelihood interval at confidence 1 - alpha. */
 export function fitBoxCox(values: ArrayLike<number>, alpha = 0.05): BoxCoxFit {
-  if (values.length < 3) throw new InputError('The Box–Cox transformation needs at least 3 values.', {}, 'not-computable');
+  checkSize(values);
   const c = centredLogs(values);
-  const [lo, hi] = bracketScore(c);
-  const r = findRoot((l) => evaluate(c, l).score, lo, hi, { relTol: 1e-13, absTol: 1e-14 });
-  const lambda = r.root;
+  const lambda = lambdaOf(c);
   const top = evaluate(c, lambda).llf;
   const drop = chiSquareIsf(alpha, 1) / 2;
   const g = (l: number): number => evaluate(c, l).llf - top + drop;

@@ -5,6 +5,7 @@ export { c4, d2 } from './constants.js';
 export { bissellInterval, chiSquareInterval, cpm, normalIndices } from './indices.js';
 export type { IndexEstimate, IndexName, SpecLimits } from './indices.js';
 export { percentileCapability, PERCENTILE_TAIL } from './percentile.js';
+export type { QuantileModel } from './percentile.js';
 export type { PercentileCapability, PercentileIndex } from './percentile.js';
 export { ppmOutOfSpec } from './ppm.js';
 export type { PpmOutOfSpec } from './ppm.js';
@@ -16,3 +17,19 @@ export { boxCoxInverse, boxCoxLogLikelihood, boxCoxRange, boxCoxTransform, fitBo
 export type { BoxCoxFit } from './boxcox.js';
 export { fitJohnson, hazenQuantile, johnsonCdf, johnsonLogPdf, johnsonQuantile, johnsonSf, johnsonSupport, johnsonX, johnsonZ, JOHNSON_ZETA, SL_TOLERANCE } from './johnson.js';
 export type { JohnsonFit, JohnsonParameters, JohnsonType } from './johnson.js';
+export { fitBoxCoxLambda } from './boxcox.js';
+export { makeModel, massOutsideRange, supportText } from './model.js';
+export type { CapabilityModel, ModelSpec } from './model.js';
+export { fitModelSpec, kindOf, transformedMoments } from './fit-model.js';
+export type { ModelKind } from './fit-model.js';
+export {
+  CAPABILITY_BOOTSTRAP_REPLICATES,
+  capabilityBootstrapIntervals,
+  capabilityReplicate,
+  combineCapabilityBootstrap,
+  runCapabilityBootstrapRange,
+  splitCapabilityBootstrap,
+} from './bootstrap.js';
+export type { BootstrapIndexInterval, CapabilityBootstrapJob, CapabilityBootstrapValues, PercentileIndexName } from './bootstrap.js';
+export { transformedCapability } from './transformed.js';
+export type { TransformedCapability, TransformKind, TransformNormality } from './transformed.js';

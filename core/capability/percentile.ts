@@ -5,7 +5,7 @@
  *   Pp  = (USL - LSL) / (X99.865 - X0.135)
  *   Ppu = (USL - X50) / (X99.865 - X50),   Ppl = (X50 - LSL) / (X50 - X0.135),   Ppk = min.
  * The upper quantile is taken with the model's inverse survival function, so it is accurate.
- * No interval is attached (the method gives point values; an interval would need a bootstrap).
+ * The interval is a parametric bootstrap refitting each replicate (bootstrap.ts).
  */
 import type { Distribution } from '../families/index.js';
 import type { SpecLimits } from './indices.js';
@@ -29,7 +29,10 @@ export interface PercentileCapability {
   readonly method: string;
 }
 
-export function percentileCapability(dist: Distribution, limits: SpecLimits): PercentileCapability {
+/** What the percentile method needs of a model: its name, parameters and the two quantile functions. */
+export type QuantileModel = Pick<Distribution, 'quantile' | 'isf'> & { readonly family: string; readonly parameters: Readonly<Record<string, number>> };
+
+export function percentileCapability(dist: QuantileModel, limits: SpecLimits): PercentileCapability {
   const lo = dist.quantile(PERCENTILE_TAIL);
   const med = dist.quantile(0.5);
   const hi = dist.isf(PERCENTILE_TAIL);

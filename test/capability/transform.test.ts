@@ -11,6 +11,8 @@ import {
   johnsonQuantile,
   johnsonSf,
   johnsonZ,
+  massOutsideRange,
+  transformedCapability,
   type JohnsonParameters,
 } from '../../core/capability/index.js';
 import { normalQuantile } from '../../core/special/index.js';
@@ -101,4 +103,64 @@ describe('Johnson system by the Slifker & Shapiro (1980) percentile method', () 
       expect(normalQuantile(0.5)).toBe(0);
     });
   }
+});
+
+describe('capability on the transformed scale', () => {
+  const cases = fx.transformedCapability as any[];
+  const find = (list: readonly { name: string; estimate: number }[], name: string): number => {
+    const r = list.find((x) => x.name === name);
+    if (!r) throw new Error(`no ${name}`);
+    return r.estimate;
+  };
+  it('Box–Cox: limits, mean, sd, transformed-scale Pp/Ppk, ISO 22514-2 quantiles and indices, ppm and A² agree with SciPy', () => {
+    const c = cases[0];
+    const r = transformedCapability(c.x, 'boxcox', { lsl: c.lsl, usl: c.usl });
+    expect(Math.abs(r.lambda! - c.lambda)).toBeLessThan(1e-10);
+    // everything below inherits λ̂'s 1e-10 agreement, amplified by at most a few units of conditioning
+    const tol = 1e-8;
+    expect(rel(r.transformedLimits.lsl!, c.transformedLsl)).toBeLessThan(tol);
+    expect(rel(r.transformedLimits.usl!, c.transformedUsl)).toBeLessThan(tol);
+    expect(rel(r.transformedMean, c.mean)).toBeLessThan(tol);
+    expect(rel(r.transformedSd, c.sd)).toBeLessThan(tol);
+    expect(rel(find(r.indices, 'Pp'), c.Pp_transformed)).toBeLessThan(tol);
+    expect(rel(find(r.indices, 'Ppk'), c.Ppk_transformed)).toBeLessThan(tol);
+    expect(rel(r.percentile.lowerQuantile, c.quantiles[0])).toBeLessThan(1e-6); // x₀.₁₃₅ ≈ 0.009 sits where 1 + λy is small: cond ≈ 1e2
+    expect(rel(r.percentile.median, c.quantiles[1])).toBeLessThan(tol);
+    expect(rel(r.percentile.upperQuantile, c.quantiles[2])).toBeLessThan(tol);
+    expect(rel(find(r.percentile.indices, 'Pp'), c.Pp)).toBeLessThan(1e-6);
+    expect(rel(find(r.percentile.indices, 'Ppk'), c.Ppk)).toBeLessThan(1e-6);
+    expect(rel(r.ppm.belowLsl, c.ppmBelow)).toBeLessThan(1e-7);
+    expect(rel(r.ppm.aboveUsl, c.ppmAbove)).toBeLessThan(1e-7);
+    expect(rel(r.normality.statistic, c.a2)).toBeLessThan(1e-8);
+    expect(r.support.text).toBe('x > 0');
+    // the normal on y(λ̂) puts Φ((-1/λ - mean)/sd) below the transform's range: stated, and removed (truncation)
+    expect(rel(massOutsideRange(r.model), c.massOutside)).toBeLessThan(1e-7);
+    expect(r.notes.join(' ')).toContain(`${(c.massOutside * 1e6).toPrecision(3)} ppm outside the transform's range`);
+  });
+  it('Johnson SU with an upper limit only: Ppu alone, no lower tail, agrees with SciPy johnsonsu', () => {
+    const c = cases[1];
+    const r = transformedCapability(c.x, 'johnson', { lsl: null, usl: c.usl });
+    expect(r.type).toBe('SU');
+    const tol = 1e-8; // parameters agree with the least_squares solution to 1e-8 (see above)
+    expect(rel(r.transformedLimits.usl!, c.transformedUsl)).toBeLessThan(tol);
+    expect(r.transformedLimits.lsl).toBeNull();
+    expect(rel(r.transformedMean + 10, c.mean + 10)).toBeLessThan(tol); // mean ≈ 0: compared shifted
+    expect(rel(r.transformedSd, c.sd)).toBeLessThan(tol);
+    expect(rel(find(r.indices, 'Ppu'), c.Ppu_transformed)).toBeLessThan(tol);
+    expect(r.indices.map((i) => i.name)).toEqual(['Ppk', 'Ppu']);
+    expect(r.percentile.indices.map((i) => i.name)).toEqual(['Ppk', 'Ppu']);
+    expect(rel(find(r.percentile.indices, 'Ppu'), c.Ppu)).toBeLessThan(tol);
+    expect(rel(r.percentile.upperQuantile, c.quantiles[2])).toBeLessThan(tol);
+    expect(r.ppm.belowLsl).toBe(0);
+    expect(rel(r.ppm.aboveUsl, c.ppmAbove)).toBeLessThan(1e-7);
+    expect(rel(r.normality.statistic, c.a2)).toBeLessThan(1e-7);
+  });
+  it('a Box–Cox lower limit at the natural bound 0 has no tail beyond it: dropped with a note, Ppu only', () => {
+    const c = cases[0];
+    const r = transformedCapability(c.x, 'boxcox', { lsl: 0, usl: c.usl });
+    expect(r.transformedLimits.lsl).toBeNull();
+    expect(r.percentile.indices.map((i) => i.name)).toEqual(['Ppk', 'Ppu']);
+    expect(r.ppm.belowLsl).toBe(0);
+    expect(r.notes.join(' ')).toMatch(/lower specification limit 0 lies outside the model's support \(x > 0\)/);
+  });
 });
