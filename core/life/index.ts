@@ -22,3 +22,4 @@ export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval
 export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
 export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
 export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
+export { fitWeibullMixture, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';

@@ -5,6 +5,7 @@
  * with r failures. Times enter as y = ln t - ln max t ≤ 0 (g is unchanged by the shift), so the
  * weights e^{c·y} lie in (0, 1]. g is increasing (g' = weighted variance of y + 1/c²); solved by
  * Newton kept inside a bracket found by doubling/halving (core/special newtonBracketed).
+ * Counts may be fractional (weights, e.g. the E-step of a mixture's EM; r is then the summed failure weight).
  */
 import { newtonBracketed } from '../special/index.js';
 import type { LifeData } from './data.js';
@@ -16,7 +17,7 @@ export interface WeibullCensoredFit {
   readonly converged: boolean;
 }
 
-export function fitWeibullCensored(data: LifeData, relTol = 1e-13): WeibullCensoredFit {
+export function fitWeibullCensored(data: Pick<LifeData, 'groups' | 'failures' | 'maxTime'>, relTol = 1e-13): WeibullCensoredFit {
   // Sums run over the distinct (time, status) pairs, weighted by their counts.
   const { times, failed, counts } = data.groups;
   const n = times.length;
