@@ -2,9 +2,10 @@
  * Settings + source → the API request (server/API.md), or the problems that stop it, each naming
  * the setting it belongs to. Pure: no DOM, no fetch; unit-tested in test/client/request.test.ts.
  *
- * Each setting is read by one rule in `RULES` (its kind and limits). When the core's option table
- * is ready, `RULES` is derived from it, so the page refuses exactly what the API refuses.
+ * Every setting is checked by its option in the core's table with the API's own JSON parser
+ * (core/options parseJsonOption), so the page refuses exactly what the API refuses.
  */
+import { optionNamed, parseJsonOption, parseStrictNumber } from '../../core/index.js';
 import type { AnalyzeRequest, GroupedRequest } from './api.js';
 import { readGroupedClasses } from './grouped-view.js';
 import type { Settings } from './settings.js';
@@ -22,71 +23,55 @@ export type BuiltRequest =
 
 export type RequestOutcome = { readonly ok: true; readonly built: BuiltRequest } | { readonly ok: false; readonly problems: readonly Problem[] };
 
-/** One number rule: the range (inclusive unless said) and the words when it is broken. */
-interface NumberRule {
-  readonly integer?: boolean;
-  readonly min?: number;
-  readonly max?: number;
-  readonly minExclusive?: boolean;
-  readonly maxExclusive?: boolean;
-  readonly message: string;
+/** The settings read as numbers, each checked by its option in the core's table (core/options). */
+type NumberKey = 'alpha' | 'bins' | 'replicates' | 'seed' | 'confidence' | 'designLife' | 'lsl' | 'usl' | 'target';
+type ListKey = 'bLifePercents' | 'reliabilityTimes' | 'returnPeriods';
+
+/** A number typed on the page: a point or a comma as decimal mark (the core's strict grammar: no hex, no Infinity). */
+function toNumber(text: string): number {
+  const t = text.trim();
+  const point = parseStrictNumber(t, '.');
+  return Number.isNaN(point) ? parseStrictNumber(t, ',') : point;
 }
 
 /**
- * Today's limits, as server/validate.ts checks them (bins ≥ 2 as the core and the CLI take it,
- * replicates 19–100000, α and confidence strictly between 0 and 1).
+ * Check a value with the option's own rule, as the API does (parseJsonOption): the page refuses
+ * exactly what the server refuses, with the same words. The core's message names the JSON field;
+ * the page shows it beside that setting.
  */
-export const RULES = {
-  alpha: { min: 0, max: 1, minExclusive: true, maxExclusive: true, message: 'α must be a number between 0 and 1, e.g. 0.05.' },
-  bins: { integer: true, min: 2, message: 'Bins must be a whole number of at least 2, or empty for automatic.' },
-  replicates: { integer: true, min: 19, max: 100000, message: 'B must be a whole number from 19 to 100000.' },
-  seed: { integer: true, min: 0, max: Number.MAX_SAFE_INTEGER, message: 'The seed must be a whole number ≥ 0.' },
-  confidence: { min: 0, max: 1, minExclusive: true, maxExclusive: true, message: 'The confidence must be between 0 and 1, e.g. 0.90.' },
-  bLifePercents: { min: 0, max: 100, minExclusive: true, maxExclusive: true, message: 'Give percents between 0 and 100, separated by commas, each once.' },
-  reliabilityTimes: { min: 0, minExclusive: true, message: 'Give times above 0, separated by commas, each once.' },
-  returnPeriods: { min: 1, minExclusive: true, message: 'Give return periods in years, each above 1, separated by commas, each once.' },
-  designLife: { min: 0, minExclusive: true, message: 'The design life must be a number of years above 0.' },
-  lsl: { message: 'The lower limit must be a number.' },
-  usl: { message: 'The upper limit must be a number.' },
-  target: { message: 'The target must be a number.' },
-} as const satisfies Record<string, NumberRule>;
-
-function passes(x: number, r: NumberRule): boolean {
-  if (!Number.isFinite(x)) return false;
-  if (r.integer && !Number.isSafeInteger(x)) return false;
-  if (r.min !== undefined && (r.minExclusive ? !(x > r.min) : !(x >= r.min))) return false;
-  if (r.max !== undefined && (r.maxExclusive ? !(x < r.max) : !(x <= r.max))) return false;
-  return true;
+function check(key: keyof Settings, value: unknown, problems: Problem[]): boolean {
+  const spec = optionNamed(key);
+  if (!spec) return true;
+  const out = parseJsonOption(spec, value);
+  if (out.ok) return true;
+  problems.push({ field: key, message: `${out.message} (${spec.help})` });
+  return false;
 }
 
-/** A number typed on the page: a point or a comma as decimal mark, nothing else (no hex, no Infinity). */
-function toNumber(text: string): number {
-  const t = text.trim().replace(',', '.');
-  return /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t) ? Number(t) : NaN;
-}
-
-/** One optional number: undefined when empty, null when broken (problem recorded). */
-function one(settings: Settings, key: keyof typeof RULES, problems: Problem[]): number | undefined | null {
+/** One optional number: undefined when empty, null when refused (problem recorded). */
+function one(settings: Settings, key: NumberKey, problems: Problem[]): number | undefined | null {
   const text = String(settings[key]).trim();
   if (text === '') return undefined;
   const x = toNumber(text);
-  if (!passes(x, RULES[key])) {
-    problems.push({ field: key, message: RULES[key].message });
+  if (Number.isNaN(x)) {
+    problems.push({ field: key, message: `“${text}” is not a number.` });
     return null;
   }
-  return x;
+  return check(key, x, problems) ? x : null;
 }
 
-/** A list of numbers separated by commas, semicolons or spaces, each once. */
-function many(settings: Settings, key: 'bLifePercents' | 'reliabilityTimes' | 'returnPeriods', problems: Problem[]): number[] | undefined | null {
+/** A list of numbers separated by commas, semicolons or spaces (each checked, each once, by the option's rule). */
+function many(settings: Settings, key: ListKey, problems: Problem[]): number[] | undefined | null {
   const text = settings[key].trim();
   if (text === '') return undefined;
-  const xs = text.split(/[\s,;]+/).filter((t) => t !== '').map(Number);
-  if (xs.some((x) => !passes(x, RULES[key])) || new Set(xs).size !== xs.length) {
-    problems.push({ field: key, message: RULES[key].message });
+  const parts = text.split(/[\s,;]+/).filter((t) => t !== '');
+  const xs = parts.map(toNumber);
+  const bad = parts.find((_, i) => Number.isNaN(xs[i]));
+  if (bad !== undefined) {
+    problems.push({ field: key, message: `“${bad}” is not a number; separate the values with commas.` });
     return null;
   }
-  return xs;
+  return check(key, xs, problems) ? xs : null;
 }
 
 type Mutable<T> = { -readonly [K in keyof T]: T[K] };
@@ -101,6 +86,7 @@ export function buildRequest(state: PageState): RequestOutcome {
   const seed = one(s, 'seed', problems);
   const replicates = s.pMethod === 'bootstrap' ? one(s, 'replicates', problems) : undefined;
   if (s.families.length === 0) problems.push({ field: 'families', message: 'Tick at least one model to try.' });
+  else check('families', [...s.families], problems);
   const confidence = one(s, 'confidence', problems);
   const bl = many(s, 'bLifePercents', problems);
   const rt = many(s, 'reliabilityTimes', problems);

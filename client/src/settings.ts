@@ -6,7 +6,16 @@
  * (server/demo.ts DEMO_SETTINGS fields) laid over the defaults. The settings belong to the source
  * they were made for: state.ts replaces them whenever the source changes.
  */
+import { optionNamed } from '../../core/index.js';
 import { FAMILY_CHOICES } from './families.js';
+
+/** An option's default from the core's table (core/options) as the page's text; '' when off. */
+function tableDefault(name: string, fallback: string): string {
+  const d = optionNamed(name)?.default;
+  if (d === undefined) return fallback;
+  if (d === null) return '';
+  return Array.isArray(d) ? d.join(', ') : String(d);
+}
 
 export type PMethodChoice = 'table' | 'bootstrap';
 export type BoundChoice = 'likelihood-ratio' | 'fisher-matrix';
@@ -40,15 +49,19 @@ export interface Settings extends Roles {
   readonly target: string;
 }
 
-/** The settings every source starts from (the server's own defaults, server/API.md). */
+/**
+ * The settings every source starts from: the core option table's defaults (core/options), except
+ * the seed, left empty so the server uses (and reports) its own, and the B10 life a life test is
+ * usually rated by (common practice, no source).
+ */
 export const DEFAULT_SETTINGS: Settings = Object.freeze({
   families: FAMILY_CHOICES.filter((f) => f.byDefault).map((f) => f.name as string),
-  alpha: '0.05',
-  bins: '',
+  alpha: tableDefault('alpha', '0.05'),
+  bins: tableDefault('bins', ''),
   pMethod: 'table',
-  replicates: '999',
+  replicates: tableDefault('replicates', '999'),
   seed: '',
-  confidence: '0.90',
+  confidence: tableDefault('confidence', '0.9'),
   bLifePercents: '10',
   reliabilityTimes: '',
   boundMethod: 'likelihood-ratio',

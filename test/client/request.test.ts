@@ -4,6 +4,7 @@
  * every problem names its setting.
  */
 import { describe, expect, it } from 'vitest';
+import { optionNamed, parseJsonOption } from '../../core/index.js';
 import { buildRequest } from '../../client/src/request.js';
 import type { Settings } from '../../client/src/settings.js';
 import { INITIAL_STATE, update, type PageState } from '../../client/src/state.js';
@@ -94,4 +95,23 @@ describe('buildRequest', () => {
     if (!out.ok || out.built.kind !== 'grouped') throw new Error('expected a grouped request');
     expect(out.built.request.grouped).toEqual([{ lower: 0, upper: 1, count: 5 }, { lower: 1, upper: 2, count: 9 }, { lower: 2, upper: 3, count: 4 }]);
   });
+});
+
+describe('the page refuses exactly what the API refuses (core/options table, parseJsonOption)', () => {
+  const keys = ['alpha', 'bins', 'replicates', 'seed', 'confidence', 'designLife', 'bLifePercents', 'reliabilityTimes', 'returnPeriods'] as const;
+  for (const key of keys) {
+    const spec = optionNamed(key)!;
+    const list = spec.kind === 'numbers';
+    // Each end of the range, just inside and just outside (a whole step for integers).
+    const step = spec.kind === 'integer' ? 1 : 1e-9;
+    const probes = [spec.min, spec.max].filter((x): x is number => x !== undefined && Number.isFinite(x) && Math.abs(x) < 1e9).flatMap((x) => [x - step, x, x + step]);
+    for (const x of probes) {
+      it(`${key} = ${x}: same answer as the API`, () => {
+        const api = parseJsonOption(spec, list ? [x] : x).ok;
+        // Settings that apply only with a status column or only with the bootstrap are given the context they need.
+        const context: Partial<Settings> = key === 'replicates' ? { pMethod: 'bootstrap' } : key === 'bLifePercents' || key === 'reliabilityTimes' ? { statusColumn: 3 } : key === 'designLife' ? { returnPeriods: '100' } : {};
+        expect(buildRequest(loaded(LIFE_CSV, { ...context, [key]: String(x) })).ok).toBe(api);
+      });
+    }
+  }
 });
