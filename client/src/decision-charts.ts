@@ -29,7 +29,8 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);
       if (!r.capability || !ev || !ce) return null;
-      return capabilityHistogramChart(box, { histogram: ce.histogram, densities: { ...ev.densities, curves: ev.densities.curves.map((c) => ({ ...c, label: capital(c.label) })) }, lsl: r.capability.lsl, usl: r.capability.usl, target: r.capability.target, dataMin: ev.min, dataMax: ev.max, selected }, options);
+      const ppm = r.candidates.find((c) => c.family === selected)?.ppmOutOfSpec ?? null;
+      return capabilityHistogramChart(box, { histogram: ce.histogram, densities: { ...ev.densities, curves: ev.densities.curves.map((c) => ({ ...c, label: capital(c.label) })) }, lsl: r.capability.lsl, usl: r.capability.usl, target: r.capability.target, dataMin: ev.min, dataMax: ev.max, selected, ppm }, options);
     }
   }
 }

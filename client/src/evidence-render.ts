@@ -60,7 +60,7 @@ export function drawEvidence(
   return [
     histogramChart(
       targets.histogram,
-      { histogram: ce.histogram, densities: evidence.densities, xDomain: domain, selected: family, selectedLabel: ce.label },
+      { histogram: ce.histogram, densities: evidence.densities, xDomain: domain, selected: family, selectedLabel: ce.label, censoring: evidence.censoring },
       opt(targets.histogram),
     ),
     probabilityPlotChart(targets.probability, { plot: ce.probabilityPlot, family, label: ce.label }, opt(targets.probability)),
@@ -69,8 +69,11 @@ export function drawEvidence(
   ];
 }
 
-/** The bins table of one candidate as rows of text (header first), for the page and the report. */
+/** The bins table of one candidate as rows of text (header first), for the page and the report.
+ *  A censored sample has no bins: one column saying so, and why. */
 export function binsTableRows(ce: CandidateEvidence, format: (x: number | null, isLower: boolean) => string): string[][] {
+  const na = ce.bins.notApplicable;
+  if (na) return [['Bins: not applicable (censored)'], [na.reason]];
   const head = ['Bin', 'From', 'To', 'Observed', 'Expected', 'Residual', 'Adds to χ²'];
   const rows = ce.bins.rows.map((r) => [
     String(r.index + 1),

@@ -153,6 +153,23 @@ describe('the bins CSV', () => {
     expect(csv).toContain(`"'+u"`);
     for (const line of lines) for (const cell of line.split(',')) expect(cell).not.toMatch(/^[=+@]/);
   });
+
+  it('writes both open outer edges the same way (an empty cell) and says which end is open', () => {
+    const resp = response();
+    const ce = evidenceFor(resp.evidence!, 'normal')!;
+    const lines = binsCsv(ce, 's', 'c', 'u').trimEnd().split('\r\n');
+    const head = lines[0]!.split(',');
+    const lower = head.indexOf('lower');
+    const upper = head.indexOf('upper');
+    const first = lines[1]!.split(',');
+    const last = lines.at(-1)!.split(',');
+    // A normal model's first bin starts at -infinity and its last ends at +infinity (support of the normal).
+    expect(first[lower]).toBe('');
+    expect(last[upper]).toBe('');
+    expect(first[head.indexOf('open_edge')]).toMatch(/^lower \(/);
+    expect(last[head.indexOf('open_edge')]).toMatch(/^upper \(/);
+    expect(lines.join('\n')).not.toMatch(/Infinity|'-/);
+  });
 });
 
 describe('table cells shared by the page and the report', () => {
