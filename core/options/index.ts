@@ -7,6 +7,7 @@ export type { OptionScope, OptionSpec, OptionSurface, OptionValue, OptionValueKi
 export { OPTION_SECTIONS, OPTION_TABLE, jsonField, onSurface, optionNamed, optionTableProblems, optionsOn, sectionOf } from './table.js';
 export type { OptionSection } from './table.js';
 export { describeJson, isCliFlag, parseCliOption, parseJsonOption } from './parse.js';
+export { parseFormOption } from './form.js';
 export type { OptionParse } from './parse.js';
 export { aliasWords, itemRuleWords, ruleWords } from './words.js';
 export { OPTION_COMBINATIONS, checkCombinations, isGiven, ruleApplies, shownName } from './combinations.js';
