@@ -55,6 +55,12 @@ export interface DatasetOptions extends Omit<AnalyzeOptions, 'onProgress' | 'sig
   readonly target?: number | null;
   /** Within-subgroup sigma: 'pooled' (default, s_p/c4) or 'range' (R̄/d2). */
   readonly withinMethod?: 'pooled' | 'range';
+  /** Capability on a transformation to normality (core/capability transformed.ts; default 'none'). */
+  readonly transform?: 'none' | 'boxcox' | 'johnson';
+  /** Physical lower bound of the characteristic (e.g. 0): no lower tail below it. */
+  readonly naturalLowerBound?: number | null;
+  /** Replicates of the capability bootstrap (default 999). */
+  readonly capabilityReplicates?: number;
   /** Run the trend check on the values in their given order when no order column is given. */
   readonly trend?: boolean;
 }
