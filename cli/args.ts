@@ -22,7 +22,14 @@ export interface AnalyzeArgs {
   readonly options: ReadonlyMap<string, OptionValue>;
 }
 
-export type ParsedArgs = AnalyzeArgs | { readonly command: 'help' } | { readonly command: 'version' };
+/** `plumbline merge [--json|--csv] FILE...`: join batch outputs (JSON Lines) into one summary. */
+export interface MergeArgs {
+  readonly command: 'merge';
+  readonly files: readonly string[];
+  readonly format: 'text' | 'csv' | 'json';
+}
+
+export type ParsedArgs = AnalyzeArgs | MergeArgs | { readonly command: 'help' } | { readonly command: 'version' };
 
 function usage(message: string, value?: string): InputError {
   return new InputError(`${message} (see plumbline --help)`, value === undefined ? {} : { value }, 'bad-option');
@@ -57,7 +64,8 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   const first = argv[0] as string;
   if (first === '--help' || first === '-h' || first === 'help') return { command: 'help' };
   if (first === '--version' || first === '-V' || first === 'version') return { command: 'version' };
-  if (first !== 'analyze') throw usage(`unknown command ${JSON.stringify(first)}; the command is "analyze"`, first);
+  if (first === 'merge') return parseMerge(argv.slice(1));
+  if (first !== 'analyze') throw usage(`unknown command ${JSON.stringify(first)}; the commands are "analyze" and "merge"`, first);
 
   const options = new Map<string, OptionValue>();
   const positional: string[] = [];
@@ -98,4 +106,20 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   const combined = checkCombinations(options, 'cli');
   if (!combined.ok) throw usage(combined.message);
   return { command: 'analyze', file: positional[0] as string, options };
+}
+
+function parseMerge(rest: readonly string[]): MergeArgs | { readonly command: 'help' } {
+  let format: MergeArgs['format'] = 'text';
+  const files: string[] = [];
+  for (const a of rest) {
+    if (a === '--help' || a === '-h') return { command: 'help' };
+    if (a === '--json' || a === '--csv') {
+      const f = a === '--json' ? 'json' : 'csv';
+      if (format !== 'text' && format !== f) throw usage('merge takes one of --json and --csv');
+      format = f;
+    } else if (a.startsWith('-') && a !== '-') throw usage(`unknown option ${JSON.stringify(a)} for merge (it takes --json or --csv, then the files)`, a);
+    else files.push(a);
+  }
+  if (files.length === 0) throw usage('merge needs the JSON Lines files of the batch runs to join');
+  return { command: 'merge', files, format };
 }

@@ -5,8 +5,10 @@
  */
 import { runCli } from './run.js';
 import { isWorkerRun, runSecondThread } from './second-thread.js';
+import { isBatchWorker, runBatchWorker } from './batch-pool.js';
 
 if (isWorkerRun()) runSecondThread();
+else if (isBatchWorker()) runBatchWorker();
 else {
   process.stdout.on('error', (e: NodeJS.ErrnoException) => {
     // A closed pipe (e.g. `| head`) is not an error of ours.
@@ -15,11 +17,13 @@ else {
   });
 
   const self = new URL(import.meta.url);
-  process.exitCode = runCli(process.argv.slice(2), {
+  const code = runCli(process.argv.slice(2), {
     out: (s) => process.stdout.write(s),
     err: (s) => process.stderr.write(s),
     // The second thread runs this same file; only from the built JavaScript (not from sources
     // run through a TypeScript loader, which a worker would not inherit reliably).
     ...(self.pathname.endsWith('.js') ? { workerEntry: self } : {}),
   });
+  if (typeof code === 'number') process.exitCode = code;
+  else void code.then((c) => (process.exitCode = c));
 }

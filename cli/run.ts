@@ -19,6 +19,10 @@ import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
 import { needsTable, readDataset, withFileRow } from './read-dataset.js';
 import { readInputText } from './read-input.js';
+import { PIECES_MIN_BYTES, readColumnInPieces, regularFileSize } from './read-pieces.js';
+import { batchArgs, isBatch } from './batch-args.js';
+import { runBatch } from './batch.js';
+import { runMerge } from './merge.js';
 import { secondThread } from './second-thread.js';
 import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
@@ -82,9 +86,24 @@ function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; 
   return { read, input: cliInput(fileLabel, read, csv.decimal, source.encoding, source.warnings), dataset: { values: read.values } };
 }
 
+/** A large file's one value column, read in pieces (cli/read-pieces.ts): never one string. */
+function readLargeColumn(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array } {
+  const csv = csvArgs(args);
+  const column = columnArg(args, 'column');
+  const r = readColumnInPieces(args.file, { ...(column !== undefined ? { column } : {}), ...csv });
+  return { read: r.read, input: cliInput(fileLabel, r.read, csv.decimal, r.encoding, r.warnings), dataset: { values: r.read.values } };
+}
+
+/** Whether to read the file in pieces: one value column from a regular file past PIECES_MIN_BYTES. */
+function readsInPieces(args: AnalyzeArgs): boolean {
+  if (needsTable(args)) return false;
+  const size = regularFileSize(args.file);
+  return size !== null && size >= PIECES_MIN_BYTES;
+}
+
 function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
-  const { read, input, dataset, rowNumbers } = readInput(args, fileLabel);
+  const { read, input, dataset, rowNumbers } = readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);
     throw new InputError(
@@ -121,8 +140,22 @@ function userMessage(e: PlumblineError, file: string | undefined): string {
   return m;
 }
 
-export function runCli(argv: readonly string[], io: CliIo): number {
+/**
+ * Run the command. A single analysis returns its exit code at once; a batch (--by, --columns) and
+ * `merge` run on worker threads and streams, and return a promise of it.
+ */
+export function runCli(argv: readonly string[], io: CliIo): number | Promise<number> {
   let file: string | undefined;
+  const fail = (e: unknown): number => {
+    if (isPlumblineError(e) && USER_CODES.has(e.code)) {
+      io.err(`plumbline: error: ${userMessage(e, file)}\n`);
+      return EXIT_USER;
+    }
+    const message = e instanceof Error ? e.message : String(e);
+    io.err(`plumbline: internal error: ${oneLine(message)} (this is a bug; please report it with the command that caused it)\n`);
+    if (process.env.PLUMBLINE_DEBUG && e instanceof Error && e.stack) io.err(`${e.stack}\n`);
+    return EXIT_INTERNAL;
+  };
   try {
     const args = parseArgs(argv);
     if (args.command === 'help') {
@@ -133,16 +166,11 @@ export function runCli(argv: readonly string[], io: CliIo): number {
       io.out(`plumbline ${PLUMBLINE_VERSION}\n`);
       return EXIT_OK;
     }
+    if (args.command === 'merge') return runMerge(args, io).catch(fail);
     file = args.file === '-' ? 'standard input' : args.file;
+    if (isBatch(args)) return runBatch(batchArgs(args), io).catch(fail);
     return analyzeCommand(args, io);
   } catch (e) {
-    if (isPlumblineError(e) && USER_CODES.has(e.code)) {
-      io.err(`plumbline: error: ${userMessage(e, file)}\n`);
-      return EXIT_USER;
-    }
-    const message = e instanceof Error ? e.message : String(e);
-    io.err(`plumbline: internal error: ${oneLine(message)} (this is a bug; please report it with the command that caused it)\n`);
-    if (process.env.PLUMBLINE_DEBUG && e instanceof Error && e.stack) io.err(`${e.stack}\n`);
-    return EXIT_INTERNAL;
+    return fail(e);
   }
 }

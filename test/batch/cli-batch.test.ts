@@ -101,3 +101,34 @@ describe('plumbline batch (--by / --columns)', () => {
     await expect(runMerge({ files: [a, a], format: 'text' }, { out: () => {} })).rejects.toThrow(/again in .*overlap/);
   });
 });
+
+describe('plumbline analyze --by … --shard I/N as separate processes, joined by plumbline merge', () => {
+  it('the union of N shard processes equals the single batch run', async () => {
+    const { cli } = await import('../helpers/cli.js');
+    const data = seeded(9, 12);
+    const file = temp('procs.csv', longCsv(data));
+    const common = ['analyze', file, '--by', 'gauge', '--column', 'peak', '--families', 'normal,weibull', '--json'];
+    const whole = await cli(...common);
+    expect(whole.status, whole.stderr).toBe(0);
+    const shards = await Promise.all([0, 1, 2].map((i) => cli(...common, '--shard', `${i}/3`)));
+    const files = shards.map((r, i) => {
+      expect(r.status, r.stderr).toBe(0);
+      return temp(`proc-part${i}.jsonl`, r.stdout);
+    });
+    const merged = await cli('merge', '--csv', ...files);
+    const single = await cli('merge', '--csv', temp('proc-whole.jsonl', whole.stdout));
+    expect(merged.status, merged.stderr).toBe(0);
+    expect(merged.stdout).toBe(single.stdout);
+    // Each series' report is the same object whichever process analysed it.
+    const byKey = new Map(lines(whole.stdout).map((l) => [l.series, l]));
+    for (const r of shards) for (const l of lines(r.stdout)) expect(l).toEqual(byKey.get(l.series));
+  });
+
+  it('refuses a shard index that is not below the count', async () => {
+    const { cli } = await import('../helpers/cli.js');
+    const file = temp('refuse.csv', longCsv(seeded(2, 10)));
+    const r = await cli('analyze', file, '--by', 'gauge', '--shard', '3/3');
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/shard index must be below/);
+  });
+});

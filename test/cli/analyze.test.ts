@@ -135,7 +135,7 @@ describe.concurrent('plumbline errors', () => {
         out: (s) => (out += s),
         err: (s) => (err += s),
       });
-      return { code, out, err };
+      return { code: code as number, out, err };
     };
     const ok = run('--decimal-comma', '--delimiter', 'semicolon');
     expect(ok.code, ok.err).toBe(0);

@@ -165,7 +165,7 @@ describe('hostile inputs through the CLI', () => {
     it(c.name, () => {
       let stdout = '';
       let stderr = '';
-      const code = runCliInProcess(cliArgs(c, files.get(c.name) as string), { out: (s) => (stdout += s), err: (s) => (stderr += s) });
+      const code = runCliInProcess(cliArgs(c, files.get(c.name) as string), { out: (s) => (stdout += s), err: (s) => (stderr += s) }) as number;
       checkCliRun(c, { code, stdout, stderr });
     });
   }
