@@ -48,6 +48,7 @@ import {
   type AnalysisReport,
 } from '../core/index.js';
 import type { WorkerPool as WorkerPoolType } from '../server/pool.js';
+import { timedProcess, type ProcRun } from './timed.js';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
 const DATA = join(ROOT, 'bench', 'data');
@@ -108,36 +109,7 @@ function plainValues(file: string): number[] {
 }
 
 // ---------------------------------------------------------------- processes
-interface ProcRun {
-  wall: number;
-  cpu: number;
-  rssMiB: number;
-  stdout: string;
-  code: number | null;
-}
-
-/** One process under /usr/bin/time: wall (s), user + system CPU (s), peak RSS (MiB). */
-function timed(cmd: string, args: readonly string[]): Promise<ProcRun> {
-  const full = ['-f', 'BENCH_TIME %e %U %S %M', cmd, ...args];
-  return new Promise((resolve, reject) => {
-    const t0 = performance.now();
-    const child = spawn('/usr/bin/time', full, { stdio: ['ignore', 'pipe', 'pipe'], cwd: ROOT });
-    const out: Buffer[] = [];
-    let err = '';
-    child.stdout.on('data', (d: Buffer) => out.push(d));
-    child.stderr.on('data', (d: Buffer) => (err += d.toString()));
-    child.on('error', reject);
-    child.on('close', (code) => {
-      const wallOurs = (performance.now() - t0) / 1000;
-      const m = /BENCH_TIME (\S+) (\S+) (\S+) (\d+)/.exec(err);
-      if (!m) return reject(new Error(`no timing from /usr/bin/time: ${err.slice(0, 500)}`));
-      const stdout = Buffer.concat(out).toString('utf8');
-      if (code !== 0) return reject(new Error(`${cmd} ${args.join(' ')} exited ${code}: ${err.slice(0, 500)}`));
-      // /usr/bin/time prints wall to 0.01 s; our own clock is finer and includes only spawn overhead.
-      resolve({ wall: Math.min(wallOurs, Number(m[1]) + 0.01), cpu: Number(m[2]) + Number(m[3]), rssMiB: Number(m[4]) / 1024, stdout, code });
-    });
-  });
-}
+const timed = (cmd: string, args: readonly string[]): Promise<ProcRun> => timedProcess(cmd, args, ROOT);
 
 interface Row {
   readonly what: string;

@@ -15,12 +15,8 @@ import numpy as np
 from scipy import stats
 
 
-def main() -> None:
-    path, column = sys.argv[1], sys.argv[2]
-    with open(path, encoding="utf-8") as fh:
-        header = fh.readline().strip().split(",")
-    col = header.index(column)
-    x = np.loadtxt(path, delimiter=",", skiprows=1, usecols=col, dtype=np.float64)
+def analyse(x: np.ndarray) -> dict:
+    """The five fits and both statistics of one sample (the per-series work of a batch, too)."""
     xs = np.sort(x)
     n = xs.size
     k = min(int(round(2 * n ** 0.4)), n // 5)
@@ -43,7 +39,16 @@ def main() -> None:
         p_chi2 = float(stats.chi2.sf(chi2, k - 1 - m))
         a2 = float(-n - np.sum((2 * i - 1) * fitted.logcdf(xs) + (2 * (n - i) + 1) * fitted.logsf(xs)) / n)
         out[name] = {"params": [float(p) for p in params], "chi2": chi2, "pChi2": p_chi2, "a2": a2}
-    print(json.dumps({"n": int(n), "k": k, "fits": out}))
+    return {"n": int(n), "k": k, "fits": out}
+
+
+def main() -> None:
+    path, column = sys.argv[1], sys.argv[2]
+    with open(path, encoding="utf-8") as fh:
+        header = fh.readline().strip().split(",")
+    col = header.index(column)
+    x = np.loadtxt(path, delimiter=",", skiprows=1, usecols=col, dtype=np.float64)
+    print(json.dumps(analyse(x)))
 
 
 if __name__ == "__main__":
