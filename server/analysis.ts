@@ -1,32 +1,37 @@
 /**
- * One analysis request end to end (run inside a worker thread, see worker.ts): values (or the CSV
- * read by the core's reader, the same code as the CLI) → the core's plan → [bootstrap ranges on the
- * worker pool, when any family needs them] → the report, plus evidence when asked. The response is the report exactly as the CLI's
- * `--json` prints it, with `input` (where the values came from) and optionally `evidence`.
+ * One analysis request end to end (run inside a worker thread, see worker.ts), the same pipeline
+ * for every kind of data: the values (or the CSV read by the core's reader, the same code as the
+ * CLI) with their status, subgroup and order columns or the grouped counts → the core's
+ * planDataset (fits, tests, workflow sections; bad input throws here) → [bootstrap ranges on the
+ * worker pool, when any family needs them] → finishDataset → the report, plus evidence when
+ * asked. The response is the report exactly as the CLI's `--json` prints it, with `input` (where
+ * the values came from) and optionally `evidence`. The work a request may ask for is bounded
+ * (server/limits.ts) before it starts.
  */
 import {
-  analyzeDataset,
   computeEvidence,
+  finishDataset,
   parseStrictNumber,
+  planDataset,
   prepareSample,
   readColumns,
   type AnyDatasetReport,
   type ColumnRequest,
   type DatasetInput,
+  type DatasetOptions,
+  type DatasetPlan,
   type NumberColumn,
   type TextColumn,
-  finishAnalysis,
   InputError,
-  planAnalysis,
   readColumn,
   SKIP_REASON_WORDS,
-  type AnalysisPlan,
-  type AnalysisReport,
   type BootstrapCounts,
   type AnalyzeOptions,
   type Evidence,
+  type Sample,
   type SkipCount,
 } from '../core/index.js';
+import { checkBootstrapWork, checkDatasetSize } from './limits.js';
 import type { AnalyzeRequest } from './validate.js';
 
 export interface InputSummary {
@@ -45,7 +50,7 @@ export interface InputSummary {
   readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order'; readonly column: string }[];
 }
 
-export type AnalyzeResponse = (AnalysisReport | AnyDatasetReport) & { readonly input: InputSummary; readonly evidence?: Evidence };
+export type AnalyzeResponse = AnyDatasetReport & { readonly input: InputSummary; readonly evidence?: Evidence };
 
 /** The values of a request and where they came from. Throws the core's InputError on bad CSV. */
 export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>; input: InputSummary } {
@@ -90,15 +95,6 @@ export function analyzeOptions(req: AnalyzeRequest): AnalyzeOptions {
     ...(req.pMethod !== undefined ? { pMethod: req.pMethod } : {}),
     ...(req.replicates !== undefined ? { bootstrapReplicates: req.replicates } : {}),
   };
-}
-
-/** A planned analysis: everything but the bootstrap, done synchronously (bad input throws here). */
-export interface PlannedAnalysis {
-  readonly request: AnalyzeRequest;
-  readonly plan: AnalysisPlan;
-  readonly input: InputSummary;
-  /** Replicates still to run over all families (0: the report can be finished at once). */
-  readonly replicates: number;
 }
 
 /**
@@ -180,26 +176,39 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
   };
 }
 
-/** A request with workflow fields: the core's analyzeDataset, exactly as the CLI calls it. */
-export function workflowResponse(req: AnalyzeRequest): AnalyzeResponse {
+/** The core's options of a request: the analysis options and the workflow options. */
+export function datasetOptions(req: AnalyzeRequest): DatasetOptions {
+  return { ...analyzeOptions(req), ...(req.workflow?.options ?? {}) };
+}
+
+/** A planned request: the core's plan with what the finish needs. */
+export interface PlannedRequest {
+  readonly request: AnalyzeRequest;
+  readonly dataset: DatasetInput;
+  readonly input: InputSummary;
+  readonly plan: DatasetPlan;
+}
+
+/**
+ * Read the data and plan the analysis (everything but the bootstrap), refusing a request whose
+ * work exceeds server/limits.ts with a 413/422 naming the limit. `plan.kind === 'done'`: the
+ * report is ready (respond at once); otherwise run `plan.jobs` and call finishRequest.
+ */
+export function planRequest(req: AnalyzeRequest): PlannedRequest {
   const { dataset, input } = requestDataset(req);
-  const report = analyzeDataset(dataset, { ...analyzeOptions(req), ...(req.workflow?.options ?? {}) });
-  if (!req.evidence || report.dataKind === 'grouped' || !dataset.values) return { ...report, input };
-  return { ...report, input, evidence: computeEvidence(prepareSample(dataset.values), report, req.evidenceOptions) };
+  const options = datasetOptions(req);
+  checkDatasetSize(dataset, options);
+  const plan = planDataset(dataset, options);
+  if (plan.kind === 'complete') checkBootstrapWork(plan.jobs);
+  return { request: req, dataset, input, plan };
 }
 
-export function planRequest(req: AnalyzeRequest): PlannedAnalysis {
-  const { values, input } = requestValues(req);
-  const plan = planAnalysis(values, analyzeOptions(req));
-  const replicates = plan.bootstrapJobs.reduce((s, j) => s + (j.end - j.start), 0);
-  return { request: req, plan, input, replicates };
-}
-
-/** Build the response from a plan and its bootstrap counts (one per job, in order). */
-export function finishRequest(planned: PlannedAnalysis, counts: readonly BootstrapCounts[]): AnalyzeResponse {
-  const { plan, request, input } = planned;
-  // dataKind as analyzeDataset (and so the CLI) reports a complete sample without workflow options.
-  const report = { ...finishAnalysis(plan, counts), dataKind: 'complete' as const };
-  if (!request.evidence) return { ...report, input };
-  return { ...report, input, evidence: computeEvidence(plan.sample, report, request.evidenceOptions) };
+/** The response of a planned request, from its bootstrap counts (one per job, in order; none when done). */
+export function finishRequest(planned: PlannedRequest, counts: readonly BootstrapCounts[]): AnalyzeResponse {
+  const { plan, request, input, dataset } = planned;
+  const report = plan.kind === 'done' ? plan.report : finishDataset(plan, counts);
+  if (!request.evidence || report.dataKind === 'grouped' || !dataset.values) return { ...report, input };
+  const sample: Sample = plan.kind === 'complete' ? plan.plan.plan.sample : prepareSample(dataset.values);
+  const censoring = dataset.status ? { times: Float64Array.from(dataset.values), failed: Uint8Array.from(dataset.status) } : undefined;
+  return { ...report, input, evidence: computeEvidence(sample, report, request.evidenceOptions, censoring) };
 }

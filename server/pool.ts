@@ -100,6 +100,12 @@ export class WorkerPool {
     this.log = log;
   }
 
+  /** Plans stopped because their client went away (dropped from the queue, or their worker ended). */
+  private stopped = 0;
+  get stoppedPlans(): number {
+    return this.stopped;
+  }
+
   /** Tasks waiting or running. */
   get pending(): number {
     return this.urgent.length + this.ranges.length + this.slots.reduce((s, sl) => s + sl.affine.length + (sl.task ? 1 : 0), 0);
@@ -276,6 +282,7 @@ export class WorkerPool {
     const err = new PlumblineError('cancelled', message);
     const qi = this.urgent.indexOf(task);
     if (qi >= 0) {
+      this.stopped++;
       this.urgent.splice(qi, 1);
       task.settle(err);
       return;
@@ -288,6 +295,7 @@ export class WorkerPool {
       task.settle(err);
       return;
     }
+    this.stopped++;
     this.retire(slot);
     slot.task = null;
     task.settle(err);

@@ -9,7 +9,7 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { runBootstrapRange, type BootstrapJob } from '../core/index.js';
-import { finishRequest, planRequest, workflowResponse, type PlannedAnalysis } from './analysis.js';
+import { finishRequest, planRequest, type PlannedRequest } from './analysis.js';
 import { badRequest, clientFault } from './errors.js';
 import type { FromWorker, ToWorker } from './pool-messages.js';
 import { parseAnalyzeBody, parseJobBody } from './validate.js';
@@ -19,7 +19,7 @@ if (!port) throw new Error('worker.ts must run as a worker thread');
 
 /** Progress messages at most this often (ms). */
 const PROGRESS_INTERVAL_MS = 50;
-const kept = new Map<number, PlannedAnalysis>();
+const kept = new Map<number, PlannedRequest>();
 const decoder = new TextDecoder('utf-8', { fatal: true });
 const post = (m: FromWorker): void => port.postMessage(m);
 
@@ -69,18 +69,14 @@ port.on('message', (msg: ToWorker) => {
         const body = parseBody(msg.body);
         const req = msg.kind === 'job' ? parseJobBody(body) : parseAnalyzeBody(body);
         const client = 'client' in req && typeof req.client === 'string' ? { client: req.client } : {};
-        if (req.workflow !== null) {
-          // Trade workflows: analyzeDataset in this worker, in one piece (its bootstraps run here).
-          post({ type: 'result', id: msg.id, json: JSON.stringify(workflowResponse(req)), ...client });
-          return;
-        }
+        // One pipeline for every kind of data: plan here, bootstrap ranges on the pool, finish here.
         const planned = planRequest(req);
-        if (planned.plan.bootstrapJobs.length === 0) {
+        if (planned.plan.kind === 'done' || planned.plan.jobs.length === 0) {
           post({ type: 'result', id: msg.id, json: JSON.stringify(finishRequest(planned, [])), ...client });
           return;
         }
         kept.set(msg.id, planned);
-        post({ type: 'planned', id: msg.id, jobs: planned.plan.bootstrapJobs, ...client });
+        post({ type: 'planned', id: msg.id, jobs: planned.plan.jobs, ...client });
         return;
       }
       case 'finish': {

@@ -15,12 +15,13 @@ import { lifeReport } from './life.js';
 import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
 
-type Route =
+/** What the data are and how they are analysed (also used by core/workflow/pipeline.ts). */
+export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
   | { readonly kind: 'life'; readonly run: () => DatasetReport }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
-function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
+export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
   if (input.grouped) {
     if (input.values || input.status || input.subgroups || input.order) {
       throw new InputError('Grouped counts come alone: no value, status, subgroup or order column with them.', {}, 'bad-option');

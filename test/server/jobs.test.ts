@@ -61,8 +61,8 @@ describe('bootstrap jobs on worker threads', () => {
 
   it('the server answers while a job runs, and a cancelled job stops', async () => {
     const x = weibull(2000, 3);
-    // B = 100000 replicates of n = 2000 would take minutes: it is cancelled long before.
-    const created = await request(app).post('/api/jobs').send({ values: x, families: ['weibull'], pMethod: 'bootstrap', replicates: 100000 });
+    // B = 20000 replicates of n = 2000 (within server/limits.ts) would take about a minute: it is cancelled long before.
+    const created = await request(app).post('/api/jobs').send({ values: x, families: ['weibull'], pMethod: 'bootstrap', replicates: 20000 });
     expect(created.status).toBe(202);
     const id = created.body.id as string;
     const running = await waitFor(id, (b) => b.progress > 0);
@@ -85,7 +85,7 @@ describe('bootstrap jobs on worker threads', () => {
     expect(del.status).toBe(200);
     expect(del.body).toEqual({ id, state: 'cancelled' });
     await app.jobs.settled(id);
-    // The workers go idle (bounded wait; uncancelled, the 10^5 replicates would keep them busy for minutes).
+    // The workers go idle (bounded wait; uncancelled, the 2·10^4 replicates would keep them busy for a minute).
     for (let k = 0; k < 500 && app.pool.pending > 0; k++) await sleep(20);
     expect(app.pool.pending).toBe(0);
     const after1 = await request(app).get(`/api/jobs/${id}`);
@@ -98,7 +98,7 @@ describe('bootstrap jobs on worker threads', () => {
   });
 
   it('a new job from the same client cancels its previous one', async () => {
-    const big = await request(app).post('/api/jobs').send({ values: weibull(2000, 4), families: ['weibull'], pMethod: 'bootstrap', replicates: 100000, client: 'tab-1' });
+    const big = await request(app).post('/api/jobs').send({ values: weibull(2000, 4), families: ['weibull'], pMethod: 'bootstrap', replicates: 20000, client: 'tab-1' });
     expect(big.status).toBe(202);
     const small = await request(app).post('/api/jobs').send({ values: weibull(50, 5), families: ['normal'], client: 'tab-1' });
     expect(small.status).toBe(202);
