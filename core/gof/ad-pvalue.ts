@@ -5,7 +5,7 @@
  */
 import { getFamily, type FamilyName, type Parameters } from '../families/index.js';
 import type { Sample } from '../sample.js';
-import { formatNumber } from './format.js';
+import { formatNumber } from '../format/index.js';
 import { andersonDarlingStatistic } from './anderson-darling.js';
 import type { AdPValue } from './ad-pvalue-types.js';
 import { NORMAL_TURNING_POINT, normalCaseModified, normalCasePValue, normalCaseResult } from './ad-pvalue-normal.js';

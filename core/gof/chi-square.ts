@@ -12,7 +12,7 @@ import type { Distribution } from '../families/index.js';
 import type { ChiSquareReport } from '../report.js';
 import { chiSquareIsf, chiSquareSf } from '../special/index.js';
 import { chooseBinCount, equiprobableBins } from './binning.js';
-import { formatNumber } from './format.js';
+import { formatNumber } from '../format/index.js';
 
 export interface ChiSquareOptions {
   /** Significance level, 0 < alpha < 1. */

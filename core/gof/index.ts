@@ -23,4 +23,4 @@ export {
   splitBootstrapJob,
 } from './bootstrap.js';
 export type { BootstrapCounts, BootstrapJob, BootstrapPValue, BootstrapRunOptions, CancelSignal } from './bootstrap.js';
-export { formatNumber } from './format.js';
+export { formatNumber } from '../format/index.js';
