@@ -25,7 +25,7 @@ export function logGrid(lo: number, hi: number, points: number): number[] {
   return out;
 }
 
-export function lifeCurves(dist: Distribution, grid: readonly number[]): LifeCurves {
+export function lifeCurves(dist: Pick<Distribution, 'cdf' | 'sf' | 'logPdf' | 'logSf' | 'logCdf'>, grid: readonly number[]): LifeCurves {
   return {
     time: grid,
     cdf: grid.map((t) => dist.cdf(t)),

@@ -22,5 +22,6 @@ export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval
 export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
 export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
 export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
-export { fitWeibullMixture, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
+export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
 export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, type RankRegressionFit, type RankRegressionOutcome, type RankRegressionFamily } from './rank-regression.js';
+export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';

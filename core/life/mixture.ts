@@ -16,9 +16,9 @@
  * the observed information is singular, or a parameter's standard error exceeds half its value.
  * With 5 parameters it is ranked by AICc beside the one-population families.
  */
-import { getFamily } from '../families/index.js';
+import { getFamily, type Distribution } from '../families/index.js';
 import { between, LOG, maximize, observedInformation } from '../optimize/index.js';
-import { findRoot, logAddExp } from '../special/index.js';
+import { findRoot, lnGamma, log1mexp, logAddExp } from '../special/index.js';
 import type { LifeData } from './data.js';
 import { fitWeibullCensored } from './weibull-censored.js';
 
@@ -207,4 +207,19 @@ export function mixtureQuantile(p: WeibullMixtureParameters, prob: number): numb
   const target = Math.log1p(-prob);
   const g = (u: number) => mixtureLogSf(p, Math.exp(u)) - target;
   return Math.exp(findRoot(g, Math.log(Math.min(q1, q2)) - 1e-9, Math.log(Math.max(q1, q2)) + 1e-9, { relTol: 1e-13 }).root);
+}
+
+/** The mixture's distribution functions (for curves), each in log space where it matters. */
+export function mixtureDistribution(p: WeibullMixtureParameters): Pick<Distribution, 'cdf' | 'sf' | 'logPdf' | 'logSf' | 'logCdf'> & { mean(): number } {
+  const a = Math.log(p.fraction);
+  const b = Math.log1p(-p.fraction);
+  const logSf = (t: number) => (t <= 0 ? 0 : mixtureLogSf(p, t));
+  return {
+    logSf,
+    sf: (t) => Math.exp(logSf(t)),
+    logCdf: (t) => (t <= 0 ? Number.NEGATIVE_INFINITY : log1mexp(logSf(t))),
+    cdf: (t) => (t <= 0 ? 0 : -Math.expm1(logSf(t))),
+    logPdf: (t) => (t <= 0 ? Number.NEGATIVE_INFINITY : logAddExp(a + logComponent(p.shape1, p.scale1, t, true), b + logComponent(p.shape2, p.scale2, t, true))),
+    mean: () => p.fraction * p.scale1 * Math.exp(lnGamma(1 + 1 / p.shape1)) + (1 - p.fraction) * p.scale2 * Math.exp(lnGamma(1 + 1 / p.shape2)),
+  };
 }
