@@ -50,3 +50,22 @@ export * from './batch/index.js';
 export * from './options/index.js';
 export { formatPValue, pValueText } from './format/index.js';
 export type { PValueKind, PValueResult } from './format/index.js';
+export { analyzeRecordedLife, planTest, weibayes, prepareIntervalLifeData, turnbull, SAFETY_CAUTION, RANK_REGRESSION_REASON } from './life/index.js';
+export type {
+  RecordedLifeInput,
+  RecordedLifeOptions,
+  RecordedLifeReport,
+  RecordedLifeCandidate,
+  LifeEstimation,
+  IntervalLifeInput,
+  TestPlan,
+  TestPlanInput,
+  TestPlanRow,
+  WeibayesResult,
+  TurnbullEstimate,
+  TurnbullInterval,
+  CompetingModesReport,
+  ModeResult,
+  BLife,
+  ReliabilityAt,
+} from './life/index.js';
