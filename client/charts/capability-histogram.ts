@@ -82,9 +82,12 @@ export function capabilityHistogramChart(container: Element, data: CapabilityHis
       t.attr('text-anchor', side === 'below' ? 'end' : 'start');
       lines.forEach((l, i) => t.append('tspan').attr('x', round(tx)).attr('y', 14 + i * 14).attr('font-weight', i === 0 ? 600 : 400).text(l));
     } else {
-      // Narrow region: one line read upwards along the limit, inside the region.
-      const tx = side === 'below' ? edge - 5 : edge + 14;
-      t.attr('text-anchor', 'end').attr('transform', `translate(${round(tx)},6) rotate(-90)`).attr('font-weight', 600).text(lines.join(': '));
+      // Narrow region: one line read upwards along the limit, inside the region, set smaller when
+      // the plot is too short for it.
+      const text = lines.join(': ');
+      const size = Math.max(8, Math.min(11, (11 * (frame.innerHeight - 12)) / textWidth(text, 11, true)));
+      const tx = side === 'below' ? edge - 5 : edge + 4 + size;
+      t.attr('text-anchor', 'end').attr('font-size', round(size)).attr('transform', `translate(${round(tx)},6) rotate(-90)`).attr('font-weight', 600).text(text);
     }
   };
   if (data.lsl !== null) region(lo, data.lsl, 'LSL', data.lsl, ppm ? ppm.belowLsl : null, 'below');

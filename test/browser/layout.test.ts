@@ -1,0 +1,179 @@
+/**
+ * Layout in a real browser (Debian's Chromium via playwright-core): on every demo, every chart's
+ * axis titles, tick labels, legend entries, chart title and notes keep clear of one another and
+ * stay inside their chart (bounding boxes from getBoundingClientRect); the page never scrolls
+ * sideways at 360, 800, 1366 and 1920 px (wide tables scroll inside their own box); at 1366×768
+ * the answer (the headline) is on the first screen. Screenshots at 800 and 1366 px go to
+ * test-output/ (git-ignored).
+ */
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { SKIP_BROWSER } from './server-process.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
+
+interface Box {
+  readonly kind: string;
+  readonly text: string;
+  readonly x: number;
+  readonly y: number;
+  readonly w: number;
+  readonly h: number;
+}
+
+interface ChartBoxes {
+  readonly title: string;
+  readonly svg: Box;
+  readonly boxes: Box[];
+}
+
+/**
+ * Every labelled text of every chart on the page, with its box on screen. Runs in the page. A
+ * chart not on show (another evidence view, a folded section) is measured on a visible copy at
+ * its drawn size, so every chart is checked whatever the page shows.
+ */
+function collectBoxes(): ChartBoxes[] {
+  const box = (el: Element, kind: string): Box => {
+    const r = el.getBoundingClientRect();
+    return { kind, text: (el.textContent ?? '').trim().slice(0, 60), x: r.x, y: r.y, w: r.width, h: r.height };
+  };
+  const stage = document.createElement('div');
+  stage.style.cssText = 'position:absolute;left:0;top:0;z-index:99999;background:#fff';
+  document.body.append(stage);
+  const svgs = [...document.querySelectorAll('svg[role="img"]')].map((svg) => {
+    if (svg.getBoundingClientRect().width > 0) return svg;
+    const copy = svg.cloneNode(true) as SVGSVGElement;
+    stage.append(copy);
+    return copy;
+  });
+  const out = svgs.map((svg) => {
+      const boxes: Box[] = [];
+      for (const t of svg.querySelectorAll('.tick text')) if ((t.textContent ?? '') !== '') boxes.push(box(t, 'tick'));
+      for (const t of svg.querySelectorAll('[data-kind="axis-title"]')) boxes.push(box(t, 'axis-title'));
+      for (const t of svg.querySelectorAll('[data-kind="legend-entry"]')) boxes.push(box(t, 'legend'));
+      for (const t of svg.querySelectorAll('[data-kind="chart-title"]')) boxes.push(box(t, 'title'));
+      for (const t of svg.querySelectorAll('[data-kind="notes"] text, [data-kind="region-label"], [data-kind="empty-note"]')) boxes.push(box(t, 'note'));
+    return { title: svg.querySelector('title')?.textContent ?? '', svg: box(svg, 'svg'), boxes };
+  });
+  stage.remove();
+  return out;
+}
+
+/** Pairs of boxes that overlap by more than `slack` px in both directions. */
+function overlaps(boxes: readonly Box[], slack = 0.5): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < boxes.length; i++) {
+    for (let j = i + 1; j < boxes.length; j++) {
+      const a = boxes[i]!;
+      const b = boxes[j]!;
+      const dx = Math.min(a.x + a.w, b.x + b.w) - Math.max(a.x, b.x);
+      const dy = Math.min(a.y + a.h, b.y + b.h) - Math.max(a.y, b.y);
+      if (dx > slack && dy > slack) out.push(`${a.kind} "${a.text}" overlaps ${b.kind} "${b.text}" (${dx.toFixed(1)} × ${dy.toFixed(1)} px)`);
+    }
+  }
+  return out;
+}
+
+function outside(svg: Box, boxes: readonly Box[], slack = 1): string[] {
+  return boxes
+    .filter((b) => b.x < svg.x - slack || b.y < svg.y - slack || b.x + b.w > svg.x + svg.w + slack || b.y + b.h > svg.y + svg.h + slack)
+    .map((b) => `${b.kind} "${b.text}" leaves its chart`);
+}
+
+describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
+  let session: BrowserSession;
+  let page: Page;
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    session = await openSession({ problems, open: true });
+    ({ page } = session);
+    await waitForStatus(page, /^Done:/, 90_000);
+  }, 180_000);
+
+  afterAll(async () => {
+    await session?.close();
+  });
+
+  async function demos(): Promise<string[]> {
+    return page.locator('#demo-list button[data-name]').evaluateAll((els) => els.map((e) => e.getAttribute('data-name') ?? ''));
+  }
+
+  async function openDemo(name: string): Promise<void> {
+    await page.click(`#demo-list button[data-name="${name}"]`);
+    await page.waitForFunction((n) => document.querySelector(`#demo-list button[data-name="${n}"]`)?.getAttribute('aria-pressed') === 'true', name);
+    await waitForStatus(page, /^Done:/, 90_000);
+    await page.waitForTimeout(300);
+  }
+
+  async function checkCharts(where: string): Promise<number> {
+    const charts = await page.evaluate(collectBoxes);
+    const found: string[] = [];
+    for (const c of charts) {
+      for (const o of overlaps(c.boxes)) found.push(`${where}, "${c.title}": ${o}`);
+      for (const o of outside(c.svg, c.boxes)) found.push(`${where}, "${c.title}": ${o}`);
+    }
+    expect(found, found.join('\n')).toEqual([]);
+    return charts.length;
+  }
+
+  async function pageWidth(): Promise<{ scroll: number; inner: number }> {
+    return page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, inner: window.innerWidth }));
+  }
+
+  it('no axis title, tick label, legend entry or note overlaps another in any chart of any demo, at 1366 and 800 px', async () => {
+    const names = await demos();
+    expect(names.length).toBeGreaterThan(3);
+    let charts = 0;
+    for (const width of [1366, 800]) {
+      await page.setViewportSize({ width, height: width === 1366 ? 768 : 900 });
+      for (const name of names) {
+        await openDemo(name);
+        charts += await checkCharts(`${name} at ${width} px`);
+      }
+    }
+    // Every demo draws several charts (the evidence, and decision charts where settings ask for them).
+    expect(charts).toBeGreaterThan(names.length * 2 * 3);
+  }, 600_000);
+
+  it('never scrolls sideways at 360, 800, 1366 and 1920 px on any demo (wide tables scroll in their own box)', async () => {
+    const names = await demos();
+    for (const [width, height] of [[360, 740], [800, 900], [1366, 768], [1920, 1080]] as const) {
+      await page.setViewportSize({ width, height });
+      for (const name of names) {
+        await openDemo(name);
+        const w = await pageWidth();
+        expect(w.scroll, `${name} at ${width} px: page is ${w.scroll} px wide`).toBeLessThanOrEqual(w.inner);
+      }
+    }
+  }, 600_000);
+
+  it('at 1366×768 the answer is on the first screen; screenshots at 800 and 1366 px', async () => {
+    await page.setViewportSize({ width: 1366, height: 768 });
+    const names = await demos();
+    let seen = 0;
+    for (const name of names) {
+      await openDemo(name);
+      const headline = page.locator('#headline');
+      if (!(await headline.isVisible())) continue;
+      seen++;
+      const box = await headline.boundingBox();
+      expect(box, `${name}: headline has a box`).not.toBeNull();
+      expect(box!.y + Math.min(box!.height, 40), `${name}: headline top at ${box!.y}`).toBeLessThanOrEqual(768);
+    }
+    // The opening demos carry decision settings, so most have a headline (at least the first).
+    expect(seen).toBeGreaterThan(0);
+    await openDemo(names[0]!);
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await page.screenshot({ path: join(OUT, 'layout-1366x768.png') });
+    await page.screenshot({ path: join(OUT, 'layout-1366-full.png'), fullPage: true });
+    await page.setViewportSize({ width: 800, height: 900 });
+    await openDemo(names[0]!);
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await page.screenshot({ path: join(OUT, 'layout-800x900.png') });
+    await page.screenshot({ path: join(OUT, 'layout-800-full.png'), fullPage: true });
+    await page.setViewportSize({ width: 360, height: 740 });
+    await page.screenshot({ path: join(OUT, 'layout-360-full.png'), fullPage: true });
+    expect(problems).toEqual([]);
+  }, 300_000);
+});
