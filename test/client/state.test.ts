@@ -39,7 +39,7 @@ describe('settings belong to their source', () => {
     expect(river.settings.orderColumn).toBe(1); // year is column 1
     expect(river.reading.column).toBe(2); // peak_flow_m3s, not the year
     expect(river.settingsNote.kind).toBe('demo');
-    expect(river.settingsNote.text).toMatch(/Demo settings for river-peaks.*belong to this demo/);
+    expect(river.settingsNote.text).toMatch(/^Demo settings: .*belong to the river-peaks demo; loading anything else starts from the defaults/);
   });
 
   it('a file loaded after the river demo starts from the defaults: no return periods, design life or flood models, and says so', () => {
