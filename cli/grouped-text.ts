@@ -2,37 +2,37 @@
  * The plain-text report for grouped counts (`--grouped`): the classes, the ranked grouped fits
  * with the chi-square test on the (merged) classes, and why there is no Anderson–Darling test.
  */
-import type { GroupedCandidateReport, GroupedDatasetReport } from '../core/index.js';
+import { formatNumber, formatPValue, type GroupedCandidateReport, type GroupedDatasetReport } from '../core/index.js';
 import type { CliInput } from './input-summary.js';
 import { describeSkipped } from './input-summary.js';
-import { num, pText, wrap } from './text-report.js';
+import { wrap } from './text-report.js';
 import { sensitivityLines } from './workflow-text.js';
 
 function limit(x: number | null): string {
-  return x === null ? '' : num(x);
+  return x === null ? '' : formatNumber(x);
 }
 
 function candidateLines(c: GroupedCandidateReport): string[] {
   const label = (s: string): string => `    ${s.padEnd(13)}`;
   const cont = ' '.repeat(17);
   const params = Object.entries(c.parameters)
-    .map(([k, v]) => `${k} = ${num(v as number)}`)
+    .map(([k, v]) => `${k} = ${formatNumber(v as number)}`)
     .join(', ');
   const out = [`  ${c.rank}. ${c.label}: ${params}`];
   out.push(wrap(`${c.fit.method} (${c.fit.iterations} iterations, ${c.fit.converged ? 'converged' : 'NOT converged'})`, label('fit'), cont));
-  out.push(wrap(`grouped log-likelihood ${num(c.logLikelihood, 8)}; m = ${c.estimatedParameters}; AIC ${num(c.aic, 8)}, AICc ${num(c.aicc, 8)}, BIC ${num(c.bic, 8)}; ΔAICc ${num(c.deltaAicc, 4)}`, label('criteria'), cont));
+  out.push(wrap(`grouped log-likelihood ${formatNumber(c.logLikelihood, 8)}; m = ${c.estimatedParameters}; AIC ${formatNumber(c.aic, 8)}, AICc ${formatNumber(c.aicc, 8)}, BIC ${formatNumber(c.bic, 8)}; ΔAICc ${formatNumber(c.deltaAicc, 4)}`, label('criteria'), cont));
   const cs = c.chiSquare;
   if (cs.computable) {
     out.push(
       wrap(
-        `X² = ${num(cs.statistic)} on ${cs.dof} dof (k - 1 - m, exact here), p = ${pText(cs.pValue)}; ${cs.k} cells from ${cs.classesGiven} classes${cs.refitted ? ' (merged to ≥ 5 expected, refitted on the merged cells)' : ''}. ` +
-          `Counts observed/expected: ${cs.bins.map((b) => `${num(b.observed)}/${num(b.expected, 4)}`).join(' ')}.`,
+        `X² = ${formatNumber(cs.statistic)} on ${cs.dof} dof (k - 1 - m, exact here), ${formatPValue(cs.pValue)}; ${cs.k} cells from ${cs.classesGiven} classes${cs.refitted ? ' (merged to ≥ 5 expected, refitted on the merged cells)' : ''}. ` +
+          `Counts observed/expected: ${cs.bins.map((b) => `${formatNumber(b.observed)}/${formatNumber(b.expected, 4)}`).join(' ')}.`,
         label('chi-square'),
         cont,
       ),
     );
   } else out.push(wrap(`not computed: ${cs.reason}`, label('chi-square'), cont));
-  if (c.ppmOutOfSpec) out.push(wrap(`${num(c.ppmOutOfSpec.total, 4)} ppm out of spec (${num(c.ppmOutOfSpec.belowLsl, 4)} below, ${num(c.ppmOutOfSpec.aboveUsl, 4)} above)`, label('spec'), cont));
+  if (c.ppmOutOfSpec) out.push(wrap(`${formatNumber(c.ppmOutOfSpec.total, 4)} ppm out of spec (${formatNumber(c.ppmOutOfSpec.belowLsl, 4)} below, ${formatNumber(c.ppmOutOfSpec.aboveUsl, 4)} above)`, label('spec'), cont));
   out.push(wrap(c.verdict, label('verdict'), cont));
   return out;
 }
@@ -43,11 +43,11 @@ export function groupedTextReport(r: GroupedDatasetReport, input: CliInput): str
   lines.push('');
   lines.push(wrap(`${input.file}, counts in column ${JSON.stringify(input.column)} (column ${input.columnIndex})`, '  input     ', ' '.repeat(12)));
   for (const o of input.otherColumns ?? []) lines.push(`${('  ' + o.role).padEnd(11)} column ${JSON.stringify(o.column)}`);
-  lines.push(wrap(`${input.rowsRead} class row${input.rowsRead === 1 ? '' : 's'} read, total count ${num(r.n)}; ${describeSkipped(input)}`, '  rows      ', ' '.repeat(12)));
-  lines.push(wrap(`models ${r.options.families.join(', ')}; α = ${num(r.options.alpha)}`, '  settings  ', ' '.repeat(12)));
+  lines.push(wrap(`${input.rowsRead} class row${input.rowsRead === 1 ? '' : 's'} read, total count ${formatNumber(r.n)}; ${describeSkipped(input)}`, '  rows      ', ' '.repeat(12)));
+  lines.push(wrap(`models ${r.options.families.join(', ')}; α = ${formatNumber(r.options.alpha)}`, '  settings  ', ' '.repeat(12)));
   lines.push('');
   lines.push('Classes (lower, upper, count)');
-  for (const c of r.grouped.classes) lines.push(`  ${limit(Number.isFinite(c.lower) ? c.lower : null) || '-∞'} to ${limit(Number.isFinite(c.upper) ? c.upper : null) || '∞'}: ${num(c.count)}`);
+  for (const c of r.grouped.classes) lines.push(`  ${limit(Number.isFinite(c.lower) ? c.lower : null) || '-∞'} to ${limit(Number.isFinite(c.upper) ? c.upper : null) || '∞'}: ${formatNumber(c.count)}`);
   lines.push('');
   if (r.candidates.length > 0) {
     lines.push('Candidates (best first by AICc)');

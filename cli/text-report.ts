@@ -3,30 +3,12 @@
  * block on the input, a ranking table, one block per candidate, then the families that could not
  * be fitted, warnings, the ranking rule, the methods with their sources, and the caution.
  */
-import type { AnalysisReport, AndersonDarlingReport, CandidateReport, ChiSquareReport, DatasetReport } from '../core/index.js';
+import { formatNumber, formatPValue, pValueText, type AnalysisReport, type CandidateReport, type ChiSquareReport, type DatasetReport } from '../core/index.js';
 import type { CliInput } from './input-summary.js';
 import { describeSkipped } from './input-summary.js';
 import { workflowSections } from './workflow-text.js';
 
 const WIDTH = 100;
-
-/** A number to `digits` significant digits, plain for ordinary sizes, exponent otherwise. */
-export function num(x: number, digits = 6): string {
-  if (Number.isNaN(x)) return 'NaN';
-  if (!Number.isFinite(x)) return x > 0 ? '∞' : '-∞';
-  if (x === 0) return '0';
-  const ax = Math.abs(x);
-  if (ax >= 1e-4 && ax < 1e9) return String(Number(x.toPrecision(digits)));
-  return x.toExponential(digits - 1).replace(/\.?0+e/, 'e');
-}
-
-/** A p-value, with its bound shown as "< b" or "> b". */
-export function pText(p: number, is: AndersonDarlingReport['pValueIs'] = 'estimate'): string {
-  const shown = p >= 1e-4 ? num(p, 4) : p.toExponential(1);
-  if (is === 'upper-bound') return `< ${shown}`;
-  if (is === 'lower-bound') return `> ${shown}`;
-  return shown;
-}
 
 /** Wrap `text` to WIDTH columns, the first line after `first`, the rest indented by `indent`. */
 export function wrap(text: string, first: string, indent: string): string {
@@ -57,25 +39,25 @@ function padLeft(s: string, w: number): string {
 
 function parametersText(c: CandidateReport): string {
   return Object.entries(c.parameters)
-    .map(([k, v]) => `${k} = ${num(v as number)}`)
+    .map(([k, v]) => `${k} = ${formatNumber(v as number)}`)
     .join(', ');
 }
 
 function chiShort(cs: ChiSquareReport): string {
   if (!cs.computable) return 'not computed';
-  return `${pText(cs.pValue)}–${pText(cs.pValueUpper)}`;
+  return `${pValueText(cs.pValue)}–${pValueText(cs.pValueUpper)}`;
 }
 
 function rankingTable(r: AnalysisReport): string[] {
-  const head = ['#', 'model', 'ΔAICc', 'AICc', 'log-lik.', 'chi-sq. p (k-1-m … k-1)', 'AD p', `at α = ${num(r.options.alpha)}`];
+  const head = ['#', 'model', 'ΔAICc', 'AICc', 'log-lik.', 'chi-sq. p (k-1-m … k-1)', 'AD p', `at α = ${formatNumber(r.options.alpha)}`];
   const rows = r.candidates.map((c) => [
     String(c.rank),
     c.label,
-    num(c.deltaAicc, 4),
-    num(c.aicc, 7),
-    num(c.logLikelihood, 7),
+    formatNumber(c.deltaAicc, 4),
+    formatNumber(c.aicc, 7),
+    formatNumber(c.logLikelihood, 7),
     chiShort(c.chiSquare),
-    pText(c.andersonDarling.pValue, c.andersonDarling.pValueIs),
+    pValueText(c.andersonDarling.pValue, c.andersonDarling.pValueIs),
     c.rejectedBy.length === 0 ? 'not rejected' : `rejected by ${c.rejectedBy.join(' and ')}`,
   ]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((row) => (row[j] as string).length)));
@@ -99,8 +81,8 @@ function candidateBlock(c: CandidateReport, n: number, censored = false): string
   );
   out.push(
     wrap(
-      `log-likelihood ${num(c.logLikelihood, 8)}; m = ${c.estimatedParameters} estimated parameter${c.estimatedParameters === 1 ? '' : 's'}, n = ${n}; ` +
-        `AIC ${num(c.aic, 8)}, AICc ${num(c.aicc, 8)}, BIC ${num(c.bic, 8)}; ΔAICc ${num(c.deltaAicc, 4)}`,
+      `log-likelihood ${formatNumber(c.logLikelihood, 8)}; m = ${c.estimatedParameters} estimated parameter${c.estimatedParameters === 1 ? '' : 's'}, n = ${n}; ` +
+        `AIC ${formatNumber(c.aic, 8)}, AICc ${formatNumber(c.aicc, 8)}, BIC ${formatNumber(c.bic, 8)}; ΔAICc ${formatNumber(c.deltaAicc, 4)}`,
       label('criteria'),
       cont,
     ),
@@ -109,9 +91,9 @@ function candidateBlock(c: CandidateReport, n: number, censored = false): string
   if (cs.computable) {
     out.push(
       wrap(
-        `X² = ${num(cs.statistic)} on ${cs.dof} dof (k - 1 - m), p = ${pText(cs.pValue)}; on ${cs.dofUpper} dof (k - 1), p = ${pText(cs.pValueUpper)}; ` +
-          `the true p lies between (Chernoff & Lehmann 1954). Critical value at α = ${num(cs.alpha)}: ${num(cs.criticalValue)}. ` +
-          `${cs.kRule} Counts observed/expected: ${cs.bins.map((b) => `${b.observed}/${num(b.expected, 4)}`).join(' ')}.`,
+        `X² = ${formatNumber(cs.statistic)} on ${cs.dof} dof (k - 1 - m), ${formatPValue(cs.pValue)}; on ${cs.dofUpper} dof (k - 1), ${formatPValue(cs.pValueUpper)}; ` +
+          `the true p lies between (Chernoff & Lehmann 1954). Critical value at α = ${formatNumber(cs.alpha)}: ${formatNumber(cs.criticalValue)}. ` +
+          `${cs.kRule} Counts observed/expected: ${cs.bins.map((b) => `${b.observed}/${formatNumber(b.expected, 4)}`).join(' ')}.`,
         label('chi-square'),
         cont,
       ),
@@ -122,14 +104,14 @@ function candidateBlock(c: CandidateReport, n: number, censored = false): string
     out.push(wrap(`not computed: ${cs.reason}`, label('chi-square'), cont));
   }
   const ad = c.andersonDarling;
-  const modified = ad.modifiedStatistic !== undefined ? ` (modified ${num(ad.modifiedStatistic)})` : '';
+  const modified = ad.modifiedStatistic !== undefined ? ` (modified ${formatNumber(ad.modifiedStatistic)})` : '';
   const mc =
     ad.method === 'bootstrap' && ad.replicates !== undefined
-      ? `; ${ad.replicates} replicates, seed ${String(ad.seed)}, Monte Carlo s.e. ${num(ad.monteCarloStandardError ?? Number.NaN, 3)}`
+      ? `; ${ad.replicates} replicates, seed ${String(ad.seed)}, Monte Carlo s.e. ${formatNumber(ad.monteCarloStandardError ?? Number.NaN, 3)}`
       : '';
   out.push(
     wrap(
-      `A² = ${num(ad.statistic)}${modified}, p ${ad.pValueIs === 'estimate' ? '= ' : ''}${pText(ad.pValue, ad.pValueIs)}` +
+      `A² = ${formatNumber(ad.statistic)}${modified}, ${formatPValue(ad)}` +
         `${ad.pValueIs === 'estimate' ? '' : ' (a bound: the statistic lies outside the table)'}, ` +
         `by ${ad.method === 'table' ? 'published table' : 'parametric bootstrap'}${mc} (details under Methods).`,
       label('A-D'),
@@ -155,12 +137,12 @@ export function textReport(report: AnalysisReport | DatasetReport, input: CliInp
     ),
   );
   lines.push(
-    `  values    min ${num(r.summary.min)}, max ${num(r.summary.max)}, mean ${num(r.summary.mean)}, ` +
-      `sd ${num(r.summary.sd)} (n - 1), ${r.summary.distinct} distinct`,
+    `  values    min ${formatNumber(r.summary.min)}, max ${formatNumber(r.summary.max)}, mean ${formatNumber(r.summary.mean)}, ` +
+      `sd ${formatNumber(r.summary.sd)} (n - 1), ${r.summary.distinct} distinct`,
   );
   lines.push(
     wrap(
-      `models ${r.options.families.join(', ')}; α = ${num(r.options.alpha)}; bins ${r.options.bins === null ? 'by rule' : String(r.options.bins)}; ` +
+      `models ${r.options.families.join(', ')}; α = ${formatNumber(r.options.alpha)}; bins ${r.options.bins === null ? 'by rule' : String(r.options.bins)}; ` +
         `Anderson–Darling p-values by ${r.options.pMethod === 'table' ? 'published tables (bootstrap where none exists)' : 'parametric bootstrap'}` +
         (r.options.pMethod === 'bootstrap' || r.candidates.some((c) => c.andersonDarling.method === 'bootstrap')
           ? `, ${r.options.bootstrapReplicates} replicates, seed ${r.options.seed}`

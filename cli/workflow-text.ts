@@ -2,17 +2,17 @@
  * The trade-workflow sections of the text report (life data, flood frequency, capability, trend,
  * model sensitivity), each with its cautions. Only sections present in the report are printed.
  */
-import type { DatasetCandidate, DatasetReport, SensitivityRow } from '../core/index.js';
-import { num, pText, wrap } from './text-report.js';
+import { formatNumber, formatPValue, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
+import { wrap } from './text-report.js';
 
 function pct(x: number): string {
-  return `${num(100 * x, 4)} %`;
+  return `${formatNumber(100 * x, 4)} %`;
 }
 
 function bound(x: number | null | undefined): string {
   if (x === null) return 'unbounded';
   if (x === undefined) return '';
-  return num(x);
+  return formatNumber(x);
 }
 
 /** A small left-aligned table with right-aligned numeric columns. */
@@ -48,12 +48,12 @@ function lifeLines(r: DatasetReport): string[] {
   );
   out.push(wrap(`Plot positions: ${life.plot.description.replace(/\.?$/, '.')}`, '  ', '  '));
   out.push(wrap(life.chiSquare.reason, '  ', '  '));
-  const head = ['model', ...life.bLifePercents.map((p) => `B${num(p)} (lower … upper)`), ...life.reliabilityTimes.map((t) => `R(${num(t)}) (lower … upper)`), 'mean life'];
+  const head = ['model', ...life.bLifePercents.map((p) => `B${formatNumber(p)} (lower … upper)`), ...life.reliabilityTimes.map((t) => `R(${formatNumber(t)}) (lower … upper)`), 'mean life'];
   const rows = r.candidates.map((c: DatasetCandidate) => [
     c.label,
-    ...(c.bLives ?? []).map((b) => `${num(b.estimate)} (${num(b.lower)} … ${num(b.upper)})${b.boundsFound ? '' : ' *'}`),
-    ...(c.reliability ?? []).map((x) => `${num(x.estimate, 4)} (${num(x.lower, 4)} … ${num(x.upper, 4)})${x.boundsFound ? '' : ' *'}`),
-    c.meanLife !== undefined ? num(c.meanLife) : '',
+    ...(c.bLives ?? []).map((b) => `${formatNumber(b.estimate)} (${formatNumber(b.lower)} … ${formatNumber(b.upper)})${b.boundsFound ? '' : ' *'}`),
+    ...(c.reliability ?? []).map((x) => `${formatNumber(x.estimate, 4)} (${formatNumber(x.lower, 4)} … ${formatNumber(x.upper, 4)})${x.boundsFound ? '' : ' *'}`),
+    c.meanLife !== undefined ? formatNumber(c.meanLife) : '',
   ]);
   out.push(...table(head, rows, new Set()));
   if (r.candidates.some((c) => [...(c.bLives ?? []), ...(c.reliability ?? [])].some((b) => !b.boundsFound))) {
@@ -75,14 +75,14 @@ function floodLines(r: DatasetReport): string[] {
       '  ',
     ),
   );
-  const head = ['model', ...f.periods.map((T) => `T = ${num(T)} (lower … upper)`)];
-  const rows = r.candidates.map((c) => [c.label, ...(c.returnLevels ?? []).map((l) => `${num(l.estimate)} (${bound(l.lower)} … ${bound(l.upper)})${l.beyondRecord ? ' †' : ''}`)]);
+  const head = ['model', ...f.periods.map((T) => `T = ${formatNumber(T)} (lower … upper)`)];
+  const rows = r.candidates.map((c) => [c.label, ...(c.returnLevels ?? []).map((l) => `${formatNumber(l.estimate)} (${bound(l.lower)} … ${bound(l.upper)})${l.beyondRecord ? ' †' : ''}`)]);
   out.push(...table(head, rows, new Set()));
   if (f.beyondRecord.length > 0) out.push(`  † beyond twice the ${f.recordLength}-year record: an extrapolation resting on the model's tail.`);
   if (f.designLife) {
     out.push(
       wrap(
-        `Chance of at least one exceedance in a design life of ${num(f.designLife.years)} years: ${f.designLife.exceedance.map((e) => `${num(e.period)}-year level ${pct(e.probability)}`).join('; ')}.`,
+        `Chance of at least one exceedance in a design life of ${formatNumber(f.designLife.years)} years: ${f.designLife.exceedance.map((e) => `${formatNumber(e.period)}-year level ${pct(e.probability)}`).join('; ')}.`,
         '  ',
         '  ',
       ),
@@ -99,22 +99,22 @@ function capabilityLines(r: DatasetReport): string[] {
   const c = r.capability;
   if (!c) return [];
   const out: string[] = ['Process capability'];
-  const limits = [c.lsl !== null ? `LSL ${num(c.lsl)}` : null, c.usl !== null ? `USL ${num(c.usl)}` : null, c.target !== null ? `target ${num(c.target)}` : null].filter((x) => x !== null);
-  out.push(wrap(`${limits.join(', ')}; n = ${c.n}, mean ${num(c.mean)}, overall sd ${num(c.sdOverall)} (n - 1); intervals two-sided ${pct(c.confidence)}.`, '  ', '  '));
+  const limits = [c.lsl !== null ? `LSL ${formatNumber(c.lsl)}` : null, c.usl !== null ? `USL ${formatNumber(c.usl)}` : null, c.target !== null ? `target ${formatNumber(c.target)}` : null].filter((x) => x !== null);
+  out.push(wrap(`${limits.join(', ')}; n = ${c.n}, mean ${formatNumber(c.mean)}, overall sd ${formatNumber(c.sdOverall)} (n - 1); intervals two-sided ${pct(c.confidence)}.`, '  ', '  '));
   const idx = [...c.overall, ...(c.within?.indices ?? [])];
-  out.push(...table(['index', 'estimate', 'lower', 'upper', 'interval'], idx.map((i) => [i.name, num(i.estimate, 4), num(i.lower, 4), num(i.upper, 4), i.intervalMethod]), new Set([1, 2, 3])));
-  if (c.within) out.push(wrap(`Within-subgroup sigma ${num(c.within.sigma)}: ${c.within.description} (${c.within.subgroups} subgroups).`, '  ', '  '));
+  out.push(...table(['index', 'estimate', 'lower', 'upper', 'interval'], idx.map((i) => [i.name, formatNumber(i.estimate, 4), formatNumber(i.lower, 4), formatNumber(i.upper, 4), i.intervalMethod]), new Set([1, 2, 3])));
+  if (c.within) out.push(wrap(`Within-subgroup sigma ${formatNumber(c.within.sigma)}: ${c.within.description} (${c.within.subgroups} subgroups).`, '  ', '  '));
   if (c.normality) out.push(wrap(c.normality.statement, '  Normality gate: ', '  '));
   if (c.percentile) {
     out.push(
       wrap(
-        `${c.percentile.family}: ${c.percentile.indices.map((i) => `${i.name} ${num(i.estimate, 4)}`).join(', ')} (${c.percentile.method}; X0.135 % ${num(c.percentile.lowerQuantile)}, median ${num(c.percentile.median)}, X99.865 % ${num(c.percentile.upperQuantile)}).`,
+        `${c.percentile.family}: ${c.percentile.indices.map((i) => `${i.name} ${formatNumber(i.estimate, 4)}`).join(', ')} (${c.percentile.method}; X0.135 % ${formatNumber(c.percentile.lowerQuantile)}, median ${formatNumber(c.percentile.median)}, X99.865 % ${formatNumber(c.percentile.upperQuantile)}).`,
         '  Percentile method, ',
         '  ',
       ),
     );
   }
-  out.push(...table(['model', 'ppm below LSL', 'ppm above USL', 'ppm total'], r.candidates.filter((k) => k.ppmOutOfSpec).map((k) => [k.label, num(k.ppmOutOfSpec?.belowLsl ?? 0, 4), num(k.ppmOutOfSpec?.aboveUsl ?? 0, 4), num(k.ppmOutOfSpec?.total ?? 0, 4)]), new Set([1, 2, 3])));
+  out.push(...table(['model', 'ppm below LSL', 'ppm above USL', 'ppm total'], r.candidates.filter((k) => k.ppmOutOfSpec).map((k) => [k.label, formatNumber(k.ppmOutOfSpec?.belowLsl ?? 0, 4), formatNumber(k.ppmOutOfSpec?.aboveUsl ?? 0, 4), formatNumber(k.ppmOutOfSpec?.total ?? 0, 4)]), new Set([1, 2, 3])));
   out.push(...bullets('Cautions', c.cautions));
   out.push('');
   return out;
@@ -124,7 +124,7 @@ function trendLines(r: DatasetReport): string[] {
   const t = r.trend;
   if (!t) return [];
   const out: string[] = ['Trend check'];
-  out.push(wrap(`Order from ${t.orderFrom === 'column' ? 'the order column' : 'the row order'}; S = ${t.s}, Z = ${num(t.z, 4)}, p = ${pText(t.pValue)} (${t.pMethod}). ${t.decision}`, '  ', '  '));
+  out.push(wrap(`Order from ${t.orderFrom === 'column' ? 'the order column' : 'the row order'}; S = ${t.s}, Z = ${formatNumber(t.z, 4)}, ${formatPValue(t.pValue)} (${t.pMethod}). ${t.decision}`, '  ', '  '));
   if (t.warning) out.push(wrap(t.warning, '  Warning: ', '  '));
   out.push(...bullets('Cautions', t.cautions));
   out.push('');
@@ -139,9 +139,9 @@ export function sensitivityLines(rows: readonly SensitivityRow[] | undefined): s
   for (const row of rows) {
     const vals = row.values.map((v) => {
       const iv = v.lower !== undefined || v.upper !== undefined ? ` (${bound(v.lower)} … ${bound(v.upper)})` : '';
-      return `${v.label} ${num(v.estimate)}${iv}${v.passes ? '' : ' [rejected]'}`;
+      return `${v.label} ${formatNumber(v.estimate)}${iv}${v.passes ? '' : ' [rejected]'}`;
     });
-    out.push(wrap(`${vals.join('; ')}. Range ${num(row.min)} to ${num(row.max)}.`, `  ${row.quantity}: `, '    '));
+    out.push(wrap(`${vals.join('; ')}. Range ${formatNumber(row.min)} to ${formatNumber(row.max)}.`, `  ${row.quantity}: `, '    '));
   }
   out.push('');
   return out;
