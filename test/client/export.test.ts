@@ -4,11 +4,11 @@
  * formatting they rely on. The report is built from a real core analysis of an invented sample.
  */
 import { describe, expect, it } from 'vitest';
-import { analyze, computeEvidence, prepareSample } from '../../core/index.js';
+import { analyze, analyzeDataset, computeEvidence, prepareSample } from '../../core/index.js';
 import { csvCell, csvDocument } from '../../client/src/csv-export.js';
 import { escapeHtml } from '../../client/src/escape.js';
 import { pValue, sig } from '../../client/src/format.js';
-import { buildReportHtml } from '../../client/src/report-html.js';
+import { buildReportHtml, dataRecord, DATA_INLINE_LIMIT } from '../../client/src/report-html.js';
 import { binsCsv } from '../../client/src/bins-csv.js';
 import { binsTableRows, drawEvidence, evidenceFor } from '../../client/src/evidence-render.js';
 import { candidateCells } from '../../client/src/candidate-cells.js';
@@ -135,6 +135,66 @@ describe('the HTML report', () => {
     // The hostile text is shown as text, in the title, the headings and the chart labels.
     expect(doc.title).toContain(HOSTILE);
     expect(doc.body.textContent).toContain(`${HOSTILE}.csv`);
+  });
+});
+
+describe('the report opens with the answer and records every input', () => {
+  it('the first section is the answer, before the models, the evidence and the record', () => {
+    const doc = new DOMParser().parseFromString(buildReport(), 'text/html');
+    const heads = [...doc.querySelectorAll('h2')].map((h) => h.textContent ?? '');
+    expect(heads[0]).toBe('The answer');
+    expect(heads.indexOf('What shaped this answer')).toBeGreaterThan(heads.indexOf('Candidate models, best first'));
+    // No decision number was asked for: the answer is the verdict on the selected model.
+    expect(doc.querySelector('.answer')?.textContent).toMatch(/best by AICc/);
+  });
+
+  it('a life report: the B10 answer with its cautions first; status column, confidence, seed and the data (SHA-256, FIPS 180-4) recorded', async () => {
+    const times = VALUES.map((v, i) => (i % 5 === 4 ? Math.round(v) + 0.5 : v));
+    const status = VALUES.map((_, i) => (i % 5 === 4 ? 0 : 1));
+    const report = analyzeDataset({ values: times, status }, { families: ['weibull', 'lognormal'], bLifePercents: [10], confidence: 0.9, bootstrapReplicates: 19, seed: 7 });
+    const csv = 'hours,failed\n' + times.map((t, i) => `${t},${status[i]}`).join('\n');
+    const data = await dataRecord(csv);
+    const html = buildReportHtml({
+      response: { ...report, input: { source: 'csv', n: 40, column: 'hours', otherColumns: [{ role: 'status', column: 'failed' }] } } as AnalyzeResponse,
+      selected: 'weibull',
+      sourceName: 'bench.csv',
+      column: 'hours',
+      units: 'h',
+      quantity: 'Life',
+      generatedAt: new Date('2026-12-01T22:00:00Z'),
+      charts: [],
+      binsTable: [],
+      requestedBins: null,
+      data,
+    });
+    const doc = new DOMParser().parseFromString(html, 'text/html');
+    const answer = doc.querySelector('.answer')!.textContent ?? '';
+    expect(answer).toMatch(/^B10 life under Weibull: .+ h \(two-sided 90 % bounds/);
+    // The answer comes before the first table of the report.
+    expect(html.indexOf('class="answer')).toBeLessThan(html.indexOf('<table'));
+    const record = doc.getElementById('record')!.parentElement!.textContent ?? '';
+    expect(record).toContain('Status column (1 failed, 0 suspended)failed');
+    expect(record).toContain('Confidence level90 % two-sided');
+    expect(record).toContain('Random seed7');
+    expect(record).toContain('B-livesB10');
+    expect(record).toContain(`SHA-256 of the data as analysed${data.sha256}`);
+    expect(doc.querySelector('pre.data')?.textContent).toBe(csv);
+  });
+
+  it('dataRecord: SHA-256 of "abc" is the FIPS 180-2 Appendix B.1 value (from memory; python3 hashlib.sha256(b"abc") agrees); large data are recorded by checksum only', async () => {
+    const abc = await dataRecord('abc');
+    expect(abc.sha256).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect(abc.bytes).toBe(3);
+    expect(abc.text).toBe('abc');
+    const big = await dataRecord('x'.repeat(DATA_INLINE_LIMIT + 1));
+    expect(big.text).toBeNull();
+    expect(big.sha256).toMatch(/^[0-9a-f]{64}$/);
+  });
+
+  it('prints on A4 portrait: @page size A4 and the ranking table laid out to the page width', () => {
+    const html = buildReport();
+    expect(html).toMatch(/@page\{size:A4 portrait;margin:14mm 12mm\}/);
+    expect(html).toMatch(/@media print\{[^]*table\.ranking\{table-layout:fixed/);
   });
 });
 
