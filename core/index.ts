@@ -69,3 +69,4 @@ export type {
   BLife,
   ReliabilityAt,
 } from './life/index.js';
+export * from './regional/index.js';
