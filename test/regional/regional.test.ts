@@ -107,3 +107,15 @@ describe('regionalAnalysis', () => {
     expect(report.cautions.join(' ')).toMatch(/governing agency/);
   });
 });
+
+describe('Z goodness of fit of the growth curve (Hosking & Wallis 1997 §5.2.3)', () => {
+  it('regions drawn from a GEV accept the GEV (|Z| ≤ 1.64, nominal 90 %) in most of 20 seeded regions', () => {
+    // Binomial(20, 0.9): at least 15 accepted has probability ≈ 0.99 (common practice, no source).
+    let accepted = 0;
+    for (let s = 0; s < 20; s++) {
+      const report = regionalAnalysis(region(9000 + s, 12, 40, () => 0.22), { simulations: 200, seed: 5 + s });
+      if (report.fits.find((f) => f.family === 'gev')?.acceptable) accepted++;
+    }
+    expect(accepted).toBeGreaterThanOrEqual(15);
+  });
+});
