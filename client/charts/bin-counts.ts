@@ -111,6 +111,6 @@ export function binCountsChart(container: Element, data: BinCountsChartData, opt
     .tickValues(rows.map((r) => r.index).filter((i) => i % every === 0))
     .tickFormat((i) => String(Number(i) + 1));
   drawXAxis(frame, axis, cell === 'bin' ? 'Bin number (low to high values; edges in the bins table)' : 'Class after merging (low to high; limits in the table)');
-  drawYAxis(frame, yAxis, 'Count');
+  drawYAxis(frame, yAxis, `Count per ${cell}`);
   return frame.svg.node()!;
 }
