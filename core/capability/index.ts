@@ -26,10 +26,20 @@ export {
   CAPABILITY_BOOTSTRAP_REPLICATES,
   capabilityBootstrapIntervals,
   capabilityReplicate,
+  jackknifeIndices,
+  JACKKNIFE_GROUPS,
+  INLINE_BOOTSTRAP_WORK,
+  percentileIntervals,
   combineCapabilityBootstrap,
   runCapabilityBootstrapRange,
   splitCapabilityBootstrap,
 } from './bootstrap.js';
-export type { BootstrapIndexInterval, CapabilityBootstrapJob, CapabilityBootstrapValues, PercentileIndexName } from './bootstrap.js';
+export type { BootstrapIndexInterval, CapabilityBootstrapJob, CapabilityBootstrapValues, PercentileIndexName, PercentileIntervals } from './bootstrap.js';
 export { transformedCapability } from './transformed.js';
 export type { TransformedCapability, TransformKind, TransformNormality } from './transformed.js';
+export { compareModels, OVERALL_SIGMA, PERCENTILE_SIGMA } from './comparison.js';
+export type { ComparisonCandidate, ComparisonRow, ModelComparison, NormalRowInput } from './comparison.js';
+export { D3_PAIR, D4_PAIR, individualsChart, subgroupChart, STABILITY_SOURCE, UNSTABLE_WARNING } from './control-chart.js';
+export type { ChartPanel, ChartPoint, StabilityChart } from './control-chart.js';
+export { capabilityExtensions } from './extensions.js';
+export type { BoundHandling, CapabilityExtensions, CapabilityExtensionsInput, ExtensionCandidate, TransformSection } from './extensions.js';

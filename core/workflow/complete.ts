@@ -11,7 +11,7 @@
  */
 import { finishAnalysis, planAnalysis, type AnalysisPlan } from '../analyze.js';
 import type { BootstrapCounts } from '../gof/index.js';
-import { capability, ppmOutOfSpec } from '../capability/index.js';
+import { capability, capabilityExtensions, CAPABILITY_BOOTSTRAP_REPLICATES, ppmOutOfSpec } from '../capability/index.js';
 import { InputError } from '../errors.js';
 import { DEFAULT_FAMILIES, EXTREME_VALUE_FAMILIES, GEV_SHAPE_GUARD, getFamily, type FamilyName } from '../families/index.js';
 import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingPositions, RECORD_MULTIPLE, returnLevels, type ReturnLevelMethod } from '../flood/index.js';
@@ -50,7 +50,7 @@ export function planComplete(input: CompleteInput, options: DatasetOptions, sett
   const sample = prepareSample(values);
   const families: readonly FamilyName[] =
     options.families ?? (settings.returnPeriods !== null ? [...DEFAULT_FAMILIES, ...EXTREME_VALUE_FAMILIES] : DEFAULT_FAMILIES);
-  const { confidence: _c, bLifePercents: _b, boundMethod: _m, reliabilityTimes: _r, lifePlotPositions: _l, returnPeriods: _p, designLife: _d, plottingPosition: _pp, lsl: _ls, usl: _us, target: _t, withinMethod: _w, trend: _tr, ...analyzeOptions } = options;
+  const { confidence: _c, bLifePercents: _b, boundMethod: _m, reliabilityTimes: _r, lifePlotPositions: _l, returnPeriods: _p, designLife: _d, plottingPosition: _pp, lsl: _ls, usl: _us, target: _t, withinMethod: _w, trend: _tr, transform: _tf, naturalLowerBound: _nb, capabilityReplicates: _cr, ...analyzeOptions } = options;
   return { input, options, settings, plan: planAnalysis(sample, { ...analyzeOptions, families }) };
 }
 
@@ -174,7 +174,27 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
     if (rep.percentile !== null && chosen !== null && chosen.rejectedBy.length > 0) {
       warnings.push(`Every non-normal candidate is rejected; the percentile method uses the best-ranked one (${chosen.label}), which does not describe the data well either.`);
     }
-    capabilitySection = { ...rep, warnings, percentileFamily: rep.percentile !== null && chosen ? chosen.family : null, gateRule };
+    const percentileFamily = rep.percentile !== null && chosen ? chosen.family : null;
+    // Transformation, bootstrap intervals of the percentile indices, the model comparison and the stability chart.
+    const { warnings: extWarnings, ...ext } = capabilityExtensions({
+      values,
+      sorted: sample.sorted,
+      subgroups: input.subgroups ?? null,
+      order: input.order ?? null,
+      limits: { lsl: settings.lsl, usl: settings.usl },
+      alpha: 1 - settings.confidence,
+      testAlpha: base.options.alpha,
+      transform: options.transform ?? 'none',
+      naturalLowerBound: options.naturalLowerBound ?? null,
+      seed: base.options.seed,
+      replicates: options.capabilityReplicates ?? CAPABILITY_BOOTSTRAP_REPLICATES,
+      candidates: base.candidates,
+      mean: rep.mean,
+      sd: rep.sdOverall,
+      percentileFamily,
+    });
+    warnings.push(...extWarnings);
+    capabilitySection = { ...rep, ...ext, warnings, percentileFamily, gateRule };
     extraWarnings.push(...warnings);
     methods.push({
       topic: 'capability',

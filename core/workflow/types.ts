@@ -7,7 +7,7 @@
  *   dataKind 'censored'  values + status (1 failed, 0 running) → candidates from censored MLE, `life`
  *   dataKind 'grouped'   classes lower, upper, count           → GroupedDatasetReport (own candidates)
  */
-import type { CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
+import type { CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
 import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
@@ -159,7 +159,7 @@ export interface FloodSection {
 }
 
 /** capability: core/capability's report plus how the normality gate and the percentile model were chosen. */
-export interface CapabilitySection extends CapabilityReport {
+export interface CapabilitySection extends CapabilityReport, Omit<CapabilityExtensions, 'warnings'> {
   /** The fitted candidate used for the percentile method, or null. */
   readonly percentileFamily: FamilyName | null;
   /** How the gate and the percentile model were chosen, in words. */

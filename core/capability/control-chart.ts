@@ -1,0 +1,148 @@
+/**
+ * Stability before capability: a Shewhart chart of the characteristic with 3-sigma limits
+ * (Montgomery, Introduction to Statistical Quality Control, ch. 6 [from memory]).
+ * - Individuals and moving range (values in time order, no subgroups): MRᵢ = |xᵢ - xᵢ₋₁|,
+ *   σ̂ = MR̄/d2(2); individuals limits x̄ ± 3σ̂; moving-range limits 0 and D4·MR̄ with
+ *   D4 = 1 + 3·d3(2)/d2(2), d3(2) = √(2(1 - 2/π)) the standard deviation of the range of two
+ *   standard normals (closed form), so D4 = 3.2665 (Montgomery's table: 3.267).
+ * - X̄ and S (subgroups): σ̂ = mean of sᵢ/c4(nᵢ); X̄ limits x̿ ± 3σ̂/√nᵢ; S limits
+ *   c4(nᵢ)σ̂ ± 3σ̂√(1 - c4(nᵢ)²) (lower end floored at 0). With equal sizes these are Montgomery's
+ *   x̿ ± A3·s̄, B3·s̄ and B4·s̄ with A3 = 3/(c4√n), B3,4 = 1 ∓ 3√(1 - c4²)/c4.
+ * A point beyond a limit (the first Western Electric rule) marks the process as not shown to be in
+ * control; indices of an unstable process do not predict its future output.
+ */
+import { CompensatedSum } from '../compensated.js';
+import { InputError } from '../errors.js';
+import { c4, d2 } from './constants.js';
+
+export interface ChartPoint {
+  /** Time/order value or subgroup label. */
+  readonly label: string | number;
+  readonly value: number;
+  readonly lower: number;
+  readonly upper: number;
+  readonly beyond: 'above' | 'below' | null;
+}
+
+export interface ChartPanel {
+  readonly statistic: 'individual value' | 'moving range' | 'subgroup mean' | 'subgroup standard deviation';
+  readonly center: number;
+  readonly points: readonly ChartPoint[];
+}
+
+export interface StabilityChart {
+  readonly kind: 'individuals and moving range' | 'subgroup means and standard deviations';
+  readonly location: ChartPanel;
+  readonly dispersion: ChartPanel;
+  /** The within-process sigma behind the limits and how it was estimated. */
+  readonly sigma: number;
+  readonly sigmaMethod: string;
+  readonly pointsBeyond: number;
+  readonly stable: boolean;
+  readonly orderFrom: 'order column' | 'row order' | 'subgroup column';
+  readonly statement: string;
+  readonly source: string;
+}
+
+export const D3_PAIR = Math.sqrt(2 * (1 - 2 / Math.PI));
+export const D4_PAIR = 1 + (3 * D3_PAIR) / d2(2);
+
+export const STABILITY_SOURCE = 'Montgomery, Introduction to Statistical Quality Control, ch. 6 (Shewhart charts, 3-sigma limits; constants c4, d2 computed exactly)';
+export const UNSTABLE_WARNING =
+  'The chart shows points beyond its 3-sigma limits: the process is not shown to be stable, and capability indices of an unstable process do not predict its future output. Find and remove the special causes first.';
+
+const beyond = (v: number, lo: number, hi: number): ChartPoint['beyond'] => (v > hi ? 'above' : v < lo ? 'below' : null);
+
+function statement(n: number): string {
+  return n === 0
+    ? 'No point lies beyond the 3-sigma limits (the first Western Electric rule); the other run rules are not checked.'
+    : `${n} point(s) lie beyond the 3-sigma limits. ${UNSTABLE_WARNING}`;
+}
+
+/** Individuals and moving-range chart of values in time order (sorted by `order` when given). */
+export function individualsChart(values: ArrayLike<number>, order: ArrayLike<number> | null): StabilityChart {
+  const n = values.length;
+  if (n < 3) throw new InputError('A control chart needs at least 3 values.', {}, 'not-computable');
+  const idx = Array.from({ length: n }, (_, i) => i);
+  if (order) idx.sort((a, b) => (order[a] as number) - (order[b] as number));
+  const x = idx.map((i) => values[i] as number);
+  const labels = idx.map((i) => (order ? (order[i] as number) : i + 1));
+  const s = new CompensatedSum();
+  for (const v of x) s.add(v);
+  const mean = s.value / n;
+  const mr = new CompensatedSum();
+  for (let i = 1; i < n; i++) mr.add(Math.abs((x[i] as number) - (x[i - 1] as number)));
+  const mrBar = mr.value / (n - 1);
+  const sigma = mrBar / d2(2);
+  const lo = mean - 3 * sigma;
+  const hi = mean + 3 * sigma;
+  const mrHi = D4_PAIR * mrBar;
+  const location: ChartPoint[] = x.map((v, i) => ({ label: labels[i] as number, value: v, lower: lo, upper: hi, beyond: beyond(v, lo, hi) }));
+  const dispersion: ChartPoint[] = [];
+  for (let i = 1; i < n; i++) {
+    const v = Math.abs((x[i] as number) - (x[i - 1] as number));
+    dispersion.push({ label: labels[i] as number, value: v, lower: 0, upper: mrHi, beyond: beyond(v, 0, mrHi) });
+  }
+  const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  return {
+    kind: 'individuals and moving range',
+    location: { statistic: 'individual value', center: mean, points: location },
+    dispersion: { statistic: 'moving range', center: mrBar, points: dispersion },
+    sigma,
+    sigmaMethod: `mean moving range / d2(2) = ${String(Number(mrBar.toPrecision(6)))} / ${d2(2).toFixed(6)}`,
+    pointsBeyond: count,
+    stable: count === 0,
+    orderFrom: order ? 'order column' : 'row order',
+    statement: statement(count),
+    source: STABILITY_SOURCE,
+  };
+}
+
+/** X̄ and S chart of subgroups (first-seen label order); subgroups of one value are skipped. */
+export function subgroupChart(groups: readonly { readonly label: string | number; readonly values: readonly number[] }[]): StabilityChart {
+  const usable = groups.filter((g) => g.values.length >= 2);
+  if (usable.length < 2) throw new InputError('A subgroup chart needs at least 2 subgroups of 2 or more values.', {}, 'not-computable');
+  const stats = usable.map((g) => {
+    const m = new CompensatedSum();
+    for (const v of g.values) m.add(v);
+    const mean = m.value / g.values.length;
+    const ss = new CompensatedSum();
+    for (const v of g.values) ss.add((v - mean) * (v - mean));
+    return { label: g.label, n: g.values.length, mean, s: Math.sqrt(ss.value / (g.values.length - 1)) };
+  });
+  const grand = new CompensatedSum();
+  let total = 0;
+  for (const g of stats) {
+    grand.add(g.mean * g.n);
+    total += g.n;
+  }
+  const xbarbar = grand.value / total;
+  const sig = new CompensatedSum();
+  for (const g of stats) sig.add(g.s / c4(g.n));
+  const sigma = sig.value / stats.length;
+  const sBar = new CompensatedSum();
+  for (const g of stats) sBar.add(g.s);
+  const location: ChartPoint[] = stats.map((g) => {
+    const h = (3 * sigma) / Math.sqrt(g.n);
+    return { label: g.label, value: g.mean, lower: xbarbar - h, upper: xbarbar + h, beyond: beyond(g.mean, xbarbar - h, xbarbar + h) };
+  });
+  const dispersion: ChartPoint[] = stats.map((g) => {
+    const c = c4(g.n);
+    const lo = Math.max(0, c * sigma - 3 * sigma * Math.sqrt(1 - c * c));
+    const hi = c * sigma + 3 * sigma * Math.sqrt(1 - c * c);
+    return { label: g.label, value: g.s, lower: lo, upper: hi, beyond: beyond(g.s, lo, hi) };
+  });
+  const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  return {
+    kind: 'subgroup means and standard deviations',
+    location: { statistic: 'subgroup mean', center: xbarbar, points: location },
+    dispersion: { statistic: 'subgroup standard deviation', center: sBar.value / stats.length, points: dispersion },
+    sigma,
+    sigmaMethod: 'mean of sᵢ / c4(nᵢ) over the subgroups',
+    pointsBeyond: count,
+    stable: count === 0,
+    orderFrom: 'subgroup column',
+    statement: statement(count),
+    source: STABILITY_SOURCE,
+  };
+}

@@ -1,0 +1,146 @@
+/**
+ * The parts of the capability section beyond the normal-theory report (capability.ts), composed
+ * for the workflow in one call:
+ * - `transform`: the data and limits through a Box–Cox or Johnson transformation (transformed.ts),
+ *   with the bootstrap interval of its percentile indices (bootstrap.ts); `{ kind: 'none' }` when
+ *   no transformation was asked for;
+ * - `percentileIntervals`: without a transformation, the bootstrap interval of the percentile
+ *   indices of the best non-normal fitted family (the model capability.ts reports);
+ * - `comparison`: every model side by side, rejected ones apart (comparison.ts);
+ * - `stability`: an individuals or subgroup chart when an order or subgroup column is given
+ *   (control-chart.ts);
+ * - `bounds`: how a one-sided specification with a natural lower bound was handled.
+ */
+import type { FamilyName, Parameters } from '../families/index.js';
+import { PlumblineError } from '../errors.js';
+import { percentileIntervals, type PercentileIntervals } from './bootstrap.js';
+import { compareModels, type ComparisonCandidate, type ModelComparison } from './comparison.js';
+import { individualsChart, subgroupChart, type StabilityChart } from './control-chart.js';
+import type { SpecLimits } from './indices.js';
+import { makeModel } from './model.js';
+import { transformedCapability, type TransformedCapability } from './transformed.js';
+
+export interface ExtensionCandidate {
+  readonly family: FamilyName;
+  readonly label: string;
+  readonly parameters: Parameters;
+  readonly rejectedBy: readonly string[];
+}
+
+export interface CapabilityExtensionsInput {
+  /** Values in file order. */
+  readonly values: ArrayLike<number>;
+  readonly sorted: Float64Array;
+  readonly subgroups: readonly (string | number)[] | null;
+  readonly order: ArrayLike<number> | null;
+  readonly limits: SpecLimits;
+  /** 1 - confidence of the intervals. */
+  readonly alpha: number;
+  /** α of the goodness-of-fit tests. */
+  readonly testAlpha: number;
+  readonly transform: 'none' | 'boxcox' | 'johnson';
+  readonly naturalLowerBound: number | null;
+  readonly seed: number;
+  readonly replicates: number;
+  /** The ranked candidates, normal included. */
+  readonly candidates: readonly ExtensionCandidate[];
+  /** Overall mean and sd (n - 1) for the one normal row. */
+  readonly mean: number;
+  readonly sd: number;
+  /** The family the percentile method used (capability.ts), or null. */
+  readonly percentileFamily: FamilyName | null;
+}
+
+export type TransformSection =
+  | { readonly kind: 'none' }
+  | (TransformedCapability & { readonly intervals: PercentileIntervals });
+
+export interface BoundHandling {
+  readonly naturalLowerBound: number;
+  readonly statement: string;
+}
+
+export interface CapabilityExtensions {
+  readonly transform: TransformSection;
+  readonly percentileIntervals: PercentileIntervals | null;
+  readonly comparison: ModelComparison;
+  readonly stability: StabilityChart | null;
+  readonly bounds: BoundHandling | null;
+  readonly warnings: readonly string[];
+}
+
+const fmt = (v: number): string => String(Number(v.toPrecision(4)));
+
+export function capabilityExtensions(input: CapabilityExtensionsInput): CapabilityExtensions {
+  const { limits, alpha, sorted } = input;
+  const warnings: string[] = [];
+  let bounds: BoundHandling | null = null;
+  const b = input.naturalLowerBound;
+  if (b !== null) {
+    const below = sorted[0] as number;
+    if (below < b) warnings.push(`Some values (smallest ${below}) lie below the stated natural lower bound ${b}; check the data or the bound.`);
+    if (limits.lsl === null) {
+      bounds = {
+        naturalLowerBound: b,
+        statement: `Upper limit only, with a natural lower bound at ${b}: there is no lower tail to fall out of, so only Ppu (and Ppk = Ppu) is computed and no ppm below is counted. Models whose support reaches below ${b} are flagged in the comparison with the share they put there.`,
+      };
+    } else if (limits.lsl <= b) {
+      warnings.push(`The lower specification limit ${limits.lsl} is at or below the natural lower bound ${b}: no value can fall below it, so its side of the indices only describes the model's tail, not the process.`);
+    }
+  }
+
+  let transform: TransformSection = { kind: 'none' };
+  const extraRows: ComparisonCandidate[] = [];
+  if (input.transform !== 'none') {
+    try {
+      const t = transformedCapability(sorted, input.transform, limits, input.testAlpha);
+      const effective: SpecLimits = {
+        lsl: t.transformedLimits.lsl === null ? null : limits.lsl,
+        usl: t.transformedLimits.usl === null ? null : limits.usl,
+      };
+      const intervals = percentileIntervals(t.model, sorted, effective, alpha, input.seed, input.replicates);
+      transform = { ...t, intervals };
+      const name = t.kind === 'boxcox' ? `Box–Cox normal (λ = ${fmt(t.lambda as number)})` : `Johnson ${t.type as string}`;
+      extraRows.push({ model: name, dist: makeModel(t.model), rejectedBy: t.normality.passes ? [] : ['Anderson–Darling on the transformed values'] });
+      if (!t.normality.passes) warnings.push(`The ${name} transformation does not make the data normal (Anderson–Darling p = ${fmt(t.normality.pValue)} at α = ${t.normality.alpha}); its indices do not describe the process.`);
+      warnings.push(...t.notes);
+    } catch (e) {
+      if (!(e instanceof PlumblineError) || e.code === 'cancelled') throw e;
+      warnings.push(`The ${input.transform === 'boxcox' ? 'Box–Cox' : 'Johnson'} transformation could not be fitted: ${e.message}`);
+    }
+  }
+
+  let pIntervals: PercentileIntervals | null = null;
+  if (input.transform === 'none' && input.percentileFamily !== null) {
+    const c = input.candidates.find((x) => x.family === input.percentileFamily);
+    if (c) pIntervals = percentileIntervals({ kind: 'family', family: c.family, parameters: c.parameters }, sorted, limits, alpha, input.seed, input.replicates);
+  }
+
+  const normal = input.candidates.find((c) => c.family === 'normal');
+  const rows: ComparisonCandidate[] = [
+    ...input.candidates.filter((c) => c.family !== 'normal').map((c) => ({ model: c.label, dist: makeModel({ kind: 'family', family: c.family, parameters: c.parameters }), rejectedBy: c.rejectedBy })),
+    ...extraRows,
+  ];
+  const comparison = compareModels({ mean: input.mean, sd: input.sd, rejectedBy: normal ? normal.rejectedBy : [] }, rows, limits, b);
+
+  let stability: StabilityChart | null = null;
+  try {
+    if (input.subgroups) {
+      const map = new Map<string | number, number[]>();
+      for (let i = 0; i < input.values.length; i++) {
+        const k = input.subgroups[i] as string | number;
+        const list = map.get(k) ?? [];
+        list.push(input.values[i] as number);
+        map.set(k, list);
+      }
+      const groups = [...map.entries()].map(([label, values]) => ({ label, values }));
+      stability = groups.some((g) => g.values.length >= 2) ? subgroupChart(groups) : individualsChart(input.values, input.order);
+    } else if (input.order) stability = individualsChart(input.values, input.order);
+  } catch (e) {
+    if (!(e instanceof PlumblineError) || e.code === 'cancelled') throw e;
+    warnings.push(`No stability chart: ${e.message}`);
+  }
+  if (stability && !stability.stable) warnings.push(`Stability: ${stability.statement}`);
+
+  return { transform, percentileIntervals: pIntervals, comparison, stability, bounds, warnings };
+}

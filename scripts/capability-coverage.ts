@@ -1,0 +1,75 @@
+/**
+ * Coverage of the capability bootstrap interval (core/capability/bootstrap.ts: parametric bootstrap,
+ * model refitted per replicate, BCa ends) in a seeded simulation.
+ *
+ * True process: lognormal, ln x ~ Normal(0, 0.25²) (a Box–Cox model with λ = 0), limits LSL 0.45 and
+ * USL 2.3, so Pp, Ppk (= Ppl, the lower side binds), Ppu and Ppl are all measured; Ppu does not
+ * depend on the LSL, so its row is also the one-sided (upper limit only) case. Each simulated
+ * sample of n is fitted by Box–Cox (λ by maximum likelihood), its intervals computed exactly as the
+ * report does (percentileIntervals with the default 999 replicates), and the true ISO 22514-2 indices
+ * of the true model are checked against them. Coverage standard error √(c(1 - c)/M).
+ *
+ * Run: npx tsx scripts/capability-coverage.ts [n ...] > test/fixtures/capability-coverage-nNN.json
+ * (one n per process so two cores can share the work; ~6 min at n = 50, ~15 min at n = 125 on one core).
+ */
+import { makeModel, percentileCapability, percentileIntervals, fitModelSpec, type ModelSpec } from '../core/capability/index.js';
+import { createRng } from '../core/random/index.js';
+
+export const COVERAGE_SETUP = {
+  truth: { kind: 'boxcox', lambda: 0, mean: 0, sd: 0.25 } as ModelSpec,
+  limits: { lsl: 0.45, usl: 2.3 },
+  alpha: 0.05,
+  replicates: 999,
+  simulations: 1000,
+  dataSeed: 20260501,
+  bootstrapSeedBase: 7_000_000,
+};
+
+export interface SimulationResult {
+  readonly sample: number;
+  readonly intervals: Record<string, [number, number]>;
+}
+
+/** Simulated sample s at size n: its intervals (the same code path as the report). */
+export function simulateOne(n: number, s: number): SimulationResult {
+  const { truth, limits, alpha, replicates, dataSeed, bootstrapSeedBase } = COVERAGE_SETUP;
+  const x = makeModel(truth).draw(createRng(dataSeed, s), n).sort();
+  const spec = fitModelSpec({ kind: 'boxcox' }, x);
+  const r = percentileIntervals(spec, x, limits, alpha, bootstrapSeedBase + s, replicates);
+  const intervals: Record<string, [number, number]> = {};
+  for (const iv of r.intervals ?? []) intervals[iv.name] = [iv.lower, iv.upper];
+  return { sample: s, intervals };
+}
+
+function main(): void {
+  const ns = process.argv.slice(2).map(Number);
+  const { truth, limits, simulations } = COVERAGE_SETUP;
+  const trueIndices = Object.fromEntries(percentileCapability(makeModel(truth), limits).indices.map((i) => [i.name, i.estimate]));
+  const results = [];
+  for (const n of ns) {
+    const covered: Record<string, number> = {};
+    const counted: Record<string, number> = {};
+    const first: SimulationResult[] = [];
+    const t0 = Date.now();
+    for (let s = 0; s < simulations; s++) {
+      const r = simulateOne(n, s);
+      if (s < 3) first.push(r);
+      for (const [name, [lo, hi]] of Object.entries(r.intervals)) {
+        const t = trueIndices[name] as number;
+        counted[name] = (counted[name] ?? 0) + 1;
+        covered[name] = (covered[name] ?? 0) + (lo <= t && t <= hi ? 1 : 0);
+      }
+    }
+    const coverage = Object.fromEntries(
+      Object.keys(counted).map((k) => {
+        const m = counted[k] as number;
+        const c = (covered[k] as number) / m;
+        return [k, { covered: covered[k], simulations: m, coverage: c, standardError: Math.sqrt((c * (1 - c)) / m) }];
+      }),
+    );
+    results.push({ n, coverage, firstSamples: first, seconds: (Date.now() - t0) / 1000 });
+  }
+  process.stdout.write(JSON.stringify({ generator: 'scripts/capability-coverage.ts', setup: COVERAGE_SETUP, trueIndices, results }, null, 1) + '\n');
+}
+
+if (process.argv[1] && import.meta.url.endsWith(process.argv[1].split('/').pop() as string)) main();
