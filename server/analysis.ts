@@ -18,7 +18,6 @@ import {
   type AnyDatasetReport,
   type ColumnRequest,
   type DatasetInput,
-  type DatasetOptions,
   type DatasetPlan,
   type NumberColumn,
   type TextColumn,
@@ -26,7 +25,6 @@ import {
   readColumn,
   SKIP_REASON_WORDS,
   type BootstrapCounts,
-  type AnalyzeOptions,
   type Evidence,
   type Sample,
   type SkipCount,
@@ -83,17 +81,6 @@ export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>;
       header: r.header,
       warnings: r.warnings,
     },
-  };
-}
-
-export function analyzeOptions(req: AnalyzeRequest): AnalyzeOptions {
-  return {
-    ...(req.families !== undefined ? { families: req.families } : {}),
-    ...(req.alpha !== undefined ? { alpha: req.alpha } : {}),
-    ...(req.bins !== undefined ? { bins: req.bins } : {}),
-    ...(req.seed !== undefined ? { seed: req.seed } : {}),
-    ...(req.pMethod !== undefined ? { pMethod: req.pMethod } : {}),
-    ...(req.replicates !== undefined ? { bootstrapReplicates: req.replicates } : {}),
   };
 }
 
@@ -176,11 +163,6 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
   };
 }
 
-/** The core's options of a request: the analysis options and the workflow options. */
-export function datasetOptions(req: AnalyzeRequest): DatasetOptions {
-  return { ...analyzeOptions(req), ...(req.workflow?.options ?? {}) };
-}
-
 /** A planned request: the core's plan with what the finish needs. */
 export interface PlannedRequest {
   readonly request: AnalyzeRequest;
@@ -196,7 +178,7 @@ export interface PlannedRequest {
  */
 export function planRequest(req: AnalyzeRequest): PlannedRequest {
   const { dataset, input } = requestDataset(req);
-  const options = datasetOptions(req);
+  const options = req.options;
   checkDatasetSize(dataset, options);
   const plan = planDataset(dataset, options);
   if (plan.kind === 'complete') checkBootstrapWork(plan.jobs);
