@@ -113,7 +113,7 @@ describe('Z goodness of fit of the growth curve (Hosking & Wallis 1997 §5.2.3)'
     // Binomial(20, 0.9): at least 15 accepted has probability ≈ 0.99 (common practice, no source).
     let accepted = 0;
     for (let s = 0; s < 20; s++) {
-      const report = regionalAnalysis(region(9000 + s, 12, 40, () => 0.22), { simulations: 200, seed: 5 + s });
+      const report = regionalAnalysis(region(9000 + s, 12, 40, () => 0.12), { simulations: 200, seed: 5 + s });
       if (report.fits.find((f) => f.family === 'gev')?.acceptable) accepted++;
     }
     expect(accepted).toBeGreaterThanOrEqual(15);
