@@ -77,7 +77,7 @@ th{color:#444;font-size:8.5pt}td.num{text-align:right}
 table.kv th{width:13rem;font-size:9.5pt}
 tr.selected{background:#fff6d6}.ok{color:#1f5f3a;font-weight:600}.no{color:#8a1c1c;font-weight:600}
 .small{font-size:8.5pt;color:#555b61}figure{margin:1rem 0;break-inside:avoid;page-break-inside:avoid}
-figure svg{max-width:100%;height:auto;border:1px solid #d5d9dd}figcaption{font-size:9pt;color:#555b61}
+figure svg{max-width:100%;height:auto;border:1px solid #d5d9dd;box-sizing:border-box}figcaption{font-size:9pt;color:#555b61}
 ol.methods li{margin-bottom:.4rem}section.decision{margin:1rem 0 1.5rem}section.decision h3{font-size:1rem;margin:.8rem 0 .2rem;color:#0a4d68}
 caption{text-align:left;padding:.2rem 0}li.line-warning{color:#7a3a00}li.line-caution{background:#fbf1d9;list-style:none;margin-left:-1rem;padding:.2rem .5rem;border-left:3px solid #9a6700}
 pre.data{font-size:8pt;white-space:pre-wrap;overflow-wrap:anywhere;border:1px solid #d5d9dd;padding:.4rem;max-width:100%}
@@ -87,7 +87,7 @@ code{overflow-wrap:anywhere}
 body{margin:0;max-width:none;padding:0;font-size:9.5pt}
 h2{break-after:avoid}table{break-inside:auto;width:100%}tr{break-inside:avoid}
 table.ranking{table-layout:fixed;font-size:7.5pt}table.ranking th,table.ranking td{padding:.15rem .2rem}
-table.ranking th:nth-child(1){width:4%}table.ranking th:nth-child(2){width:12%}table.ranking th:nth-child(3){width:13%}
+table.ranking th:nth-child(1){width:3%}table.ranking th:nth-child(2){width:11%}table.ranking th:nth-child(3){width:13%}table.ranking th:nth-child(4){width:7%}table.ranking th:nth-child(5){width:8%}table.ranking th:nth-child(6){width:9%}table.ranking th:nth-child(7){width:6%}table.ranking th:nth-child(8){width:7%}table.ranking th:nth-child(9){width:6%}table.ranking th:nth-child(10){width:9%}table.ranking th:nth-child(11){width:21%}table.ranking td{overflow-wrap:break-word}
 table.kv th{width:34%}
 figure svg{width:100%}
 .answer,.caution{break-inside:avoid}

@@ -3,10 +3,12 @@
  * axis titles, tick labels, legend entries, chart title and notes keep clear of one another and
  * stay inside their chart (bounding boxes from getBoundingClientRect); the page never scrolls
  * sideways at 360, 800, 1366 and 1920 px (wide tables scroll inside their own box); at 1366×768
- * the answer (the headline) is on the first screen. Screenshots at 800 and 1366 px go to
+ * the answer (the headline) is on the first screen; the exported report, printed, fits A4 portrait
+ * and opens with the answer. Screenshots at 800 and 1366 px and the report's PDF go to
  * test-output/ (git-ignored).
  */
 import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { SKIP_BROWSER } from './server-process.js';
@@ -86,7 +88,7 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
   const problems: string[] = [];
 
   beforeAll(async () => {
-    session = await openSession({ problems, open: true });
+    session = await openSession({ problems, open: true, acceptDownloads: true });
     ({ page } = session);
     await waitForStatus(page, /^Done:/, 90_000);
   }, 180_000);
@@ -175,5 +177,37 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
     await page.setViewportSize({ width: 360, height: 740 });
     await page.screenshot({ path: join(OUT, 'layout-360-full.png'), fullPage: true });
     expect(problems).toEqual([]);
+  }, 300_000);
+
+  it('the exported report printed on A4 portrait: nothing wider than the page, the answer on the first page', async () => {
+    await page.setViewportSize({ width: 1366, height: 768 });
+    await openDemo('bearing-life');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, 'layout-report.html');
+    await download.saveAs(file);
+    const report = await page.context().newPage();
+    await report.goto(pathToFileURL(file).href);
+    await report.emulateMedia({ media: 'print' });
+    // A4 is 210 × 297 mm; less the report's @page margins (12 mm sides, 14 mm top and bottom) the
+    // content box is 186 × 269 mm = 703 × 1016 CSS px at 96 px per inch (CSS Values 4, absolute lengths).
+    await report.setViewportSize({ width: 703, height: 1016 });
+    const fit = await report.evaluate(() => {
+      const wide = [...document.querySelectorAll('body *')]
+        .filter((el) => el.closest('svg') === null || el.tagName.toLowerCase() === 'svg')
+        .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
+        .map((el) => `${el.tagName.toLowerCase()}.${el.getAttribute('class') ?? ''} right=${Math.round(el.getBoundingClientRect().right)}`);
+      return { scroll: document.documentElement.scrollWidth, wide: wide.slice(0, 10) };
+    });
+    expect(fit.wide, fit.wide.join('\n')).toEqual([]);
+    expect(fit.scroll).toBeLessThanOrEqual(703);
+    const heads = await report.locator('h2').allTextContents();
+    expect(heads[0]).toBe('The answer');
+    const answer = await report.locator('.answer').boundingBox();
+    expect(answer).not.toBeNull();
+    expect(answer!.y + answer!.height).toBeLessThanOrEqual(1016);
+    expect(await report.locator('.answer').textContent()).toMatch(/B10 life/);
+    const pdf = await report.pdf({ path: join(OUT, 'layout-report.pdf'), format: 'A4' });
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    await report.close();
   }, 300_000);
 });
