@@ -179,6 +179,37 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
     expect(problems).toEqual([]);
   }, 300_000);
 
+  it('the censored demo (bearing life: 22 failures, 8 suspensions at 2500 h) shows its suspensions and bins nothing', async () => {
+    await page.setViewportSize({ width: 1366, height: 768 });
+    await openDemo('bearing-life');
+    const seen = await page.evaluate(() => {
+      const svgs = [...document.querySelectorAll('svg[role="img"]')];
+      const by = (re: RegExp) => svgs.find((s) => re.test(s.querySelector('title')?.textContent ?? ''));
+      const prob = by(/points stay on the .* line/);
+      const cdf = by(/Kaplan–Meier step/);
+      const hist = by(/failures and suspensions fall/);
+      const bins = by(/not applicable \(censored\)/);
+      const steps = cdf?.querySelector('path[data-kind="ecdf"]')?.getAttribute('d') ?? '';
+      const vs = [...steps.matchAll(/V(-?[\d.]+)/g)].map((m) => Number(m[1]));
+      return {
+        points: prob?.querySelectorAll('circle[data-kind="point"]').length ?? -1,
+        suspensionMarks: prob?.querySelector('[data-kind="suspension-marks"]') !== null && prob !== undefined,
+        cdfSuspensions: cdf?.querySelector('path[data-kind="suspension"]') !== null && cdf !== undefined,
+        topOfStep: vs.length > 0 ? Math.min(...vs) : -1,
+        bars: hist?.querySelectorAll('rect[data-kind="bar"]').length ?? -1,
+        binsChart: bins !== undefined,
+      };
+    });
+    // Failures only on the probability plot; the 8 suspensions marked by time, never as points.
+    expect(seen.points).toBe(22);
+    expect(seen.suspensionMarks).toBe(true);
+    expect(seen.cdfSuspensions).toBe(true);
+    // The Kaplan–Meier step stops below 100 % (y = 0 is the top of the plot): the largest times are suspensions.
+    expect(seen.topOfStep).toBeGreaterThan(0);
+    expect(seen.bars).toBe(0);
+    expect(seen.binsChart).toBe(true);
+  }, 120_000);
+
   it('the exported report printed on A4 portrait: nothing wider than the page, the answer on the first page', async () => {
     await page.setViewportSize({ width: 1366, height: 768 });
     await openDemo('bearing-life');
