@@ -9,6 +9,8 @@ import { writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createRng, type Rng } from '../core/index.js';
+// The life-data-as-recorded scenarios (valve inspections, seal failure modes) have their own generator, same OUT_DIR.
+import './make-life-datasets.js';
 
 export const SEED = 20261201;
 const here = dirname(fileURLToPath(import.meta.url));

@@ -126,9 +126,11 @@ export function apiOptionsSection(): string {
   for (const r of OPTION_COMBINATIONS) {
     const known = (n: string): OptionSpec => OPTION_TABLE.find((x) => x.name === n) as OptionSpec;
     const names = r.kind === 'needs' ? [r.option, ...r.anyOf] : r.kind === 'conflicts' ? [r.option, ...r.with] : r.kind === 'ordered' ? [r.lower, r.upper] : [r.a, r.b];
-    if (!names.every((n) => onSurface(known(n), 'api') || known(n).jsonData !== undefined)) continue;
+    const onApi = (name: string): boolean => onSurface(known(name), 'api') || known(name).jsonData !== undefined;
+    // A 'needs' rule holds on the API when its option and one of anyOf exist there (core ruleApplies).
+    if (r.kind === 'needs' ? !(onApi(r.option) && r.anyOf.some(onApi)) : !names.every(onApi)) continue;
     const n = (name: string): string => shownName(known(name), 'api');
-    if (r.kind === 'needs') lines.push(`- ${n(r.option)} needs ${r.anyOf.map(n).join(' or ')}${r.why ? ` (${r.why})` : ''}.`);
+    if (r.kind === 'needs') lines.push(`- ${n(r.option)} needs ${r.anyOf.filter(onApi).map(n).join(' or ')}${r.why ? ` (${r.why})` : ''}.`);
     else if (r.kind === 'conflicts') lines.push(`- ${n(r.option)} cannot be combined with ${r.with.map(n).join(', ')} (${r.why}).`);
     else if (r.kind === 'ordered') lines.push(`- ${n(r.lower)} must be below ${n(r.upper)}.`);
     else lines.push(`- ${n(r.a)} and ${n(r.b)} cannot be the same character.`);

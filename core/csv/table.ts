@@ -317,6 +317,7 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
   const slotField = new Int32Array(nSlots);
   const labels: string[] = [];
   const isNumber = new Uint8Array(nSlots);
+  const keepBlank = new Uint8Array(nSlots);
   let maxField = fieldCount - 1;
   for (let s = 0; s < nSlots; s++) {
     const req = requests[s] as ColumnRequest;
@@ -329,6 +330,7 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
     slotField[s] = r.field;
     labels.push(r.label);
     isNumber[s] = req.kind === 'number' ? 1 : 0;
+    keepBlank[s] = req.kind === 'text' && req.keepBlank === true ? 1 : 0;
     if (r.field > maxField) maxField = r.field;
   }
   const slotOf = new Int32Array(maxField + 1).fill(-1);
@@ -577,7 +579,7 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
           rowValues[s] = v;
         } else {
           const t = unquote(text, a, b, state === 3).trim();
-          if (t === '') {
+          if (t === '' && !keepBlank[s]) {
             badReason = 'blank';
             badColumn = labels[s] as string;
             break;

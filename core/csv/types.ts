@@ -53,6 +53,8 @@ export interface ColumnRequest {
   readonly select: ColumnSelector;
   /** 'number': strict numbers into a Float64Array; 'text': trimmed, unquoted cell text (non-blank). */
   readonly kind: 'number' | 'text';
+  /** 'text' only: keep a blank cell as '' instead of refusing the row (a blank that means something, e.g. "still running"). */
+  readonly keepBlank?: boolean;
 }
 
 export interface NumberColumn {

@@ -16,12 +16,12 @@ export type OptionCombination =
   | { readonly kind: 'ordered'; readonly lower: string; readonly upper: string }
   | { readonly kind: 'differ'; readonly a: string; readonly b: string };
 
-const LIFE = 'life data with a status column';
+const LIFE = 'life data with a status column or interval columns';
 
 export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
-  { kind: 'needs', option: 'bLifePercents', anyOf: ['statusColumn'], why: LIFE },
-  { kind: 'needs', option: 'reliabilityTimes', anyOf: ['statusColumn'], why: LIFE },
-  { kind: 'needs', option: 'boundMethod', anyOf: ['statusColumn'], why: LIFE },
+  { kind: 'needs', option: 'bLifePercents', anyOf: ['statusColumn', 'intervalColumns'], why: LIFE },
+  { kind: 'needs', option: 'reliabilityTimes', anyOf: ['statusColumn', 'intervalColumns'], why: LIFE },
+  { kind: 'needs', option: 'boundMethod', anyOf: ['statusColumn', 'intervalColumns'], why: LIFE },
   { kind: 'needs', option: 'lifePlotPositions', anyOf: ['statusColumn'], why: LIFE },
   { kind: 'needs', option: 'designLife', anyOf: ['returnPeriods'], why: 'the chance of exceeding each return level within the design life' },
   { kind: 'needs', option: 'plottingPosition', anyOf: ['returnPeriods'], why: 'it places the points of the return-period plot' },
@@ -43,7 +43,14 @@ export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
   },
   { kind: 'needs', option: 'lowerColumn', anyOf: ['grouped'] },
   { kind: 'needs', option: 'upperColumn', anyOf: ['grouped'] },
-  { kind: 'needs', option: 'countColumn', anyOf: ['grouped'] },
+  { kind: 'needs', option: 'countColumn', anyOf: ['grouped', 'intervalColumns'] },
+  { kind: 'needs', option: 'modeColumn', anyOf: ['statusColumn'], why: 'failure modes need times with a status column' },
+  {
+    kind: 'conflicts',
+    option: 'intervalColumns',
+    with: ['statusColumn', 'grouped', 'returnPeriods', 'lsl', 'usl', 'subgroupColumn', 'orderColumn', 'trend'],
+    why: 'interval rows are life data of their own kind (give the interval columns or a status column, not both)',
+  },
   {
     kind: 'conflicts',
     option: 'grouped',
@@ -85,11 +92,15 @@ function specOf(name: string): OptionSpec {
 }
 
 /** Whether a rule can be checked on a surface: every option it names exists there (or, on the API, arrives as data). */
+function existsOn(n: string, surface: OptionSurface): boolean {
+  const s = specOf(n);
+  return onSurface(s, surface) || (surface === 'api' && s.jsonData !== undefined);
+}
+
+/** A rule applies on a surface when its options exist there; a 'needs' rule when its option and at least one of `anyOf` do. */
 export function ruleApplies(rule: OptionCombination, surface: OptionSurface): boolean {
-  return names(rule).every((n) => {
-    const s = specOf(n);
-    return onSurface(s, surface) || (surface === 'api' && s.jsonData !== undefined);
-  });
+  if (rule.kind === 'needs') return existsOn(rule.option, surface) && rule.anyOf.some((n) => existsOn(n, surface));
+  return names(rule).every((n) => existsOn(n, surface));
 }
 
 /** Whether an option counts as given (see the file comment). */
@@ -112,7 +123,7 @@ export function checkCombinations(given: ReadonlyMap<string, OptionValue>, surfa
     if (rule.kind === 'needs') {
       if (has(rule.option) && !rule.anyOf.some(has)) {
         // On the API a needed true/false option is shown with its value ("evidence": true).
-        const needed = rule.anyOf.map((n) => (surface === 'api' && specOf(n).kind === 'boolean' ? `${show(n)}: true` : show(n))).join(' or ');
+        const needed = rule.anyOf.filter((n) => existsOn(n, surface)).map((n) => (surface === 'api' && specOf(n).kind === 'boolean' ? `${show(n)}: true` : show(n))).join(' or ');
         return { ok: false, message: `${show(rule.option)} needs ${needed}${rule.why ? ` (${rule.why})` : ''}`, field: rule.option };
       }
     } else if (rule.kind === 'conflicts') {
