@@ -57,6 +57,7 @@ function readWith(
     let pending = '';
     let bytes = 0;
     let first = true;
+    const size = fstatSync(fd).size;
     let skip = encoding === 'utf-16le' || encoding === 'utf-16be' ? 2 : 0;
     for (;;) {
       const got = readSync(fd, buf, 0, chunkBytes, null);
@@ -81,7 +82,15 @@ function readWith(
       const take = atEnd ? pending.length : end;
       // It also holds a whole non-blank line (the header), never blank lines alone.
       if (first && !atEnd && (pending.length < firstPieceChars || !/[^\s\uFEFF]/.test(pending.slice(0, take)))) continue;
-      if (take > 0) first = false;
+      if (take > 0 && first) {
+        first = false;
+        pieces.add(pending.slice(0, take));
+        pending = pending.slice(take);
+        // Room for the whole file at the first piece's bytes per row (+2 %), read from its size.
+        if (pieces.count > 0 && size > bytes) pieces.reserve((pieces.count * size * 1.02) / Math.max(1, bytes - pending.length));
+        if (atEnd) break;
+        continue;
+      }
       if (take > 0) {
         pieces.add(pending.slice(0, take));
         pending = pending.slice(take);

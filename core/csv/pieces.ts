@@ -97,6 +97,22 @@ export class ColumnPieces {
     this.next = piece.next;
   }
 
+  /** Values read so far. */
+  get count(): number {
+    return this.kept;
+  }
+
+  /**
+   * Make room for about `rows` values in all, once the first piece shows how many bytes a row takes,
+   * so that a large file is not copied at every doubling of the array.
+   */
+  reserve(rows: number): void {
+    if (!(rows > this.values.length)) return;
+    const grown = new Float64Array(Math.ceil(rows));
+    grown.set(this.values.subarray(0, this.kept));
+    this.values = grown;
+  }
+
   private append(v: Float64Array): void {
     if (this.kept + v.length > this.values.length) {
       let cap = this.values.length;
@@ -116,9 +132,11 @@ export class ColumnPieces {
     }
     const skipped = REASON_ORDER.map((r) => this.skipped.get(r)).filter((s): s is SkipCount => s !== undefined);
     const firstWarnings = this.first.warnings;
+    // The array itself when it is (nearly) full, not a copy: a copy of 10^7 values is 80 MB more.
+    const values = this.kept >= 0.9 * this.values.length ? this.values.subarray(0, this.kept) : this.values.slice(0, this.kept);
     return {
       ...this.first,
-      values: this.values.slice(0, this.kept),
+      values,
       rowsRead: this.rowsRead,
       blankLines: this.blankLines,
       skipped,
