@@ -3,6 +3,7 @@
  * model sensitivity), each with its cautions. Only sections present in the report are printed.
  */
 import { formatNumber, formatPValue, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
+import { capabilityExtensionLines } from './capability-text.js';
 import { wrap } from './text-report.js';
 
 function pct(x: number): string {
@@ -114,7 +115,7 @@ function capabilityLines(r: DatasetReport): string[] {
       ),
     );
   }
-  out.push(...table(['model', 'ppm below LSL', 'ppm above USL', 'ppm total'], r.candidates.filter((k) => k.ppmOutOfSpec).map((k) => [k.label, formatNumber(k.ppmOutOfSpec?.belowLsl ?? 0, 4), formatNumber(k.ppmOutOfSpec?.aboveUsl ?? 0, 4), formatNumber(k.ppmOutOfSpec?.total ?? 0, 4)]), new Set([1, 2, 3])));
+  out.push(...capabilityExtensionLines(c));
   out.push(...bullets('Cautions', c.cautions));
   out.push('');
   return out;

@@ -70,3 +70,4 @@ export type {
   ReliabilityAt,
 } from './life/index.js';
 export * from './regional/index.js';
+export type { ChartPanel, ChartPoint, ComparisonRow, ModelComparison, PercentileIntervals, BootstrapIndexInterval, StabilityChart, TransformSection, TransformedCapability } from './capability/index.js';
