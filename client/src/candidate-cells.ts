@@ -43,7 +43,7 @@ export function parametersText(c: CandidateReport | GroupedCandidateReport): str
     .join(' · ');
 }
 
-/** A ranking row: a complete-sample or censored candidate, or a grouped-counts one (chi-square on the given classes, k − 1 − m exact; no A²). */
+/** A ranking row: a complete-sample or censored candidate, or a grouped-counts one (chi-square on the given classes with k − 1 − m dof, asymptotic p; no A²). */
 export function candidateCells(c: CandidateReport | GroupedCandidateReport): CandidateCells {
   const chi = c.chiSquare;
   const ad = c.andersonDarling;
@@ -55,7 +55,7 @@ export function candidateCells(c: CandidateReport | GroupedCandidateReport): Can
       : ad.method === 'bootstrap'
         ? `bootstrap, B = ${ad.replicates ?? '?'}${ad.monteCarloStandardError !== undefined ? `, ± ${sig(ad.monteCarloStandardError, 2)}` : ''}`
         : 'published formula';
-  // Grouped counts: the test runs on the given classes (merged to ≥ 5 expected), k − 1 − m is exact, no bracket.
+  // Grouped counts: the test runs on the given classes (merged to ≥ 5 expected), k − 1 − m with no bracket (the p-value is asymptotic).
   const grouped = chi.computable && 'classesGiven' in chi ? chi : null;
   const upper = chi.computable && !('classesGiven' in chi) ? chi : null;
   const note = grouped ? `k = ${grouped.k} of ${grouped.classesGiven} classes` : upper ? `k = ${upper.k} bins` : '';
@@ -70,10 +70,10 @@ export function candidateCells(c: CandidateReport | GroupedCandidateReport): Can
     chiSquare: chi.computable ? sig(chi.statistic, 4) : 'not computed',
     chiSquareNote: chi.computable ? note : chi.reason,
     chiSquareShort: chi.computable ? note : (chi.reason.split(/[:.;]/)[0] ?? chi.reason).trim(),
-    dof: upper ? `${upper.dof} [${upper.dofUpper}]` : grouped ? `${grouped.dof} (exact)` : '—',
+    dof: upper ? `${upper.dof} [${upper.dofUpper}]` : grouped ? `${grouped.dof} (k − 1 − m)` : '—',
     chiP: upper ? `${pValue(upper.pValue)} [${pValue(upper.pValueUpper)}]` : grouped ? pValue(grouped.pValue) : '—',
     dofMain: chi.computable ? String(chi.dof) : '—',
-    dofBracket: upper ? `[${upper.dofUpper}]` : grouped ? 'k − 1 − m, exact' : '',
+    dofBracket: upper ? `[${upper.dofUpper}]` : grouped ? 'k − 1 − m, asymptotic' : '',
     chiPMain: chi.computable ? pValue(chi.pValue) : '—',
     chiPBracket: upper ? `[${pValue(upper.pValueUpper)}]` : '',
     adOffered,

@@ -42,6 +42,14 @@ export function settingControls(): Control[] {
   return [...Object.values(FIELDS), ...Object.values(ROLES)].map(control).filter((c): c is Control => c !== null);
 }
 
+/** The settings key a control holds ('families' and 'pMethod' for their groups), or null. */
+export function settingKeyOf(node: Element): keyof Settings | null {
+  if (node.closest('#family-boxes')) return 'families';
+  if (node instanceof HTMLInputElement && node.name === 'pmethod') return 'pMethod';
+  const all: Record<string, string> = { ...FIELDS, ...ROLES };
+  return (Object.keys(all).find((k) => all[k] === node.id) as keyof Settings | undefined) ?? null;
+}
+
 /** Put each option's limits and help from the core's table on its control (once, at start). */
 export function applyOptionTable(): void {
   for (const [key, id] of Object.entries(FIELDS)) {

@@ -110,7 +110,7 @@ export function groupedText(r: GroupedDatasetReport, c: GroupedCandidateReport |
     test =
       `${chi.decision} The ${chi.classesGiven} classes given were merged left to right into k = ${chi.k} cells expecting at least 5 each` +
       `${chi.refitted ? ', and the model was refitted on the merged cells' : ''}; degrees of freedom k − 1 − m = ${chi.k} − 1 − ${m} = ${chi.dof}` +
-      ` (exact here, no Chernoff–Lehmann bracket). Critical value ${sig(chi.criticalValue, 4)}, p = ${pValue(chi.pValue)}.`;
+      ` (the reference for estimates from the classes themselves, so no Chernoff–Lehmann bracket; the p-value is a large-sample approximation). Critical value ${sig(chi.criticalValue, 4)}, p = ${pValue(chi.pValue)}.`;
   } else if (c && chi && !chi.computable) test = `Chi-square not computed: ${chi.reason}`;
   return {
     summary: `${r.grouped.total} counted in ${r.grouped.classes.length} classes (class limits with counts: there are no individual values).`,

@@ -23,7 +23,8 @@ import { cellRows, chartCells, classRows, groupedText, isGrouped, type GroupedRe
 import { INITIAL_STATE, columnLabel, settingsFromReport, shownLabels, update, type Action, type PageState } from './state.js';
 import { buildRequest } from './request.js';
 import { LARGE_BYTES, megabytes, Runner, type RunProgress } from './runner.js';
-import { applyOptionTable, buildFamilyBoxes, readForm, settingControls, showProblems, showSettings } from './form.js';
+import { applyOptionTable, buildFamilyBoxes, readForm, settingControls, settingKeyOf, showProblems, showSettings } from './form.js';
+import type { Settings } from './settings.js';
 import { answerFor } from './views/answer.js';
 import { modelChoices } from './views/models.js';
 import { rankingRows, tableHeads } from './views/ranking-table.js';
@@ -38,6 +39,10 @@ let runner: Runner;
 let timer: ReturnType<typeof setTimeout> | undefined;
 /** Bumped by every new file and by Stop, so a slower earlier read is dropped. */
 let loadTicket = 0;
+/** True while a file is being read: settings edited meanwhile belong to the file on its way. */
+let fileOnItsWay = false;
+/** Settings the user changed while a file was on its way, applied once it has loaded. */
+let editsForNext: Partial<Record<keyof Settings, unknown>> = {};
 
 const $ = (id: string): HTMLElement => byId(id);
 const input = (id: string): HTMLInputElement => byId<HTMLInputElement>(id);
@@ -221,6 +226,7 @@ function renderAnswer(): void {
   if (!a) return;
   head.append(el('strong', {}, a.undermined ? 'Not a number to design on as it stands: ' : 'Decision number: '), a.sentence);
   for (const c of a.cautions) cautions.append(el('li', {}, c));
+  if (a.change) cautions.append(el('li', { className: 'answer-change' }, el('strong', {}, 'What would change it: '), a.change, ' ', el('a', { href: '#decision' }, 'All numbers and cautions')));
 }
 
 function lifeScale(): LifeScale {
@@ -356,8 +362,14 @@ function scheduleRun(delay = 350): void {
   }, delay);
 }
 
-/** Take what the form holds into the state, then run. */
-function settingsChanged(delay?: number): void {
+/** Take what the form holds into the state, then run. `changed` is the control the user changed. */
+function settingsChanged(delay?: number, changed?: Element): void {
+  if (fileOnItsWay) {
+    // The user is setting up the analysis of the file being read: keep the edit for it.
+    const key = changed ? settingKeyOf(changed) : null;
+    if (key) editsForNext = { ...editsForNext, [key]: readForm()[key] };
+    return;
+  }
   // Return periods given for the first time: also try the extreme-value families.
   if (state.settings.returnPeriods.trim() === '' && input('periods-input').value.trim() !== '') {
     for (const b of document.querySelectorAll<HTMLInputElement>('#family-boxes input[name="family"]')) if ((FLOOD_FAMILIES as readonly string[]).includes(b.value)) b.checked = true;
@@ -432,6 +444,9 @@ function sourceLoaded(action: Extract<Action, { type: 'source-loaded' }>): void 
   runner.stop();
   setProgress(null);
   dispatch(action);
+  if (Object.keys(editsForNext).length > 0) dispatch({ type: 'settings-edited', patch: editsForNext as Partial<Settings> });
+  editsForNext = {};
+  fileOnItsWay = false;
   showError(null);
   showProblems([]);
   renderSource();
@@ -440,6 +455,8 @@ function sourceLoaded(action: Extract<Action, { type: 'source-loaded' }>): void 
 }
 
 function loadFailed(name: string, message: string): void {
+  fileOnItsWay = false;
+  editsForNext = {};
   runner.stop();
   setProgress(null);
   dispatch({ type: 'load-failed', name, message });
@@ -472,6 +489,8 @@ async function loadFile(file: File): Promise<void> {
   runner.stop();
   if (timer !== undefined) clearTimeout(timer);
   const large = file.size > LARGE_BYTES;
+  fileOnItsWay = true;
+  editsForNext = {};
   try {
     if (large) {
       setStatus(`Reading ${file.name} (${megabytes(file.size)})…`);
@@ -484,7 +503,10 @@ async function loadFile(file: File): Promise<void> {
       },
       () => ticket !== loadTicket,
     );
-    if (!read || ticket !== loadTicket) return;
+    if (!read || ticket !== loadTicket) {
+      if (ticket === loadTicket) fileOnItsWay = false;
+      return;
+    }
     if (large) setProgress(null);
     if (!/\S/.test(read.text)) {
       loadFailed(file.name, 'the file is empty: there are no values to analyse.');
@@ -580,8 +602,11 @@ function exportCsv(): void {
 // Wiring
 
 function select_(family: string): void {
+  const hadFocus = document.activeElement?.matches('button.model-pick') === true;
   dispatch({ type: 'select', family });
   renderResult();
+  // The choices are drawn anew: keep the keyboard where it was.
+  if (hadFocus) document.querySelector<HTMLElement>(`#model-choices button[data-family="${CSS.escape(family)}"]`)?.focus();
 }
 
 function wire(): void {
@@ -647,13 +672,15 @@ function wire(): void {
   });
 
   // A role column changes what is analysed: run at once; typed values wait a moment for the next keystroke.
-  for (const c of settingControls()) c.addEventListener('change', () => settingsChanged(/^(status|subgroup|order)-select$/.test(c.id) ? 0 : undefined));
-  $('family-boxes').addEventListener('change', () => settingsChanged());
-  for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => settingsChanged());
+  for (const c of settingControls()) c.addEventListener('change', () => settingsChanged(/^(status|subgroup|order)-select$/.test(c.id) ? 0 : undefined, c));
+  $('family-boxes').addEventListener('change', (ev) => settingsChanged(undefined, ev.target as Element));
+  for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => settingsChanged(undefined, r));
   $('run-button').addEventListener('click', () => settingsChanged(0));
   $('cancel-button').addEventListener('click', () => {
     const stage = $('progress-wrap').dataset['stage'] ?? '';
     loadTicket++;
+    fileOnItsWay = false;
+    editsForNext = {};
     runner.stop();
     dispatch({ type: 'run-stopped' });
     setProgress(null);

@@ -116,11 +116,11 @@ describe.skipIf(SKIP_BROWSER)('a 10^6-row upload in Chromium', () => {
     expect(stages.some((s) => /^Sending to the local server:/.test(s))).toBe(true);
     expect(stages.some((s) => /^Analysing: .*about 1,000,000 rows/.test(s))).toBe(true);
     // Every chart is drawn from the thinned series: a few thousand marks at most.
-    const counts = await page.$$eval('.charts svg[role="img"]', (svgs) => svgs.map((s) => s.querySelectorAll('circle, rect, path, line, polyline, polygon').length));
+    const counts = await page.$$eval('#value-charts svg[role="img"]', (svgs) => svgs.map((s) => s.querySelectorAll('circle, rect, path, line, polyline, polygon').length));
     console.log(`marks per chart: ${counts.join(', ')}`);
     expect(counts.length).toBeGreaterThanOrEqual(4);
     for (const c of counts) expect(c).toBeLessThanOrEqual(5000);
-    const circles = await page.$$eval('.charts svg[role="img"]', (svgs) => svgs.map((s) => s.querySelectorAll('circle').length));
+    const circles = await page.$$eval('#value-charts svg[role="img"]', (svgs) => svgs.map((s) => s.querySelectorAll('circle').length));
     for (const c of circles) expect(c).toBeLessThanOrEqual(2 * 2000);
     await page.screenshot({ path: join(OUT, 'large-upload-done.png'), fullPage: true });
     expect(problems).toEqual([]);

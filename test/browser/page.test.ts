@@ -41,26 +41,30 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
   const waitForDone = (what: RegExp): Promise<void> => waitForStatus(page, what, 60_000);
 
   const rows = () => page.locator('#ranking-table tr.cand-main');
+  /** The model choices (the page's way to select a model; the test-numbers table is on demand). */
+  const picks = () => page.locator('#model-choices button.model-pick');
 
-  it('opens with the demo already analysed: ranked table, four charts, the caution (issue 3, "Start")', async () => {
+  it('opens with the demo already analysed: the model choices, the four evidence charts, the caution (issue 3, "Start")', async () => {
     await page.goto(server.url);
     await waitForDone(/^Done:/);
     expect(await rows().count()).toBeGreaterThan(0);
-    expect(await page.locator('.charts svg[role="img"]').count()).toBe(4);
+    expect(await page.locator('#value-charts svg[role="img"]').count()).toBe(4);
+    expect(await picks().count()).toBe(await rows().count());
     expect(await page.locator('#caution').textContent()).toMatch(/licensed/);
-    // The first row is selected and its name heads the evidence.
+    // The best model is selected (in the choices and in the numbers table) and its name heads the evidence.
     const first = rows().first();
     expect(await first.getAttribute('aria-selected')).toBe('true');
+    expect(await page.locator(`#model-choices button[data-family="${await first.getAttribute('data-family')}"]`).getAttribute('aria-pressed')).toBe('true');
     const evidenceName = (await page.locator('#evidence-name').textContent()) ?? '';
     expect((await first.locator('td.model').textContent())?.trim()).toContain(evidenceName.trim());
     await page.screenshot({ path: join(OUT, 'page-1366x768.png') });
     await page.screenshot({ path: join(OUT, 'page-1366-full.png'), fullPage: true });
   });
 
-  it('is keyboard reachable: Tab from the top reaches a demo button, the file picker, the settings and a candidate row', async () => {
+  it('is keyboard reachable: Tab from the top reaches a demo button, the file picker, the settings and a model choice', async () => {
     await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
     const seen = new Set<string>();
-    for (let i = 0; i < 80 && !seen.has('row'); i++) {
+    for (let i = 0; i < 120 && !seen.has('row'); i++) {
       await page.keyboard.press('Tab');
       const kind = await page.evaluate(() => {
         const a = document.activeElement as HTMLElement | null;
@@ -69,7 +73,7 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
         if (a.id === 'file-input') return 'file';
         if (a.id === 'alpha-input') return 'alpha';
         if (a.id === 'run-button') return 'run';
-        if (a.matches('tr.cand-main')) return 'row';
+        if (a.matches('button.model-pick')) return 'row';
         return a.tagName.toLowerCase();
       });
       seen.add(kind);
@@ -136,20 +140,22 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     expect(families.sort()).toEqual(['lognormal', 'normal', 'weibull']);
   });
 
-  it('selects a candidate by click and by keyboard (Tab to the row, Enter)', async () => {
-    const second = rows().nth(1);
+  it('selects a candidate by click and by keyboard (Tab to the model, Enter)', async () => {
+    const second = picks().nth(1);
     await second.click();
-    expect(await second.getAttribute('aria-selected')).toBe('true');
-    expect(await rows().first().getAttribute('aria-selected')).toBe('false');
+    expect(await second.getAttribute('aria-pressed')).toBe('true');
+    expect(await picks().first().getAttribute('aria-pressed')).toBe('false');
     const fam = await second.getAttribute('data-family');
+    expect(await page.locator(`#ranking-table tr.cand-main[data-family="${fam}"]`).getAttribute('aria-selected')).toBe('true');
     const title = (await page.locator('#chart-probability svg title').first().textContent()) ?? '';
     expect(title.toLowerCase()).toContain(fam!);
-    const third = rows().nth(2);
+    const third = picks().nth(2);
     await third.focus();
     await page.keyboard.press('Enter');
-    expect(await third.getAttribute('aria-selected')).toBe('true');
-    // Focus is visible on the row (WCAG 2.1 SC 2.4.7): an outline is drawn.
-    const outline = await third.evaluate((r) => getComputedStyle(r).outlineStyle);
+    expect(await picks().nth(2).getAttribute('aria-pressed')).toBe('true');
+    // Focus stays on the choice and is visible (WCAG 2.1 SC 2.4.7): an outline is drawn.
+    expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.getAttribute('aria-pressed'))).toBe('true');
+    const outline = await picks().nth(2).evaluate((r) => getComputedStyle(r).outlineStyle);
     expect(outline).not.toBe('none');
   });
 
@@ -164,14 +170,14 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     expect(html).toContain('fatigue &lt;test&gt;.csv');
     expect(html).toContain('load_kN');
     expect(html).toMatch(/Random seed<\/th><td>\d+/);
-    const selectedLabel = (await rows().nth(2).locator('td.model').textContent())?.trim() ?? '';
+    const selectedLabel = (await page.locator('#model-choices button[aria-pressed="true"] .model-name').textContent())?.trim() ?? '';
     expect(html.toLowerCase()).toContain(`evidence for ${selectedLabel.toLowerCase()}`);
 
     const [csvDownload] = await Promise.all([page.waitForEvent('download'), page.click('#export-csv')]);
     const csvFile = join(OUT, 'bins.csv');
     await csvDownload.saveAs(csvFile);
     const csv = readFileSync(csvFile, 'utf8');
-    expect(csv.split('\r\n')[0]).toMatch(/^model,source,column,units,bin,lower,upper,observed,expected/);
+    expect(csv.split('\r\n')[0]).toMatch(/^model,source,column,units,bin,lower,upper,(open_edge,)?observed,expected/);
 
     const [jsonDownload] = await Promise.all([page.waitForEvent('download'), page.click('#export-json')]);
     const jsonFile = join(OUT, 'report.json');
@@ -187,8 +193,8 @@ describe.skipIf(SKIP_BROWSER)('the page in Chromium', () => {
     await page.press('#replicates-input', 'Tab');
     await page.waitForSelector('#progress-wrap:not([hidden])', { timeout: 30_000 });
     // Usable meanwhile: another candidate can be selected while the bootstrap runs.
-    await rows().nth(0).click();
-    expect(await rows().nth(0).getAttribute('aria-selected')).toBe('true');
+    await picks().nth(0).click();
+    expect(await picks().nth(0).getAttribute('aria-pressed')).toBe('true');
     // A second analysis replaces the first (the server keeps one job per page).
     await page.fill('#alpha-input', '0.05');
     await page.press('#alpha-input', 'Tab');

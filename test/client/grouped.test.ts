@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 /**
  * Grouped counts on the page and in the report (issue 4, "Grouped counts"): the ranking cells when
- * Anderson–Darling is not offered, the grouped text (k − 1 − m stated as exact), the column guess,
+ * Anderson–Darling is not offered, the grouped text (k − 1 − m with an asymptotic p), the column guess,
  * the classes read with the core's CSV reader, the observed-vs-expected chart per class and the
  * report's class counts section. Built from a real core analysis of the invented demo tally
  * datasets/inspection-classes.csv (datasets/README.md: 180 pits in 12 classes of 0.25 mm).
@@ -63,7 +63,7 @@ describe('grouped counts: ranking, text, chart and report', () => {
       expect(JSON.stringify(k)).not.toMatch(/NaN|undefined/);
       if (c.chiSquare.computable) {
         expect(k.dofMain).toBe(String(c.chiSquare.k - 1 - c.estimatedParameters));
-        expect(k.dofBracket).toBe('k − 1 − m, exact');
+        expect(k.dofBracket).toBe('k − 1 − m, asymptotic');
       }
     }
   });

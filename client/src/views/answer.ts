@@ -8,12 +8,15 @@ import type { DatasetCandidate, DatasetReport } from '../../../core/index.js';
 import { capital } from '../families.js';
 import { pValue, sig } from '../format.js';
 import { end, pct, withU } from './numbers.js';
+import { testWords } from './test-words.js';
 
 export interface Answer {
   /** The sentence with the number. */
   readonly sentence: string;
   /** What undermines it, most serious first; empty when nothing does. */
   readonly cautions: readonly string[];
+  /** What would change the number when nothing undermines it: its range across the acceptable models, or ''. */
+  readonly change: string;
   /** True when a caution says the number should not be used as it stands (rejected model, no convergence, trend). */
   readonly undermined: boolean;
 }
@@ -21,7 +24,7 @@ export interface Answer {
 /** The sensitivity rows' quantity names (core/workflow quantityNumber: 6 significant digits, plain). */
 const q = (x: number): string => String(Number(x.toPrecision(6)));
 
-const TEST_WORDS: Readonly<Record<string, string>> = { 'chi-square': 'the chi-square test', 'anderson-darling': 'the Anderson–Darling test' };
+const TEST_WORDS: Readonly<Record<string, string>> = { 'chi-square': testWords(['chi-square']), 'anderson-darling': testWords(['anderson-darling']) };
 
 function testP(c: DatasetCandidate, test: string): string {
   if (test === 'chi-square' && c.chiSquare.computable) return ` (p = ${pValue(c.chiSquare.pValue)})`;
@@ -83,9 +86,15 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   const rl = c.returnLevels?.[c.returnLevels.length - 1];
   if (r.flood && rl?.beyondRecord) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
   const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity) : undefined;
+  let change = '';
+  const which = row?.basis === 'passing' ? 'models no test rejects' : 'models tried';
   if (row && row.values.length > 1 && row.min > 0 && row.max / row.min >= 1.25) {
-    cautions.push(`Across the ${row.basis === 'passing' ? 'models no test rejects' : 'models tried'} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see “What would change the answer”.`);
+    cautions.push(`Across the ${which} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see “What would change the answer”.`);
+  } else if (row && row.values.length > 1) {
+    change = `Across the ${row.values.length} ${which} it runs from ${sig(row.min)} to ${sig(row.max)}: the choice among them changes it little.`;
+  } else if (row && row.values.length === 1) {
+    change = `No other model passes the tests, so there is nothing to compare it with.`;
   }
   for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
-  return { sentence: s.text, cautions, undermined };
+  return { sentence: s.text, cautions, change, undermined };
 }

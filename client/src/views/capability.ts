@@ -8,6 +8,7 @@ import { capital } from '../families.js';
 import { sig } from '../format.js';
 import type { BlockLine, BlockTable, SectionView } from './block.js';
 import { pct } from './numbers.js';
+import { testWords } from './test-words.js';
 
 /** Parts per million in words: "12 ppm (3 below LSL, 9 above USL)". */
 function ppmWords(p: { belowLsl: number; aboveUsl: number; total: number }): string {
@@ -32,7 +33,7 @@ export const capabilitySection: SectionView = ({ report: r, selected: c, units: 
   lines.push({ kind: 'note', text: cap.gateRule });
   // What would change it: the share outside under every fitted model, the tests' word on each.
   for (const m of r.candidates.filter((x) => x.ppmOutOfSpec)) {
-    lines.push({ kind: 'fact', text: `Under ${capital(m.label)} (${m.rejectedBy.length === 0 ? 'no test rejects it' : `rejected by ${m.rejectedBy.join(' and ')}`}): ${ppmWords(m.ppmOutOfSpec!)} outside.` });
+    lines.push({ kind: 'fact', text: `Under ${capital(m.label)} (${m.rejectedBy.length === 0 ? 'no test rejects it' : `rejected by ${testWords(m.rejectedBy)}`}): ${ppmWords(m.ppmOutOfSpec!)} outside.` });
   }
   lines.push({ kind: 'fact', text: `Under a normal model with the overall mean and sd: ${ppmWords(cap.normalPpm)} outside.` });
   const rows: string[][] = cap.overall.map((x) => [x.name, 'overall sd (n − 1)', sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);

@@ -9,10 +9,10 @@ import { el } from '../dom.js';
 import { capital, modelLabel } from '../families.js';
 import { fixed, pValue } from '../format.js';
 import type { CandidateReport, GroupedCandidateReport } from '../types.js';
+import { testWords } from './test-words.js';
 
 type Candidate = CandidateReport | GroupedCandidateReport;
 
-const TEST_WORDS: Readonly<Record<string, string>> = { 'chi-square': 'the chi-square test', 'anderson-darling': 'the Anderson–Darling test' };
 
 /** The p-values in short: "A² p = 0.43 · χ² p = 0.21". */
 function pWords(c: Candidate): string {
@@ -27,7 +27,7 @@ function pWords(c: Candidate): string {
 
 /** One sentence: can the user design on this model, and why (not). */
 export function modelSentence(c: Candidate, alpha: number, best: boolean): string {
-  if (c.rejectedBy.length > 0) return `Rejected by ${c.rejectedBy.map((t) => TEST_WORDS[t] ?? t).join(' and ')} at α = ${alpha}: the data contradict it.`;
+  if (c.rejectedBy.length > 0) return `Rejected by ${testWords(c.rejectedBy)} at α = ${alpha}: the data contradict it.`;
   if (!c.fit.converged) return 'The fit did not converge: not a maximum-likelihood estimate.';
   if (best) return `No test rejects it at α = ${alpha}, and it is the best by AICc.`;
   const d = c.deltaAicc;
