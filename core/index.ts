@@ -45,6 +45,7 @@ export * from './csv/index.js';
 export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_POINTS, CENSORED_BINS, type CensoredEvidenceInput } from './evidence/index.js';
 export type * from './evidence/types.js';
 export type * from './workflow/index.js';
+export type * from './api-types.js';
 export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync, planDataset, finishDataset, censoredBootstrapWork } from './workflow/index.js';
 export * from './batch/index.js';
 export * from './options/index.js';
