@@ -1,11 +1,10 @@
 /**
- * Colours and line patterns for the candidate models.
- *
- * Hues from the Okabe–Ito colour-blind-safe set (M. Okabe and K. Ito, "Color Universal Design
- * (CUD): how to make figures and presentations that are friendly to colorblind people", 2008,
- * https://jfly.uni-koeln.de/color/), in an order of our own; yellow is left out because it is too
- * pale on white. Each family also has its own dash pattern, so the curves stay distinguishable in
- * grey print and for readers who cannot separate two of the hues.
+ * Colours and line patterns for the candidate models: Plumbline's own set of muted, ink-like
+ * hues (deep blue, burnt orange, green, plum, ochre, steel, near-black, claret, umber, slate),
+ * each with at least 3:1 contrast against the chart paper (WCAG 2.1 success criterion 1.4.11,
+ * non-text contrast; checked in test/client/charts-palette.test.ts) and each with its own dash
+ * pattern, so the curves stay distinguishable in grey print and for readers who cannot separate
+ * two of the hues.
  */
 export interface SeriesStyle {
   readonly colour: string;
@@ -15,21 +14,23 @@ export interface SeriesStyle {
   readonly pattern: string;
 }
 
-const BY_FAMILY: Readonly<Record<string, SeriesStyle>> = {
-  normal: { colour: '#0072B2', dash: '', pattern: 'solid' },
-  lognormal: { colour: '#D55E00', dash: '7 3', pattern: 'long dashes' },
-  gamma: { colour: '#009E73', dash: '2 2', pattern: 'dots' },
-  weibull: { colour: '#CC79A7', dash: '9 3 2 3', pattern: 'dash-dot' },
-  exponential: { colour: '#E69F00', dash: '4 4', pattern: 'short dashes' },
-  gumbel: { colour: '#56B4E9', dash: '12 4', pattern: 'very long dashes' },
-  gev: { colour: '#000000', dash: '', pattern: 'solid black' },
-  weibull3: { colour: '#882255', dash: '6 2 1 2', pattern: 'dash-dot-dot' },
-  lognormal3: { colour: '#7a4b00', dash: '3 5', pattern: 'sparse dashes' },
+export const BY_FAMILY: Readonly<Record<string, SeriesStyle>> = {
+  normal: { colour: '#1d5f8a', dash: '', pattern: 'solid' },
+  lognormal: { colour: '#b4532a', dash: '7 3', pattern: 'long dashes' },
+  gamma: { colour: '#2f7a4c', dash: '2 2', pattern: 'dots' },
+  weibull: { colour: '#8b3a86', dash: '9 3 2 3', pattern: 'dash-dot' },
+  exponential: { colour: '#8a6d00', dash: '4 4', pattern: 'short dashes' },
+  gumbel: { colour: '#2f7fa0', dash: '12 4', pattern: 'very long dashes' },
+  gev: { colour: '#2b2b2b', dash: '', pattern: 'solid near-black' },
+  weibull3: { colour: '#a3324f', dash: '6 2 1 2', pattern: 'dash-dot-dot' },
+  lognormal3: { colour: '#6b5a2e', dash: '3 5', pattern: 'sparse dashes' },
+  pearson3: { colour: '#4a6b8a', dash: '10 2 2 2 2 2', pattern: 'dash-dot-dot-dot' },
+  logpearson3: { colour: '#555555', dash: '1 3', pattern: 'fine dots' },
 };
 
-const SPARE: readonly SeriesStyle[] = [
-  { colour: '#56B4E9', dash: '12 4', pattern: 'very long dashes' },
-  { colour: '#000000', dash: '1 3', pattern: 'fine dots' },
+export const SPARE: readonly SeriesStyle[] = [
+  { colour: '#4a6b8a', dash: '14 3 3 3', pattern: 'long dash-dot' },
+  { colour: '#555555', dash: '5 2 5 6', pattern: 'paired dashes' },
 ];
 
 /**

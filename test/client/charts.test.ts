@@ -65,7 +65,7 @@ describe('histogram on the equal-probability bins', () => {
     const other = svg.querySelector('path[data-kind="curve"][data-family="normal"]');
     expect(sel?.getAttribute('stroke-width')).toBe('3');
     expect(other?.getAttribute('stroke-width')).toBe('1.6');
-    expect(sel?.getAttribute('stroke')).toBe('#CC79A7');
+    expect(sel?.getAttribute('stroke')).toBe('#8b3a86'); // the Weibull colour of client/charts/palette.ts
   });
 
   it('is an accessible image: role img, labelled by its title and description (WAI-ARIA 1.2, role "img")', () => {
