@@ -6,7 +6,7 @@
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { OPTION_COMBINATIONS, OPTION_TABLE, aliasWords, jsonField, onSurface, ruleWords, shownName, type OptionSpec } from '../core/index.js';
+import { OPTION_COMBINATIONS, OPTION_TABLE, aliasWords, jsonField, onSurface, ruleApplies, ruleWords, shownName, type OptionSpec } from '../core/index.js';
 
 export const DOC_PATH = fileURLToPath(new URL('../docs/report-fields.md', import.meta.url));
 export const API_PATH = fileURLToPath(new URL('../server/API.md', import.meta.url));
@@ -125,10 +125,8 @@ export function apiOptionsSection(): string {
   lines.push('', 'Combinations refused with a 400 naming the field (the same rules as the command line):', '');
   for (const r of OPTION_COMBINATIONS) {
     const known = (n: string): OptionSpec => OPTION_TABLE.find((x) => x.name === n) as OptionSpec;
-    const names = r.kind === 'needs' ? [r.option, ...r.anyOf] : r.kind === 'conflicts' ? [r.option, ...r.with] : r.kind === 'ordered' ? [r.lower, r.upper] : [r.a, r.b];
+    if (!ruleApplies(r, 'api')) continue;
     const onApi = (name: string): boolean => onSurface(known(name), 'api') || known(name).jsonData !== undefined;
-    // A 'needs' rule holds on the API when its option and one of anyOf exist there (core ruleApplies).
-    if (r.kind === 'needs' ? !(onApi(r.option) && r.anyOf.some(onApi)) : !names.every(onApi)) continue;
     const n = (name: string): string => shownName(known(name), 'api');
     if (r.kind === 'needs') lines.push(`- ${n(r.option)} needs ${r.anyOf.filter(onApi).map(n).join(' or ')}${r.why ? ` (${r.why})` : ''}.`);
     else if (r.kind === 'conflicts') lines.push(`- ${n(r.option)} cannot be combined with ${r.with.map(n).join(', ')} (${r.why}).`);
