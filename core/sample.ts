@@ -63,8 +63,8 @@ function sortAscending(a: Float64Array): void {
   const words = new Uint32Array(a.buffer, a.byteOffset, 2 * n);
   // The keys are mapped in place and the passes go back and forth between the array's own words and
   // one scratch buffer (one extra copy of the data, not two: 80 MB less at 10^7 values).
-  let src = words;
-  let dst = new Uint32Array(2 * n);
+  let src: Uint32Array = words;
+  let dst: Uint32Array = new Uint32Array(2 * n);
   const counts = new Uint32Array(4 * 65536);
   for (let i = 0; i < n; i++) {
     let lo = words[2 * i] as number;
