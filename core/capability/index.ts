@@ -30,6 +30,8 @@ export {
   JACKKNIFE_GROUPS,
   INLINE_BOOTSTRAP_WORK,
   percentileIntervals,
+  expandedZ,
+  studentTUpper,
   combineCapabilityBootstrap,
   runCapabilityBootstrapRange,
   splitCapabilityBootstrap,
