@@ -139,7 +139,8 @@ function jsonItemOk(spec: OptionSpec, v: unknown): boolean {
       return typeof v === 'string' && (spec.choices ?? []).includes(v);
     case 'column':
     case 'columns':
-      return (typeof v === 'string' && v.trim() !== '') || (typeof v === 'number' && Number.isSafeInteger(v) && v >= 1);
+      // Text that is a whole number names a column by number, as on the command line: "0" is none.
+      return (typeof v === 'string' && v.trim() !== '' && !/^\s*0+\s*$/.test(v)) || (typeof v === 'number' && Number.isSafeInteger(v) && v >= 1);
     case 'text':
       return typeof v === 'string' && matchesPattern(spec, v);
     case 'boolean':
