@@ -2,66 +2,16 @@
  * The page's calls to the local server (server/API.md). Every failure becomes an `ApiError`
  * carrying the server's message, so the page can show it as it is.
  */
-import type { DatasetReport, Evidence, GroupedDatasetReport, SkipCount } from './types.js';
+import type { AnalyzeRequestBody, AnalyzeResponse, ErrorBody, InputSummary, JobViewBody, RequestData } from '../../core/index.js';
 
-export interface InputSummary {
-  readonly source: 'values' | 'csv';
-  readonly n: number;
-  readonly column?: string;
-  readonly columnIndex?: number;
-  readonly rowsRead?: number;
-  readonly skipped?: readonly SkipCount[];
-  readonly blankLines?: number;
-  readonly delimiter?: string;
-  readonly delimiterDetected?: boolean;
-  readonly header?: readonly string[];
-  readonly warnings?: readonly string[];
-  readonly otherColumns?: readonly { readonly role: string; readonly column: string }[];
-}
+// The request and response shapes are the server's own, from the one shared contract (core/api-types.ts).
+export type { AnalyzeResponse, InputSummary };
 
-export type AnalyzeResponse = (DatasetReport | GroupedDatasetReport) & { readonly evidence?: Evidence; readonly input?: InputSummary };
-
-export interface CsvRequestOptions {
-  readonly decimal?: '.' | ',';
-  readonly header?: boolean;
-  readonly skipInvalid?: boolean;
-  readonly delimiter?: string;
-}
-
-export interface AnalyzeRequest {
-  readonly csv: string;
-  readonly column: string | number;
-  readonly csvOptions: CsvRequestOptions;
-  readonly families: readonly string[];
-  readonly alpha: number;
-  readonly bins: number | null;
-  readonly seed?: number;
-  readonly pMethod: 'table' | 'bootstrap';
-  readonly replicates?: number;
-  readonly evidence: true;
-  /** Trade-workflow fields (server/API.md), sent only when set. */
-  readonly statusColumn?: number;
-  readonly subgroupColumn?: number;
-  readonly orderColumn?: number;
-  readonly confidence?: number;
-  readonly bLifePercents?: readonly number[];
-  readonly boundMethod?: 'likelihood-ratio' | 'fisher-matrix';
-  readonly reliabilityTimes?: readonly number[];
-  readonly returnPeriods?: readonly number[];
-  readonly designLife?: number;
-  readonly plottingPosition?: 'weibull' | 'gringorten' | 'cunnane';
-  readonly lsl?: number;
-  readonly usl?: number;
-  readonly target?: number;
-}
+/** The page always sends its data as CSV text (server/API.md `csv`, `column`, `csvOptions`). */
+export type AnalyzeRequest = AnalyzeRequestBody & { readonly csv: string };
 
 /** Grouped counts (server/API.md `grouped`): class limits with counts instead of a value column. */
-export interface GroupedRequest {
-  readonly grouped: readonly { readonly lower: number | null; readonly upper: number | null; readonly count: number }[];
-  readonly families: readonly string[];
-  readonly alpha: number;
-  readonly seed?: number;
-}
+export type GroupedRequest = AnalyzeRequestBody & { readonly grouped: NonNullable<RequestData['grouped']> };
 
 /** A demo's decision settings (server/demo.ts). */
 export interface DemoSettings {
@@ -96,13 +46,7 @@ export interface DemoAnalysis {
   readonly result: AnalyzeResponse;
 }
 
-export interface JobStatus {
-  readonly id: string;
-  readonly state: 'running' | 'done' | 'cancelled' | 'failed';
-  readonly progress: number;
-  readonly result?: AnalyzeResponse;
-  readonly error?: { readonly message: string; readonly code?: string };
-}
+export type JobStatus = JobViewBody;
 
 export class ApiError extends Error {
   readonly status: number;
@@ -133,7 +77,7 @@ async function call<T>(method: string, url: string, body?: unknown, signal?: Abo
     json = undefined;
   }
   if (!res.ok) {
-    const err = (json as { error?: { message?: string; code?: string; field?: string } } | undefined)?.error;
+    const err = (json as { error?: Partial<ErrorBody> } | undefined)?.error;
     throw new ApiError(res.status, err?.message ?? `The server answered ${res.status} ${res.statusText}.`, err?.code, err?.field);
   }
   return json as T;
@@ -216,7 +160,7 @@ async function postWithProgress<T>(url: string, req: { readonly csv: string }, o
         json = undefined;
       }
       if (xhr.status < 200 || xhr.status >= 300) {
-        const err = (json as { error?: { message?: string; code?: string; field?: string } } | undefined)?.error;
+        const err = (json as { error?: Partial<ErrorBody> } | undefined)?.error;
         reject(new ApiError(xhr.status, err?.message ?? `The server answered ${xhr.status} ${xhr.statusText}.`, err?.code, err?.field));
         return;
       }

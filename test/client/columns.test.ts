@@ -53,7 +53,7 @@ describe('row-number columns', () => {
     expect(s.reading.columns.map((c) => c.label)).toEqual(['Nr', 'Zeit_h', 'Last']);
     expect(s.reading.column).toBe(2);
     const out = buildRequest(s);
-    expect(out.ok && out.built.kind === 'values' && out.built.request.csvOptions.decimal).toBe(',');
+    expect(out.ok && out.built.kind === 'values' && out.built.request.csvOptions?.decimal).toBe(',');
   });
 
   it('read with a point instead, no column is numeric: still not the row numbers', () => {

@@ -72,7 +72,7 @@ function response(): AnalyzeResponse {
       n: 40,
       column: HOSTILE,
       rowsRead: 42,
-      skipped: [{ reason: 'non-numeric', count: 2, firstRow: 5, firstColumn: HOSTILE, firstValue: '=cmd|x' }],
+      skipped: [{ reason: 'non-numeric', count: 2, firstRow: 5, firstColumn: HOSTILE, firstValue: '=cmd|x', description: 'not a number' }],
       blankLines: 0,
       header: [HOSTILE],
       warnings: [],
