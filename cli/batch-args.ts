@@ -35,5 +35,6 @@ export function batchArgs(args: AnalyzeArgs): BatchArgs {
     ...(censor !== undefined ? { censorColumn: censor } : {}),
     ...(list !== undefined ? { columns: list.length === 1 && list[0] === 'all-numeric' ? 'all-numeric' : list } : {}),
     ...(typeof summary === 'string' ? { summaryCsv: summary } : {}),
+    ...(flagArg(args, 'regional') ? { regional: true } : {}),
   };
 }

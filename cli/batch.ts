@@ -6,9 +6,23 @@
  * not grow with the number of series; otherwise the summary table. `--summary-csv FILE` writes the
  * summary as CSV as well. `--shard I/N` keeps only the series whose key hashes to shard I of N
  * (core/batch/shard.ts), for batch schedulers; `plumbline merge` joins the shards' output.
+ * `--regional` adds the regional frequency analysis of all series as one region's sites (core/regional):
+ * a section after the summary, or with --json one last line `{ "region": … }`.
  */
 import { writeFileSync } from 'node:fs';
-import { inShard, summaryCsv, type CsvOptions, type DatasetOptions, type SeriesRecord, type SeriesSummary, type Shard } from '../core/index.js';
+import {
+  inShard,
+  regionalAnalysis,
+  summaryCsv,
+  type CsvOptions,
+  type DatasetOptions,
+  type RegionalReport,
+  type SeriesRecord,
+  type SeriesSummary,
+  type SeriesValues,
+  type Shard,
+} from '../core/index.js';
+import { regionalText } from './regional-text.js';
 import { analyzeAll } from './batch-pool.js';
 import { readBatch, type BatchLayout } from './batch-read.js';
 import { summaryTable } from './batch-summary-text.js';
@@ -19,6 +33,8 @@ export interface BatchArgs extends BatchLayout {
   readonly json: boolean;
   readonly shard: Shard | null;
   readonly summaryCsv?: string;
+  /** Also the regional frequency analysis of the series as one region's sites. */
+  readonly regional?: boolean;
   readonly csv: CsvOptions;
   readonly options: DatasetOptions;
 }
@@ -76,9 +92,18 @@ export async function runBatch(args: BatchArgs, io: BatchIo): Promise<number> {
   progress.end(done);
   const rows = summaries.filter((s): s is SeriesSummary => s !== undefined);
   if (args.summaryCsv !== undefined) writeFileSync(args.summaryCsv, summaryCsv(rows));
+  // The region: every analysed series as a site (series with an error are left out and named).
+  const region = args.regional ? regionalOf(records, args) : null;
   if (!args.json) {
     const shardText = args.shard ? `, shard ${args.shard.index} of ${args.shard.count} (${records.length} of ${read.series.length} series)` : '';
     io.out(summaryTable(rows, `${fileLabel}: ${read.layout}${shardText}`));
-  }
+    if (region) io.out(regionalText(region));
+  } else if (region) io.out(`${JSON.stringify({ region })}\n`);
   return 0;
+}
+
+function regionalOf(records: readonly SeriesRecord[], args: BatchArgs): RegionalReport {
+  const sites = records.filter((r): r is SeriesValues => r.kind === 'values').map((r) => ({ name: r.key, values: r.values }));
+  const periods = args.options.returnPeriods;
+  return regionalAnalysis(sites, { ...(periods ? { periods } : {}), ...(args.options.seed !== undefined ? { seed: args.options.seed } : {}) });
 }

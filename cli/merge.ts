@@ -43,6 +43,8 @@ export async function runMerge(args: MergeArgs, io: { out(s: string): void }): P
         } catch {
           throw new InputError(`${file}, line ${lineNo}: not a JSON object (a batch writes one { "series", "report" | "error" } object per line)`, { row: lineNo }, 'bad-input');
         }
+        // A batch run with --regional ends with its region's line; it belongs to that run, not to a series.
+        if (typeof v === 'object' && v !== null && 'region' in v) continue;
         if (!isSeriesLine(v)) throw new InputError(`${file}, line ${lineNo}: not a batch line (needs "series" and "report" or "error")`, { row: lineNo }, 'bad-input');
         const here = `${file}, line ${lineNo}`;
         const before = where.get(v.series);

@@ -50,4 +50,14 @@ export const BATCH_OPTIONS: readonly OptionSpec[] = [
     help: 'also write the batch summary (one row per series: n, best model, verdicts, decision number and interval) to this CSV file',
     group: 'batch',
   },
+  {
+    name: 'regional',
+    cli: '--regional',
+    kind: 'boolean',
+    default: false,
+    appliesTo: ['batch', 'flood'],
+    surfaces: ['cli'],
+    help: 'with --by: treat the series as the sites of one region (annual maxima): discordancy, heterogeneity H, the regional growth curve by L-moments and each site\'s index-flood quantiles at --return-periods (Hosking & Wallis 1997)',
+    group: 'batch',
+  },
 ];

@@ -58,6 +58,8 @@ export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
     why: 'grouped counts have no individual values',
   },
   { kind: 'needs', option: 'maxPoints', anyOf: ['evidence'] },
+  { kind: 'needs', option: 'regional', anyOf: ['by'], why: 'the sites of a region are the series of a long table' },
+  { kind: 'conflicts', option: 'regional', with: ['shard'], why: 'a region is analysed from all of its sites at once, not shard by shard' },
   { kind: 'needs', option: 'gridPoints', anyOf: ['evidence'] },
   { kind: 'needs', option: 'bandAlpha', anyOf: ['evidence'] },
   { kind: 'differ', a: 'delimiter', b: 'decimal' },

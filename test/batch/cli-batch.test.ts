@@ -132,3 +132,25 @@ describe('plumbline analyze --by … --shard I/N as separate processes, joined b
     expect(r.stderr).toMatch(/shard index must be below/);
   });
 });
+
+describe('plumbline analyze --by … --regional', () => {
+  it('adds the region as one last JSON line that merge passes over, and refuses --shard', async () => {
+    const data = seeded(6, 20);
+    // Shift to positive flows (the index-flood method scales by the site mean).
+    for (const k of Object.keys(data)) data[k] = (data[k] as number[]).map((v) => Math.abs(v) + 10);
+    const file = temp('region.csv', longCsv(data));
+    const r = await batch({ file, by: 'gauge', column: 'peak', options: { families: ['normal'], returnPeriods: [10, 100] }, regional: true });
+    expect(r.code).toBe(0);
+    const all = r.out.trim().split('\n').map((l) => JSON.parse(l) as Record<string, unknown>);
+    const last = all[all.length - 1] as { region: { sites: unknown[]; growthCurve: { rows: { period: number }[] } } };
+    expect(last.region.sites).toHaveLength(6);
+    expect(last.region.growthCurve.rows.map((g) => g.period)).toEqual([10, 100]);
+    let merged = '';
+    expect(await runMerge({ files: [temp('region.jsonl', r.out)], format: 'csv' }, { out: (s) => (merged += s) })).toBe(0);
+    expect(merged.trim().split('\r\n')).toHaveLength(7);
+    const { cli } = await import('../helpers/cli.js');
+    const refused = await cli('analyze', file, '--by', 'gauge', '--regional', '--shard', '0/2');
+    expect(refused.status).toBe(2);
+    expect(refused.stderr).toMatch(/--regional cannot be combined with --shard/);
+  });
+});
