@@ -12,17 +12,13 @@ import {
   onSurface,
   optionNamed,
   optionsOn,
-  parseJsonOption,
-  resolveOptions,
   sectionOf,
-  type AnalyzeOptions,
+  parseJsonOption,
   type CsvOptions,
   type DatasetInput,
   type DatasetOptions,
   type EvidenceOptions,
-  type FamilyName,
   type OptionValue,
-  type PMethod,
 } from '../core/index.js';
 import { badRequest } from './errors.js';
 
@@ -31,21 +27,15 @@ export interface AnalyzeRequest {
   readonly csv?: string;
   readonly column?: string | number;
   readonly csvOptions: CsvOptions;
-  readonly families?: readonly FamilyName[];
-  readonly alpha?: number;
-  readonly bins?: number | null;
-  readonly seed?: number;
-  readonly pMethod?: PMethod;
-  readonly replicates?: number;
   readonly evidence: boolean;
   readonly evidenceOptions: EvidenceOptions;
-  /** Trade workflows (issue 4): extra data columns and the workflow options of `analyzeDataset`. */
+  /** The extra data columns (by CSV column or as arrays), or grouped counts; null when none. */
   readonly workflow: WorkflowRequest | null;
-  /** Every analysis option given, under the core's names (the one pipeline can pass this as is). */
+  /** Every analysis option given, under the core's names (core/options datasetOptionsFrom). */
   readonly options: DatasetOptions;
 }
 
-/** The workflow part of a request: the extra columns (by CSV column or as arrays) and the options. */
+/** The extra data of a request: the status, subgroup and order columns (or their arrays), grouped counts. */
 export interface WorkflowRequest {
   readonly statusColumn?: string | number;
   readonly status?: readonly number[];
@@ -54,7 +44,6 @@ export interface WorkflowRequest {
   readonly orderColumn?: string | number;
   readonly order?: readonly number[];
   readonly grouped?: readonly GroupedClass[];
-  readonly options: Omit<DatasetOptions, keyof AnalyzeOptions>;
 }
 
 type GroupedClass = NonNullable<DatasetInput['grouped']>[number];
@@ -77,9 +66,6 @@ const DATA_OPTIONS = optionsOn('cli').concat(API_OPTIONS).filter((s, i, all) => 
 /** The data of a request (not options): the values or the CSV text, and the per-value arrays. */
 const DATA_FIELDS = ['values', 'csv', ...DATA_OPTIONS.map((s) => s.jsonData as string)];
 const ALL_FIELDS = [...new Set([...DATA_FIELDS, ...TOP_OPTIONS.map((s) => s.name), ...PARENTS])];
-/** The core's analyze-level option keys (the rest of DatasetOptions are the workflow options). */
-const ANALYZE_KEYS = new Set(Object.keys(resolveOptions()));
-
 function isPlainObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
@@ -174,23 +160,18 @@ function nested(given: ReadonlyMap<string, OptionValue>, parent: string): Record
   return out;
 }
 
-/** The workflow part, or null when the body has no workflow option and no per-value data array. */
-function workflowOf(body: Record<string, unknown>, given: ReadonlyMap<string, OptionValue>, options: DatasetOptions): WorkflowRequest | null {
-  const workflowOptions = Object.fromEntries(Object.entries(options).filter(([k]) => !ANALYZE_KEYS.has(k)));
+/** The extra data part, or null when the body names no data column and sends no per-value array. */
+function workflowOf(body: Record<string, unknown>, given: ReadonlyMap<string, OptionValue>): WorkflowRequest | null {
   const columns = DATA_OPTIONS.filter((s) => onSurface(s, 'api') && given.has(s.name));
   const data = DATA_OPTIONS.filter((s) => body[s.jsonData as string] !== undefined);
-  const workflowGiven = [...given.keys()].some((name) => {
-    const spec = optionNamed(name);
-    return spec !== undefined && !['input', 'output', 'batch'].includes(sectionOf(spec)) && !ANALYZE_KEYS.has(spec.coreName ?? spec.name) && given.get(name) !== null;
-  });
-  if (!workflowGiven && columns.length === 0 && data.length === 0) return null;
-  const out: Record<string, unknown> = { options: workflowOptions };
+  if (columns.length === 0 && data.length === 0) return null;
+  const out: Record<string, unknown> = {};
   for (const spec of columns) out[spec.name] = given.get(spec.name);
   for (const spec of data) {
     const key = spec.jsonData as string;
     out[key] = key === 'grouped' ? parseGrouped(body[key]) : dataArray(body, key);
   }
-  return out as unknown as WorkflowRequest;
+  return out as WorkflowRequest;
 }
 
 function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
@@ -218,19 +199,13 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
     if (needsCsv && !hasCsv && body[parent] !== undefined) throw badRequest(`"${parent}" goes with "csv"; with "values" leave it out.`, parent, 'bad-input');
   }
   const given = parseOptions(body);
-  const options = datasetOptionsFrom(given);
   const out: Record<string, unknown> = {
     csvOptions: nested(given, 'csvOptions'),
     evidence: given.get('evidence') === true,
     evidenceOptions: nested(given, 'evidenceOptions'),
-    options,
-    workflow: workflowOf(body, given, options),
+    options: datasetOptionsFrom(given),
+    workflow: workflowOf(body, given),
   };
-  // The analyze-level options under their request names (families, alpha, bins, seed, pMethod, replicates).
-  for (const [name, value] of given) {
-    const spec = optionNamed(name);
-    if (spec !== undefined && ANALYZE_KEYS.has(spec.coreName ?? spec.name) && !['input', 'output'].includes(sectionOf(spec))) out[name] = value;
-  }
   if (hasGrouped) out.values = [];
   else if (hasValues) out.values = parseValues(body.values);
   else {
