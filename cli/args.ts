@@ -29,7 +29,13 @@ export interface MergeArgs {
   readonly format: 'text' | 'csv' | 'json';
 }
 
-export type ParsedArgs = AnalyzeArgs | MergeArgs | { readonly command: 'help' } | { readonly command: 'version' };
+/** `plumbline plan --plan-reliability R --plan-time T --assumed-shape B ...`: the test-planning calculator, no data file. */
+export interface PlanArgs {
+  readonly command: 'plan';
+  readonly options: ReadonlyMap<string, OptionValue>;
+}
+
+export type ParsedArgs = AnalyzeArgs | MergeArgs | PlanArgs | { readonly command: 'help' } | { readonly command: 'version' };
 
 function usage(message: string, value?: string): InputError {
   return new InputError(`${message} (see plumbline --help)`, value === undefined ? {} : { value }, 'bad-option');
@@ -65,7 +71,12 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   if (first === '--help' || first === '-h' || first === 'help') return { command: 'help' };
   if (first === '--version' || first === '-V' || first === 'version') return { command: 'version' };
   if (first === 'merge') return parseMerge(argv.slice(1));
-  if (first !== 'analyze') throw usage(`unknown command ${JSON.stringify(first)}; the commands are "analyze" and "merge"`, first);
+  if (first === 'plan') {
+    // The same options as analyze (the table's rules), without a file.
+    const parsed = parseArgs(['analyze', '-', ...argv.slice(1)]);
+    return parsed.command === 'analyze' ? { command: 'plan', options: parsed.options } : parsed;
+  }
+  if (first !== 'analyze') throw usage(`unknown command ${JSON.stringify(first)}; the commands are "analyze", "plan" and "merge"`, first);
 
   const options = new Map<string, OptionValue>();
   const positional: string[] = [];

@@ -11,7 +11,8 @@ const f = (x: number | null | undefined, d = 4): string => (x === null || x === 
 
 function table(head: readonly string[], rows: readonly (readonly string[])[]): string[] {
   const w = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
-  const line = (r: readonly string[]) => r.map((c, i) => (i === 0 ? c.padEnd(w[i] as number) : c.padStart(w[i] as number))).join('  ').trimEnd();
+  // Numbers right-aligned, words left-aligned.
+  const line = (r: readonly string[]) => r.map((c, i) => (/^[-−]?[0-9.—]/.test(c) ? c.padStart(w[i] as number) : c.padEnd(w[i] as number))).join('  ').trimEnd();
   return [line(head), ...rows.map(line)];
 }
 
