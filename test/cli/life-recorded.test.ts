@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
 import { isRecordedLife, runRecordedLife } from '../../cli/life-recorded.js';
 import { runPlanCommand } from '../../cli/life-plan.js';
-import { root, scratchCsv } from '../helpers/cli.js';
+import { cli, root, scratchCsv } from '../helpers/cli.js';
 import { readFixture, rel } from '../helpers/fixtures.js';
 
 // Fixture: scripts/fixtures/life-interval.py (SciPy CensoredData interval fits refined by mpmath).
@@ -76,5 +76,18 @@ describe('plumbline analyze with life data as recorded', () => {
   it('refuses a plan without a shape, and rank regression on interval rows, with the option named', () => {
     expect(() => run(inspectionCsv(), '--interval-columns', 'start,end', '--plan-reliability', '0.9', '--plan-time', '10')).toThrow(/needs --assumed-shape/);
     expect(() => run(inspectionCsv(), '--interval-columns', 'start,end', '--count-column', 'units', '--estimation', 'rank-regression')).toThrow(/Rank regression needs exact failure times/);
+  });
+
+  it('the command routes there: plumbline analyze on the valve demo, and plumbline plan', async () => {
+    const a = await cli('analyze', 'datasets/valve-inspections.csv', '--interval-columns', 'start_months,end_months', '--count-column', 'valves', '--json');
+    expect(a.status).toBe(0);
+    const j = JSON.parse(a.stdout);
+    expect([j.life.n, j.life.left, j.life.right]).toEqual([150, 1, 29]);
+    const p = await cli('plan', '--plan-reliability', '0.9', '--plan-time', '1000', '--assumed-shape', '2');
+    expect(p.status).toBe(0);
+    expect(p.stdout).toMatch(/rounded up to 22/);
+    const bad = await cli('plan', '--plan-reliability', '0.9', '--plan-time', '1000');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/needs --assumed-shape/);
   });
 });
