@@ -7,6 +7,7 @@
 import type { DatasetCandidate, DatasetReport } from '../../../core/index.js';
 import { escapeHtml as e } from '../escape.js';
 import { el } from '../dom.js';
+import { GLOSSARY } from './glossary.js';
 
 export type ChartSlot = 'life-probability' | 'hazard' | 'return-period' | 'capability-histogram';
 
@@ -33,6 +34,8 @@ export interface SectionBlock {
   readonly lines: readonly BlockLine[];
   readonly tables: readonly BlockTable[];
   readonly charts: readonly ChartSlot[];
+  /** Glossary keys (views/glossary.ts) of the symbols the block uses; linked under it on the page. */
+  readonly terms?: readonly string[];
 }
 
 /** What a section view is given: the report, the selected candidate (label capitalised), the units. */
@@ -66,6 +69,12 @@ export function blockNode(b: SectionBlock, chart: (slot: ChartSlot) => HTMLEleme
   if (b.charts.length > 0) sec.append(el('div', { className: 'decision-charts' }, ...b.charts.map((s) => chart(s))));
   sec.append(facts);
   for (const t of b.tables.filter((x) => x.folded)) sec.append(tableNode(t));
+  const terms = (b.terms ?? []).map((k) => GLOSSARY.find((g) => g.key === k)).filter((g) => g !== undefined);
+  if (terms.length > 0) {
+    const p = el('p', { className: 'block-terms small' }, 'Explained under “Words and symbols”: ');
+    terms.forEach((g, i) => p.append(i > 0 ? ', ' : '', el('a', { className: 'term', href: `#g-${g.key}` }, g.term)));
+    sec.append(p);
+  }
   return sec;
 }
 

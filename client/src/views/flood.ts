@@ -40,5 +40,6 @@ export const floodSection: SectionView = ({ report: r, selected: c, units: u }) 
     lines,
     tables,
     charts: ['return-period'],
+    terms: ['return', 'xi', 'plotpos'],
   };
 };

@@ -42,5 +42,6 @@ export const lifeSection: SectionView = ({ report: r, selected: c, units: u }) =
     lines,
     tables,
     charts: ['life-probability', 'hazard'],
+    terms: ['blife', 'censored', 'bounds', 'km', 'plotpos'],
   };
 };

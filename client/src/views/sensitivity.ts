@@ -48,5 +48,6 @@ export const sensitivitySection: SectionView = ({ report: r }) => {
       folded: true,
     }],
     charts: [],
+    terms: ['sensitivity'],
   };
 };

@@ -22,5 +22,6 @@ export const trendSection: SectionView = ({ report: r }) => {
       folded: true,
     }],
     charts: [],
+    terms: ['mk'],
   };
 };
