@@ -26,7 +26,7 @@ import { regionalText } from './regional-text.js';
 import { analyzeAll } from './batch-pool.js';
 import { readBatch, type BatchLayout } from './batch-read.js';
 import { summaryTable } from './batch-summary-text.js';
-import { readInputText } from './read-input.js';
+import { readInputText, type InputText } from './read-input.js';
 
 export interface BatchArgs extends BatchLayout {
   readonly file: string;
@@ -74,9 +74,9 @@ function progressReporter(total: number, io: BatchIo): { tick(done: number): voi
   };
 }
 
-export async function runBatch(args: BatchArgs, io: BatchIo): Promise<number> {
+export async function runBatch(args: BatchArgs, io: BatchIo, given?: InputText): Promise<number> {
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
-  const source = readInputText(args.file);
+  const source = given ?? readInputText(args.file);
   const read = readBatch(source.text, args, args.csv);
   for (const w of [...source.warnings, ...read.warnings]) io.err(`plumbline: warning: ${w}\n`);
   const records: SeriesRecord[] = read.series.filter((s) => inShard(s.key, args.shard));

@@ -18,7 +18,8 @@ import { columnArg, csvArgs, flagArg, parseArgs, type AnalyzeArgs } from './args
 import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
 import { needsTable, readDataset, withFileRow } from './read-dataset.js';
-import { readInputText } from './read-input.js';
+import { readInputText, type InputText } from './read-input.js';
+import { isParquetFile, parquetAsText } from './read-parquet.js';
 import { PIECES_MIN_BYTES, readColumnInPieces, regularFileSize } from './read-pieces.js';
 import { batchArgs, isBatch } from './batch-args.js';
 import { runBatch } from './batch.js';
@@ -76,8 +77,7 @@ export type JsonReport = AnyDatasetReport & {
  * Read the file and its value column (with the status, subgroup, order or grouped columns when
  * asked for); the file's text is not kept once the columns are read.
  */
-function readInput(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
-  const source = readInputText(args.file);
+function readInput(args: AnalyzeArgs, fileLabel: string, source: InputText = readInputText(args.file)): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
   const csv = csvArgs(args);
   if (needsTable(args)) {
     const d = readDataset(source.text, args, fileLabel, csv);
@@ -105,10 +105,10 @@ function readsInPieces(args: AnalyzeArgs): boolean {
   return size !== null && size >= PIECES_MIN_BYTES;
 }
 
-function analyzeCommand(args: AnalyzeArgs, io: CliIo): number {
+function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): number {
   if (isRecordedLife(args)) return runRecordedLife(args, io);
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
-  const { read, input, dataset, rowNumbers, hint } = readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
+  const { read, input, dataset, rowNumbers, hint } = source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
   if (hint) io.err(`plumbline: warning: ${hint}\n`);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);
@@ -175,6 +175,11 @@ export function runCli(argv: readonly string[], io: CliIo): number | Promise<num
     if (args.command === 'merge') return runMerge(args, io).catch(fail);
     if (args.command === 'plan') return runPlanCommand(args.options, io);
     file = args.file === '-' ? 'standard input' : args.file;
+    if (isParquetFile(args.file)) {
+      return parquetAsText(args.file)
+        .then((source) => (isBatch(args) ? runBatch(batchArgs(args), io, source) : analyzeCommand(args, io, source)))
+        .catch(fail);
+    }
     if (isBatch(args)) return runBatch(batchArgs(args), io).catch(fail);
     return analyzeCommand(args, io);
   } catch (e) {
