@@ -90,8 +90,9 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
   beforeAll(async () => {
     session = await openSession({ problems, open: true, acceptDownloads: true });
     ({ page } = session);
-    await waitForStatus(page, /^Done:/, 90_000);
-  }, 180_000);
+    // The opening censored demo runs its bootstrap; on a loaded machine that can take minutes.
+    await waitForStatus(page, /^Done:/, 240_000);
+  }, 300_000);
 
   afterAll(async () => {
     await session?.close();
@@ -104,7 +105,7 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
   async function openDemo(name: string): Promise<void> {
     await page.click(`#demo-list button[data-name="${name}"]`);
     await page.waitForFunction((n) => document.querySelector(`#demo-list button[data-name="${n}"]`)?.getAttribute('aria-pressed') === 'true', name);
-    await waitForStatus(page, /^Done:/, 90_000);
+    await waitForStatus(page, /^Done:/, 180_000);
     await page.waitForTimeout(300);
   }
 
@@ -210,35 +211,39 @@ describe.skipIf(SKIP_BROWSER)('page layout in Chromium', () => {
     expect(seen.binsChart).toBe(true);
   }, 120_000);
 
-  it('the exported report printed on A4 portrait: nothing wider than the page, the answer on the first page', async () => {
+  it('the exported report of every demo printed on A4 portrait: nothing wider than the page, the answer first and on the first page', async () => {
     await page.setViewportSize({ width: 1366, height: 768 });
-    await openDemo('bearing-life');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
-    const file = join(OUT, 'layout-report.html');
-    await download.saveAs(file);
     const report = await page.context().newPage();
-    await report.goto(pathToFileURL(file).href);
-    await report.emulateMedia({ media: 'print' });
     // A4 is 210 × 297 mm; less the report's @page margins (12 mm sides, 14 mm top and bottom) the
     // content box is 186 × 269 mm = 703 × 1016 CSS px at 96 px per inch (CSS Values 4, absolute lengths).
     await report.setViewportSize({ width: 703, height: 1016 });
-    const fit = await report.evaluate(() => {
-      const wide = [...document.querySelectorAll('body *')]
-        .filter((el) => el.closest('svg') === null || el.tagName.toLowerCase() === 'svg')
-        .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
-        .map((el) => `${el.tagName.toLowerCase()}.${el.getAttribute('class') ?? ''} right=${Math.round(el.getBoundingClientRect().right)}`);
-      return { scroll: document.documentElement.scrollWidth, wide: wide.slice(0, 10) };
-    });
-    expect(fit.wide, fit.wide.join('\n')).toEqual([]);
-    expect(fit.scroll).toBeLessThanOrEqual(703);
-    const heads = await report.locator('h2').allTextContents();
-    expect(heads[0]).toBe('The answer');
-    const answer = await report.locator('.answer').boundingBox();
-    expect(answer).not.toBeNull();
-    expect(answer!.y + answer!.height).toBeLessThanOrEqual(1016);
-    expect(await report.locator('.answer').textContent()).toMatch(/B10 life/);
-    const pdf = await report.pdf({ path: join(OUT, 'layout-report.pdf'), format: 'A4' });
-    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    for (const name of await demos()) {
+      await openDemo(name);
+      const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+      const file = join(OUT, `layout-report-${name}.html`);
+      await download.saveAs(file);
+      await report.goto(pathToFileURL(file).href);
+      await report.emulateMedia({ media: 'print' });
+      const fit = await report.evaluate(() => {
+        const wide = [...document.querySelectorAll('body *')]
+          .filter((el) => el.closest('svg') === null || el.tagName.toLowerCase() === 'svg')
+          .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
+          .map((el) => `${el.tagName.toLowerCase()}.${el.getAttribute('class') ?? ''} right=${Math.round(el.getBoundingClientRect().right)}`);
+        return { scroll: document.documentElement.scrollWidth, wide: wide.slice(0, 10) };
+      });
+      expect(fit.wide, `${name}: ${fit.wide.join('\n')}`).toEqual([]);
+      expect(fit.scroll, name).toBeLessThanOrEqual(703);
+      const heads = await report.locator('h2').allTextContents();
+      expect(heads[0], name).toBe('The answer');
+      const answer = await report.locator('.answer').boundingBox();
+      expect(answer, name).not.toBeNull();
+      expect(answer!.y + answer!.height, name).toBeLessThanOrEqual(1016);
+      if (name === 'bearing-life') {
+        expect(await report.locator('.answer').textContent()).toMatch(/B10 life/);
+        const pdf = await report.pdf({ path: join(OUT, 'layout-report.pdf'), format: 'A4' });
+        expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+      }
+    }
     await report.close();
-  }, 300_000);
+  }, 600_000);
 });
