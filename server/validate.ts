@@ -10,7 +10,6 @@ import {
   isGiven,
   jsonField,
   onSurface,
-  optionNamed,
   optionsOn,
   sectionOf,
   parseJsonOption,
@@ -51,11 +50,6 @@ type GroupedClass = NonNullable<DatasetInput['grouped']>[number];
 export interface JobRequest extends AnalyzeRequest {
   readonly client?: string;
 }
-
-/** The replicate limits, from the option table (server/API.md quotes them). */
-const REPLICATES = optionNamed('replicates');
-export const MIN_REPLICATES = REPLICATES?.min ?? 19;
-export const MAX_REPLICATES = REPLICATES?.max ?? 100_000;
 
 /** The options a request may carry (the table's API options); nested ones sit in their parent object. */
 const API_OPTIONS = optionsOn('api');
