@@ -57,6 +57,12 @@ export function applyOptionTable(): void {
     const c = control(id);
     if (!spec || !c) continue;
     c.title = spec.help;
+    if (c instanceof HTMLSelectElement && spec.choices) {
+      // The choices are the table's: the page's wording is kept for a choice it knows, the name shown for a new one.
+      const words = new Map([...c.options].map((o) => [o.value, o.textContent ?? o.value]));
+      clear(c);
+      for (const v of spec.choices) c.append(el('option', { value: v, selected: v === spec.default }, words.get(v) ?? v.replace(/-/g, ' ')));
+    }
     if (c instanceof HTMLInputElement && c.type === 'number') {
       if (spec.min !== undefined && Number.isFinite(spec.min)) c.min = String(spec.min);
       if (spec.max !== undefined && Number.isFinite(spec.max) && spec.max < 1e12) c.max = String(spec.max);
