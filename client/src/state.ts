@@ -160,7 +160,7 @@ function sourceLoaded(state: PageState, a: Extract<Action, { type: 'source-loade
   const previous = state.source && state.settingsNote.kind !== 'defaults' ? ` (the settings of ${state.source.name} stay with it)` : '';
   const settingsNote: SettingsNote = a.demo
     ? { kind: 'demo', text: `Demo settings: ${a.demo.description}. They belong to the ${a.source.name} demo; loading anything else starts from the defaults.` }
-    : { kind: 'defaults', text: `Default settings for ${a.source.name}${previous}. Nothing is carried over from the previous data.` };
+    : { kind: 'defaults', text: `Default settings for ${a.source.name}${previous}.${state.source ? ' Nothing is carried over from the previous data.' : ''}` };
   return {
     ...state,
     source: a.source,
