@@ -3,7 +3,7 @@
  * by replicate with progress reported (cli/progress.ts), then finishDataset. The report is the one
  * analyzeDataset gives (test/workflow/pipeline.test.ts).
  */
-import { finishDataset, planDataset, runBootstrapRange, type AnyDatasetReport, type DatasetInput, type DatasetOptions } from '../core/index.js';
+import { finishDataset, planDataset, runDatasetJob, type AnyDatasetReport, type DatasetInput, type DatasetOptions } from '../core/index.js';
 import type { Progress } from './progress.js';
 
 export function analyzeWithProgress(dataset: DatasetInput, options: DatasetOptions, progress: Progress): AnyDatasetReport {
@@ -13,7 +13,7 @@ export function analyzeWithProgress(dataset: DatasetInput, options: DatasetOptio
     const total = plan.jobs.reduce((s, j) => s + (j.end - j.start), 0);
     let before = 0;
     const counts = plan.jobs.map((job) => {
-      const c = runBootstrapRange(job, { onProgress: (done) => progress.replicates(before + done, total, job.family) });
+      const c = runDatasetJob(job, { onProgress: (done) => progress.replicates(before + done, total, job.family) });
       before += job.end - job.start;
       return c;
     });

@@ -1,5 +1,5 @@
 /** Messages between the worker pool (pool.ts) and its workers (worker.ts). */
-import type { BootstrapCounts, BootstrapJob } from '../core/index.js';
+import type { BootstrapCounts, DatasetJob } from '../core/index.js';
 import type { ErrorBody } from './errors.js';
 
 /** Which route a request body came from (decides the fields allowed). */
@@ -7,7 +7,7 @@ export type BodyKind = 'analyze' | 'job';
 
 export type ToWorker =
   /** Run bootstrap replicates [job.start, job.end). `cancel`: Int32Array(1) over it, non-zero = stop. */
-  | { readonly type: 'range'; readonly id: number; readonly job: BootstrapJob; readonly cancel: SharedArrayBuffer }
+  | { readonly type: 'range'; readonly id: number; readonly job: DatasetJob; readonly cancel: SharedArrayBuffer }
   /** Parse, validate and plan a request body (UTF-8 JSON bytes); finish at once when no bootstrap is needed. */
   | { readonly type: 'plan'; readonly id: number; readonly body: Uint8Array; readonly kind: BodyKind }
   /** Finish a plan kept by this worker with the combined bootstrap counts (one per job, in order). */
@@ -21,7 +21,7 @@ export type FromWorker =
   /** The finished response body (JSON text). */
   | { readonly type: 'result'; readonly id: number; readonly json: string; readonly client?: string }
   /** Planned; the bootstrap jobs must run before `finish` (token = this message's id). */
-  | { readonly type: 'planned'; readonly id: number; readonly jobs: readonly BootstrapJob[]; readonly client?: string }
+  | { readonly type: 'planned'; readonly id: number; readonly jobs: readonly DatasetJob[]; readonly client?: string }
   /** A client fault (bad body, bad data): answer with this status and error body. */
   | { readonly type: 'fault'; readonly id: number; readonly status: number; readonly body: ErrorBody }
   /** Done with a message that has no other reply (drop). */

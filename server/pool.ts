@@ -14,13 +14,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import {
-  PlumblineError,
-  combineBootstrapCounts,
-  splitBootstrapJob,
-  type BootstrapCounts,
-  type BootstrapJob,
-} from '../core/index.js';
+import { PlumblineError, combineBootstrapCounts, jobSampleSize, splitDatasetJob, type BootstrapCounts, type DatasetJob } from '../core/index.js';
 import { ClientFault, WorkerFailed, type Logger } from './errors.js';
 import type { BodyKind, FromWorker, ToWorker } from './pool-messages.js';
 
@@ -66,7 +60,7 @@ export interface PlanTicket {
 
 export type PlanOutcome =
   | { readonly kind: 'result'; readonly json: string; readonly client?: string }
-  | { readonly kind: 'planned'; readonly ticket: PlanTicket; readonly jobs: readonly BootstrapJob[]; readonly replicates: number; readonly client?: string };
+  | { readonly kind: 'planned'; readonly ticket: PlanTicket; readonly jobs: readonly DatasetJob[]; readonly replicates: number; readonly client?: string };
 
 const here = import.meta.url;
 const fromSource = here.endsWith('.ts');
@@ -84,7 +78,7 @@ export function rangeCount(replicates: number, n: number, workers: number): numb
   return Math.max(1, Math.min(replicates, Math.max(workers * 4, bySize)));
 }
 
-const cancelledCounts = (job: BootstrapJob): BootstrapCounts => ({ start: job.start, end: job.end, completed: 0, valid: 0, exceed: 0, failed: 0, cancelled: true });
+const cancelledCounts = (job: DatasetJob): BootstrapCounts => ({ start: job.start, end: job.end, completed: 0, valid: 0, exceed: 0, failed: 0, cancelled: true });
 
 export class WorkerPool {
   readonly size: number;
@@ -227,7 +221,7 @@ export class WorkerPool {
    * Run full-range jobs ([0, B) per family) and return one combined count per job, in order.
    * Throws PlumblineError 'cancelled' when the signal aborts.
    */
-  async run(jobs: readonly BootstrapJob[], opts: RunOptions = {}): Promise<BootstrapCounts[]> {
+  async run(jobs: readonly DatasetJob[], opts: RunOptions = {}): Promise<BootstrapCounts[]> {
     const total = jobs.reduce((s, j) => s + (j.end - j.start), 0);
     let done = 0;
     const report = (delta: number): void => {
@@ -237,8 +231,7 @@ export class WorkerPool {
     };
     const tasks: Task[] = [];
     const perJob = jobs.map((job) => {
-      const b = job.end - job.start;
-      const ranges = splitBootstrapJob(job, b, rangeCount(b, job.n, this.size)).map((r) => ({ ...r, start: r.start + job.start, end: r.end + job.start }));
+      const ranges = splitDatasetJob(job, rangeCount(job.end - job.start, jobSampleSize(job), this.size));
       return Promise.all(
         ranges.map(async (r) => {
           const cancel = new SharedArrayBuffer(4);

@@ -8,7 +8,7 @@
  *    for its bootstrap is kept here under a token until `finish` or `drop`.
  */
 import { parentPort } from 'node:worker_threads';
-import { runBootstrapRange, type BootstrapJob } from '../core/index.js';
+import { runDatasetJob, type DatasetJob } from '../core/index.js';
 import { finishRequest, planRequest, type PlannedRequest } from './analysis.js';
 import { badRequest, clientFault } from './errors.js';
 import type { FromWorker, ToWorker } from './pool-messages.js';
@@ -23,7 +23,7 @@ const kept = new Map<number, PlannedRequest>();
 const decoder = new TextDecoder('utf-8', { fatal: true });
 const post = (m: FromWorker): void => port.postMessage(m);
 
-function runRange(id: number, job: BootstrapJob, cancel: SharedArrayBuffer): void {
+function runRange(id: number, job: DatasetJob, cancel: SharedArrayBuffer): void {
   const flag = new Int32Array(cancel);
   const signal = {
     get aborted(): boolean {
@@ -31,7 +31,7 @@ function runRange(id: number, job: BootstrapJob, cancel: SharedArrayBuffer): voi
     },
   };
   let last = Date.now();
-  const counts = runBootstrapRange(job, {
+  const counts = runDatasetJob(job, {
     signal,
     onProgress: (done, total) => {
       const now = Date.now();

@@ -62,7 +62,8 @@ export function analyzeLife(input: LifeInput, options: LifeOptions = {}): LifeRe
     });
     const reliability = relTimes.map((t) => reliabilityAt(fit, data, t, confidence, boundMethod));
     const shapeInterval = fit.family === 'weibull' ? parameterInterval(fit, data, 'shape', confidence) : null;
-    const goodnessOfFit = B > 0 ? censoredGofBootstrap(fit, data, { replicates: B, seed: (options.seed ?? 20261201) + 7919 * LIFE_FAMILIES.indexOf(fit.family) }) : null;
+    const gofSeed = (options.seed ?? 20261201) + 7919 * LIFE_FAMILIES.indexOf(fit.family);
+    const goodnessOfFit = B > 0 ? (options.goodnessOfFit ? options.goodnessOfFit(fit, data, B, gofSeed) : censoredGofBootstrap(fit, data, { replicates: B, seed: gofSeed })) : null;
     if (goodnessOfFit && goodnessOfFit.failedReplicates > 0) {
       w.push(`${goodnessOfFit.failedReplicates} of ${B} bootstrap replicates could not be refitted and were left out of the p-value.`);
     }

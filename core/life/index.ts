@@ -12,9 +12,10 @@ export { bLife, reliabilityAt, parameterInterval, type BLife, type ReliabilityAt
 export { plotPositions, johnsonBenardPositions, kaplanMeierPositions, weibullScaleY, lognormalScaleY, type PlotPositions, type PlotPoint, type PlotCoordinates, type PlotPositionMethod } from './positions.js';
 export { censoredAndersonDarling } from './anderson-darling.js';
 export { censoredGofBootstrap, CENSORED_AD_METHOD, type CensoredGofResult, type BootstrapOptions } from './bootstrap.js';
+export { runCensoredGofRange, censoredGofFromCounts, type CensoredGofJob, type CensoredRangeOptions } from './bootstrap-range.js';
 export { lifeCurves, logGrid, type LifeCurves } from './curves.js';
 export { analyzeLife, FEW_FAILURES, CHI_SQUARE_NOT_APPLICABLE } from './analyze.js';
-export type { LifeOptions, LifeReport, LifeSampleSummary, LifeCandidate, LifeNotFitted, LifeMethodNote } from './types.js';
+export type { CensoredGofHook, LifeOptions, LifeReport, LifeSampleSummary, LifeCandidate, LifeNotFitted, LifeMethodNote } from './types.js';
 export { prepareIntervalLifeData, intervalInputFromTimes, censoringKind, type IntervalLifeInput, type IntervalLifeData, type CensoringKind } from './interval-likelihood-data.js';
 export { intervalLogLikelihood, intervalLogLikelihoodOf } from './interval-likelihood.js';
 export { fitInterval } from './interval-likelihood-fit.js';

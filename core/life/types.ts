@@ -2,6 +2,8 @@
 import type { CandidateScores } from '../report.js';
 import type { BLife, BoundedEstimate, BoundMethod, ReliabilityAt } from './bounds.js';
 import type { CensoredGofResult } from './bootstrap.js';
+import type { LifeData } from './data.js';
+import type { CensoredFitSuccess } from './fit.js';
 import type { LifeCurves } from './curves.js';
 import type { LifeFamilyName } from './models.js';
 import type { PlotPositionMethod, PlotPositions } from './positions.js';
@@ -24,7 +26,16 @@ export interface LifeOptions {
   readonly plotPositions?: PlotPositionMethod;
   /** Points on the curve grid (default 60). */
   readonly curvePoints?: number;
+  /**
+   * The goodness of fit of one fitted family, given its replicates B and seed; default: the
+   * in-process censoredGofBootstrap. A caller may run the replicates elsewhere by range
+   * (bootstrap-range.ts; core/workflow/pipeline.ts) and hand the result back here.
+   */
+  readonly goodnessOfFit?: CensoredGofHook;
 }
+
+/** See LifeOptions.goodnessOfFit. */
+export type CensoredGofHook = (fit: CensoredFitSuccess, data: LifeData, replicates: number, seed: number) => CensoredGofResult | null;
 
 export interface LifeMethodNote {
   readonly topic: string;

@@ -9,6 +9,7 @@
  */
 import { runPlanBootstrap, type AnalyzeOptions, type BootstrapRunner } from '../analyze.js';
 import { InputError, PlumblineError } from '../errors.js';
+import type { CensoredGofHook } from '../life/index.js';
 import { finishComplete, planComplete, type CompleteInput } from './complete.js';
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
@@ -18,7 +19,7 @@ import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, Gro
 /** What the data are and how they are analysed (also used by core/workflow/pipeline.ts). */
 export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
-  | { readonly kind: 'life'; readonly run: () => DatasetReport }
+  | { readonly kind: 'life'; readonly run: (goodnessOfFit?: CensoredGofHook) => DatasetReport; readonly times: ArrayLike<number>; readonly status: ArrayLike<number> }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
 export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
@@ -39,7 +40,7 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
     if (input.subgroups || input.order || options.trend) {
       throw new InputError('Subgroups and the trend check apply to a complete sample, not to life data with a status column.', {}, 'bad-option');
     }
-    return { kind: 'life', run: () => lifeReport(values, status, options, settings) };
+    return { kind: 'life', run: (gof) => lifeReport(values, status, options, settings, gof), times: values, status };
   }
   if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
     throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');

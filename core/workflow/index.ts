@@ -4,4 +4,4 @@ export { analyzeDataset, analyzeDatasetAsync } from './analyze-dataset.js';
 export { DEFAULT_CONFIDENCE } from './options.js';
 export { DEFAULT_LIFE_REPLICATES } from './life.js';
 export { GROUPED_DOF_RULE } from './grouped.js';
-export { planDataset, finishDataset, censoredBootstrapWork, type DatasetPlan } from './pipeline.js';
+export { planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, jobSampleSize, splitDatasetJob, type DatasetPlan, type DatasetJob } from './pipeline.js';

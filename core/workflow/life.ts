@@ -8,7 +8,7 @@
 import { PLUMBLINE_VERSION, resolveOptions } from '../analyze.js';
 import { InputError } from '../errors.js';
 import { formatNumber } from '../gof/index.js';
-import { analyzeLife, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type LifeCandidate, type LifeFamilyName } from '../life/index.js';
+import { analyzeLife, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type CensoredGofHook, type LifeCandidate, type LifeFamilyName } from '../life/index.js';
 import { RANKING_RULE, verdict } from '../rank.js';
 import type { AndersonDarlingReport, MethodNote, NotApplicableReport } from '../report.js';
 import { prepareSample } from '../sample.js';
@@ -29,7 +29,8 @@ function summaryOf(times: ArrayLike<number>): DatasetReport['summary'] {
   return { min: s.min, max: s.max, mean: s.mean, sd: s.n > 1 ? Math.sqrt(s.sumSqDev / (s.n - 1)) : 0, distinct: s.distinct };
 }
 
-export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, options: DatasetOptions, settings: WorkflowSettings): DatasetReport {
+/** `goodnessOfFit`: where the censored bootstrap runs (default in-process; see core/workflow/pipeline.ts). */
+export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, options: DatasetOptions, settings: WorkflowSettings, goodnessOfFit?: CensoredGofHook): DatasetReport {
   if (settings.returnPeriods !== null) throw new InputError('Return periods need a complete sample of annual maxima, not life data with a status column.', {}, 'bad-option');
   if (settings.capability) throw new InputError('Capability needs a complete sample of measurements, not life data with a status column.', {}, 'bad-option');
   const families = (options.families ?? LIFE_FAMILIES) as readonly string[];
@@ -62,6 +63,7 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
       bootstrapReplicates: replicates,
       seed: opts.seed,
       ...(options.lifePlotPositions !== undefined ? { plotPositions: options.lifePlotPositions } : {}),
+      ...(goodnessOfFit ? { goodnessOfFit } : {}),
     },
   );
   const alpha = opts.alpha;

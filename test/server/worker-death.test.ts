@@ -23,8 +23,8 @@ const values = Array.from(getFamily('weibull').random({ shape: 1.6, scale: 80 },
 const longJob = { values, families: ['weibull', 'gamma'], pMethod: 'bootstrap', replicates: 100000 };
 
 /** The pool's worker threads (private; reached here only to end one from outside). */
-function workers(): { worker: Worker; task: unknown }[] {
-  return (app.pool as unknown as { slots: { worker: Worker; task: unknown }[] }).slots;
+function workers(): { worker: Worker; task: unknown; kept: Set<number> }[] {
+  return (app.pool as unknown as { slots: { worker: Worker; task: unknown; kept: Set<number> }[] }).slots;
 }
 
 async function until<T>(f: () => T | undefined | false, what: string): Promise<T> {
@@ -38,13 +38,15 @@ async function until<T>(f: () => T | undefined | false, what: string): Promise<T
 }
 
 describe('a worker that dies under a job', () => {
-  it('fails the job with the retry message and cancels its other ranges', async () => {
+  it('fails the job with the retry message and cancels its other ranges (a worker that does not keep the plan dies)', async () => {
     const created = await request(app).post('/api/jobs').send(longJob);
     expect(created.status).toBe(202);
     const id = created.body.id as string;
     // Both workers busy with this job's ranges.
     await until(() => workers().length === 2 && workers().every((w) => w.task !== null), 'both workers busy');
-    const victim = workers()[0] as { worker: Worker };
+    // The worker that does NOT keep the job's plan: its death must stop the ranges on the other one.
+    const victim = workers().find((w) => w.kept.size === 0) as { worker: Worker };
+    expect(victim).toBeDefined();
     await victim.worker.terminate();
     const failed = await until(() => {
       const v = app.jobs.get(id);

@@ -12,8 +12,8 @@ import {
   finishDataset,
   getFamily,
   planDataset,
-  runBootstrapRange,
-  splitBootstrapJob,
+  runDatasetJob,
+  splitDatasetJob,
   type DatasetInput,
   type DatasetOptions,
 } from '../../core/index.js';
@@ -23,9 +23,7 @@ const weibull = (n: number, seed: number): number[] => Array.from(getFamily('wei
 function viaPipeline(input: DatasetInput, options: DatasetOptions): unknown {
   const plan = planDataset(input, options);
   if (plan.kind === 'done') return plan.report;
-  const counts = plan.jobs.map((job) =>
-    combineBootstrapCounts(splitBootstrapJob(job, job.end - job.start, 3).map((r) => runBootstrapRange({ ...r, start: r.start + job.start, end: r.end + job.start }))),
-  );
+  const counts = plan.jobs.map((job) => combineBootstrapCounts(splitDatasetJob(job, 3).map((r) => runDatasetJob(r))));
   return finishDataset(plan, counts);
 }
 
@@ -34,7 +32,7 @@ describe('planDataset / finishDataset', () => {
     ['plain complete sample, bootstrap p-values', { values: weibull(60, 1) }, { families: ['weibull', 'gamma'], pMethod: 'bootstrap', bootstrapReplicates: 59 }],
     ['flood options (GEV needs the bootstrap)', { values: weibull(40, 2), order: Array.from({ length: 40 }, (_, i) => 1980 + i) }, { returnPeriods: [10, 100], bootstrapReplicates: 19 }],
     ['capability with subgroups', { values: weibull(30, 3).map((x) => 25 + x / 1e4), subgroups: Array.from({ length: 30 }, (_, i) => Math.floor(i / 5)) }, { lsl: 24.99, usl: 25.03 }],
-    ['censored life data (planned in one piece)', { values: weibull(30, 4), status: Array.from({ length: 30 }, (_, i) => (i % 3 === 0 ? 0 : 1)) }, { bootstrapReplicates: 19 }],
+    ['censored life data (censored bootstrap by ranges)', { values: weibull(30, 4), status: Array.from({ length: 30 }, (_, i) => (i % 3 === 0 ? 0 : 1)) }, { bootstrapReplicates: 19 }],
     ['grouped counts', { grouped: [{ lower: Number.NEGATIVE_INFINITY, upper: 1, count: 12 }, { lower: 1, upper: 2, count: 30 }, { lower: 2, upper: 3, count: 25 }, { lower: 3, upper: Number.POSITIVE_INFINITY, count: 9 }] }, {}],
   ];
   for (const [name, input, options] of cases) {
@@ -48,5 +46,18 @@ describe('planDataset / finishDataset', () => {
     expect(plan.kind).toBe('complete');
     if (plan.kind !== 'complete') return;
     expect(plan.jobs.map((j) => [j.family, j.start, j.end, j.n])).toEqual([['weibull', 0, 99, 50]]);
+  });
+
+  it('censored life data: one censored job per fitted family, over the units as given', () => {
+    const times = weibull(20, 6);
+    const status = times.map((_, i) => (i % 4 === 0 ? 0 : 1));
+    const plan = planDataset({ values: times, status }, { families: ['weibull', 'lognormal'], bootstrapReplicates: 29 });
+    expect(plan.kind).toBe('life');
+    if (plan.kind !== 'life') return;
+    expect(plan.jobs.map((j) => [j.kind, j.family, j.start, j.end, j.times.length])).toEqual([
+      ['censored', 'weibull', 0, 29, 20],
+      ['censored', 'lognormal', 0, 29, 20],
+    ]);
+    expect(plan.jobs[0]?.failed).toEqual(status);
   });
 });

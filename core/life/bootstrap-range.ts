@@ -1,0 +1,112 @@
+/**
+ * The censored Anderson–Darling bootstrap of bootstrap.ts by replicate range, so that ranges can
+ * run anywhere (worker threads) and be added up: replicate b always draws from `createRng(seed, b)`
+ * and refits from the same warm start, so the counts over [start, end) are a pure function of the
+ * job and the sum over any split equals the one-piece run (as core/gof/bootstrap.ts does for
+ * complete samples). The method and its sources are described in bootstrap.ts.
+ *
+ * p = (1 + #{A²_b ≥ A²_obs}) / (1 + B_valid), with its binomial Monte Carlo standard error.
+ */
+import { getFamily, type Parameters } from '../families/index.js';
+import type { BootstrapCounts, CancelSignal } from '../gof/index.js';
+import { createRng } from '../random/index.js';
+import { censoredAndersonDarling } from './anderson-darling.js';
+import { CENSORED_AD_METHOD, censoringDistribution, type CensoredGofResult } from './bootstrap.js';
+import { buildLifeData, prepareLifeData, type LifeData } from './data.js';
+import { fitCensored } from './fit.js';
+import type { LifeFamilyName } from './models.js';
+
+/** A serialisable range of censored bootstrap replicates (structured-clone safe). */
+export interface CensoredGofJob {
+  readonly kind: 'censored';
+  readonly family: LifeFamilyName;
+  /** The fitted parameters (the model the replicates are drawn from, and the refits' warm start). */
+  readonly parameters: Parameters;
+  /** The life data as given (any order): times and 1 = failed / 0 = suspended. */
+  readonly times: readonly number[];
+  readonly failed: readonly number[];
+  /** Observed censored A² at the fitted parameters. */
+  readonly observed: number;
+  readonly seed: number;
+  readonly start: number;
+  readonly end: number;
+}
+
+export interface CensoredRangeOptions {
+  readonly signal?: CancelSignal;
+  /** After each replicate: replicates done in this range and the range's size. */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+/** Run replicates [job.start, job.end) on prepared data (bootstrap.ts runs the whole range this way). */
+export function runCensoredReplicates(
+  family: LifeFamilyName,
+  parameters: Parameters,
+  data: LifeData,
+  observed: number,
+  seed: number,
+  start: number,
+  end: number,
+  opts: CensoredRangeOptions = {},
+): BootstrapCounts {
+  const fam = getFamily(family);
+  const n = data.n;
+  const G = censoringDistribution(data);
+  const t = new Float64Array(n);
+  const f = new Uint8Array(n);
+  let exceed = 0;
+  let valid = 0;
+  let failed = 0;
+  let completed = 0;
+  let cancelled = false;
+  for (let b = start; b < end; b++) {
+    if (opts.signal?.aborted) {
+      cancelled = true;
+      break;
+    }
+    completed++;
+    const rng = createRng(seed, b);
+    const life = fam.random(parameters, rng, n);
+    for (let i = 0; i < n; i++) {
+      const x = life[i] as number;
+      const c = data.failed[i] ? G.drawBeyond(data.times[i] as number, rng.uniform()) : (data.times[i] as number);
+      if (x <= c) {
+        t[i] = x;
+        f[i] = 1;
+      } else {
+        t[i] = c;
+        f[i] = 0;
+      }
+    }
+    const sim = buildLifeData(t, f);
+    const rf = fitCensored(family, sim, { warmStart: parameters });
+    const a = rf.ok && Number.isFinite(rf.logLikelihood) ? censoredAndersonDarling(fam.make(rf.parameters), sim) : Number.NaN;
+    if (!Number.isFinite(a)) failed++;
+    else {
+      valid++;
+      if (a >= observed) exceed++;
+    }
+    opts.onProgress?.(completed, end - start);
+  }
+  return { start, end, completed, valid, exceed, failed, cancelled };
+}
+
+/** Run one job's range. Pure: same job, same counts. */
+export function runCensoredGofRange(job: CensoredGofJob, opts: CensoredRangeOptions = {}): BootstrapCounts {
+  const data = prepareLifeData({ times: job.times, failed: job.failed });
+  return runCensoredReplicates(job.family, job.parameters, data, job.observed, job.seed, job.start, job.end, opts);
+}
+
+/** The p-value result from the observed statistic and the counts over the whole range. */
+export function censoredGofFromCounts(observed: number, counts: BootstrapCounts): CensoredGofResult {
+  const ok = counts.valid;
+  const p = (1 + counts.exceed) / (1 + ok);
+  return {
+    statistic: observed,
+    pValue: p,
+    replicates: ok,
+    failedReplicates: counts.failed,
+    monteCarloError: ok > 0 ? Math.sqrt((p * (1 - p)) / ok) : Number.NaN,
+    method: CENSORED_AD_METHOD,
+  };
+}
