@@ -82,7 +82,7 @@ export function capabilityExtensionLines(c: CapabilitySection): string[] {
 
   const s = c.stability;
   if (s) {
-    out.push(wrap(`${s.kind} (order from the ${s.orderFrom}); sigma ${f4(s.sigma)} from ${s.sigmaMethod}. ${s.statement} (${s.source}.)`, '  Stability: ', '  '));
+    out.push(wrap(`${s.kind} (order from the ${s.orderFrom}${s.scale && s.scale !== 'original' ? `, on the ${s.scale} scale` : ''}); sigma ${f4(s.sigma)} from ${s.sigmaMethod}. ${s.statement} (${s.source}.)`, '  Stability: ', '  '));
   }
   return out;
 }

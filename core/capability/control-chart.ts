@@ -40,6 +40,8 @@ export interface StabilityChart {
   readonly pointsBeyond: number;
   readonly stable: boolean;
   readonly orderFrom: 'order column' | 'row order' | 'subgroup column';
+  /** The scale charted: 'original' or the transformation's name (set by the caller). */
+  readonly scale?: string;
   readonly statement: string;
   readonly source: string;
 }

@@ -17,7 +17,9 @@ import { percentileIntervals, type PercentileIntervals } from './bootstrap.js';
 import { compareModels, type ComparisonCandidate, type ModelComparison } from './comparison.js';
 import { individualsChart, subgroupChart, type StabilityChart } from './control-chart.js';
 import type { SpecLimits } from './indices.js';
-import { makeModel } from './model.js';
+import { makeModel, type ModelSpec } from './model.js';
+import { boxCoxTransform } from './boxcox.js';
+import { johnsonZ } from './johnson.js';
 import { transformedCapability, type TransformedCapability } from './transformed.js';
 
 export interface ExtensionCandidate {
@@ -71,6 +73,12 @@ export interface CapabilityExtensions {
 
 const fmt = (v: number): string => String(Number(v.toPrecision(4)));
 
+function transformValue(model: ModelSpec, x: number): number {
+  if (model.kind === 'boxcox') return boxCoxTransform(x, model.lambda);
+  if (model.kind === 'johnson') return johnsonZ(model, x);
+  return x;
+}
+
 export function capabilityExtensions(input: CapabilityExtensionsInput): CapabilityExtensions {
   const { limits, alpha, sorted } = input;
   const warnings: string[] = [];
@@ -123,19 +131,33 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
   ];
   const comparison = compareModels({ mean: input.mean, sd: input.sd, rejectedBy: normal ? normal.rejectedBy : [] }, rows, limits, b);
 
+  // Shewhart limits assume roughly normal values: with a fitted transformation the chart is drawn on
+  // the transformed scale (where the model is normal), so a long tail does not raise false alarms.
   let stability: StabilityChart | null = null;
+  const candidateTr = transform.kind !== 'none' && transform.normality.passes ? transform : null;
+  const transformed = candidateTr ? Float64Array.from(input.values as ArrayLike<number>, (x) => transformValue(candidateTr.model, x)) : null;
+  // a value outside a Johnson SB/SL curve's bounds has no finite transformed value: chart the original scale then
+  const tr = transformed && transformed.every(Number.isFinite) ? candidateTr : null;
+  const scaled: ArrayLike<number> = tr && transformed ? transformed : input.values;
+  const scaleName = tr ? (tr.kind === 'boxcox' ? `Box–Cox transformed (λ = ${fmt(tr.lambda as number)})` : `Johnson ${tr.type as string} transformed`) : 'original';
   try {
+    let chart: StabilityChart | null = null;
     if (input.subgroups) {
       const map = new Map<string | number, number[]>();
-      for (let i = 0; i < input.values.length; i++) {
+      for (let i = 0; i < scaled.length; i++) {
         const k = input.subgroups[i] as string | number;
         const list = map.get(k) ?? [];
-        list.push(input.values[i] as number);
+        list.push(scaled[i] as number);
         map.set(k, list);
       }
       const groups = [...map.entries()].map(([label, values]) => ({ label, values }));
-      stability = groups.some((g) => g.values.length >= 2) ? subgroupChart(groups) : individualsChart(input.values, input.order);
-    } else if (input.order) stability = individualsChart(input.values, input.order);
+      chart = groups.some((g) => g.values.length >= 2) ? subgroupChart(groups) : individualsChart(scaled, input.order);
+    } else if (input.order) chart = individualsChart(scaled, input.order);
+    if (chart) {
+      const normal = input.candidates.find((c) => c.family === 'normal');
+      const skewNote = !tr && normal && normal.rejectedBy.length > 0 ? ' The limits assume roughly normal values and the normal model is rejected here: points beyond on the long-tail side may be false alarms; a transformation (Box–Cox or Johnson) charts the data on a scale where they are normal.' : '';
+      stability = { ...chart, scale: scaleName, statement: chart.statement + skewNote };
+    }
   } catch (e) {
     if (!(e instanceof PlumblineError) || e.code === 'cancelled') throw e;
     warnings.push(`No stability chart: ${e.message}`);

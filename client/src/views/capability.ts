@@ -1,62 +1,132 @@
 /**
- * The capability section, led by the answer: how much of the tolerance the process uses (Ppk with
- * its lower bound) and how many parts fall outside; then, model by model, what the share outside
- * would be; the indices themselves (overall and within-subgroup spread in one table, each row
- * saying which spread it uses) on demand. Pure.
+ * The capability section, built around three questions: can this process meet the tolerance, by
+ * how much (the room between the process's 0.135 % / 99.865 % points and each limit, and the share
+ * expected outside), and what would change that (centering, the model one believes, the process's
+ * stability). Only models that pass the tests carry the answer; rejected ones are listed apart.
+ * Every number names its model and the spread it uses. Pure: report in, block out.
  */
-import { capital } from '../families.js';
+import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
 import { sig } from '../format.js';
 import type { BlockLine, BlockTable, SectionView } from './block.js';
 import { pct } from './numbers.js';
-import { testWords } from './test-words.js';
 
-/** Parts per million in words: "12 ppm (3 below LSL, 9 above USL)". */
-function ppmWords(p: { belowLsl: number; aboveUsl: number; total: number }): string {
-  return `${sig(p.total, 3)} ppm (${sig(p.belowLsl, 3)} below LSL, ${sig(p.aboveUsl, 3)} above USL)`;
+type Cap = NonNullable<DatasetReport['capability']>;
+
+/** "12 ppm, about 1 part in 83,000" (or "none expected"). */
+export function shareWords(ppm: number): string {
+  if (!(ppm > 0)) return 'none expected';
+  const oneIn = 1e6 / ppm;
+  const inWords = oneIn >= 2 ? `, about 1 part in ${sig(oneIn, 2)}` : '';
+  return `${sig(ppm, 3)} ppm${inWords}`;
 }
 
-export const capabilitySection: SectionView = ({ report: r, selected: c, units: u }) => {
+function intervalOf(name: string, iv: PercentileIntervals | null | undefined): string {
+  const i = iv?.intervals?.find((x) => x.name === name);
+  return i ? ` (${pct(i.confidence)} bootstrap interval ${sig(i.lower, 3)} to ${sig(i.upper, 3)})` : '';
+}
+
+/** The model the answer stands on: the transformation if it passes, else the normal if it passes, else the best passing fitted model. */
+function answerRow(cap: Cap): ComparisonRow | null {
+  const passing = cap.comparison?.passing ?? [];
+  return passing.find((r) => r.kind === 'transformation') ?? passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
+}
+
+function headroom(cap: Cap, u: string): BlockLine[] {
+  const q = cap.transform && cap.transform.kind !== 'none' ? cap.transform.percentile : cap.percentile;
+  const lines: BlockLine[] = [];
+  const unit = u ? ` ${u}` : '';
+  const lo = q ? q.lowerQuantile : cap.mean - 3 * cap.sdOverall;
+  const hi = q ? q.upperQuantile : cap.mean + 3 * cap.sdOverall;
+  const basis = q ? `under ${q.family}` : 'under the normal model (mean ± 3 overall sd)';
+  if (cap.usl !== null) {
+    const room = cap.usl - hi;
+    lines.push({ kind: room >= 0 ? 'fact' : 'warning', text: `Upper side: the 99.865 % point (${sig(hi, 5)}${unit}) is ${sig(Math.abs(room), 3)}${unit} ${room >= 0 ? 'inside' : 'beyond'} the USL ${basis}.` });
+  }
+  if (cap.lsl !== null) {
+    const room = lo - cap.lsl;
+    lines.push({ kind: room >= 0 ? 'fact' : 'warning', text: `Lower side: the 0.135 % point (${sig(lo, 5)}${unit}) is ${sig(Math.abs(room), 3)}${unit} ${room >= 0 ? 'inside' : 'beyond'} the LSL ${basis}.` });
+  }
+  return lines;
+}
+
+function comparisonRows(rows: readonly ComparisonRow[]): string[][] {
+  return rows.map((r) => {
+    const ppk = r.indices.find((i) => i.name === 'Ppk');
+    const sides = `${sig(r.ppmBelow, 3)} below, ${sig(r.ppmAbove, 3)} above`;
+    return [r.model, r.kind === 'normal' ? 'overall sd (n − 1)' : 'its 0.135 %, 50 %, 99.865 % points', ppk ? sig(ppk.estimate, 3) : '—', `${shareWords(r.ppmTotal)} (${sides})`, r.support, ...(r.passes ? [] : [r.rejectedBy.join(', ')])];
+  });
+}
+
+export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   const cap = r.capability;
   if (!cap) return null;
   const limits = [cap.lsl !== null ? `LSL ${sig(cap.lsl, 6)}` : 'no lower limit', cap.usl !== null ? `USL ${sig(cap.usl, 6)}` : 'no upper limit', ...(cap.target !== null ? [`target ${sig(cap.target, 6)}`] : [])];
-  const ppk = cap.overall.find((x) => x.name === 'Ppk');
-  const under = c?.ppmOutOfSpec ? { label: c.label, ppm: c.ppmOutOfSpec } : { label: 'the normal model (overall mean and sd)', ppm: cap.normalPpm };
-  const gateFails = cap.normality !== undefined && cap.normality !== null && !cap.normality.passes;
-  const answer = ppk
-    ? `Ppk ${sig(ppk.estimate, 3)}, lower bound ${sig(ppk.lower, 3)} (two-sided ${pct(cap.confidence)}): about ${ppmWords(under.ppm)} outside the tolerance under ${under.label}.${gateFails ? ' The normal model fails its test, so read the percentile method below.' : ''}`
-    : undefined;
+  const row = answerRow(cap);
+  const t = cap.transform;
+  const chosenIntervals = row?.kind === 'transformation' && t && t.kind !== 'none' ? t.intervals : row && row.kind === 'fitted model' ? cap.percentileIntervals : null;
+  const ppk = row?.indices.find((i) => i.name === 'Ppk');
+  const unstable = cap.stability ? !cap.stability.stable : false;
+  const first = unstable ? 'Not yet answerable with confidence — the process is not shown to be stable. ' : '';
+  const answer = row
+    ? `${first}${unstable ? 'As measured: a' : 'A'}bout ${shareWords(row.ppmTotal)} outside the tolerance under ${row.model}${ppk ? `; Ppk ${sig(ppk.estimate, 3)}${intervalOf('Ppk', chosenIntervals)}` : ''}.`
+    : `${first}No model passes the tests, so no share outside the tolerance can be stated with a model behind it; the rejected models below show what each would say.`;
+
   const lines: BlockLine[] = [
     { kind: 'fact', text: `Tolerance: ${limits.join(', ')}${u ? ` (${u})` : ''}. n = ${cap.n}, mean ${sig(cap.mean, 6)}, overall sd ${sig(cap.sdOverall, 4)} (n − 1).` },
   ];
-  if (cap.normality) lines.push({ kind: cap.normality.passes ? 'fact' : 'warning', text: `Normality gate: ${cap.normality.statement}` });
-  else lines.push({ kind: 'note', text: 'Normality gate: the normal model was not among the candidates.' });
-  lines.push({ kind: 'note', text: cap.gateRule });
-  // What would change it: the share outside under every fitted model, the tests' word on each.
-  for (const m of r.candidates.filter((x) => x.ppmOutOfSpec)) {
-    lines.push({ kind: 'fact', text: `Under ${capital(m.label)} (${m.rejectedBy.length === 0 ? 'no test rejects it' : `rejected by ${testWords(m.rejectedBy)}`}): ${ppmWords(m.ppmOutOfSpec!)} outside.` });
+  if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
+  // By how much
+  lines.push(...headroom(cap, u));
+  // What would change it
+  const pp = cap.overall.find((x) => x.name === 'Pp');
+  const ppkN = cap.overall.find((x) => x.name === 'Ppk');
+  if (pp && ppkN && pp.estimate > ppkN.estimate * 1.05) {
+    lines.push({ kind: 'note', text: `Centering: the process sits off the middle of the tolerance; centred, its normal-theory Pp ${sig(pp.estimate, 3)} is what Ppk (${sig(ppkN.estimate, 3)}) could become.` });
   }
-  lines.push({ kind: 'fact', text: `Under a normal model with the overall mean and sd: ${ppmWords(cap.normalPpm)} outside.` });
-  const rows: string[][] = cap.overall.map((x) => [x.name, 'overall sd (n − 1)', sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);
-  if (cap.within) for (const x of cap.within.indices) rows.push([x.name, `within subgroups: ${cap.within.description}, ${cap.within.subgroups} subgroups (σ ${sig(cap.within.sigma, 4)})`, sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);
-  const tables: BlockTable[] = [
-    { caption: `Capability indices, each with the spread it uses; two-sided ${pct(cap.confidence)} intervals.`, head: ['Index', 'Spread used', 'Estimate', 'Interval', 'Interval method'], rows, folded: true },
-  ];
-  if (cap.percentile) {
+  const spread = cap.comparison?.spread;
+  if (spread) lines.push({ kind: 'note', text: `The model matters: among models that pass the tests, the share outside ranges from ${sig(spread.lowest, 3)} ppm (${spread.lowestModel}) to ${sig(spread.highest, 3)} ppm (${spread.highestModel}).` });
+  if (cap.stability) lines.push({ kind: cap.stability.stable ? 'fact' : 'warning', text: `Stability (${cap.stability.kind}, order from the ${cap.stability.orderFrom}${cap.stability.scale && cap.stability.scale !== 'original' ? `, on the ${cap.stability.scale} scale` : ''}): ${cap.stability.statement}` });
+  else lines.push({ kind: 'note', text: 'Stability not checked: give an order or subgroup column to see a control chart; indices of an unstable process do not predict its future.' });
+  if (cap.normality) lines.push({ kind: cap.normality.passes ? 'fact' : 'warning', text: `Normality gate: ${cap.normality.statement}` });
+  if (t && t.kind !== 'none') {
+    const what = t.kind === 'boxcox' ? `Box–Cox λ = ${sig(t.lambda ?? Number.NaN, 4)} (${pct(t.lambdaInterval?.confidence ?? 0.95)} profile interval ${sig(t.lambdaInterval?.lower ?? null, 3)} to ${sig(t.lambdaInterval?.upper ?? null, 3)})` : `Johnson ${t.type ?? ''} curve`;
+    lines.push({ kind: t.normality.passes ? 'fact' : 'warning', text: `Transformation: ${what}; the transformed values ${t.normality.passes ? 'pass' : 'fail'} the Anderson–Darling test (A² = ${sig(t.normality.statistic, 3)}, p = ${sig(t.normality.pValue, 2)}). ${t.normality.caveat} Model support: ${t.support.text}.` });
+  }
+
+  const tables: BlockTable[] = [];
+  const idxRows: string[][] = cap.overall.map((x) => [x.name, 'overall sd (n − 1)', sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);
+  if (cap.within) for (const x of cap.within.indices) idxRows.push([x.name, `within subgroups: ${cap.within.description} (σ ${sig(cap.within.sigma, 4)})`, sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);
+  tables.push({ caption: `Normal-theory indices, each with the spread it uses; two-sided ${pct(cap.confidence)} intervals.`, head: ['Index', 'Spread used', 'Estimate', 'Interval', 'Interval method'], rows: idxRows, folded: true });
+  if (cap.comparison) {
+    tables.push({ caption: 'Share outside the tolerance under each model that passes the tests (the model and the spread each number uses).', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on'], rows: comparisonRows(cap.comparison.passing) });
+    if (cap.comparison.rejected.length > 0) {
+      tables.push({ caption: 'Models the tests reject: not used for the answer and not in the spread.', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on', 'Rejected by'], rows: comparisonRows(cap.comparison.rejected), folded: true });
+    }
+  }
+  if (t && t.kind !== 'none') {
     tables.push({
-      caption: `Percentile method (ISO 22514-2) under ${cap.percentile.family}: quantiles 0.135 % = ${sig(cap.percentile.lowerQuantile, 6)}, median ${sig(cap.percentile.median, 6)}, 99.865 % = ${sig(cap.percentile.upperQuantile, 6)}. ${cap.percentile.method}`,
-      head: ['Index', 'Estimate'],
-      rows: cap.percentile.indices.map((x) => [x.name, sig(x.estimate, 4)]),
-      folded: !gateFails,
+      caption: `On the transformed scale (limits: ${sig(t.transformedLimits.lsl, 4)} to ${sig(t.transformedLimits.usl, 4)}) and in the original units (ISO 22514-2 percentile method).`,
+      head: ['Index', 'Transformed scale (normal theory)', 'Original units (percentile method)'],
+      rows: t.percentile.indices.map((p) => {
+        const tr = t.indices.find((i) => i.name === p.name);
+        return [p.name, tr ? `${sig(tr.estimate, 3)} (${sig(tr.lower, 3)} to ${sig(tr.upper, 3)})` : '—', `${sig(p.estimate, 3)}${intervalOf(p.name, t.intervals)}`];
+      }),
+      folded: true,
     });
   }
+  if (cap.stability && cap.stability.pointsBeyond > 0) {
+    const beyond = [...cap.stability.location.points.map((p) => ({ p, what: cap.stability!.location.statistic })), ...cap.stability.dispersion.points.map((p) => ({ p, what: cap.stability!.dispersion.statistic }))].filter((x) => x.p.beyond !== null);
+    tables.push({ caption: 'Points beyond the control limits.', head: ['At', 'Statistic', 'Value', 'Limits'], rows: beyond.map(({ p, what }) => [String(p.label), what, sig(p.value, 4), `${sig(p.lower, 4)} to ${sig(p.upper, 4)}`]), folded: true });
+  }
   if (cap.resolution.warning) lines.push({ kind: 'warning', text: `Gauge resolution: ${cap.resolution.warning}` });
-  for (const w of cap.warnings) if (w !== cap.resolution.warning) lines.push({ kind: 'warning', text: w });
+  for (const w of cap.warnings) if (w !== cap.resolution.warning && !w.startsWith('Stability:')) lines.push({ kind: 'warning', text: w });
   for (const k of cap.cautions) lines.push({ kind: 'caution', text: k });
+  lines.push({ kind: 'caution', text: 'For a safety-critical characteristic, act on the lower interval end, not the estimate; 0.135 % and ppm figures rest on the model far beyond most samples, so confirm conformance by inspection and follow the governing standard, customer requirements and licensed practice.' });
   return {
     id: 'capability',
-    title: 'Against the tolerance',
-    ...(answer ? { answer } : {}),
-    lead: 'How much of the tolerance the process uses, and how many parts fall outside under each model.',
+    title: 'Can it meet the tolerance?',
+    answer,
+    lead: 'How far the process sits from each limit, the share expected outside under each model that fits, and what would change the answer.',
     lines,
     tables,
     charts: ['capability-histogram'],

@@ -1,0 +1,56 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeDataset } from '../../core/index.js';
+import { createRng } from '../../core/random/index.js';
+import { capabilitySection, shareWords } from '../../client/src/views/capability.js';
+import { blockHtml } from '../../client/src/views/block.js';
+
+// Invented data (seeded): a right-skewed characteristic near a natural bound of 0 (lognormal),
+// an upper limit only, and a step-shifted series for the stability check.
+const rng = createRng(2024, 0);
+const skewed = Array.from({ length: 120 }, () => Math.exp(1 + 0.45 * rng.normal()));
+const order = skewed.map((_, i) => i + 1);
+
+describe('capability page section', () => {
+  const r = analyzeDataset({ values: skewed, order }, { usl: 12, naturalLowerBound: 0, transform: 'boxcox', families: ['normal', 'lognormal', 'gamma', 'exponential'], capabilityReplicates: 199, seed: 3 });
+  const b = capabilitySection({ report: r, selected: undefined, units: 'µm' })!;
+  it('answers under the transformation when it passes, with its bootstrap interval; one-sided statement; no lower side', () => {
+    const t = r.capability!.transform;
+    expect(t.kind).toBe('boxcox');
+    expect(b.answer).toMatch(/^About .* outside the tolerance under Box–Cox normal \(λ = /);
+    expect(b.answer).toMatch(/bootstrap interval/);
+    expect(b.lines.some((l) => /Upper limit only, with a natural lower bound at 0/.test(l.text))).toBe(true);
+    expect(b.lines.some((l) => /^Lower side/.test(l.text))).toBe(false);
+    expect(b.lines.some((l) => /^Upper side: the 99\.865 % point/.test(l.text))).toBe(true);
+  });
+  it('rejected models sit in their own folded table, never in the passing table or the spread', () => {
+    const cmp = r.capability!.comparison;
+    const rejected = cmp.rejected.map((x) => x.model);
+    expect(rejected).toContain('exponential');
+    const passingTable = b.tables.find((x) => /each model that passes/.test(x.caption))!;
+    expect(passingTable.folded).toBeFalsy();
+    for (const row of passingTable.rows) expect(rejected).not.toContain(row[0]);
+    const rejTable = b.tables.find((x) => /reject/.test(x.caption))!;
+    expect(rejTable.folded).toBe(true);
+    expect(rejTable.rows.map((x) => x[0])).toEqual(rejected);
+    if (cmp.spread) expect(rejected).not.toContain(cmp.spread.highestModel);
+    // exactly one normal row
+    expect([...cmp.passing, ...cmp.rejected].filter((x) => x.kind === 'normal')).toHaveLength(1);
+  });
+  it('shows the stability verdict from the order column and the safety caution', () => {
+    expect(b.lines.some((l) => /^Stability \(individuals and moving range, order from the order column, on the Box–Cox transformed \(λ = [0-9.-]+\) scale\): No point/.test(l.text))).toBe(true);
+    expect(b.lines.some((l) => l.kind === 'caution' && /safety-critical/.test(l.text))).toBe(true);
+    expect(blockHtml(b, () => '')).toContain('Can it meet the tolerance?');
+  });
+  it('an unstable process: the answer says so first', () => {
+    const shifted = skewed.map((v, i) => (i >= 80 ? v + 6 : v));
+    const r2 = analyzeDataset({ values: shifted, order }, { usl: 30, families: ['normal', 'lognormal'], capabilityReplicates: 99, seed: 3 });
+    const b2 = capabilitySection({ report: r2, selected: undefined, units: '' })!;
+    expect(r2.capability!.stability!.stable).toBe(false);
+    expect(b2.answer).toMatch(/^Not yet answerable with confidence — the process is not shown to be stable/);
+    expect(b2.lines.some((l) => l.kind === 'warning' && /do not predict its future/.test(l.text))).toBe(true);
+  });
+  it('share in words', () => {
+    expect(shareWords(0)).toBe('none expected');
+    expect(shareWords(12)).toMatch(/^12 ppm, about 1 part in 83/);
+  });
+});
