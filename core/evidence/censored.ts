@@ -15,9 +15,9 @@ import { InputError } from '../errors.js';
 import type { Distribution } from '../families/index.js';
 import { plotPositions, prepareLifeData, type LifeData, type LifeInput, type PlotPoint, type PlotPositionMethod } from '../life/index.js';
 import { finiteOrNull, quantileOfPair } from './quantileMap.js';
-import { scaleFor, scaleY } from './probabilityPlot.js';
+import { probabilityTicks, scaleFor, scaleY } from './probabilityPlot.js';
 import { thinMonotone } from './thin.js';
-import type { CdfEvidence, CensoringEvidence, NotApplicableEvidence, PlottingPosition, ProbabilityPlotEvidence, ProbabilityTick, TimeMarks } from './types.js';
+import type { CdfEvidence, CensoringEvidence, NotApplicableEvidence, PlottingPosition, ProbabilityPlotEvidence, TimeMarks } from './types.js';
 
 /** The censored sample as computeEvidence takes it: the times (the values given to prepareSample,
  *  in the same order) and the status of each; optionally the plotting positions to use. */
@@ -120,8 +120,6 @@ export function kaplanMeierCdf(life: LifeData, cap: number): CdfEvidence['empiri
   };
 }
 
-const TICKS = [0.0001, 0.001, 0.01, 0.02, 0.05, 0.1, 0.2, 0.3, 0.5, 0.632, 0.7, 0.8, 0.9, 0.95, 0.98, 0.99, 0.999, 0.9999];
-
 /**
  * Probability plot of a censored sample on the candidate's scale: failures at the given positions
  * (core/life plotPositions), the fitted line x = Q(F), and the positions' pointwise band [F_lo, F_hi]
@@ -163,15 +161,7 @@ export function censoredProbabilityPlot(dist: Distribution, life: LifeData, poin
     bandLower.push(finiteOrNull(tx(quantileOfPair(dist, pt.lower, 1 - pt.lower))));
     bandUpper.push(finiteOrNull(tx(quantileOfPair(dist, pt.upper, 1 - pt.upper))));
   }
-  const ticks: ProbabilityTick[] = [];
-  if (spec.scale !== 'quantile-quantile' && points.length > 0) {
-    const pLo = (points[0] as PlotPoint).F;
-    const pHi = (points[points.length - 1] as PlotPoint).F;
-    for (const t of TICKS) {
-      if (t === 0.632 && spec.scale !== 'weibull' && spec.scale !== 'exponential') continue;
-      if (t >= pLo && t <= pHi) ticks.push({ p: t, y: scaleY(spec.scale, t, 1 - t, dist) });
-    }
-  }
+  const ticks = points.length > 0 ? probabilityTicks(spec.scale, (points[0] as PlotPoint).F, (points[points.length - 1] as PlotPoint).F, dist) : [];
   const sx: number[] = [];
   for (const v of marks(life.suspensionTimes, cap).x) {
     const t = tx(v);

@@ -80,6 +80,18 @@ export function scaleY(scale: ProbabilityScale, p: number, q: number, dist: Dist
 
 const TICKS = [0.0001, 0.001, 0.01, 0.02, 0.05, 0.1, 0.2, 0.3, 0.5, 0.632, 0.7, 0.8, 0.9, 0.95, 0.98, 0.99, 0.999, 0.9999];
 
+/** Probability ticks between the smallest and largest plotted position (none on the Q–Q scale;
+ *  63.2 %, the characteristic life, only on the Weibull and exponential scales). */
+export function probabilityTicks(scale: ProbabilityScale, pLo: number, pHi: number, dist: Distribution): ProbabilityTick[] {
+  const ticks: ProbabilityTick[] = [];
+  if (scale === 'quantile-quantile') return ticks;
+  for (const t of TICKS) {
+    if (t === 0.632 && scale !== 'weibull' && scale !== 'exponential') continue;
+    if (t >= pLo && t <= pHi) ticks.push({ p: t, y: scaleY(scale, t, 1 - t, dist) });
+  }
+  return ticks;
+}
+
 export function probabilityPlot(
   dist: Distribution,
   sorted: Float64Array,
@@ -142,15 +154,7 @@ export function probabilityPlot(
     bandLower.push(finiteOrNull(tx(quantileOfPair(dist, band.lower.x, band.lower.y))));
     bandUpper.push(finiteOrNull(tx(quantileOfPair(dist, band.upper.x, band.upper.y))));
   }
-  const ticks: ProbabilityTick[] = [];
-  if (spec.scale !== 'quantile-quantile' && n > 0) {
-    const pLo = plottingPosition(spec.position, 1, n).p;
-    const pHi = plottingPosition(spec.position, n, n).p;
-    for (const t of TICKS) {
-      if (t === 0.632 && spec.scale !== 'weibull' && spec.scale !== 'exponential') continue;
-      if (t >= pLo && t <= pHi) ticks.push({ p: t, y: scaleY(spec.scale, t, 1 - t, dist) });
-    }
-  }
+  const ticks = n > 0 ? probabilityTicks(spec.scale, plottingPosition(spec.position, 1, n).p, plottingPosition(spec.position, n, n).p, dist) : [];
   const level = 1 - bandAlpha;
   return {
     scale: spec.scale,
