@@ -7,8 +7,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { summarizeSeries, type DatasetOptions, type SeriesRecord, type SeriesSummary } from '../core/index.js';
-import { analyzeSeries } from './batch-worker.js';
+import { analyzeSeries, summarizeSeries, type DatasetOptions, type SeriesRecord, type SeriesSummary } from '../core/index.js';
 
 interface BatchWorkerData {
   readonly plumblineBatch: true;

@@ -8,3 +8,4 @@ export { fnv1a32, inShard, shardOf } from './shard.js';
 export type { Shard } from './shard.js';
 export { SUMMARY_COLUMNS, summarizeSeries, summaryCsv } from './summary.js';
 export type { SeriesLine, SeriesSummary } from './summary.js';
+export { analyzeSeries } from './analyze-series.js';
