@@ -285,6 +285,17 @@ function renderEvidence(): void {
   }
   if (!resp.evidence) return;
   const ce = evidenceFor(resp.evidence, fam);
+  // Censored samples have no bins: the views that need them are not offered (the reason is in the section notes).
+  const offered: Record<EvidenceView, boolean> = { probability: true, cdf: true, histogram: ce?.histogram.source !== 'not-applicable', bins: ce?.bins.source !== 'not-applicable' };
+  if (!offered[evidenceView]) evidenceView = 'probability';
+  for (const b of document.querySelectorAll<HTMLElement>('.view-pick')) {
+    b.hidden = !offered[b.dataset['view'] as EvidenceView];
+    b.setAttribute('aria-pressed', String(b.dataset['view'] === evidenceView));
+  }
+  for (const f of document.querySelectorAll<HTMLElement>('.evidence-view')) f.hidden = f.dataset['view'] !== evidenceView;
+  const na = ce?.bins.notApplicable ?? ce?.histogram.notApplicable;
+  $('evidence-note').hidden = !na;
+  $('evidence-note').textContent = na ? `No histogram or chi-square bins for this sample: ${na.reason}` : '';
   $('evidence-name').textContent = ce ? capital(ce.label) : modelLabel(fam);
   const visible = document.querySelector<HTMLElement>(`.evidence-view[data-view="${evidenceView}"] .chart-box`);
   const size = chartSize(visible ?? $('chart-probability'));

@@ -42,6 +42,10 @@ describe.skipIf(SKIP_BROWSER)('the page on explicit state', () => {
     await expect(page.locator('#headline').textContent()).resolves.toMatch(/B10 life under Weibull/);
     await expect(page.locator('#demo-settings').textContent()).resolves.toMatch(/^Demo settings: .*belong to the bearing-life demo/);
     expect(await page.locator('#model-choices button.model-pick').count()).toBeGreaterThan(1);
+    // A censored sample has no bins: the evidence views that need them are not offered, and the page says why.
+    expect(await page.locator('.view-pick[data-view="bins"]').isVisible()).toBe(false);
+    expect(await page.locator('.view-pick[data-view="probability"]').isVisible()).toBe(true);
+    await expect(page.locator('#evidence-note').textContent()).resolves.toMatch(/^No histogram or chi-square bins for this sample: /);
     // The answer is on the first screen at 1366×768.
     const box = await page.locator('#headline').boundingBox();
     expect(box!.y + box!.height).toBeLessThan(768);
