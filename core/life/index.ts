@@ -26,3 +26,4 @@ export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type Mo
 export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
 export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, type RankRegressionFit, type RankRegressionOutcome, type RankRegressionFamily } from './rank-regression.js';
 export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';
+export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type RecordedLifeExtrasOptions } from './interval-likelihood-extras.js';

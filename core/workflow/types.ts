@@ -11,7 +11,7 @@ import type { CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../ca
 import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
-import type { BoundMethod, LifeCurves, LifeSampleSummary, PlotPositionMethod } from '../life/index.js';
+import type { BoundMethod, LifeCurves, LifeSampleSummary, PlotPositionMethod, RecordedLifeExtras } from '../life/index.js';
 import type { AnalyzeOptions } from '../analyze.js';
 import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
@@ -39,6 +39,15 @@ export interface DatasetOptions extends Omit<AnalyzeOptions, 'onProgress' | 'sig
   readonly bLifePercents?: readonly number[];
   /** Bound method for B-lives and reliability (default 'likelihood-ratio'). */
   readonly boundMethod?: BoundMethod;
+  /** How parameters are estimated (one option for life and flood): ml (default), rank-regression (life), lmoments or ema (flood). */
+  readonly estimation?: 'ml' | 'rank-regression' | 'lmoments' | 'ema';
+  /** Life data: a Weibull shape taken from experience (Weibayes; also the test plan's shape). */
+  readonly assumedShape?: number;
+  /** Life data: a test plan (reliability to show at planTime with planConfidence, planFailures allowed). */
+  readonly planReliability?: number;
+  readonly planTime?: number;
+  readonly planConfidence?: number;
+  readonly planFailures?: number;
   /** Times at which reliability is reported with bounds (life data). */
   readonly reliabilityTimes?: readonly number[];
   /** Probability-plot positions for life data (default 'johnson-benard'). */
@@ -127,6 +136,8 @@ export interface LifeSection extends LifeSampleSummary {
   readonly reliabilityTimes: readonly number[];
   /** Fitted curves per candidate on one log-spaced time grid (cdf, reliability, hazard, plot scales). */
   readonly curves: readonly ({ readonly family: FamilyName } & LifeCurves)[];
+  /** The recorded-life methods (mixture, Turnbull, Weibayes, rank regression, test plan; core/life recordedLifeExtras), when run. */
+  readonly recorded?: RecordedLifeExtras;
 }
 
 export interface FloodSection {
