@@ -1,0 +1,32 @@
+// @vitest-environment jsdom
+/** The stability chart's SVG: what it shows is what the core's StabilityChart says (meaning first). */
+import { describe, expect, it } from 'vitest';
+import { individualsChart, subgroupChart } from '../../core/capability/index.js';
+import { controlChart } from '../../client/charts/control-chart.js';
+
+const opts = { width: 640, height: 420, units: 'mm' };
+
+describe('control chart SVG', () => {
+  it('individuals: one point per value, one per moving range, the point beyond its limit marked with the limit in its title', () => {
+    const x = [5, 5.2, 4.9, 5.1, 5.0, 4.95, 5.05, 9, 5.1, 4.9];
+    const chart = individualsChart(x, null);
+    const host = document.createElement('div');
+    const svg = controlChart(host, chart, opts);
+    const beyond = svg.querySelectorAll('[data-kind="beyond"]');
+    expect(svg.querySelectorAll('[data-kind="point"], [data-kind="beyond"]').length).toBe(x.length + x.length - 1);
+    expect(beyond.length).toBe(chart.pointsBeyond);
+    expect(chart.pointsBeyond).toBeGreaterThan(0);
+    expect(beyond[0]!.querySelector('title')!.textContent).toMatch(/^8: 9 — above the upper limit/);
+    expect(svg.querySelectorAll('[data-kind="limit-upper"]').length).toBe(2);
+    expect(svg.querySelector('title')!.textContent).toMatch(/point\(s\) lie beyond the 3-sigma limits/);
+  });
+  it('subgroups: panel labels name the statistics; a stable chart has no marked point', () => {
+    const groups = Array.from({ length: 8 }, (_, i) => ({ label: `S${i + 1}`, values: [10 + (i % 3) * 0.01, 10.02, 9.99, 10.01] }));
+    const chart = subgroupChart(groups);
+    const svg = controlChart(document.createElement('div'), chart, opts);
+    const text = [...svg.querySelectorAll('text')].map((t) => t.textContent).join(' | ');
+    expect(text).toMatch(/subgroup mean/);
+    expect(text).toMatch(/subgroup standard deviation/);
+    expect(svg.querySelectorAll('[data-kind="beyond"]').length).toBe(chart.pointsBeyond);
+  });
+});
