@@ -45,6 +45,11 @@ export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
   { kind: 'needs', option: 'upperColumn', anyOf: ['grouped'] },
   { kind: 'needs', option: 'countColumn', anyOf: ['grouped', 'intervalColumns'] },
   { kind: 'needs', option: 'modeColumn', anyOf: ['statusColumn'], why: 'failure modes need times with a status column' },
+  { kind: 'needs', option: 'planTime', anyOf: ['planReliability'], why: 'part of a test plan' },
+  { kind: 'needs', option: 'planConfidence', anyOf: ['planReliability'], why: 'part of a test plan' },
+  { kind: 'needs', option: 'planFailures', anyOf: ['planReliability'], why: 'part of a test plan' },
+  { kind: 'needs', option: 'planReliability', anyOf: ['planTime'], why: 'the time at which the reliability is to be shown' },
+  { kind: 'needs', option: 'planReliability', anyOf: ['assumedShape'], why: 'the Weibull shape the plan assumes' },
   {
     kind: 'conflicts',
     option: 'intervalColumns',

@@ -119,16 +119,30 @@ function casesOf(spec: OptionSpec): Case[] {
 function validSample(spec: OptionSpec): OptionValue {
   if (spec.kind === 'boolean') return true;
   if (spec.default !== null) return spec.default;
-  if (spec.kind === 'number' || spec.kind === 'integer') return (spec.min ?? 0) + 1;
+  if (spec.kind === 'number' || spec.kind === 'integer') {
+    if (spec.min !== undefined && spec.max !== undefined) return spec.kind === 'integer' ? Math.ceil((spec.min + spec.max) / 2) : (spec.min + spec.max) / 2;
+    return (spec.min ?? 0) + 1;
+  }
   if (spec.kind === 'numbers') return [(spec.min ?? 0) + 2];
   if (spec.kind === 'column') return 'c';
   if (spec.kind === 'text') return ';';
   return (spec.choices ?? [])[0] ?? null;
 }
 
-/** The options a value of `spec` needs beside it (the table's "needs" rules), with valid values. */
+/** The options a value of `spec` needs beside it (the table's "needs" rules, followed through), with valid values. */
 function context(spec: OptionSpec): OptionSpec[] {
-  return OPTION_COMBINATIONS.flatMap((r) => (r.kind === 'needs' && r.option === spec.name ? [optionNamed(r.anyOf[0] as string) as OptionSpec] : []));
+  const out: OptionSpec[] = [];
+  const visit = (s: OptionSpec): void => {
+    for (const r of OPTION_COMBINATIONS) {
+      if (r.kind !== 'needs' || r.option !== s.name) continue;
+      const need = optionNamed(r.anyOf[0] as string) as OptionSpec;
+      if (need === spec || out.includes(need)) continue;
+      out.push(need);
+      visit(need);
+    }
+  };
+  visit(spec);
+  return out;
 }
 
 // ---- the three surfaces ---------------------------------------------------------------------------
