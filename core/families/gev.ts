@@ -17,16 +17,19 @@
  * cancellation as ξ → 0.
  *
  * Fit: maximum likelihood with the maximiser of core/optimize (Nelder–Mead then Newton), in the
- * coordinates (μ, ln σ, logit of ξ on the guard interval). Guard: on short records the shape is
- * poorly determined and the unrestricted estimate can wander to values that extrapolate absurdly
- * (Martins & Stedinger 2000, Water Resources Research 36:737-744 [from memory]); by default ξ is
- * kept inside (-0.5, 0.5). Below -0.5 the maximum-likelihood estimator is no longer regular, and
- * below -1 the likelihood is unbounded (Smith 1985, Biometrika 72:67-90). When the estimate runs
- * onto the guard it is refitted with ξ fixed at the guard, and `fitGev` says so in `warnings`.
+ * coordinates (μ from the median in units of the starting scale, ln σ, ln(ξ + 1)). The shape is
+ * searched on ξ > -1: below -1 the likelihood is unbounded (Smith 1985, Biometrika 72:67-90), and
+ * an estimate that runs onto that edge is reported as a failed fit. Otherwise the unconstrained
+ * maximum is reported. On short records the shape is poorly determined and can take values that
+ * extrapolate wildly (Martins & Stedinger 2000, Water Resources Research 36:737-744 [from memory]):
+ * beyond the advisory ±0.5 (`shapeGuard`) the estimate carries a warning. A constraint |ξ| ≤ c is
+ * applied only when asked for (`shapeConstraint`); when it binds, the fit says so, reports the
+ * unconstrained shape beside the held one, and the return-level intervals are labelled as those
+ * of the constrained model.
  * Starts: the Gumbel fit (ξ = 0) and the probability-weighted-moment estimate of Hosking, Wallis
  * & Wood (1985, Technometrics 27:251-261); the better likelihood wins.
  */
-import { maximize, affine, between, LOG } from '../optimize/index.js';
+import { maximize, above, affine, between, LOG } from '../optimize/index.js';
 import type { Rng } from '../random/index.js';
 import type { Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
@@ -37,7 +40,7 @@ import { POSITIVE, REAL } from './parameters.js';
 import type { Distribution, Family, FitOutcome, FitSuccess, NotApplicable, Parameters } from './types.js';
 
 const BOUNDS = Object.freeze({ location: REAL, scale: POSITIVE, shape: REAL });
-/** Default guard on the fitted shape: |ξ| < 0.5. */
+/** Advisory size of the fitted shape: beyond |ξ| = 0.5 the estimate carries a warning (not a constraint). */
 export const GEV_SHAPE_GUARD = 0.5;
 
 // ζ(2..15) (mpmath, 20 digits).
@@ -232,23 +235,41 @@ export function gevPwmStart(sorted: ArrayLike<number>): { location: number; scal
 }
 
 export interface GevFitOptions {
-  /** Keep |ξ| below this (default 0.5); the shape is searched on (-guard, guard). */
+  /**
+   * Advisory size of the shape (default 0.5): an estimate with |ξ| beyond it is reported as it is,
+   * with a warning that it is poorly determined. It does not constrain the fit.
+   */
   readonly shapeGuard?: number;
+  /**
+   * A constraint |ξ| ≤ c applied to the fit (none by default). When the maximum lies beyond it the
+   * fit is refitted with ξ held at ±c, says so, and reports the unconstrained shape beside it.
+   */
+  readonly shapeConstraint?: number | null;
 }
 
 export interface GevFit extends FitSuccess {
-  /** True when the estimate ran onto the shape guard and was refitted with ξ fixed there. */
+  /** True when the estimate is held at a constraint or runs onto the ξ → -1 edge (a bound hit). */
   readonly shapeOnGuard: boolean;
+  /** The advisory size (or the constraint, when one is applied). */
   readonly shapeGuard: number;
+  /** The constraint |ξ| ≤ c applied, or null for the unconstrained maximum. */
+  readonly shapeConstraint: number | null;
+  /** The unconstrained maximum-likelihood shape, when a constraint held the reported one elsewhere. */
+  readonly unconstrainedShape?: number;
   readonly warnings: readonly string[];
 }
 
-/** Maximum-likelihood GEV fit with the shape guard (see the file header). */
+/** Below ξ = -1 the GEV likelihood is unbounded (Smith 1985); the search keeps ξ above it. */
+const SHAPE_FLOOR = -1;
+
+/** Maximum-likelihood GEV fit (see the file header); unconstrained unless `shapeConstraint` is given. */
 export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotApplicable {
   const na = applicable(sample);
   if (na) return na;
   const guard = opts.shapeGuard ?? GEV_SHAPE_GUARD;
-  if (!(guard > 0 && guard <= 1)) throw new RangeError(`fitGev: shapeGuard must lie in (0, 1], got ${guard}`);
+  if (!(guard > 0)) throw new RangeError(`fitGev: shapeGuard must be positive, got ${guard}`);
+  const constraint = opts.shapeConstraint ?? null;
+  if (constraint !== null && !(constraint > 0 && constraint <= 1)) throw new RangeError(`fitGev: shapeConstraint must lie in (0, 1], got ${constraint}`);
   const rs = powerOfTwoRescale(sample);
   if (rs) {
     // Magnitudes near the ends of the double range: fit x/2^k and scale back (see gumbel.ts).
@@ -271,44 +292,64 @@ export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotAp
   const g = gumbel.fit(sample);
   if (g.ok) starts.push([g.parameters.location as number, g.parameters.scale as number, 0]);
   const pwm = gevPwmStart(xs);
-  if (pwm) starts.push([pwm.location, pwm.scale, Math.max(-0.9 * guard, Math.min(0.9 * guard, pwm.shape))]);
+  if (pwm) starts.push([pwm.location, pwm.scale, pwm.shape]);
   // Location measured from the median in units of the starting scale: the search, its numerical
   // derivatives and its stopping tests are then the same in any units (scale-free convergence).
   const spread = starts[0]?.[1] ?? (sample.max - sample.min);
   const locationTr = affine(xs[Math.floor(sample.n / 2)] as number, spread > 0 && Number.isFinite(spread) ? spread : 1);
-  const transforms = [locationTr, LOG, between(-guard, guard)];
-  let best: ReturnType<typeof maximize> | null = null;
-  for (const s of starts) {
-    if (!Number.isFinite(ll(Float64Array.from(s)))) continue;
-    const r = maximize(ll, s, { transforms, xtol: 1e-10 });
-    if (!best || r.value > best.value) best = r;
-  }
-  if (!best) {
+  const maximise = (lo: number, hi: number | null) => {
+    const shapeTr = hi === null ? above(lo) : between(lo, hi);
+    let best: ReturnType<typeof maximize> | null = null;
+    for (const s0 of starts) {
+      const s = [s0[0] as number, s0[1] as number, hi === null ? Math.max(lo + 0.05, s0[2] as number) : Math.max(0.9 * lo, Math.min(0.9 * hi, s0[2] as number))];
+      if (!Number.isFinite(ll(Float64Array.from(s)))) continue;
+      const r = maximize(ll, s, { transforms: [locationTr, LOG, shapeTr], xtol: 1e-10 });
+      if (!best || r.value > best.value) best = r;
+    }
+    return best;
+  };
+  const free = maximise(SHAPE_FLOOR, null);
+  if (!free) {
     return { ok: false, family: 'gev', reason: 'no starting point gives a finite GEV likelihood', offendingCount: 0 };
   }
-  let [mu, sigma, xi] = Array.from(best.x) as [number, number, number];
-  let value = best.value;
-  let converged = best.converged;
-  let iterations = best.iterations;
+  let [mu, sigma, xi] = Array.from(free.x) as [number, number, number];
+  let value = free.value;
+  let converged = free.converged;
+  let iterations = free.iterations;
   const warnings: string[] = [];
-  const onGuard = Math.abs(xi) > guard * (1 - 1e-4);
-  if (onGuard) {
-    const fixed = xi > 0 ? guard : -guard;
+  let onGuard = false;
+  let unconstrainedShape: number | undefined;
+  const fmt = (v: number): string => String(Number(v.toPrecision(4)));
+  if (xi < SHAPE_FLOOR + 1e-3) {
+    onGuard = true;
+    converged = false;
+    warnings.push(
+      `The GEV shape estimate ran onto its lower edge ξ = ${SHAPE_FLOOR}, below which the likelihood is unbounded (Smith 1985): there is no regular maximum, so treat this fit as failed; use the Gumbel model or a longer record.`,
+    );
+  } else if (constraint !== null && Math.abs(xi) > constraint) {
+    const fixed = xi > 0 ? constraint : -constraint;
     const r = maximize((th) => gevLogLikelihood(xs, th[0] as number, th[1] as number, fixed), [mu, sigma], { transforms: [locationTr, LOG], xtol: 1e-10 });
+    unconstrainedShape = xi;
     mu = r.x[0] as number;
     sigma = r.x[1] as number;
     xi = fixed;
     value = r.value;
     converged = r.converged;
     iterations += r.iterations;
+    onGuard = true;
     warnings.push(
-      `The GEV shape estimate reached the guard ξ = ${fixed} (|ξ| is kept below ${guard}); the unrestricted maximum lies beyond it. ` +
-        'On a short record this usually reflects sampling noise rather than the true tail: consider the Gumbel model, a longer record or a regional shape estimate.',
+      `The GEV shape is held at the constraint ξ = ${fixed} (|ξ| ≤ ${constraint} was requested); the unconstrained maximum-likelihood shape is ${fmt(unconstrainedShape)}. ` +
+        'The held value is not an estimate: return levels and their intervals are those of the constrained model.',
+    );
+  } else if (Math.abs(xi) > guard) {
+    warnings.push(
+      `The GEV shape estimate ξ = ${fmt(xi)} is beyond ±${guard}: on a short record the shape is poorly determined and long return levels rest mostly on it (Martins & Stedinger 2000, Water Resources Research 36:737-744 [from memory]). It is reported unconstrained; consider the Gumbel model, a longer record or a regional shape.`,
     );
   }
   if (sample.n < 25) {
     warnings.push(`Only ${sample.n} values: the GEV shape is poorly determined from a short record, and return levels far beyond the record depend mostly on it (common practice, no source).`);
   }
+  const what = constraint === null ? `unconstrained (ξ > ${SHAPE_FLOOR})` : `with the shape constrained to |ξ| ≤ ${constraint}`;
   return {
     ok: true,
     family: 'gev',
@@ -316,9 +357,11 @@ export function fitGev(sample: Sample, opts: GevFitOptions = {}): GevFit | NotAp
     logLikelihood: value,
     iterations,
     converged,
-    method: `maximum likelihood (Nelder–Mead then Newton) with the shape kept in (-${guard}, ${guard})${onGuard ? '; shape on the guard, refitted with it fixed' : ''}`,
+    method: `maximum likelihood (Nelder–Mead then Newton), ${what}${onGuard && constraint !== null ? '; shape held at the constraint' : ''}`,
     shapeOnGuard: onGuard,
-    shapeGuard: guard,
+    shapeGuard: constraint ?? guard,
+    shapeConstraint: constraint,
+    ...(unconstrainedShape !== undefined ? { unconstrainedShape } : {}),
     warnings,
   };
 }

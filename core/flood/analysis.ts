@@ -27,7 +27,10 @@ export interface FloodOptions {
   readonly years?: ArrayLike<number> | null;
   /** Significance level of the trend and Gumbel-vs-GEV tests (default 0.05). */
   readonly alpha?: number;
+  /** Advisory GEV shape size (default 0.5): beyond it the estimate carries a warning. */
   readonly shapeGuard?: number;
+  /** A constraint |ξ| ≤ c on the GEV fit (none by default); said on the intervals and in the test. */
+  readonly shapeConstraint?: number | null;
 }
 
 export interface FloodCandidate {
@@ -63,8 +66,8 @@ export function floodFrequency(values: ArrayLike<number>, opts: FloodOptions = {
   if (sample.n < 3) throw new InputError(`A flood-frequency analysis needs at least 3 annual maxima (got ${sample.n}).`, {}, 'too-few-values');
   const warnings: string[] = [];
   const g = gumbel.fit(sample);
-  const v = fitGev(sample, { shapeGuard: opts.shapeGuard });
-  const rlOpts = { level: opts.level ?? 0.95, method: opts.method, shapeGuard: opts.shapeGuard };
+  const v = fitGev(sample, { shapeGuard: opts.shapeGuard, shapeConstraint: opts.shapeConstraint ?? null });
+  const rlOpts = { level: opts.level ?? 0.95, method: opts.method, shapeGuard: opts.shapeGuard, shapeConstraint: opts.shapeConstraint ?? null };
   const candidates: FloodCandidate[] = [g, v].map((fit) => ({
     fit,
     returnLevels: fit.ok ? returnLevels(sample, fit, periods, rlOpts) : null,
@@ -75,14 +78,18 @@ export function floodFrequency(values: ArrayLike<number>, opts: FloodOptions = {
     const deviance = Math.max(0, 2 * (v.logLikelihood - g.logLikelihood));
     const pValue = chiSquareSf(deviance, 1);
     const gumbelRetained = pValue >= alpha;
+    const held = v.shapeConstraint !== null && v.shapeOnGuard;
+    const shapeWords = held
+      ? `the GEV shape is held at the constraint ξ = ${(v.parameters.shape as number).toPrecision(3)} (not an estimate; the unconstrained estimate is ${(v.unconstrainedShape ?? Number.NaN).toPrecision(3)}), so this deviance compares the constrained GEV with the Gumbel and understates the unconstrained one`
+      : `the shape estimate is ξ = ${(v.parameters.shape as number).toPrecision(3)}`;
     lr = {
       deviance,
       pValue,
       alpha,
       gumbelRetained,
       decision: gumbelRetained
-        ? `The GEV does not fit significantly better than the Gumbel (deviance ${deviance.toPrecision(3)}, p = ${pValue.toPrecision(3)} against χ²₁): the data do not contradict ξ = 0, though longer records often reveal a nonzero shape.`
-        : `The GEV fits significantly better than the Gumbel (deviance ${deviance.toPrecision(3)}, p = ${pValue.toPrecision(3)} against χ²₁): the shape ξ = ${(v.parameters.shape as number).toPrecision(3)} differs from 0.`,
+        ? `The GEV does not fit significantly better than the Gumbel (deviance ${deviance.toPrecision(3)}, p = ${pValue.toPrecision(3)} against χ²₁): the data do not contradict ξ = 0, though longer records often reveal a nonzero shape; ${shapeWords}.`
+        : `The GEV fits significantly better than the Gumbel (deviance ${deviance.toPrecision(3)}, p = ${pValue.toPrecision(3)} against χ²₁): the shape differs from 0; ${shapeWords}.`,
     };
   }
   const designLifeRisk =

@@ -18,7 +18,7 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName, type Parameters } from '../families/index.js';
-import { affine, between, LOG, numericalGradient, observedInformation, profileInterval, type Transform } from '../optimize/index.js';
+import { above, affine, between, LOG, numericalGradient, observedInformation, profileInterval, type Transform } from '../optimize/index.js';
 import type { Sample } from '../sample.js';
 import { CompensatedSum } from '../compensated.js';
 import { normalQuantile } from '../special/index.js';
@@ -47,8 +47,13 @@ export interface ReturnLevelOptions {
   readonly level?: number;
   /** Interval method (default 'profile' for Gumbel/GEV; other families always 'delta'). */
   readonly method?: ReturnLevelMethod;
-  /** The GEV shape guard used by the fit (default 0.5); the profile keeps ξ inside it. */
+  /** Advisory GEV shape size (default 0.5); kept for callers, it does not constrain the profile. */
   readonly shapeGuard?: number;
+  /**
+   * A constraint |ξ| ≤ c that the fit used (none by default): the profile then stays inside it,
+   * and the method text and warnings say the interval is that of the constrained model.
+   */
+  readonly shapeConstraint?: number | null;
 }
 
 export interface ReturnLevelReport {
@@ -135,6 +140,7 @@ export function returnLevels(
     if (!cov) warnings.push('The observed information is not positive definite at the fit, so no delta-method interval can be given.');
   }
   const z = -normalQuantile((1 - level) / 2);
+  let constrainedNote: string | null = null;
   for (const T of periods) {
     const pExc = 1 / T;
     const estimate = dist.isf(pExc);
@@ -179,12 +185,12 @@ export function returnLevels(
         // z_T from the estimate in units of the fitted scale: scale-free steps and stopping tests.
         transforms = [affine(estimate, beta0), LOG];
       } else {
-        const guard = opts.shapeGuard ?? 0.5;
+        const constraint = opts.shapeConstraint ?? null;
         const sigma0 = fit.parameters.scale as number;
         const xi0 = fit.parameters.shape as number;
-        const onGuard = Math.abs(xi0) >= guard * (1 - 1e-9);
-        if (onGuard) {
-          // ξ is held at the guard: profile over σ alone.
+        const held = constraint !== null && Math.abs(xi0) >= constraint * (1 - 1e-9);
+        if (held) {
+          // ξ is held at the constraint: profile over σ alone (the constrained model's interval).
           ll = (th) => {
             const s = th[1] as number;
             return s > 0 ? llNatural(Float64Array.of((th[0] as number) - s * gevQuantileOffset(xi0, y), s, xi0)) : Number.NEGATIVE_INFINITY;
@@ -192,15 +198,19 @@ export function returnLevels(
           start = [estimate, sigma0];
           transforms = [affine(estimate, sigma0), LOG];
         } else {
+          // Unconstrained: ξ > -1 (below it the likelihood is unbounded, Smith 1985); or inside the constraint.
+          const lo = constraint === null ? -1 : -constraint;
+          const hi = constraint;
           ll = (th) => {
             const s = th[1] as number;
             const xi = th[2] as number;
-            if (!(s > 0) || !(Math.abs(xi) < guard)) return Number.NEGATIVE_INFINITY;
+            if (!(s > 0) || !(xi > lo) || (hi !== null && !(xi < hi))) return Number.NEGATIVE_INFINITY;
             return llNatural(Float64Array.of((th[0] as number) - s * gevQuantileOffset(xi, y), s, xi));
           };
           start = [estimate, sigma0, xi0];
-          transforms = [affine(estimate, sigma0), LOG, between(-guard, guard)];
+          transforms = [affine(estimate, sigma0), LOG, hi === null ? above(lo) : between(lo, hi)];
         }
+        if (constraint !== null) constrainedNote = held ? `with ξ held at the constraint ${xi0}` : `with ξ constrained to |ξ| ≤ ${constraint}`;
       }
       const r = profileInterval(ll, { x: start, value: ll0 }, 0, level, { transforms, tolerance: 1e-10 });
       lowerFound = r.lowerFound;
@@ -219,6 +229,7 @@ export function returnLevels(
       `Return period${far.length > 1 ? 's' : ''} ${far.join(', ')} exceed${far.length > 1 ? '' : 's'} twice the ${n}-year record: those levels are extrapolations that rest on the model's tail rather than on the data (a rule of thumb; common practice, no source).`,
     );
   }
+  if (constrainedNote !== null) warnings.push(`The GEV return-level intervals are those of the constrained model (${constrainedNote}); the unconstrained profile likelihood can give a different, usually wider, interval.`);
   const cautions = [FLOOD_CAUTION];
   if (fit.family === 'gev') cautions.push(GEV_SIGN_NOTE);
   return {
@@ -228,7 +239,7 @@ export function returnLevels(
     levels,
     methodDetail:
       method === 'profile'
-        ? `profile likelihood of the return level (reparametrised by z_T; Coles 2001 §3.3.3), χ²₁ at ${level}`
+        ? `profile likelihood of the return level (reparametrised by z_T; Coles 2001 §3.3.3), χ²₁ at ${level}${constrainedNote !== null ? `, of the constrained model (${constrainedNote}): the interval is conditional on that constraint, not an unconstrained profile interval` : ''}`
         : `delta method on the observed information (Coles 2001 §3.3.3), normal interval at ${level}`,
     warnings,
     cautions,

@@ -93,19 +93,22 @@ describe('maximum-likelihood fits vs SciPy and the refined roots (fixture)', () 
     expect(r.parameters.shape).toBeCloseTo(-0.05, 3);
     expect(r.shapeOnGuard).toBe(false);
   });
-  it('a short, very skewed record drives the shape onto the guard; the fit says so', () => {
+  it('a short, very skewed record: the unconstrained maximum is reported with a warning; a requested constraint is said and the free shape kept beside it', () => {
     const s = prepareSample([1, 1.1, 1.2, 1.3, 1.5, 2, 3, 6, 15, 60]);
     const r = fitGev(s);
     if (!r.ok) throw new Error('fit failed');
-    expect(r.shapeOnGuard).toBe(true);
-    expect(r.parameters.shape).toBe(0.5);
-    expect(r.warnings.join(' ')).toMatch(/guard/);
+    expect(r.shapeOnGuard).toBe(false);
+    expect(r.shapeConstraint).toBeNull();
+    expect(r.parameters.shape).toBeGreaterThan(0.5);
+    expect(r.warnings.join(' ')).toMatch(/beyond ±0.5/);
     expect(r.warnings.join(' ')).toMatch(/Only 10 values/);
-    // with a wider guard the estimate moves beyond 0.5
-    const wide = fitGev(s, { shapeGuard: 1 });
-    if (!wide.ok) throw new Error('fit failed');
-    expect(wide.parameters.shape).toBeGreaterThan(0.5);
-    expect(wide.logLikelihood).toBeGreaterThan(r.logLikelihood);
+    const held = fitGev(s, { shapeConstraint: 0.5 });
+    if (!held.ok) throw new Error('fit failed');
+    expect(held.shapeOnGuard).toBe(true);
+    expect(held.parameters.shape).toBe(0.5);
+    expect(held.unconstrainedShape).toBeCloseTo(r.parameters.shape as number, 6);
+    expect(held.warnings.join(' ')).toMatch(/held at the constraint ξ = 0.5.*not an estimate/);
+    expect(r.logLikelihood).toBeGreaterThan(held.logLikelihood);
   });
 });
 
