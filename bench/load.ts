@@ -1,7 +1,7 @@
 /**
- * Load test of the local server on loopback (issue 6): 16 concurrent connections posting
+ * Load test of the local server on loopback: 16 (or --connections C) concurrent connections posting
  * 10^4-point analyses, every response checked (status 200 and the report equal to the core's own
- * analysis of the same values), p50/p99 latency, and the server's resident memory before and
+ * analysis of the same values, analyzeDataset), the share of 2xx, p50/p99 latency, and the server's resident memory before and
  * after. Run: node --import tsx bench/load.ts [--requests N] [--seconds S] [--connections C]
  *
  * Bounded in count and time: at most N requests (default 10^4) and at most S seconds of load
@@ -13,7 +13,7 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
-import { analyze, createRng, type AnalysisReport } from '../core/index.js';
+import { analyzeDataset, createRng, type AnalysisReport } from '../core/index.js';
 
 const HOST = '127.0.0.1';
 const POINTS = 10_000;
@@ -113,7 +113,7 @@ async function main(): Promise<void> {
   // Four seeded bodies and the report the core itself gives for each (the server must agree).
   const bodies = [0, 1, 2, 3].map((kind) => {
     const values = sample(1000 + kind, kind);
-    const expected = analyze(values);
+    const expected = analyzeDataset({ values }); // what the server runs (core/workflow/pipeline.ts)
     return { body: JSON.stringify({ values }), expected: JSON.stringify(expected.candidates) };
   });
 
@@ -179,6 +179,7 @@ async function main(): Promise<void> {
   console.log(
     [
       `requests answered: ${total}${stoppedByTime ? ` (stopped at the ${maxSeconds} s bound, before ${maxRequests})` : ''} in ${elapsed.toFixed(1)} s (${(total / elapsed).toFixed(1)} req/s)`,
+      `2xx share: ${total > 0 ? ((100 * (total - result.non2xx)) / total).toFixed(1) : '0'} % (${total - result.non2xx} of ${total})`,
       `responses checked: ${checked}; wrong (not 200 or report differing from the core's): ${wrong}; non-2xx ${result.non2xx}, errors ${result.errors}, timeouts ${result.timeouts}`,
       `latency: p50 ${result.latency.p50} ms, p97.5 ${result.latency.p97_5} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms, mean ${result.latency.mean.toFixed(1)} ms`,
       `server resident memory: before ${mib(before.rss)} (heap ${mib(before.heapUsed)}, external ${mib(before.external)}), after ${mib(after.rss)} (heap ${mib(after.heapUsed)}, external ${mib(after.external)}); change ${mib(after.rss - before.rss)}`,
