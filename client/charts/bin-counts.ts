@@ -7,7 +7,8 @@
 import { axisBottom, axisLeft, max as d3max, scaleBand, scaleLinear } from 'd3';
 import type { BinCountsRow } from '../src/types.js';
 import { sig } from '../src/format.js';
-import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis, round } from './frame.js';
+import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis } from './frame.js';
+import { round } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 

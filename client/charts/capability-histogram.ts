@@ -8,7 +8,10 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear } from 'd3';
 import type { FittedCurves, HistogramEvidence } from '../src/types.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawFittedCurves, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId, round, textWidth, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId } from './frame.js';
+import { type LegendItem } from './legend.js';
+import { drawFittedCurves } from './marks.js';
+import { round, textWidth } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK } from './palette.js';
 

@@ -9,7 +9,10 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { CdfEvidence } from '../src/types.js';
 import { axisLabel } from '../src/format.js';
-import { coarseNote, createFrame, drawEmpty, drawFittedCurves, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId, round, suspensionMark, type LegendItem } from './frame.js';
+import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId } from './frame.js';
+import { suspensionMark, type LegendItem } from './legend.js';
+import { coarseNote, drawFittedCurves } from './marks.js';
+import { round } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK } from './palette.js';
 

@@ -3,11 +3,17 @@
  * screen readers, a plotting area with margins, axes with labels, and a legend drawn inside
  * the SVG (so that a chart copied into the exported report is complete on its own).
  *
+ * Layout, top to bottom, so that no two texts can meet: the title (wrapped), the legend rows
+ * (legend.ts), the y-axis title on its own row above the plot, the plot (its left margin sized
+ * to the widest y tick label by fitYAxis), the x tick labels, the x-axis title, and notes.
+ *
  * Charts set presentation attributes only (no `style` attributes, no CSS classes needed),
  * which keeps them valid under a strict Content-Security-Policy and self-contained in the export.
  */
 import { axisBottom, axisLeft, select, type Axis, type NumberValue, type Selection } from 'd3';
-import { FONT, INK, styleFor, type SeriesStyle } from './palette.js';
+import { drawLegend, type LegendItem } from './legend.js';
+import { FONT, INK } from './palette.js';
+import { round, textWidth, wrapText } from './text.js';
 
 export type Svg = Selection<SVGSVGElement, unknown, null, undefined>;
 export type Group = Selection<SVGGElement, unknown, null, undefined>;
@@ -58,42 +64,7 @@ export function resetIds(): void {
   idCounter = 0;
 }
 
-/**
- * Width of a text in px, estimated from its characters (no measurement, so that jsdom, the
- * browser and the exported report lay out alike). Deliberately generous, sized on the wide
- * sans-serif faces that `system-ui` falls back to (DejaVu Sans): narrow glyphs 0.36 em, lower case
- * 0.62 em, digits 0.64 em, upper case and symbols 0.76 em, m/w/M/W/% 0.96 em; bold 8 % wider.
- * Common practice, no source.
- */
-export function textWidth(text: string, fontSize: number, bold = false): number {
-  let em = 0;
-  for (const ch of text) {
-    if (' .,:;!|\'()[]ijlIft'.includes(ch)) em += 0.36;
-    else if ('mwMW%'.includes(ch)) em += 0.96;
-    else if (ch >= '0' && ch <= '9') em += 0.64;
-    else if (ch >= 'a' && ch <= 'z') em += 0.62;
-    else em += 0.76;
-  }
-  return em * fontSize * (bold ? 1.08 : 1);
-}
-
-/** Break a text into lines no wider than maxWidth (by the estimate above), at spaces. */
-export function wrapText(text: string, maxWidth: number, fontSize: number, bold = false): string[] {
-  const lines: string[] = [];
-  let line = '';
-  for (const word of text.split(/\s+/).filter(Boolean)) {
-    const next = line ? `${line} ${word}` : word;
-    if (line && textWidth(next, fontSize, bold) > maxWidth) {
-      lines.push(line);
-      line = word;
-    } else line = next;
-  }
-  if (line) lines.push(line);
-  return lines;
-}
-
 const TITLE_SIZE = 14;
-const LEGEND_ROW = 17;
 const NOTE_ROW = 14;
 const LEFT_MIN = 40;
 const RIGHT = 26;
@@ -239,106 +210,6 @@ function tidyAxis(g: Group): void {
 
 export { axisBottom, axisLeft };
 
-export interface LegendItem {
-  readonly key: string;
-  readonly label: string;
-  /** 'line' (a curve), 'bar' (data bars), 'band' (a shaded band), 'point' (markers), 'step',
-   *  'suspension' (open triangle), 'region' (shaded out-of-tolerance region), 'reference'. */
-  readonly kind: 'line' | 'bar' | 'band' | 'point' | 'step' | 'reference' | 'suspension' | 'region';
-  readonly style?: SeriesStyle;
-  readonly emphasis?: boolean;
-}
-
-/**
- * The legend: rows of entries above the plot, wrapped to the width, each entry as wide as its
- * estimated text plus a gap. Returns the y of its last row.
- */
-export function drawLegend(svg: Svg, items: readonly LegendItem[], width: number, top: number): number {
-  const g = svg.append('g').attr('data-kind', 'legend').attr('transform', `translate(8,${top})`).attr('font-size', 11);
-  let x = 0;
-  let y = 0;
-  for (const item of items) {
-    const w = 30 + textWidth(item.label, 11) + 16;
-    if (x > 0 && x + w > width - 16) {
-      x = 0;
-      y += LEGEND_ROW;
-    }
-    const cell = g.append('g').attr('data-kind', 'legend-entry').attr('transform', `translate(${round(x)},${y})`);
-    const style = item.style ?? styleFor(item.key);
-    switch (item.kind) {
-      case 'line':
-        cell
-          .append('line')
-          .attr('x1', 0)
-          .attr('x2', 24)
-          .attr('y1', 0)
-          .attr('y2', 0)
-          .attr('stroke', style.colour)
-          .attr('stroke-width', item.emphasis ? 3 : 1.6)
-          .attr('stroke-dasharray', style.dash || null);
-        break;
-      case 'bar':
-        cell.append('rect').attr('x', 4).attr('y', -5).attr('width', 16).attr('height', 10).attr('fill', INK.barFill).attr('stroke', INK.barStroke);
-        break;
-      case 'band':
-        cell.append('rect').attr('x', 0).attr('y', -5).attr('width', 24).attr('height', 10).attr('fill', style.colour).attr('fill-opacity', 0.2);
-        break;
-      case 'point':
-        cell.append('circle').attr('cx', 12).attr('cy', 0).attr('r', 3).attr('fill', INK.data);
-        break;
-      case 'suspension':
-        cell.append('path').attr('d', suspensionMark(12, 0)).attr('fill', '#ffffff').attr('stroke', INK.suspension).attr('stroke-width', 1.3);
-        break;
-      case 'step':
-        cell.append('path').attr('d', 'M0,4H8V0H16V-4H24').attr('fill', 'none').attr('stroke', INK.data).attr('stroke-width', 1.6);
-        break;
-      case 'region':
-        cell.append('rect').attr('x', 0).attr('y', -5).attr('width', 24).attr('height', 10).attr('fill', INK.outside).attr('fill-opacity', 0.55).attr('stroke', INK.outsideEdge);
-        break;
-      case 'reference':
-        cell
-          .append('line')
-          .attr('x1', 0)
-          .attr('x2', 24)
-          .attr('y1', 0)
-          .attr('y2', 0)
-          .attr('stroke', INK.reference)
-          .attr('stroke-width', 1.2)
-          .attr('stroke-dasharray', '3 3');
-        break;
-    }
-    cell.append('text').attr('x', 30).attr('y', 4).text(item.label);
-    x += w;
-  }
-  return top + y;
-}
-
-/** An open triangle pointing right (a unit still running past this time), centred at (x, y). */
-export function suspensionMark(x: number, y: number): string {
-  return `M${round(x - 4)},${round(y - 4.5)}L${round(x + 4.5)},${round(y)}L${round(x - 4)},${round(y + 4.5)}Z`;
-}
-
-/** Marks along the bottom of the plot at each x: failures as short ticks, suspensions as open
- *  right-pointing triangles (the unit outlived this time). */
-export function drawTimeMarks(frame: Frame, xs: readonly number[], x: (v: number) => number, kind: 'failure' | 'suspension', what: string): void {
-  const g = frame.plot.append('g').attr('data-kind', kind === 'failure' ? 'failure-marks' : 'suspension-marks');
-  const y0 = frame.innerHeight;
-  if (kind === 'failure') {
-    let d = '';
-    for (const v of xs) d += `M${round(x(v))},${round(y0)}V${round(y0 - 9)}`;
-    g.append('path').attr('d', d).attr('stroke', INK.data).attr('stroke-width', 1.2).attr('fill', 'none').append('title').text(what);
-  } else {
-    let d = '';
-    for (const v of xs) d += suspensionMark(x(v), y0 - 16);
-    g.append('path').attr('d', d).attr('fill', '#ffffff').attr('fill-opacity', 0.8).attr('stroke', INK.suspension).attr('stroke-width', 1.3).append('title').text(what);
-  }
-}
-
-/** Round a coordinate to 0.01 px: keeps the SVG small and stable. */
-export function round(v: number): number {
-  return Math.round(v * 100) / 100;
-}
-
 /** An SVG path through points, skipping non-finite ones (a gap starts a new segment). */
 export function pathThrough(points: readonly (readonly [number, number])[]): string {
   let d = '';
@@ -352,47 +223,6 @@ export function pathThrough(points: readonly (readonly [number, number])[]): str
     pen = true;
   }
   return d;
-}
-
-/**
- * Minimum number of curve points inside the drawn range for a curve to look smooth. With fewer,
- * straight segments between far-apart points would misrepresent the fit: the caller leaves the
- * curves out and puts `coarseNote`'s words in the chart's notes.
- */
-export const FEW_CURVE_POINTS = 12;
-
-/** One fitted curve per family on a shared x grid; the selected family drawn heavier. */
-export function drawFittedCurves(
-  g: Group,
-  gridX: readonly number[],
-  curves: readonly { readonly family: string; readonly label: string; readonly y: readonly (number | null)[] }[],
-  selected: string,
-  x: (v: number) => number,
-  y: (v: number) => number,
-  what: string,
-): void {
-  for (const c of curves) {
-    const s = styleFor(c.family);
-    const emph = c.family === selected;
-    const pts = gridX.map((xv, i) => [x(xv), c.y[i] === null || c.y[i] === undefined ? Number.NaN : y(c.y[i] as number)] as const);
-    g.append('path')
-      .attr('data-kind', 'curve')
-      .attr('data-family', c.family)
-      .attr('d', pathThrough(pts))
-      .attr('stroke', s.colour)
-      .attr('stroke-width', emph ? 3 : 1.6)
-      .attr('stroke-dasharray', s.dash || null)
-      .attr('stroke-opacity', emph ? 1 : 0.85)
-      .append('title')
-      .text(`${c.label} ${what}`);
-  }
-}
-
-export function coarseNote(gridX: readonly number[], domain: readonly [number, number]): string | null {
-  let inside = 0;
-  for (const v of gridX) if (v >= domain[0] && v <= domain[1]) inside++;
-  if (inside >= FEW_CURVE_POINTS) return null;
-  return `Fitted curves not drawn: only ${inside} curve point${inside === 1 ? '' : 's'} in this range.`;
 }
 
 /** A message drawn in place of a chart when there is nothing to draw, and why (wrapped). */

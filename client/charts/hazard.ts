@@ -5,7 +5,8 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear, scaleLog } from 'd3';
 import type { LifeSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough } from './frame.js';
+import { type LegendItem } from './legend.js';
 import type { ChartOptions } from './options.js';
 import { styleFor } from './palette.js';
 import { logTicks } from './life-probability.js';

@@ -9,7 +9,10 @@
 import { axisBottom, axisLeft, max as d3max, scaleLinear } from 'd3';
 import type { CensoringEvidence, FittedCurves, HistogramEvidence } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { coarseNote, createFrame, drawEmpty, drawFittedCurves, drawGrid, drawTimeMarks, drawXAxis, drawYAxis, fitYAxis, nextId, round, type LegendItem } from './frame.js';
+import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId } from './frame.js';
+import { type LegendItem } from './legend.js';
+import { coarseNote, drawFittedCurves, drawTimeMarks } from './marks.js';
+import { round } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK } from './palette.js';
 

@@ -8,7 +8,10 @@
 import { area, axisBottom, axisLeft, extent, scaleLinear, scaleLog } from 'd3';
 import type { ProbabilityPlotEvidence } from '../src/types.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawEmpty, drawGrid, drawTimeMarks, drawXAxis, drawYAxis, fitYAxis, nextId, pathThrough, round, textWidth, type LegendItem } from './frame.js';
+import { createFrame, drawEmpty, drawGrid, drawXAxis, drawYAxis, fitYAxis, nextId, pathThrough } from './frame.js';
+import { type LegendItem } from './legend.js';
+import { drawTimeMarks } from './marks.js';
+import { round, textWidth } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 

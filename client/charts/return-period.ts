@@ -6,7 +6,9 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { DatasetCandidate, FloodSection } from '../../core/index.js';
 import { axisLabel, sig } from '../src/format.js';
-import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough, round, type LegendItem } from './frame.js';
+import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, keepApart, nextId, pathThrough } from './frame.js';
+import { type LegendItem } from './legend.js';
+import { round } from './text.js';
 import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 
