@@ -191,3 +191,24 @@ describe('snapshot normaliser', () => {
     expect(normaliseSvg('<path d="M1.234,5.678L10,-0.04"/>')).toBe('<path d="M1.2,5.7L10,0"/>');
   });
 });
+
+describe('layout helpers (common practice, no source)', () => {
+  it('keepApart drops tick values whose labels would touch a kept neighbour, keeping the leftmost', async () => {
+    const { keepApart } = await import('../../client/charts/frame.js');
+    // Labels '100', '200', '500' centred at 0, 10 and 60 px: 200 is too close to 100 and is dropped.
+    expect(keepApart([100, 200, 500], (v) => ({ 100: 0, 200: 10, 500: 60 })[v] as number, String)).toEqual([100, 500]);
+    expect(keepApart([1, 2], (v) => v * 100, String)).toEqual([1, 2]);
+  });
+
+  it('wrapText breaks at spaces so that no line is estimated wider than the room, and keeps every word', async () => {
+    const { textWidth, wrapText } = await import('../../client/charts/text.js');
+    const title = 'Where do failures and suspensions fall under the Weibull density?';
+    const lines = wrapText(title, 200, 14, true);
+    expect(lines.length).toBeGreaterThan(1);
+    for (const l of lines) expect(textWidth(l, 14, true)).toBeLessThanOrEqual(200);
+    expect(lines.join(' ')).toBe(title);
+    // Upper case and m/w are wider than lower case; bold wider than regular.
+    expect(textWidth('MW', 12)).toBeGreaterThan(textWidth('ab', 12));
+    expect(textWidth('ab', 12, true)).toBeGreaterThan(textWidth('ab', 12));
+  });
+});
