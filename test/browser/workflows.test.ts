@@ -96,7 +96,10 @@ describe.skipIf(SKIP_BROWSER)('trade workflows on the page', () => {
     expect(text).toMatch(/Gauge resolution/);
     expect(text).toMatch(/Ppk/);
     expect(text).toMatch(/Cpk/);
-    expect(await page.locator('[data-slot="capability-histogram"] line[data-kind="limit"]').count()).toBe(3);
+    // LSL and USL edge their shaded out-of-tolerance regions; the target is its own dashed line.
+    expect(await page.locator('[data-slot="capability-histogram"] line[data-kind="limit"]').count()).toBe(2);
+    expect(await page.locator('[data-slot="capability-histogram"] [data-kind="out-of-spec"]').count()).toBe(2);
+    expect(await page.locator('[data-slot="capability-histogram"] line[data-kind="target"]').count()).toBe(1);
     await page.fill('#usl-input', '25.012');
     await page.dispatchEvent('#usl-input', 'change');
     await page.waitForFunction(() => /USL 25\.012/.test(document.querySelector('[data-block="capability"]')?.textContent ?? ''), undefined, { timeout: 60_000 });
