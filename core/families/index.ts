@@ -12,6 +12,8 @@ import { normal } from './normal.js';
 import { weibull } from './weibull.js';
 import { weibull3 } from './weibull3.js';
 import { lognormal3 } from './lognormal3.js';
+import { pearson3 } from './pearson3.js';
+import { logpearson3 } from './logpearson3.js';
 
 export type * from './types.js';
 export { exponential, gamma, lognormal, normal, weibull };
@@ -19,6 +21,9 @@ export { exponential, gamma, lognormal, normal, weibull };
 export { fitGev, gev, GEV_SHAPE_GUARD, gumbel };
 // Threshold families (three-parameter Weibull and lognormal); not in DEFAULT_FAMILIES.
 export { weibull3, lognormal3 };
+// Pearson type III and log-Pearson type III (flood frequency, Bulletin 17C); not in DEFAULT_FAMILIES.
+export { pearson3, logpearson3 };
+export { NORMAL_SKEW, Pearson3Distribution } from './pearson3.js';
 export type { GevFit, GevFitOptions } from './gev.js';
 
 const registry = new Map<FamilyName, Family>();
@@ -52,6 +57,8 @@ registerFamily(gev);
 // Threshold (three-parameter) families; not in DEFAULT_FAMILIES.
 registerFamily(weibull3);
 registerFamily(lognormal3);
+registerFamily(pearson3);
+registerFamily(logpearson3);
 
 /** The default candidate set for a complete sample. */
 export const DEFAULT_FAMILIES: readonly FamilyName[] = ['normal', 'lognormal', 'gamma', 'weibull', 'exponential'];

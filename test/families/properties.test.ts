@@ -46,6 +46,18 @@ const CASES: Partial<Record<FamilyName, Parameters[]>> = {
     { meanlog: 1, sdlog: 0.5, threshold: 10 },
     { meanlog: 0, sdlog: 1.5, threshold: -2 },
   ],
+  pearson3: [
+    { mean: 0, sd: 1, skew: 0.5 },
+    { mean: 3.2, sd: 0.25, skew: -0.6 },
+    { mean: 10, sd: 2, skew: 0 },
+    { mean: -5, sd: 0.5, skew: 1.8 },
+    { mean: 100, sd: 15, skew: -2.5 },
+  ],
+  logpearson3: [
+    { mean: 3, sd: 0.25, skew: 0.4 },
+    { mean: 2, sd: 0.3, skew: -0.6 },
+    { mean: 0.5, sd: 0.2, skew: 0 },
+  ],
 };
 
 const PS = [1e-12, 1e-6, 1e-3, 0.01, 0.1, 0.3, 0.5, 0.7, 0.9, 0.99, 0.999, 1 - 1e-6];
