@@ -12,6 +12,8 @@
 import { writeFileSync } from 'node:fs';
 import {
   inShard,
+  readBatch,
+  type BatchLayout,
   regionalAnalysis,
   summaryCsv,
   type CsvOptions,
@@ -24,7 +26,6 @@ import {
 } from '../core/index.js';
 import { regionalText } from './regional-text.js';
 import { analyzeAll } from './batch-pool.js';
-import { readBatch, type BatchLayout } from './batch-read.js';
 import { summaryTable } from './batch-summary-text.js';
 import { readInputText, type InputText } from './read-input.js';
 

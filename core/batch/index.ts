@@ -9,3 +9,5 @@ export type { Shard } from './shard.js';
 export { SUMMARY_COLUMNS, summarizeSeries, summaryCsv } from './summary.js';
 export type { SeriesLine, SeriesSummary } from './summary.js';
 export { analyzeSeries } from './analyze-series.js';
+export { readBatch } from './read-table.js';
+export type { BatchLayout, BatchRead } from './read-table.js';

@@ -1,21 +1,12 @@
 /**
- * Reading a batch's series from a CSV text: a long table (`--by KEY`: one row per value) or a wide
+ * Reading a batch's series from a CSV text (pure: the CLI and the page share it): a long table (`--by KEY`: one row per value) or a wide
  * table (`--columns a,b,c` or `all-numeric`: one column per series). Each column is read as cell
  * texts with their file rows and parsed per series (core/batch), so one series' bad cell faults
  * only that series.
  */
-import {
-  InputError,
-  parseStrictNumber,
-  readColumns,
-  splitLong,
-  splitWide,
-  type CellColumn,
-  type CsvOptions,
-  type SeriesRecord,
-  type TableResult,
-  type TextColumn,
-} from '../core/index.js';
+import { InputError } from '../errors.js';
+import { parseStrictNumber, readColumns, type CsvOptions, type TableResult, type TextColumn } from '../csv/index.js';
+import { splitLong, splitWide, type CellColumn, type SeriesRecord } from './series.js';
 
 export interface BatchLayout {
   /** Long table: the key column naming each row's series. */
