@@ -181,6 +181,18 @@ describe('the report opens with the answer and records every input', () => {
     expect(doc.querySelector('pre.data')?.textContent).toBe(csv);
   });
 
+  it('records the subgroup and order columns with their roles, and says when there are none', () => {
+    const base = response();
+    const ctx = { selected: base.candidates[0]!.family, sourceName: 's.csv', column: 'd', units: 'mm', quantity: 'Diameter', generatedAt: new Date(0), charts: [], binsTable: [], requestedBins: null };
+    const withRoles = buildReportHtml({ ...ctx, response: { ...base, input: { ...base.input!, otherColumns: [{ role: 'subgroups', column: 'lot' }, { role: 'order', column: 'made' }] } } });
+    const text = new DOMParser().parseFromString(withRoles, 'text/html').getElementById('record')!.parentElement!.textContent ?? '';
+    expect(text).toContain('Subgroup columnlot');
+    expect(text).toContain('Order column (time or year)made');
+    const none = new DOMParser().parseFromString(buildReportHtml({ ...ctx, response: base }), 'text/html').body.textContent ?? '';
+    expect(none).toContain('Other column rolesnone');
+    expect(none).toContain('Confidence levelnot used');
+  });
+
   it('dataRecord: SHA-256 of "abc" is the FIPS 180-2 Appendix B.1 value (from memory; python3 hashlib.sha256(b"abc") agrees); large data are recorded by checksum only', async () => {
     const abc = await dataRecord('abc');
     expect(abc.sha256).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
