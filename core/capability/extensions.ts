@@ -54,7 +54,8 @@ export interface CapabilityExtensionsInput {
 }
 
 export type TransformSection =
-  | { readonly kind: 'none' }
+  /** No transformation: none asked for, or (`requested`, `reason`) the one asked for could not be fitted. */
+  | { readonly kind: 'none'; readonly requested?: 'boxcox' | 'johnson'; readonly reason?: string }
   | (TransformedCapability & { readonly intervals: PercentileIntervals });
 
 export interface BoundHandling {
@@ -114,6 +115,7 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
       warnings.push(...t.notes);
     } catch (e) {
       if (!(e instanceof PlumblineError) || e.code === 'cancelled') throw e;
+      transform = { kind: 'none', requested: input.transform, reason: e.message };
       warnings.push(`The ${input.transform === 'boxcox' ? 'Box–Cox' : 'Johnson'} transformation could not be fitted: ${e.message}`);
     }
   }

@@ -1,0 +1,48 @@
+/** The capability contract on the command line: --transform, --natural-lower-bound, --capability-replicates. */
+import { describe, expect, it } from 'vitest';
+import { cli, scratchCsv } from '../helpers/cli.js';
+
+// datasets/pump-seal-wear.csv: an invented, right-skewed wear characteristic (datasets/README.md), 80 values.
+const DATA = 'datasets/pump-seal-wear.csv';
+
+describe('plumbline analyze: capability transformations', () => {
+  it('--transform boxcox: JSON capability.transform has kind, lambda with its interval, and the indices computed on it', async () => {
+    const r = await cli('analyze', DATA, '--usl', '200', '--natural-lower-bound', '0', '--transform', 'boxcox', '--capability-replicates', '99', '--json');
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const c = JSON.parse(r.stdout).capability;
+    expect(c.transform.kind).toBe('boxcox');
+    expect(typeof c.transform.lambda).toBe('number');
+    expect(c.transform.lambdaInterval.lower).toBeLessThan(c.transform.lambda);
+    expect(c.transform.indices.map((i: { name: string }) => i.name)).toEqual(['Ppk', 'Ppu']);
+    expect(c.transform.percentile.indices.map((i: { name: string }) => i.name)).toEqual(['Ppk', 'Ppu']);
+    expect(c.transform.intervals.intervals[0].replicates + c.transform.intervals.intervals[0].failed).toBe(99);
+    expect(c.bounds.naturalLowerBound).toBe(0);
+    for (const row of [...c.comparison.passing, ...c.comparison.rejected]) expect(row.ppmBelow).toBe(0);
+  });
+  it('--transform johnson: the Johnson type and parameters; the text report names the curve and the comparison', async () => {
+    const j = await cli('analyze', DATA, '--usl', '200', '--transform', 'johnson', '--capability-replicates', '49', '--json');
+    const t = JSON.parse(j.stdout).capability.transform;
+    expect(['SU', 'SB', 'SL']).toContain(t.type);
+    expect(Object.keys(t.parameters).sort()).toEqual(['delta', 'gamma', 'lambda', 'xi']);
+    const txt = await cli('analyze', DATA, '--usl', '200', '--transform', 'johnson', '--capability-replicates', '49');
+    expect(txt.stdout).toMatch(/Transformation: Johnson S[UBL] by Slifker & Shapiro percentiles/);
+    expect(txt.stdout).toMatch(/Models that pass the tests:/);
+  });
+  it('default is none; an unknown transformation is refused (exit 2) naming the choices', async () => {
+    const d = await cli('analyze', DATA, '--usl', '200', '--capability-replicates', '19', '--json');
+    expect(JSON.parse(d.stdout).capability.transform).toEqual({ kind: 'none' });
+    const bad = await cli('analyze', DATA, '--usl', '200', '--transform', 'logit');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/boxcox/);
+  });
+  it('Box–Cox on data with a zero: the transformation is not fitted, said in the warnings; the rest of the report stands', async () => {
+    const file = scratchCsv('plumbline-cap-')('zero.csv', 'x\n' + [0, 1.2, 2.5, 3.1, 0.7, 1.9, 2.2, 4.0, 1.1, 2.8].join('\n') + '\n');
+    const r = await cli('analyze', file, '--usl', '6', '--transform', 'boxcox', '--capability-replicates', '19', '--json');
+    expect(r.status).toBe(0);
+    const c = JSON.parse(r.stdout).capability;
+    expect(c.transform).toMatchObject({ kind: 'none', requested: 'boxcox' });
+    expect(c.transform.reason).toMatch(/positive/);
+    expect(c.warnings.join(' ')).toMatch(/Box–Cox transformation could not be fitted: .*positive/);
+  });
+});
