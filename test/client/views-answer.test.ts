@@ -56,7 +56,17 @@ describe('the answer', () => {
     expect(a.sentence).toMatch(/^200-year level under Gumbel/);
     expect(a.undermined).toBe(true);
     expect(a.cautions.join(' ')).toMatch(/A trend was found over time \(Mann–Kendall p = /);
-    expect(a.cautions.join(' ')).toMatch(/more than twice the 60-year record/);
+    // The flood section's own warning about the record (core/workflow) is said once, beside the number.
+    expect(a.cautions.filter((x) => /record/.test(x))).toHaveLength(1);
+  });
+
+  it('carries the life section\'s own warnings (suspensions beyond the last failure), not those about other models', () => {
+    // The wording of core/life/analyze.ts and core/workflow/life.ts; the demo itself raises none of them.
+    const own = '8 of 30 units are suspensions: the upper tail is extrapolated beyond the last failure at 2400.';
+    const warned = { ...LIFE, life: { ...LIFE.life!, warnings: [own, 'exponential: a warning about another model', 'Every candidate is rejected at α = 0.05: none of these models describes the data well.'] } } as DatasetReport;
+    const a = answerFor(warned, 'weibull', 'h')!;
+    expect(a.cautions).toContain(own);
+    expect(a.cautions.join(' ')).not.toMatch(/another model|Every candidate/);
   });
 
   it('no decision number asked for: no answer', () => {
@@ -67,7 +77,11 @@ describe('the answer', () => {
 
 describe('the section registry', () => {
   it('maps each report section key to one view, in screen order', () => {
-    expect(SECTIONS.map((s) => s.key)).toEqual(['life', 'flood', 'capability', 'trend', 'sensitivity']);
+    const keys = SECTIONS.map((s) => s.key);
+    expect(new Set(keys).size).toBe(keys.length);
+    // Trades add their own sections; these keep their order, "what would change the answer" last of them.
+    const core = keys.filter((k) => ['life', 'flood', 'capability', 'trend', 'sensitivity'].includes(k));
+    expect(core).toEqual(['life', 'flood', 'capability', 'trend', 'sensitivity']);
   });
 
   it('shows only the sections the report carries; each leads with its answer where it has one', () => {

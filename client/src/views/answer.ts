@@ -83,8 +83,12 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
     undermined = true;
     cautions.push(`A trend was found over time (Mann–Kendall p = ${pValue(r.trend.pValue)}): the values may not come from one distribution, which this number assumes.`);
   }
+  // The warnings of the section that gave the number (not those about other models, nor the rejection said above).
+  const section = s.quantity?.startsWith('B') ? r.life : s.quantity?.startsWith('return level') ? r.flood : r.capability;
+  const others = r.candidates.filter((x) => x !== c).flatMap((x) => [x.label, capital(x.label)]);
+  const own = (section?.warnings ?? []).filter((w) => !others.some((l) => w.startsWith(`${l}:`)) && !w.startsWith(`${c.label}:`) && !w.startsWith(`${label}:`) && !/^Every candidate is rejected/.test(w));
   const rl = c.returnLevels?.[c.returnLevels.length - 1];
-  if (r.flood && rl?.beyondRecord) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
+  if (r.flood && rl?.beyondRecord && !own.some((w) => /record/.test(w))) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
   const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity) : undefined;
   let change = '';
   const which = row?.basis === 'passing' ? 'models no test rejects' : 'models tried';
@@ -95,6 +99,7 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   } else if (row && row.values.length === 1) {
     change = `No other model passes the tests, so there is nothing to compare it with.`;
   }
+  for (const w of own) cautions.push(w);
   for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
   return { sentence: s.text, cautions, change, undermined };
 }
