@@ -8,11 +8,13 @@ import type { SectionBlock, SectionInput, SectionView } from './block.js';
 import { capabilitySection } from './capability.js';
 import { floodSection } from './flood.js';
 import { lifeSection } from './life.js';
+import { lifeRecordedSection } from './life-recorded.js';
 import { sensitivitySection } from './sensitivity.js';
 import { trendSection } from './trend.js';
 
 export const SECTIONS: readonly { readonly key: string; readonly view: SectionView }[] = [
   { key: 'life', view: lifeSection },
+  { key: 'life-recorded', view: lifeRecordedSection },
   { key: 'flood', view: floodSection },
   { key: 'capability', view: capabilitySection },
   { key: 'trend', view: trendSection },

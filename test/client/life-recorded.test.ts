@@ -1,0 +1,61 @@
+// @vitest-environment jsdom
+/**
+ * The recorded-life section on the page (client/src/views/life-recorded.ts) from real core reports
+ * (recordedLifeExtras on the invented seal demo, datasets/README.md): the estimator named on every
+ * candidate, the mixture flagged, Weibayes with its shape stated as assumed, the Turnbull boxes, the
+ * plan; through the JSON round trip the page receives (NaN and Infinity arrive as null).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { recordedLifeExtras } from '../../core/life/index.js';
+import { blockHtml, blockNode } from '../../client/src/views/block.js';
+import { recordedBlock } from '../../client/src/views/life-recorded.js';
+import { SECTIONS } from '../../client/src/views/sections.js';
+
+const t = readColumns(readFileSync(join(process.cwd(), 'datasets', 'seal-failure-modes.csv'), 'utf8'), [
+  { select: 'hours', kind: 'number' },
+  { select: 'status', kind: 'text' },
+]);
+const times = (t.columns[0] as NumberColumn).values;
+const failed = (t.columns[1] as TextColumn).texts.map(Number);
+
+describe('recorded-life section', () => {
+  it('is registered as a page section', () => {
+    expect(SECTIONS.map((s) => s.key)).toContain('life-recorded');
+  });
+
+  it('ML with an assumed shape and a plan: estimator per candidate, mixture flagged, Weibayes assumed, plan table, safety caution', () => {
+    const x = recordedLifeExtras({ times, failed }, { assumedShape: 3, planReliability: 0.9, planTime: 2000, bLifePercents: [10] })!;
+    const wire = JSON.parse(JSON.stringify(x));
+    const b = recordedBlock(wire.report, wire.plan, 'h');
+    expect(b.answer).toMatch(/shape ASSUMED at β = 3: scale at least/);
+    const cand = b.tables[0]!;
+    expect(cand.rows.every((r) => r[2] === 'maximum likelihood')).toBe(true);
+    expect(cand.rows.some((r) => /Weibull mixture/.test(r[1]!))).toBe(true);
+    const lives = b.tables[1]!;
+    // The mixture's B-life has no bounds: shown as '—', with the reason in the last column.
+    const mixRow = lives.rows.find((r) => /mixture/.test(r[0]!))!;
+    expect([mixRow[2], mixRow[3]]).toEqual(['—', '—']);
+    expect(mixRow[4]).toMatch(/no bounds/);
+    expect(b.tables.some((tb) => /Weibayes with the shape ASSUMED/.test(tb.caption))).toBe(true);
+    const turnbull = b.tables.find((tb) => /Turnbull/.test(tb.caption))!;
+    expect(turnbull.folded).toBe(true);
+    expect(turnbull.rows.at(-1)![1]).toBe('beyond');
+    expect(b.tables.some((tb) => /Test plan/.test(tb.caption))).toBe(true);
+    expect(b.lines.some((l) => l.kind === 'caution' && /licensed practice/.test(l.text))).toBe(true);
+    const node = blockNode(b, () => document.createElement('div'));
+    expect(node.textContent).toContain('Life: other estimators');
+    expect(blockHtml(b, () => '')).toContain('Weibayes');
+  });
+
+  it('rank regression: the estimator column says so and the bounds are absent', () => {
+    const x = recordedLifeExtras({ times, failed }, { estimation: 'rank-regression' })!;
+    const b = recordedBlock(JSON.parse(JSON.stringify(x.report)), null, '');
+    expect(b.lines[0]!.text).toMatch(/Estimator: rank regression/);
+    expect(b.tables[0]!.head.at(-1)).toBe('r');
+    expect(b.tables[0]!.rows.every((r) => r[2] === 'rank regression')).toBe(true);
+    expect(b.tables[1]!.rows.every((r) => r[2] === '—' && r[3] === '—')).toBe(true);
+  });
+});
