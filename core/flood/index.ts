@@ -6,3 +6,13 @@ export type { PlottingFormula, PlottingPoint, PlottingPositions } from './plotti
 export { exceedanceRisk, periodForRisk } from './risk.js';
 export { floodFrequency } from './analysis.js';
 export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } from './analysis.js';
+// Log-Pearson III by the expected moments algorithm (Bulletin 17C): EMA, low outliers, regional skew.
+export { emaIterate, fitEma, recordObservations } from './ema.js';
+export type { EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
+export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
+export type { EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
+export { intervalMoments } from './ema-moments.js';
+export { MGB_INWARD_ALPHA, MGB_OUTWARD_ALPHA, mgbPValues, mgbStatistics, multipleGrubbsBeck } from './grubbs-beck.js';
+export type { MgbResult } from './grubbs-beck.js';
+export { STATION_SKEW_MSE_METHOD, stationSkewMse, weightSkew } from './regional-skew.js';
+export type { SkewWeighting } from './regional-skew.js';

@@ -1,0 +1,104 @@
+/**
+ * Return levels of an EMA log-Pearson III fit and their confidence intervals.
+ *
+ * Estimate: Q_T = 10^(M + K_T S), K_T the Pearson III frequency factor at the weighted skew,
+ * i.e. the inverse survival function of the fitted Pearson III of log10 Q at 1/T.
+ *
+ * Intervals: a parametric bootstrap of the whole estimator (common practice, no source for this
+ * particular scheme): each replicate draws a record of the same shape from the fitted
+ * distribution (the systematic years censored below the same low-outlier threshold; the historical
+ * period's years above its perception threshold kept as peaks, the others as "below the
+ * threshold"; user intervals kept as given), refits by EMA with the same regional skew, and the
+ * interval is the percentile range of the replicates' log10 Q_T. Bulletin 17C's own intervals
+ * (Cohn, Lane & Stedinger 2001, WRR 37(6):1695-1706, from the EMA's asymptotic covariance) are
+ * not implemented here; the report names the method used.
+ */
+import type { Rng } from '../random/index.js';
+import { Pearson3Distribution } from '../families/index.js';
+import { emaIterate, type EmaFit, type EmaRecord, type LogObservation } from './ema.js';
+
+export interface EmaReturnLevel {
+  readonly period: number;
+  readonly estimate: number;
+  readonly lower: number | null;
+  readonly upper: number | null;
+  readonly method: string;
+}
+
+export interface EmaIntervalOptions {
+  readonly confidence?: number;
+  readonly replicates?: number;
+  readonly rng?: Rng;
+}
+
+export const DEFAULT_EMA_REPLICATES = 300;
+
+/** Draw one synthetic record shaped like the fitted one. */
+function syntheticRecord(record: EmaRecord, fit: EmaFit, d: Pearson3Distribution, rng: Rng): LogObservation[] {
+  const draw = (): number => d.quantile(rng.uniform());
+  const out: LogObservation[] = [];
+  const low = fit.lowOutlierThreshold !== null ? Math.log10(fit.lowOutlierThreshold) : null;
+  for (let i = 0; i < record.peaks.length; i++) {
+    const y = draw();
+    if (low !== null && y < low) out.push({ kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: low });
+    else out.push({ kind: 'peak', y });
+  }
+  const hb = record.historicalYearsBelow;
+  const hp = record.historicalPeaks ?? [];
+  if (hb && hb.years > 0) {
+    const t = Math.log10(hb.threshold);
+    for (let i = 0; i < hb.years + hp.length; i++) {
+      const y = draw();
+      out.push(y > t ? { kind: 'peak', y } : { kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: t });
+    }
+  } else {
+    for (let i = 0; i < hp.length; i++) out.push({ kind: 'peak', y: draw() });
+  }
+  for (const iv of record.intervals ?? []) {
+    out.push({ kind: 'interval', lower: iv.lower > 0 ? Math.log10(iv.lower) : Number.NEGATIVE_INFINITY, upper: Math.log10(iv.upper) });
+  }
+  return out;
+}
+
+function percentile(sorted: Float64Array, p: number): number {
+  const h = (sorted.length - 1) * p;
+  const i = Math.floor(h);
+  const f = h - i;
+  const a = sorted[i] as number;
+  return f === 0 ? a : a + f * ((sorted[Math.min(i + 1, sorted.length - 1)] as number) - a);
+}
+
+/** Return levels for the periods (years > 1), with bootstrap intervals when an rng is given. */
+export function emaReturnLevels(record: EmaRecord, fit: EmaFit, periods: readonly number[], opts: EmaIntervalOptions = {}): EmaReturnLevel[] {
+  const { mean, sd, skew } = fit.parameters;
+  const d = new Pearson3Distribution(mean, sd, skew);
+  const estimates = periods.map((t) => Math.pow(10, d.isf(1 / t)));
+  if (!opts.rng) return periods.map((period, i) => ({ period, estimate: estimates[i] as number, lower: null, upper: null, method: 'none' }));
+  const confidence = opts.confidence ?? 0.9;
+  const B = opts.replicates ?? DEFAULT_EMA_REPLICATES;
+  const samples = periods.map(() => new Float64Array(B));
+  let kept = 0;
+  for (let b = 0; b < B; b++) {
+    const obs = syntheticRecord(record, fit, d, opts.rng);
+    if (obs.filter((o) => o.kind === 'peak').length < 3) continue;
+    const r = emaIterate(obs, record.regionalSkew);
+    if (!r.converged) continue;
+    const rd = new Pearson3Distribution(r.mean, r.sd, r.skew.weightedSkew);
+    periods.forEach((t, i) => {
+      (samples[i] as Float64Array)[kept] = rd.isf(1 / t);
+    });
+    kept++;
+  }
+  const method = `parametric bootstrap of the EMA, percentile interval (${kept} replicates)`;
+  return periods.map((period, i) => {
+    const s = (samples[i] as Float64Array).slice(0, kept).sort();
+    const ok = kept >= 20;
+    return {
+      period,
+      estimate: estimates[i] as number,
+      lower: ok ? Math.pow(10, percentile(s, (1 - confidence) / 2)) : null,
+      upper: ok ? Math.pow(10, percentile(s, (1 + confidence) / 2)) : null,
+      method,
+    };
+  });
+}
