@@ -23,6 +23,8 @@ export function isParquetFile(file: string): boolean {
   try {
     const head = Buffer.alloc(4);
     return readSync(fd, head, 0, 4, 0) === 4 && head.toString('latin1') === 'PAR1';
+  } catch {
+    return false; // a folder or an unreadable device: the text reader says what it is
   } finally {
     closeSync(fd);
   }
