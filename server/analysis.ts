@@ -15,7 +15,8 @@ import {
   planDataset,
   prepareSample,
   readColumns,
-  type AnyDatasetReport,
+  type AnalyzeResponse,
+  type InputSummary,
   type ColumnRequest,
   type DatasetInput,
   type DatasetPlan,
@@ -25,30 +26,13 @@ import {
   readColumn,
   SKIP_REASON_WORDS,
   type BootstrapCounts,
-  type Evidence,
   type Sample,
-  type SkipCount,
 } from '../core/index.js';
 import { checkBootstrapWork, checkDatasetSize } from './limits.js';
 import type { AnalyzeRequest } from './validate.js';
 
-export interface InputSummary {
-  readonly source: 'values' | 'csv';
-  readonly n: number;
-  readonly column?: string;
-  readonly columnIndex?: number;
-  readonly rowsRead?: number;
-  readonly skipped?: readonly (SkipCount & { readonly description: string })[];
-  readonly blankLines?: number;
-  readonly delimiter?: string;
-  readonly delimiterDetected?: boolean;
-  readonly header?: readonly string[];
-  readonly warnings?: readonly string[];
-  /** Workflow columns read from the CSV besides the value column. */
-  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order'; readonly column: string }[];
-}
-
-export type AnalyzeResponse = AnyDatasetReport & { readonly input: InputSummary; readonly evidence?: Evidence };
+/** The response types are the shared contract (core/api-types.ts), used by the page as well. */
+export type { AnalyzeResponse, InputSummary };
 
 /** The values of a request and where they came from. Throws the core's InputError on bad CSV. */
 export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>; input: InputSummary } {

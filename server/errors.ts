@@ -4,14 +4,10 @@
  * answered with a generic 500 that leaks nothing.
  */
 import type { ErrorRequestHandler, Response } from 'express';
-import { isPlumblineError, type ErrorPlace } from '../core/index.js';
+import { isPlumblineError, type ErrorBody } from '../core/index.js';
 
-export interface ErrorBody {
-  readonly message: string;
-  readonly field?: string;
-  readonly code?: string;
-  readonly place?: ErrorPlace;
-}
+/** The `error` of every 4xx/5xx body: the shared contract (core/api-types.ts). */
+export type { ErrorBody };
 
 export class HttpError extends Error {
   readonly status: number;

@@ -6,11 +6,11 @@
  * forgotten after `keepMs` (or when more than `maxFinished` are held).
  */
 import { randomUUID } from 'node:crypto';
-import { isPlumblineError } from '../core/index.js';
+import { isPlumblineError, type JobState } from '../core/index.js';
 import { clientFault, HttpError, WorkerFailed, type ErrorBody, type Logger } from './errors.js';
 import type { WorkerPool } from './pool.js';
 
-export type JobState = 'running' | 'done' | 'cancelled' | 'failed';
+export type { JobState };
 
 export interface JobView {
   readonly id: string;
