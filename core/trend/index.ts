@@ -3,3 +3,5 @@ export { exactMannKendallP, inversionCounts, mannKendall } from './mann-kendall.
 export type { TrendOptions, TrendResult } from './mann-kendall.js';
 export { MAX_SEN_N, senSlope } from './sen-slope.js';
 export type { SenSlope } from './sen-slope.js';
+export { autocorrelations, averageRanks, hamedRaoMannKendall } from './hamed-rao.js';
+export type { HamedRaoResult } from './hamed-rao.js';
