@@ -47,6 +47,14 @@ describe('workflow requests on the worker pool', () => {
     expect(report.dataKind).toBe('censored');
   }, 150_000);
 
+  it('life data with evidence: the evidence follows the status column (failures and suspensions counted as sent)', async () => {
+    const times = weibull(30, 34);
+    const status = times.map((_, i) => (i % 3 === 0 ? 0 : 1));
+    const res = await request(app).post('/api/analyze').send({ values: times, status, families: ['weibull'], replicates: 19, evidence: true });
+    expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(200);
+    expect(res.body.evidence.censoring).toMatchObject({ failures: 20, suspensions: 10 });
+  }, 120_000);
+
   it('a censored job can be cancelled', async () => {
     const times = weibull(300, 32);
     const status = times.map((_, i) => (i % 3 === 0 ? 0 : 1));
