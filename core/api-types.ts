@@ -78,3 +78,40 @@ export interface JobViewBody {
   readonly result?: AnalyzeResponse;
   readonly error?: ErrorBody;
 }
+
+/** A demo's decision settings (server/demo.ts DEMO_SETTINGS): request fields and the same in words. */
+export interface DemoSettings {
+  readonly column: string;
+  readonly fields: Readonly<Record<string, unknown>>;
+  /** In words, for the page ("Demo settings: ..."). */
+  readonly description: string;
+}
+
+/** One entry of `GET /api/demo`. */
+export interface DemoEntry {
+  readonly name: string;
+  readonly file: string;
+  readonly bytes: number;
+  readonly columns: readonly string[];
+  readonly defaultColumn: string;
+  readonly settings?: DemoSettings;
+}
+
+/** `GET /api/demo/:name`. */
+export interface DemoFileBody {
+  readonly name: string;
+  readonly file: string;
+  readonly columns: readonly string[];
+  readonly defaultColumn: string;
+  readonly settings?: DemoSettings;
+  readonly csv: string;
+}
+
+/** `GET /api/demo-analysis`: the demo analysed at start, with its result. */
+export interface DemoAnalysisBody {
+  readonly name: string;
+  readonly column: string;
+  readonly settings?: DemoSettings;
+  readonly csv: string;
+  readonly result: AnalyzeResponse;
+}

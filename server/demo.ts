@@ -5,25 +5,10 @@
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { readColumn } from '../core/index.js';
+import { readColumn, type DemoEntry, type DemoSettings } from '../core/index.js';
 
-export interface DemoEntry {
-  readonly name: string;
-  readonly file: string;
-  readonly bytes: number;
-  readonly columns: readonly string[];
-  readonly defaultColumn: string;
-  /** The demo's decision settings (request fields of server/API.md) and what they mean, or absent. */
-  readonly settings?: DemoSettings;
-}
-
-/** Workflow settings a demo is opened with, so it shows its trade's result (stated on screen). */
-export interface DemoSettings {
-  readonly column: string;
-  readonly fields: Readonly<Record<string, unknown>>;
-  /** In words, for the page ("Demo settings: ..."). */
-  readonly description: string;
-}
+/** The shapes of the demo endpoints are the shared contract (core/api-types.ts). */
+export type { DemoEntry, DemoSettings };
 
 /**
  * Chosen for the invented scenarios of datasets/README.md: the bearing test's status column and
