@@ -93,7 +93,8 @@ export function recordObservations(record: EmaRecord): {
   const mode = record.lowOutliers ?? 'mgb';
   if (mode === 'mgb') {
     mgb = multipleGrubbsBeck(positive.map((q) => Math.log10(q)));
-    if (mgb.threshold !== null) lowThreshold = Math.pow(10, mgb.threshold);
+    // The smallest retained peak itself (not 10^log10 of it, which may differ in the last bit).
+    if (mgb.lowOutliers > 0) lowThreshold = [...positive].sort((a, b) => a - b)[mgb.lowOutliers] as number;
   } else if (mode !== 'none') {
     if (!(mode.threshold > 0)) throw new InputError('the low-outlier threshold must be a positive flow');
     lowThreshold = mode.threshold;
