@@ -16,6 +16,7 @@ import {
   DEFAULT_BOOTSTRAP_REPLICATES,
   andersonDarlingStatistic,
   bootstrapPValue,
+  chiSquareBootstrapPValue,
   chiSquareTest,
   chooseBinCount,
   formatNumber,
@@ -108,6 +109,8 @@ interface FittedCandidate {
   readonly table: AdPValue | null;
   /** Why the bootstrap is used (when it is). */
   readonly bootstrapReason: string | null;
+  /** Why the chi-square decision is by bootstrap (null: the asymptotic bracket decides). */
+  readonly chiSquareBootstrapReason: string | null;
 }
 
 /** Everything computed before the bootstrap. */
@@ -223,10 +226,20 @@ export function planAnalysis(values: ArrayLike<number> | Sample, options: Analyz
         table = null;
       }
     }
-    if (bootstrapReason !== null) {
-      jobs.push({ family: name, parameters: outcome.parameters, n: sample.n, observed: a2, seed: opts.seed, start: 0, end: opts.bootstrapReplicates });
+    const chiSquareBootstrapReason = chiSquareNeedsBootstrap(chiSquare, sample.n);
+    if (bootstrapReason !== null || chiSquareBootstrapReason !== null) {
+      jobs.push({
+        family: name,
+        parameters: outcome.parameters,
+        n: sample.n,
+        observed: a2,
+        seed: opts.seed,
+        start: 0,
+        end: opts.bootstrapReplicates,
+        ...(chiSquareBootstrapReason !== null && chiSquare.computable ? { chiSquare: { observed: chiSquare.statistic, k: chiSquare.k } } : {}),
+      });
     }
-    candidates.push({ family, fit: outcome, a2, chiSquare, table, bootstrapReason });
+    candidates.push({ family, fit: outcome, a2, chiSquare, table, bootstrapReason, chiSquareBootstrapReason });
   }
   return { options: opts, sample, candidates, notApplicable, bootstrapJobs: jobs };
 }
@@ -323,6 +336,44 @@ function evaluateFamily(family: Family, sample: Sample, opts: ResolvedOptions): 
   }
 }
 
+/** Below this n the chi-square decision is always by bootstrap (measured sizes: scripts/size-study.ts, docs/size-study.md). */
+export const CHI_SQUARE_BOOTSTRAP_BELOW_N = 50;
+
+/**
+ * Why the chi-square p-value must come from the parametric bootstrap, or null when the asymptotic
+ * bracket decides. The true null distribution of X² with parameters estimated from the raw values
+ * lies between χ²(k - 1 - m) and χ²(k - 1) (Chernoff & Lehmann 1954) only for large n; the bracket
+ * is wide when its two p-values fall on either side of α, and at small n the k - 1 - m reference
+ * rejects too often (measured 10 % at n = 20 for a nominal 5 %).
+ */
+function chiSquareNeedsBootstrap(c: ChiSquareReport, n: number): string | null {
+  if (!c.computable) return null;
+  if (n < CHI_SQUARE_BOOTSTRAP_BELOW_N) return `n = ${n} is below ${CHI_SQUARE_BOOTSTRAP_BELOW_N}, where the χ²(k - 1 - m) reference rejects too often`;
+  if (c.pValue < c.alpha && c.pValueUpper >= c.alpha) return `the Chernoff–Lehmann bracket (p between ${formatNumber(c.pValue)} and ${formatNumber(c.pValueUpper)}) straddles α = ${formatNumber(c.alpha)}`;
+  return null;
+}
+
+/** The chi-square report with the bootstrap p-value deciding (the two asymptotic p-values kept beside it). */
+function chiSquareWithBootstrap(c: ChiSquareReport, reason: string | null, counts: BootstrapCounts | undefined, opts: ResolvedOptions, n: number, label: string): ChiSquareReport {
+  if (!c.computable) return c;
+  if (reason === null || !counts || counts.chiSquareExceed === undefined) return { ...c, decidedBy: 'asymptotic' };
+  const bp = chiSquareBootstrapPValue(counts);
+  const rejected = bp.pValue < opts.alpha;
+  const a = formatNumber(opts.alpha);
+  const decision =
+    `${rejected ? 'Rejected' : 'Not rejected'} at α = ${a}: X² = ${formatNumber(c.statistic)}, bootstrap p = ${formatNumber(bp.pValue)} ` +
+    `(${bp.replicates} samples of n = ${n} from the fitted ${label}, each refitted on its raw values, X²* on ${c.k} equiprobable bins of its own fit; Monte Carlo s.e. ${formatNumber(bp.monteCarloStandardError)}` +
+    `${bp.unrefitted > 0 ? `; ${bp.unrefitted} unrefittable replicate(s) counted as exceeding` : ''}). ` +
+    `Used because ${reason}. The asymptotic p-values are ${formatNumber(c.pValue)} (dof ${c.dof}) and ${formatNumber(c.pValueUpper)} (dof ${c.dofUpper}).`;
+  return {
+    ...c,
+    rejected,
+    decision,
+    decidedBy: 'bootstrap',
+    bootstrap: { pValue: bp.pValue, monteCarloStandardError: bp.monteCarloStandardError, replicates: bp.replicates, unrefitted: bp.unrefitted, seed: opts.seed },
+  };
+}
+
 /** Whether a table result decides the test at α (an estimate always does; a bound only on one side). */
 function boundDecides(t: AdPValue, alpha: number): boolean {
   if (t.pValueIs === 'estimate') return true;
@@ -400,7 +451,7 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
     const m = c.family.estimatedParameters;
     const ic = informationCriteria(c.fit.logLikelihood, m, n);
     let famCounts: BootstrapCounts | undefined;
-    if (c.table === null) {
+    if (c.table === null || c.chiSquareBootstrapReason !== null) {
       if (byFamily) famCounts = byFamily.get(c.family.name);
       else {
         const idx = plan.bootstrapJobs.findIndex((j) => j.family === c.family.name);
@@ -423,11 +474,12 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
       }
       throw e;
     }
-    return [{ c, m, ...ic, ad, family: c.family.name, estimatedParameters: m }];
+    const chiSquare = chiSquareWithBootstrap(c.chiSquare, c.chiSquareBootstrapReason, famCounts, opts, n, c.family.label);
+    return [{ c, m, ...ic, ad, chiSquare, family: c.family.name, estimatedParameters: m }];
   });
   const ranked = rankCandidates(drafts);
   const candidates: CandidateReport[] = ranked.map((d) => {
-    const chiRejected = d.c.chiSquare.computable ? d.c.chiSquare.rejected : null;
+    const chiRejected = d.chiSquare.computable ? d.chiSquare.rejected : null;
     const by = rejectedBy(chiRejected, d.ad.rejected);
     return {
       rank: d.rank,
@@ -441,7 +493,7 @@ export function finishAnalysis(plan: AnalysisPlan, counts: readonly BootstrapCou
       bic: d.bic,
       deltaAicc: d.deltaAicc,
       fit: { method: d.c.fit.method, iterations: d.c.fit.iterations, converged: d.c.fit.converged },
-      chiSquare: d.c.chiSquare,
+      chiSquare: d.chiSquare,
       andersonDarling: d.ad,
       rejectedBy: by,
       verdict: verdict(d.rank, d.deltaAicc, by, opts.alpha, d.c.chiSquare.computable),
@@ -532,8 +584,8 @@ function methodsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[]):
     },
     {
       topic: 'chi-square p-value',
-      description: 'X² = Σ(O - E)²/E with k - 1 - m degrees of freedom (pValue, slightly liberal) and k - 1 (pValueUpper); the true null distribution lies between them because the parameters were estimated from the raw data.',
-      source: 'Chernoff & Lehmann (1954), Ann. Math. Stat. 25:579-586; NIST/SEMATECH e-Handbook §1.3.5.15.',
+      description: `X² = Σ(O - E)²/E with k - 1 - m degrees of freedom (pValue) and k - 1 (pValueUpper); the true null distribution lies between them for large n because the parameters were estimated from the raw data. Where that bracket straddles α, or n < ${CHI_SQUARE_BOOTSTRAP_BELOW_N} (where k - 1 - m rejects too often), the decision uses a parametric-bootstrap p-value instead: samples drawn from the fitted model, each refitted on its raw values and X²* computed on equiprobable bins of its own fit, p = (1 + #{X²* ≥ X²})/(B + 1), unrefittable replicates counted as exceeding.`,
+      source: 'Chernoff & Lehmann (1954), Ann. Math. Stat. 25:579-586; NIST/SEMATECH e-Handbook §1.3.5.15; parametric bootstrap: Davison & Hinkley (1997), Bootstrap Methods, §4.2 [from memory].',
     },
     {
       topic: 'Anderson–Darling statistic',

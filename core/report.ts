@@ -34,6 +34,20 @@ export interface ChiSquareComputed {
   readonly rejected: boolean;
   /** The decision in words. */
   readonly decision: string;
+  /**
+   * What decided the test: 'asymptotic' (pValue, k - 1 - m dof, when the Chernoff–Lehmann bracket
+   * is narrow) or 'bootstrap' (the parametric-bootstrap p-value below). Absent in older reports.
+   */
+  readonly decidedBy?: 'asymptotic' | 'bootstrap';
+  /** The parametric-bootstrap p-value (each replicate refitted on its raw values), when it decides. */
+  readonly bootstrap?: {
+    readonly pValue: number;
+    readonly monteCarloStandardError: number;
+    /** Replicates run; unrefittable ones are counted as exceeding. */
+    readonly replicates: number;
+    readonly unrefitted: number;
+    readonly seed: number;
+  };
   /** Number of equiprobable bins. */
   readonly k: number;
   /** How k was chosen, in words (rule and caps). */

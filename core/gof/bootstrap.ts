@@ -16,9 +16,22 @@ import { getFamily, type Family, type FamilyName, type Parameters } from '../fam
 import { createRng } from '../random/index.js';
 import { prepareSample } from '../sample.js';
 import { andersonDarlingStatistic } from './anderson-darling.js';
+import { equiprobableBins } from './binning.js';
+import { pearsonStatistic } from './chi-square.js';
 
 /** Default number of bootstrap replicates B. */
 export const DEFAULT_BOOTSTRAP_REPLICATES = 999;
+
+/**
+ * The chi-square part of a bootstrap job: the observed X² on k equiprobable bins. Each replicate's
+ * X²* is computed on k equiprobable bins under its own refitted model, so the counts estimate the
+ * null distribution of X² with parameters estimated from the raw values (the Chernoff–Lehmann
+ * distribution itself, which lies between χ²(k - 1 - m) and χ²(k - 1); Chernoff & Lehmann 1954).
+ */
+export interface ChiSquareBootstrapSpec {
+  readonly observed: number;
+  readonly k: number;
+}
 
 /** A serialisable description of a range of bootstrap replicates. */
 export interface BootstrapJob {
@@ -32,6 +45,8 @@ export interface BootstrapJob {
   readonly start: number;
   /** Last replicate index (exclusive). */
   readonly end: number;
+  /** Also count X²* ≥ observed X² (absent: A² only). */
+  readonly chiSquare?: ChiSquareBootstrapSpec;
 }
 
 /** Counts over a range of replicates. */
@@ -47,6 +62,11 @@ export interface BootstrapCounts {
   /** Replicates whose refit failed (excluded from B). */
   readonly failed: number;
   readonly cancelled: boolean;
+  /**
+   * Chi-square jobs only: replicates with X²* ≥ observed X², counting every replicate that could
+   * not be refitted as exceeding (conservative: it can only raise the p-value).
+   */
+  readonly chiSquareExceed?: number;
 }
 
 /** Anything with an `aborted` flag, e.g. an AbortSignal. */
@@ -69,21 +89,48 @@ export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions =
   let valid = 0;
   let completed = 0;
   let cancelled = false;
+  let chiExceed = 0;
+  const chi = job.chiSquare;
   for (let i = job.start; i < job.end; i++) {
     if (opts.signal?.aborted) {
       cancelled = true;
       break;
     }
-    const a2 = replicateStatistic(family, job, i);
+    const r = replicateStatistics(family, job, i, chi?.k ?? 0);
+    const a2 = r.a2;
     completed++;
     if (Number.isNaN(a2)) failed++;
     else {
       valid++;
       if (a2 >= job.observed) exceed++;
     }
+    if (chi && !(r.x2 < chi.observed)) chiExceed++; // NaN (unrefittable) counts as exceeding
     opts.onProgress?.(completed, total);
   }
-  return { start: job.start, end: job.end, completed, valid, exceed, failed, cancelled };
+  return { start: job.start, end: job.end, completed, valid, exceed, failed, cancelled, ...(chi ? { chiSquareExceed: chiExceed } : {}) };
+}
+
+/**
+ * A² (and X² on k equiprobable bins when k > 0) of replicate i at its refitted parameters; NaN for
+ * a replicate that cannot be refitted (see replicateStatistic).
+ */
+export function replicateStatistics(family: Family, job: Pick<BootstrapJob, 'parameters' | 'n' | 'seed'>, i: number, k: number): { a2: number; x2: number } {
+  const none = { a2: Number.NaN, x2: Number.NaN };
+  try {
+    const x = family.random(job.parameters, createRng(job.seed, i), job.n);
+    x.sort();
+    const sample = prepareSample(x, { alreadySorted: true });
+    if (!Number.isFinite(sample.sum) && x.some((v) => !Number.isFinite(v))) return none;
+    const fit = family.fit(sample);
+    if (!fit.ok) return none;
+    const dist = family.make(fit.parameters);
+    const a2 = andersonDarlingStatistic(dist, sample.sorted);
+    const x2 = k > 0 ? pearsonStatistic(equiprobableBins(dist, sample.sorted, k)) : Number.NaN;
+    return { a2: Number.isFinite(a2) ? a2 : Number.NaN, x2: Number.isFinite(x2) ? x2 : Number.NaN };
+  } catch (e) {
+    if (e instanceof PlumblineError && e.code !== 'cancelled') return none;
+    throw e;
+  }
 }
 
 /**
@@ -93,19 +140,7 @@ export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions =
  * doubles). Such replicates are counted as failed and reported, never thrown (issue 6).
  */
 export function replicateStatistic(family: Family, job: Pick<BootstrapJob, 'parameters' | 'n' | 'seed'>, i: number): number {
-  try {
-    const x = family.random(job.parameters, createRng(job.seed, i), job.n);
-    x.sort();
-    const sample = prepareSample(x, { alreadySorted: true });
-    if (!Number.isFinite(sample.sum) && x.some((v) => !Number.isFinite(v))) return Number.NaN;
-    const fit = family.fit(sample);
-    if (!fit.ok) return Number.NaN;
-    const a2 = andersonDarlingStatistic(family.make(fit.parameters), sample.sorted);
-    return Number.isFinite(a2) ? a2 : Number.NaN;
-  } catch (e) {
-    if (e instanceof PlumblineError && e.code !== 'cancelled') return Number.NaN;
-    throw e;
-  }
+  return replicateStatistics(family, job, i, 0).a2;
 }
 
 /** Split replicates [0, replicates) into `parts` contiguous jobs (for workers). */
@@ -131,6 +166,7 @@ export function combineBootstrapCounts(parts: readonly BootstrapCounts[]): Boots
   let exceed = 0;
   let failed = 0;
   let cancelled = false;
+  let chiExceed: number | null = null;
   for (const c of sorted) {
     if (c.start !== end) throw new PlumblineError('not-computable', `Bootstrap ranges do not tile: a range starts at ${c.start}, expected ${end}.`);
     end = c.end;
@@ -139,8 +175,9 @@ export function combineBootstrapCounts(parts: readonly BootstrapCounts[]): Boots
     exceed += c.exceed;
     failed += c.failed;
     cancelled ||= c.cancelled;
+    if (c.chiSquareExceed !== undefined) chiExceed = (chiExceed ?? 0) + c.chiSquareExceed;
   }
-  return { start: first.start, end, completed, valid, exceed, failed, cancelled };
+  return { start: first.start, end, completed, valid, exceed, failed, cancelled, ...(chiExceed !== null ? { chiSquareExceed: chiExceed } : {}) };
 }
 
 export interface BootstrapPValue {
@@ -158,4 +195,21 @@ export function bootstrapPValue(counts: BootstrapCounts): BootstrapPValue {
   if (b === 0) throw new PlumblineError('not-computable', 'No bootstrap replicate could be refitted.');
   const p = (1 + counts.exceed) / (b + 1);
   return { pValue: p, monteCarloStandardError: Math.sqrt((p * (1 - p)) / b), replicates: b, failed: counts.failed };
+}
+
+export interface ChiSquareBootstrapPValue {
+  readonly pValue: number;
+  readonly monteCarloStandardError: number;
+  /** All replicates run (unrefittable ones included, counted as exceeding). */
+  readonly replicates: number;
+  readonly unrefitted: number;
+}
+
+/** p = (1 + #{X²* ≥ X²})/(B + 1) over every replicate run, unrefittable ones counted as exceeding. */
+export function chiSquareBootstrapPValue(counts: BootstrapCounts): ChiSquareBootstrapPValue {
+  if (counts.cancelled) throw new PlumblineError('cancelled', 'The bootstrap was cancelled.');
+  if (counts.chiSquareExceed === undefined || counts.completed === 0) throw new PlumblineError('not-computable', 'No chi-square bootstrap replicates.');
+  const b = counts.completed;
+  const p = (1 + counts.chiSquareExceed) / (b + 1);
+  return { pValue: p, monteCarloStandardError: Math.sqrt((p * (1 - p)) / b), replicates: b, unrefitted: counts.failed };
 }

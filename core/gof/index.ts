@@ -17,10 +17,12 @@ export { GAMMA_AD_TABLE } from './ad-gamma-table.js';
 export {
   DEFAULT_BOOTSTRAP_REPLICATES,
   bootstrapPValue,
+  chiSquareBootstrapPValue,
   combineBootstrapCounts,
   replicateStatistic,
+  replicateStatistics,
   runBootstrapRange,
   splitBootstrapJob,
 } from './bootstrap.js';
-export type { BootstrapCounts, BootstrapJob, BootstrapPValue, BootstrapRunOptions, CancelSignal } from './bootstrap.js';
+export type { BootstrapCounts, BootstrapJob, BootstrapPValue, BootstrapRunOptions, CancelSignal, ChiSquareBootstrapPValue, ChiSquareBootstrapSpec } from './bootstrap.js';
 export { formatNumber } from '../format/index.js';

@@ -3,6 +3,7 @@ import { PlumblineError, analyze, getFamily, prepareSample } from '../../core/in
 import {
   andersonDarlingStatistic,
   bootstrapPValue,
+  chiSquareBootstrapPValue,
   combineBootstrapCounts,
   runBootstrapRange,
   splitBootstrapJob,
@@ -110,5 +111,18 @@ describe('parametric bootstrap', () => {
     }
     const again = analyze(fixture.D1.values, { families: ['normal', 'weibull'], pMethod: 'bootstrap', bootstrapReplicates: 199, seed: 5 });
     expect(again).toEqual(r);
+  });
+});
+
+describe('chi-square counts ride on the same replicates', () => {
+  it('split into parts and combined, the chi-square counts equal one run (replicate i on stream i)', () => {
+    const job = { family: 'gamma' as const, parameters: { shape: 2, scale: 3 }, n: 25, observed: 0.5, seed: 9, chiSquare: { observed: 2.5, k: 4 } };
+    const whole = runBootstrapRange({ ...job, start: 0, end: 60 });
+    const parts = splitBootstrapJob(job, 60, 3).map((j) => runBootstrapRange(j));
+    expect(combineBootstrapCounts(parts)).toEqual(whole);
+    expect(whole.chiSquareExceed).toBeGreaterThan(0);
+    expect(whole.chiSquareExceed).toBeLessThanOrEqual(60);
+    const p = chiSquareBootstrapPValue(whole);
+    expect(p.pValue).toBeCloseTo((1 + (whole.chiSquareExceed ?? 0)) / 61, 15);
   });
 });
