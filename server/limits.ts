@@ -10,7 +10,7 @@
  * (1000 classes ≈ 1 s; 10^5 classes took 56 s); the complete-sample bootstrap ≈ 1.4 µs per sampled
  * value with its refit; the censored bootstrap ≈ 11 µs per sampled value (a censored refit each).
  */
-import { censoredBootstrapWork, type BootstrapJob, type DatasetInput, type DatasetOptions } from '../core/index.js';
+import { censoredBootstrapWork, DEFAULT_LIFE_REPLICATES, type BootstrapJob, type DatasetInput, type DatasetOptions } from '../core/index.js';
 import { HttpError } from './errors.js';
 
 export const REQUEST_LIMITS = {
@@ -44,7 +44,7 @@ export function checkDatasetSize(dataset: DatasetInput, options: DatasetOptions,
   }
   const censored = censoredBootstrapWork(dataset, options);
   if (censored > limits.censoredBootstrapValues) {
-    const families = options.families?.length ?? 5;
+    const families = Math.round(censored / (n * (options.bootstrapReplicates ?? DEFAULT_LIFE_REPLICATES)));
     const most = Math.floor(limits.censoredBootstrapValues / (n * families));
     throw new HttpError(
       422,
