@@ -9,8 +9,15 @@
  * report does (percentileIntervals with the default 999 replicates), and the true ISO 22514-2 indices
  * of the true model are checked against them. Coverage standard error √(c(1 - c)/M).
  *
- * Run: npx tsx scripts/capability-coverage.ts [n ...] > test/fixtures/capability-coverage-nNN.json
- * (one n per process so two cores can share the work; ~6 min at n = 50, ~15 min at n = 125 on one core).
+ * Run: npx tsx scripts/capability-coverage.ts 50 > a.json and ... 125 > b.json (one n per process so two
+ * cores share the work; 15 and 24 minutes on a loaded 2-core machine), then merge the two `results`
+ * arrays into test/fixtures/capability-coverage.json (`earlierMethod` there records the plain-BCa run).
+ *
+ * Result (committed, 1000 samples × 999 replicates each, nominal 95 %; Monte Carlo se ≈ 0.7 point):
+ *   n = 50:  Pp 94.0, Ppk 95.3, Ppu 94.8, Ppl 94.7 %
+ *   n = 125: Pp 93.7, Ppk 94.7, Ppu 94.6, Ppl 95.3 %
+ * (plain BCa without the small-sample expansion, n = 50: Pp 93.1, Ppk 94.9, Ppu 93.5, Ppl 94.4 %).
+ * Pp runs about 1 point low at both sizes.
  */
 import { makeModel, percentileCapability, percentileIntervals, fitModelSpec, type ModelSpec } from '../core/capability/index.js';
 import { createRng } from '../core/random/index.js';
