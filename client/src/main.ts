@@ -1,39 +1,24 @@
 /**
  * The page's wiring: events become actions on the explicit state (state.ts), the state is drawn
- * by the views (views/*.ts, decision.ts, evidence-render.ts), requests are built by request.ts and
- * sent by runner.ts. Nothing here computes a statistic or decides what a setting means. Nothing
+ * by render.ts from the pure views (views/*.ts, decision.ts, evidence-render.ts), requests are
+ * built by request.ts and sent by runner.ts, exports written by page-export.ts. Nothing here computes a statistic or decides what a setting means. Nothing
  * runs at import: `start()` is called once the page has loaded.
  */
-import { api, ApiError, type AnalyzeResponse, type DemoEntry } from './api.js';
+import { api, ApiError, type DemoEntry } from './api.js';
 import { readFileText } from './read-file.js';
-import { blockHtml, blockNode, decisionBlocks } from './decision.js';
-import { drawSlot } from './decision-charts.js';
-import type { LifeScale } from '../charts/life-probability.js';
 import { firstLineIsNumber } from './columns.js';
-import { byId, clear, download, el, slug } from './dom.js';
-import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
-import { capital, FLOOD_FAMILIES, modelLabel } from './families.js';
-import { sig } from './format.js';
-import { buildReportHtml } from './report-html.js';
-import { binsCsv } from './bins-csv.js';
-import { skipLine } from './skip-words.js';
-import { guessFromColumn } from './units-guess.js';
-import { binCountsChart } from '../charts/bin-counts.js';
-import { cellRows, chartCells, classRows, groupedText, isGrouped, type GroupedResponse } from './grouped-view.js';
-import { INITIAL_STATE, columnLabel, settingsFromReport, shownLabels, update, type Action, type PageState } from './state.js';
+import { FLOOD_FAMILIES } from './families.js';
+import { INITIAL_STATE, columnLabel, settingsFromReport, update, type Action, type EvidenceView, type PageState } from './state.js';
 import { buildRequest } from './request.js';
-import { LARGE_BYTES, megabytes, Runner, type RunProgress } from './runner.js';
-import { applyOptionTable, buildFamilyBoxes, readForm, settingControls, settingKeyOf, showProblems, showSettings } from './form.js';
+import { LARGE_BYTES, megabytes, Runner } from './runner.js';
+import { applyOptionTable, buildFamilyBoxes, readForm, settingControls, settingKeyOf, showProblems } from './form.js';
 import type { Settings } from './settings.js';
-import { answerFor } from './views/answer.js';
-import { modelChoices } from './views/models.js';
-import { rankingRows, tableHeads } from './views/ranking-table.js';
 import { glossaryNode } from './views/glossary.js';
-
-type EvidenceView = 'probability' | 'histogram' | 'cdf' | 'bins';
+import { $, doneLine, input, noteCensoring, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
+import { exportCsv, exportHtml, exportJson } from './page-export.js';
+import { byId, el } from './dom.js';
 
 let state: PageState = INITIAL_STATE;
-let evidenceView: EvidenceView = 'probability';
 let demos: readonly DemoEntry[] = [];
 let runner: Runner;
 let timer: ReturnType<typeof setTimeout> | undefined;
@@ -44,323 +29,11 @@ let fileOnItsWay = false;
 /** Settings the user changed while a file was on its way, applied once it has loaded. */
 let editsForNext: Partial<Record<keyof Settings, unknown>> = {};
 
-const $ = (id: string): HTMLElement => byId(id);
-const input = (id: string): HTMLInputElement => byId<HTMLInputElement>(id);
-const select = (id: string): HTMLSelectElement => byId<HTMLSelectElement>(id);
 
 function dispatch(action: Action): void {
   state = update(state, action);
 }
 
-const labels = () => shownLabels(state, guessFromColumn);
-const units = (): string => labels().units.trim();
-const quantity = (): string => labels().quantity.trim();
-
-// ---------------------------------------------------------------------------------------------
-// Drawing the state
-
-function setStatus(text: string): void {
-  $('status').textContent = text;
-}
-
-function setProgress(p: RunProgress | null): void {
-  const wrap = $('progress-wrap');
-  wrap.hidden = p === null;
-  wrap.dataset['stage'] = p?.label ?? '';
-  if (!p) return;
-  const bar = byId<HTMLProgressElement>('progress');
-  if (p.fraction === null) bar.removeAttribute('value');
-  else bar.value = p.fraction;
-  $('progress-text').textContent = p.text;
-  $('progress-label').textContent = p.label;
-}
-
-function showError(message: string | null): void {
-  $('error').hidden = message === null;
-  $('error').textContent = message ?? '';
-}
-
-/** The source panel: name, settings note, reading (header, decimal mark), columns and roles. */
-function renderSource(): void {
-  const { source, reading } = state;
-  $('loaded').hidden = source === null;
-  $('source-name').textContent = source ? `${source.name}${source.kind === 'demo' ? ' (demo dataset)' : ''}` : '';
-  const note = $('demo-settings');
-  note.hidden = !source || state.settingsNote.text === '';
-  note.textContent = state.settingsNote.text;
-  for (const b of document.querySelectorAll<HTMLElement>('#demo-list button')) b.setAttribute('aria-pressed', String(source?.kind === 'demo' && b.dataset['name'] === source.name));
-  if (!source) return;
-  input('header-check').checked = reading.header;
-  select('decimal-select').value = reading.decimal;
-  const dn = $('decimal-note');
-  const g = reading.decimalGuess;
-  clear(dn);
-  dn.hidden = !(g.example !== '' && (g.mark === ',' || g.ambiguous));
-  if (!dn.hidden) {
-    const other = reading.decimal === ',' ? '.' : ',';
-    dn.append(
-      g.ambiguous
-        ? `Cells like “${g.example}” could be decimal commas or thousands separators; read with a ${reading.decimal === ',' ? 'comma' : 'point'}. `
-        : `Cells like “${g.example}” use a decimal comma, so the numbers are read with a comma${reading.decimal === ',' ? '' : ' (you chose a point)'}. `,
-      el('button', { type: 'button', className: 'btn small', id: 'decimal-switch', 'data-mark': other }, other === ',' ? 'Read with a decimal comma' : 'Read with a decimal point'),
-    );
-  }
-  const cs = select('column-select');
-  clear(cs);
-  for (const c of reading.columns) cs.append(el('option', { value: String(c.index), selected: c.index === reading.column }, reading.columns.length > 1 ? `${c.index}. ${c.label}` : c.label));
-  cs.disabled = reading.columns.length <= 1;
-  select('shape-select').value = reading.shape;
-  $('grouped-cols').hidden = reading.shape !== 'grouped';
-  $('value-cols').hidden = reading.shape === 'grouped';
-  const fill = (id: string, chosen: number): void => {
-    const sel = select(id);
-    clear(sel);
-    for (const c of reading.columns) sel.append(el('option', { value: String(c.index), selected: c.index === chosen }, `${c.index}. ${c.label}`));
-  };
-  fill('lower-select', reading.grouped.lower);
-  fill('upper-select', reading.grouped.upper);
-  fill('count-select', reading.grouped.count);
-  showSettings(state.settings, reading.columns, reading.column);
-  renderLabels();
-  noteCensoring();
-}
-
-function renderLabels(): void {
-  const l = labels();
-  if (!state.labels.typed) {
-    input('quantity-input').value = l.quantity;
-    input('units-input').value = l.units;
-  }
-  $('units-hint').textContent = l.suggested && (l.quantity || l.units) ? 'Suggested from the column name; correct them if wrong. Used on every chart axis and in the exported report.' : 'Used on every chart axis and in the exported report.';
-}
-
-const STATUS_NAME = /^(status|state|censor(ed|ing)?|cens|event|failed|failure|suspended|suspension|runout|run_out)$/i;
-
-/**
- * A file with a status-like column probably marks some values as censored. Fitting every value as
- * observed biases a life estimate low, so say so and offer the column.
- */
-function noteCensoring(): void {
-  const note = $('column-note');
-  const r = state.reading;
-  const flag = r.shape === 'values' ? r.columns.find((c) => c.index !== r.column && STATUS_NAME.test(c.label.trim())) : undefined;
-  clear(note);
-  note.hidden = !flag || state.settings.statusColumn === flag.index;
-  if (note.hidden || !flag) return;
-  note.append(
-    `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +
-      `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
-      `Do not base a maintenance interval on this fit without a censored-data analysis. `,
-    el('button', { type: 'button', className: 'btn small', id: 'use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as failed (1) / still running (0)`),
-  );
-}
-
-/** Everything drawn from the result: counts, model choices, numbers, answer, sections, evidence. */
-function renderResult(): void {
-  const res = state.result;
-  const resp = res?.report ?? null;
-  $('stale-note').hidden = !res || res.current;
-  $('stale-note').textContent = res && !res.current ? `These results are from the previous analysis of ${res.source} (column ${res.column}); the latest run did not finish.` : '';
-  renderCounts(resp);
-  const choices = $('model-choices');
-  clear(choices);
-  if (resp) choices.append(modelChoices(resp, state.selected));
-  const table = byId<HTMLTableElement>('ranking-table');
-  for (const g of table.querySelectorAll('tbody')) g.remove();
-  if (resp) table.append(...rankingRows(resp, state.selected));
-  const heads = tableHeads(isGrouped(resp));
-  for (const [id, text] of [['th-chi', heads.chi], ['th-dof', heads.dof], ['th-chip', heads.chiP]] as const) {
-    const a = $(id).querySelector('a');
-    if (a) a.textContent = text;
-  }
-  $('ranking-rule').textContent = resp?.rankingRule ?? '';
-  const warnings = $('warnings');
-  clear(warnings);
-  if (resp) {
-    const repeats = (w: string) => resp.notApplicable.some((n) => n.reason !== '' && w.includes(n.reason));
-    for (const w of [...resp.warnings, ...(resp.input?.warnings ?? [])]) if (!repeats(w)) warnings.append(el('li', {}, w));
-  }
-  renderAnswer();
-  renderDecision();
-  renderEvidence();
-  if (resp) $('foot').textContent = `${resp.software.name} ${resp.software.version} · analysed on this computer by the local server; nothing is sent elsewhere.`;
-}
-
-function renderCounts(resp: AnalyzeResponse | null): void {
-  const counts = $('counts');
-  const skips = $('skips');
-  clear(skips);
-  counts.textContent = '';
-  if (!resp) return;
-  if (isGrouped(resp)) {
-    counts.textContent = `n = ${resp.n} counted in ${resp.grouped.classes.length} classes · no individual values`;
-    $('bins-hint').textContent = 'For class counts the chi-square runs on the classes given (merged to at least 5 expected); the bins setting is not used.';
-    return;
-  }
-  const inp = resp.input;
-  const skipped = inp?.skipped ?? [];
-  const total = skipped.reduce((s, k) => s + k.count, 0);
-  const parts = [`n = ${resp.n} values used`];
-  if (inp?.rowsRead !== undefined) parts.push(`${inp.rowsRead} data rows read`);
-  parts.push(total === 0 ? 'no rows skipped' : `${total} row${total === 1 ? '' : 's'} skipped:`);
-  counts.textContent = parts.join(' · ');
-  for (const s of skipped) skips.append(el('li', {}, skipLine(s)));
-  if (inp?.blankLines) skips.append(el('li', {}, `${inp.blankLines} blank line${inp.blankLines === 1 ? '' : 's'} passed over`));
-  const most = Math.floor(resp.n / 5);
-  const sel = resp.candidates.find((c) => c.family === state.selected) ?? resp.candidates[0];
-  const used = sel && sel.chiSquare.computable && 'kRule' in sel.chiSquare ? ` For ${capital(sel.label)}: ${sel.chiSquare.kRule}` : '';
-  $('bins-hint').textContent = `Bins have equal probability under each model, so each expects n/k values. The chi-square approximation needs at least 5 expected per bin: with n = ${resp.n}, k can be at most ${most}.${used}`;
-}
-
-function renderAnswer(): void {
-  const resp = state.result?.report;
-  const head = $('headline');
-  const cautions = $('answer-cautions');
-  clear(head);
-  clear(cautions);
-  const a = resp && !isGrouped(resp) ? answerFor(resp, state.selected, units()) : null;
-  head.hidden = a === null;
-  $('answer-empty').hidden = a !== null;
-  if (resp && isGrouped(resp)) $('answer-empty').textContent = 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.';
-  $('answer').classList.toggle('is-undermined', a?.undermined === true);
-  if (!a) return;
-  head.append(el('strong', {}, a.undermined ? 'Not a number to design on as it stands: ' : 'Decision number: '), a.sentence);
-  for (const c of a.cautions) cautions.append(el('li', {}, c));
-  if (a.change) cautions.append(el('li', { className: 'answer-change' }, el('strong', {}, 'What would change it: '), a.change, ' ', el('a', { href: '#decision' }, 'All numbers and cautions')));
-}
-
-function lifeScale(): LifeScale {
-  return select('life-scale-select').value === 'lognormal' ? 'lognormal' : 'weibull';
-}
-
-function chartSize(node: Element): { width: number; height: number } {
-  const host = (node as HTMLElement).clientWidth || $('evidence').clientWidth - 40 || 560;
-  const w = Math.round(Math.min(1100, Math.max(300, host)));
-  return { width: w, height: Math.round(Math.min(430, Math.max(280, w * 0.62))) };
-}
-
-function renderDecision(): void {
-  const resp = state.result?.report;
-  const body = $('decision-body');
-  clear(body);
-  $('life-scale-row').hidden = !resp || isGrouped(resp) || !resp.life;
-  if (!resp || isGrouped(resp)) {
-    $('decision-empty').hidden = !resp;
-    return;
-  }
-  $('decision-name').textContent = capital(resp.candidates.find((c) => c.family === state.selected)?.label ?? 'the selected model');
-  const blocks = decisionBlocks(resp, state.selected, units());
-  $('decision-empty').hidden = blocks.length > 0;
-  const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };
-  const slots: [Parameters<typeof drawSlot>[0], HTMLElement][] = [];
-  for (const b of blocks) {
-    body.append(
-      blockNode(b, (slot) => {
-        const box = el('div', { className: 'chart-box', 'data-slot': slot });
-        slots.push([slot, box]);
-        return el('figure', { className: 'chart' }, box);
-      }),
-    );
-  }
-  for (const [slot, box] of slots) drawSlot(slot, box, ctx, { ...chartSize(box), units: units(), quantity: quantity() || (slot === 'return-period' ? 'Annual maximum' : 'Value') });
-}
-
-const CHART_IDS = { histogram: 'chart-histogram', probability: 'chart-probability', bins: 'chart-bins', cdf: 'chart-cdf' } as const;
-
-function renderEvidence(): void {
-  const resp = state.result?.report ?? null;
-  const fam = state.selected;
-  const grouped = isGrouped(resp);
-  $('grouped-evidence').hidden = !grouped;
-  $('value-charts').hidden = grouped;
-  for (const b of document.querySelectorAll<HTMLElement>('.view-pick')) b.setAttribute('aria-pressed', String(b.dataset['view'] === evidenceView));
-  for (const f of document.querySelectorAll<HTMLElement>('.evidence-view')) f.hidden = f.dataset['view'] !== evidenceView;
-  if (!resp || !fam) {
-    for (const id of Object.values(CHART_IDS)) clear($(id));
-    return;
-  }
-  if (isGrouped(resp)) {
-    renderGroupedEvidence(resp, fam);
-    return;
-  }
-  if (!resp.evidence) return;
-  const ce = evidenceFor(resp.evidence, fam);
-  // Censored samples have no bins: the views that need them are not offered (the reason is in the section notes).
-  const offered: Record<EvidenceView, boolean> = { probability: true, cdf: true, histogram: ce?.histogram.source !== 'not-applicable', bins: ce?.bins.source !== 'not-applicable' };
-  if (!offered[evidenceView]) evidenceView = 'probability';
-  for (const b of document.querySelectorAll<HTMLElement>('.view-pick')) {
-    b.hidden = !offered[b.dataset['view'] as EvidenceView];
-    b.setAttribute('aria-pressed', String(b.dataset['view'] === evidenceView));
-  }
-  for (const f of document.querySelectorAll<HTMLElement>('.evidence-view')) f.hidden = f.dataset['view'] !== evidenceView;
-  const na = ce?.bins.notApplicable ?? ce?.histogram.notApplicable;
-  $('evidence-note').hidden = !na;
-  $('evidence-note').textContent = na ? `No histogram or chi-square bins for this sample: ${na.reason}` : '';
-  $('evidence-name').textContent = ce ? capital(ce.label) : modelLabel(fam);
-  const visible = document.querySelector<HTMLElement>(`.evidence-view[data-view="${evidenceView}"] .chart-box`);
-  const size = chartSize(visible ?? $('chart-probability'));
-  const targets = { histogram: $(CHART_IDS.histogram), probability: $(CHART_IDS.probability), bins: $(CHART_IDS.bins), cdf: $(CHART_IDS.cdf) };
-  drawEvidence(targets, resp.evidence, fam, { units: units(), quantity: quantity(), sizeOf: () => size });
-  if (ce) {
-    $('cap-histogram').textContent = `Bars should follow the heavy ${ce.label} curve; look for runs of bars above or below it. ${ce.histogram.displayEdgeRule ?? ''}`;
-    const pp = ce.probabilityPlot;
-    const cap = $('cap-probability');
-    clear(cap);
-    cap.append(
-      'Points should lie along the line and mostly inside the ',
-      el('a', { className: 'term', href: '#g-band' }, 'pointwise band'),
-      `, above all in the tail your decision depends on. Plotting positions: ${pp.plottingPosition.name}, ${pp.plottingPosition.formula}. The band is pointwise, not a simultaneous test.` +
-        (pp.thinned ? ` Drawn with ${pp.points.x.length} of ${pp.total} points (extremes kept).` : ''),
-    );
-    renderBinsTable(ce);
-  }
-}
-
-function edgeText(x: number | null, isLower: boolean): string {
-  if (x === null) return isLower ? '−∞' : '∞';
-  return sig(x, 5);
-}
-
-function renderBinsTable(ce: NonNullable<ReturnType<typeof evidenceFor>>): void {
-  const t = byId<HTMLTableElement>('bins-table');
-  clear(t);
-  const [head, ...rows] = binsTableRows(ce, edgeText);
-  const u = units();
-  if (head) t.append(el('caption', { className: 'muted small' }, `${ce.label}: equal-probability bins${u ? `, edges in ${u}` : ''}`), el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { scope: 'col' }, h)))));
-  t.append(el('tbody', {}, ...rows.map((r) => el('tr', {}, ...r.map((v) => el('td', {}, v))))));
-}
-
-function groupedChart(resp: GroupedResponse, fam: string, box: Element, size: { width: number; height: number }): SVGSVGElement | null {
-  const c = resp.candidates.find((x) => x.family === fam);
-  if (!c) return null;
-  return binCountsChart(box, { bins: { rows: chartCells(c) }, family: c.family, label: c.label, cell: 'class' }, { ...size, units: units(), quantity: quantity() || 'Value' });
-}
-
-function renderGroupedEvidence(resp: GroupedResponse, fam: string): void {
-  const c = resp.candidates.find((x) => x.family === fam);
-  $('evidence-name').textContent = c ? capital(c.label) : modelLabel(fam);
-  const t = groupedText(resp, c);
-  $('grouped-novalues').textContent = `${t.summary} ${t.noValues}`;
-  $('grouped-test').textContent = t.test;
-  $('grouped-rule').textContent = `Degrees of freedom: ${t.rule}`;
-  $('grouped-ad').textContent = t.adNote;
-  clear($('chart-grouped'));
-  groupedChart(resp, fam, $('chart-grouped'), chartSize($('chart-grouped')));
-  $('cap-grouped').textContent = 'Grey bars: counts in each class after merging; coloured marks: counts the model expects; dashed line: 5 expected, the usual minimum for the chi-square approximation.';
-  const u = units();
-  const table = (node: HTMLTableElement, rows: string[][], caption: string): void => {
-    clear(node);
-    const [head, ...body] = rows;
-    if (!head) return;
-    node.append(
-      el('caption', { className: 'muted small' }, caption),
-      el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { scope: 'col' }, h)))),
-      el('tbody', {}, ...body.map((r) => el('tr', {}, ...r.map((v) => el('td', {}, v))))),
-    );
-  };
-  table(byId<HTMLTableElement>('grouped-cells'), c ? cellRows(c) : [], `${c?.label ?? ''}: classes merged to at least 5 expected${u ? `, limits in ${u}` : ''}`);
-  table(byId<HTMLTableElement>('grouped-classes'), classRows(resp), `Classes as read${u ? `, limits in ${u}` : ''}`);
-}
 
 // ---------------------------------------------------------------------------------------------
 // Running
@@ -387,7 +60,7 @@ function settingsChanged(delay?: number, changed?: Element): void {
   }
   dispatch({ type: 'settings-edited', patch: readForm() });
   input('replicates-input').disabled = state.settings.pMethod !== 'bootstrap';
-  noteCensoring();
+  noteCensoring(state);
   scheduleRun(delay);
 }
 
@@ -420,12 +93,12 @@ async function run(): Promise<void> {
     if (!resp) {
       dispatch({ type: 'run-stopped' });
       setStatus('Bootstrap stopped. The results shown (if any) are from the previous analysis.');
-      renderResult();
+      renderResult(state);
       return;
     }
     dispatch({ type: 'run-finished', generation, report: resp, column: built.column, requestedBins: built.requestedBins });
-    renderResult();
-    setStatus(doneLine());
+    renderResult(state);
+    setStatus(doneLine(state));
   } catch (err) {
     if (generation !== state.run.generation) return;
     setProgress(null);
@@ -433,19 +106,11 @@ async function run(): Promise<void> {
     const what = built.kind === 'grouped' ? `classes ${built.column}` : `column ${built.column}`;
     dispatch({ type: 'run-failed', generation, message: `${source.name}, ${what}: ${message}` });
     showError(state.error);
-    renderResult();
+    renderResult(state);
     setStatus(state.result ? 'The results below are from the previous analysis.' : '');
   }
 }
 
-function doneLine(): string {
-  const res = state.result;
-  if (!res) return '';
-  const resp = res.report;
-  const n = resp.candidates.length;
-  if (n === 0) return 'No model could be fitted to these values.';
-  return `Done: ${n} model${n === 1 ? '' : 's'} fitted to ${isGrouped(resp) ? `${resp.n} counted in ${resp.grouped.classes.length} classes` : `${resp.n} values of ${res.column}`} from ${res.source}.`;
-}
 
 // ---------------------------------------------------------------------------------------------
 // Loading data
@@ -460,8 +125,8 @@ function sourceLoaded(action: Extract<Action, { type: 'source-loaded' }>): void 
   fileOnItsWay = false;
   showError(null);
   showProblems([]);
-  renderSource();
-  renderResult();
+  renderSource(state);
+  renderResult(state);
   scheduleRun(0);
 }
 
@@ -471,8 +136,8 @@ function loadFailed(name: string, message: string): void {
   runner.stop();
   setProgress(null);
   dispatch({ type: 'load-failed', name, message });
-  renderSource();
-  renderResult();
+  renderSource(state);
+  renderResult(state);
   showError(state.error);
   setStatus('Nothing is shown: the file could not be read. Load another file, paste values or pick a demo.');
 }
@@ -530,84 +195,7 @@ async function loadFile(file: File): Promise<void> {
   }
 }
 
-function renderDemoList(list: readonly DemoEntry[]): void {
-  const ul = $('demo-list');
-  clear(ul);
-  for (const d of list) {
-    const title = d.name.replace(/[-_]+/g, ' ').replace(/^./, (c) => c.toUpperCase());
-    ul.append(el('li', {}, el('button', { type: 'button', 'data-name': d.name, 'aria-pressed': 'false' }, title, el('span', { className: 'demo-cols' }, `${d.file} · column ${d.defaultColumn}`))));
-  }
-}
 
-// ---------------------------------------------------------------------------------------------
-// Export
-
-function exportName(ext: string): string {
-  const stamp = new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-');
-  return `plumbline-${slug(state.result?.source ?? '')}-${slug(state.result?.column ?? '')}-${stamp}.${ext}`;
-}
-
-function needResult(): AnalyzeResponse | null {
-  if (!state.result) {
-    showError('There is no result to export yet: load data and run the analysis first.');
-    return null;
-  }
-  return state.result.report;
-}
-
-function decisionReportHtml(resp: AnalyzeResponse): string {
-  if (isGrouped(resp)) return '';
-  const ctx = { report: resp, selected: state.selected ?? '', lifeScale: lifeScale() };
-  return decisionBlocks(resp, state.selected, units())
-    .map((b) => blockHtml(b, (slot) => drawSlot(slot, el('div'), ctx, { width: 760, height: 440, units: units(), quantity: quantity() || (slot === 'return-period' ? 'Annual maximum' : 'Value') })?.outerHTML ?? ''))
-    .join('');
-}
-
-function exportHtml(): void {
-  const resp = needResult();
-  const res = state.result;
-  const fam = state.selected;
-  if (!resp || !res || !fam) return;
-  const base = { response: resp, selected: fam, sourceName: res.source, column: res.column, units: units(), quantity: quantity(), generatedAt: new Date() };
-  if (isGrouped(resp)) {
-    const svg = groupedChart(resp, fam, el('div'), { width: 760, height: 440 });
-    download(exportName('html'), buildReportHtml({ ...base, charts: svg ? [{ svg: svg.outerHTML, caption: $('cap-grouped').textContent ?? '' }] : [], binsTable: [], requestedBins: null }), 'text/html;charset=utf-8');
-    return;
-  }
-  if (!resp.evidence) return;
-  const targets = { histogram: el('div'), probability: el('div'), bins: el('div'), cdf: el('div') };
-  const svgs = drawEvidence(targets, resp.evidence, fam, { units: units(), quantity: quantity(), sizeOf: () => ({ width: 760, height: 440 }) });
-  const captions = ['cap-histogram', 'cap-probability', 'cap-bins', 'cap-cdf'].map((id) => $(id).textContent ?? '');
-  const ce = evidenceFor(resp.evidence, fam);
-  const html = buildReportHtml({
-    ...base,
-    charts: svgs.map((s, i) => ({ svg: s.outerHTML, caption: captions[i] ?? '' })),
-    binsTable: ce ? binsTableRows(ce, edgeText) : [],
-    requestedBins: res.requestedBins,
-    decisionHtml: decisionReportHtml(resp),
-  });
-  download(exportName('html'), html, 'text/html;charset=utf-8');
-}
-
-function exportJson(): void {
-  const resp = needResult();
-  if (!resp || !state.result) return;
-  const { evidence: _drop, ...report } = resp;
-  void _drop;
-  const record = { ...report, page: { source: state.result.source, column: state.result.column, units: units(), quantity: quantity(), selected: state.selected, exportedAt: new Date().toISOString() } };
-  download(exportName('json'), `${JSON.stringify(record, null, 2)}\n`, 'application/json');
-}
-
-function exportCsv(): void {
-  const resp = needResult();
-  if (resp && isGrouped(resp)) {
-    showError('Class counts have no equal-probability bins table; the HTML report and the JSON hold the merged classes.');
-    return;
-  }
-  if (!resp || !resp.evidence || !state.selected || !state.result) return;
-  const ce = evidenceFor(resp.evidence, state.selected);
-  if (ce) download(exportName('csv'), binsCsv(ce, state.result.source, state.result.column, units()), 'text/csv;charset=utf-8');
-}
 
 // ---------------------------------------------------------------------------------------------
 // Wiring
@@ -615,7 +203,7 @@ function exportCsv(): void {
 function select_(family: string): void {
   const hadFocus = document.activeElement?.matches('button.model-pick') === true;
   dispatch({ type: 'select', family });
-  renderResult();
+  renderResult(state);
   // The choices are drawn anew: keep the keyboard where it was.
   if (hadFocus) document.querySelector<HTMLElement>(`#model-choices button[data-family="${CSS.escape(family)}"]`)?.focus();
 }
@@ -661,7 +249,7 @@ function wire(): void {
 
   const reading = (a: Omit<Extract<Action, { type: 'reading-changed' }>, 'type'>): void => {
     dispatch({ type: 'reading-changed', ...a });
-    renderSource();
+    renderSource(state);
     scheduleRun(0);
   };
   select('column-select').addEventListener('change', () => reading({ column: Number(select('column-select').value) }));
@@ -695,7 +283,7 @@ function wire(): void {
     runner.stop();
     dispatch({ type: 'run-stopped' });
     setProgress(null);
-    renderResult();
+    renderResult(state);
     setStatus(`${stage === 'Bootstrap running' ? 'Bootstrap stopped' : 'Stopped'}. The results shown (if any) are from the previous analysis.`);
   });
 
@@ -705,30 +293,30 @@ function wire(): void {
   });
   for (const b of document.querySelectorAll<HTMLElement>('.view-pick')) {
     b.addEventListener('click', () => {
-      evidenceView = (b.dataset['view'] as EvidenceView) ?? 'probability';
-      renderEvidence();
+      dispatch({ type: 'view-chosen', view: (b.dataset['view'] as EvidenceView | undefined) ?? 'probability' });
+      renderEvidence(state);
     });
   }
-  select('life-scale-select').addEventListener('change', renderDecision);
+  select('life-scale-select').addEventListener('change', () => renderDecision(state));
   for (const id of ['quantity-input', 'units-input']) {
     input(id).addEventListener('input', () => {
       dispatch({ type: 'labels-edited', quantity: input('quantity-input').value, units: input('units-input').value });
-      renderLabels();
-      renderDecision();
-      renderEvidence();
-      renderAnswer();
+      renderLabels(state);
+      renderDecision(state);
+      renderEvidence(state);
+      renderAnswer(state);
     });
   }
-  $('export-html').addEventListener('click', exportHtml);
-  $('export-json').addEventListener('click', exportJson);
-  $('export-csv').addEventListener('click', exportCsv);
+  $('export-html').addEventListener('click', () => exportHtml(state));
+  $('export-json').addEventListener('click', () => exportJson(state));
+  $('export-csv').addEventListener('click', () => exportCsv(state));
 
   let resizeTimer: ReturnType<typeof setTimeout> | undefined;
   new ResizeObserver(() => {
     if (resizeTimer !== undefined) clearTimeout(resizeTimer);
     resizeTimer = setTimeout(() => {
-      renderEvidence();
-      renderDecision();
+      renderEvidence(state);
+      renderDecision(state);
     }, 120);
   }).observe($('evidence'));
 }
@@ -754,9 +342,9 @@ export async function start(): Promise<void> {
     dispatch({ type: 'settings-edited', patch: settingsFromReport(demo.result, state.settings) });
     dispatch({ type: 'run-started' });
     dispatch({ type: 'run-finished', generation: state.run.generation, report: demo.result, column: columnLabel(state.reading), requestedBins: demo.result.options.bins });
-    renderSource();
-    renderResult();
-    setStatus(doneLine());
+    renderSource(state);
+    renderResult(state);
+    setStatus(doneLine(state));
   } catch (err) {
     setStatus('Load a CSV file, paste a column of numbers, or pick a worked scenario to begin.');
     if (!(err instanceof ApiError && err.status === 404)) showError(err instanceof Error ? err.message : String(err));

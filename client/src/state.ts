@@ -67,6 +67,8 @@ export interface Labels {
   readonly typed: boolean;
 }
 
+export type EvidenceView = 'probability' | 'histogram' | 'cdf' | 'bins';
+
 export interface PageState {
   readonly source: Source | null;
   readonly reading: Reading;
@@ -77,6 +79,8 @@ export interface PageState {
   readonly result: Result | null;
   /** The selected model's family name. */
   readonly selected: string | null;
+  /** Which evidence the user asked to see (views that do not apply to the data fall back to the probability plot). */
+  readonly evidenceView: EvidenceView;
   /** The message of the last failure (load or analysis), or null. */
   readonly error: string | null;
 }
@@ -92,6 +96,7 @@ export const INITIAL_STATE: PageState = {
   run: { generation: 0, phase: 'idle' },
   result: null,
   selected: null,
+  evidenceView: 'probability',
   error: null,
 };
 
@@ -112,7 +117,8 @@ export type Action =
   | { readonly type: 'run-finished'; readonly generation: number; readonly report: AnalyzeResponse; readonly column: string; readonly requestedBins: number | null }
   | { readonly type: 'run-failed'; readonly generation: number; readonly message: string }
   | { readonly type: 'run-stopped' }
-  | { readonly type: 'select'; readonly family: string };
+  | { readonly type: 'select'; readonly family: string }
+  | { readonly type: 'view-chosen'; readonly view: EvidenceView };
 
 /** The label of the chosen value column (or of the class columns for grouped counts). */
 export function columnLabel(reading: Reading): string {
@@ -235,6 +241,8 @@ export function update(state: PageState, action: Action): PageState {
       return { ...state, run: { ...state.run, phase: 'failed' }, result: state.result ? { ...state.result, current: false } : null, error: action.message };
     case 'run-stopped':
       return { ...state, run: { generation: state.run.generation + 1, phase: 'stopped' }, result: state.result ? { ...state.result, current: false } : null };
+    case 'view-chosen':
+      return { ...state, evidenceView: action.view };
     case 'select':
       if (!state.result || !state.result.report.candidates.some((c) => c.family === action.family)) return state;
       return { ...state, selected: action.family };
