@@ -8,7 +8,7 @@
 import { PLUMBLINE_VERSION, resolveOptions } from '../analyze.js';
 import { InputError } from '../errors.js';
 import { formatNumber } from '../gof/index.js';
-import { analyzeLife, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type CensoredGofHook, type LifeCandidate, type LifeFamilyName } from '../life/index.js';
+import { analyzeLife, recordedLifeExtras, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type CensoredGofHook, type LifeCandidate, type LifeFamilyName } from '../life/index.js';
 import { RANKING_RULE, verdict } from '../rank.js';
 import type { AndersonDarlingReport, MethodNote, NotApplicableReport } from '../report.js';
 import { prepareSample } from '../sample.js';
@@ -140,6 +140,7 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
     chiSquare: life.chiSquare,
     warnings: life.warnings,
     cautions: life.cautions,
+    ...withRecorded(recordedLifeExtras({ times: Array.from(times), failed: Array.from(status) }, { ...options, bLifePercents, reliabilityTimes: settings.reliabilityTimes, confidence: settings.confidence })),
   };
   const sensitivity = sensitivityRows(candidates, [
     ...bLifePercents.map((pct, j) => ({
@@ -172,4 +173,9 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
     life: section,
     sensitivity,
   };
+}
+
+/** The recorded-life extras (core/life recordedLifeExtras: mixture, Turnbull, Weibayes, rank regression, test plan) when they ran. */
+function withRecorded(r: ReturnType<typeof recordedLifeExtras>): Pick<LifeSection, 'recorded'> {
+  return r ? { recorded: r } : {};
 }
