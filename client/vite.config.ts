@@ -19,6 +19,8 @@ export default defineConfig({
     modulePreload: { polyfill: false },
     assetsInlineLimit: 0,
     sourcemap: false,
+    // Two pages: one series in full (index.html) and many series at once (batch.html).
+    rollupOptions: { input: { main: `${root}index.html`, batch: `${root}batch.html` } },
   },
   server: { host: '127.0.0.1' },
 });
