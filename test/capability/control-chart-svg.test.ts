@@ -18,13 +18,18 @@ describe('control chart SVG', () => {
     expect(chart.pointsBeyond).toBeGreaterThan(0);
     expect(beyond[0]!.querySelector('title')!.textContent).toMatch(/^8: 9 — above the upper limit/);
     expect(svg.querySelectorAll('[data-kind="limit-upper"]').length).toBe(2);
-    expect(svg.querySelector('title')!.textContent).toMatch(/point\(s\) lie beyond the 3-sigma limits/);
+    // the moving range i (|x_i - x_{i-1}|) sits under value i: the panels share x positions
+    const cx = (panel: string, i: number) => svg.querySelectorAll(`[data-panel="${panel}"] circle`)[i]!.getAttribute('cx');
+    expect(cx('dispersion', 0)).toBe(cx('location', 1));
+    expect(svg.querySelector("desc")!.textContent).toMatch(/point\(s\) lie beyond the 3-sigma limits/);
+    expect(svg.querySelector("title")!.textContent).toMatch(/^Is the process stable\? Individual values and moving ranges/);
   });
   it('subgroups: panel labels name the statistics; a stable chart has no marked point', () => {
     const groups = Array.from({ length: 8 }, (_, i) => ({ label: `S${i + 1}`, values: [10 + (i % 3) * 0.01, 10.02, 9.99, 10.01] }));
     const chart = subgroupChart(groups);
     const svg = controlChart(document.createElement('div'), chart, opts);
     const text = [...svg.querySelectorAll('text')].map((t) => t.textContent).join(' | ');
+    expect(svg.querySelector('rect')!.getAttribute('fill')).not.toBe('white');
     expect(text).toMatch(/subgroup mean/);
     expect(text).toMatch(/subgroup standard deviation/);
     expect(svg.querySelectorAll('[data-kind="beyond"]').length).toBe(chart.pointsBeyond);
