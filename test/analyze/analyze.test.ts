@@ -187,13 +187,13 @@ describe('plan / execute split', () => {
     expect(analyze(prepareSample(D1))).toEqual(analyze(D1));
   });
 
-  it('table p-values need no A² bootstrap; at n = 20 every job is for the chi-square decision only', () => {
+  it('at n = 20 every job carries the chi-square decision; A² by table except Weibull (switched below n = 100)', () => {
     const jobs = planAnalysis(D1).bootstrapJobs;
     expect(jobs.length).toBe(5);
     for (const j of jobs) expect(j.chiSquare?.k).toBe(4);
     const r = finishAnalysis(planAnalysis(D1), jobs.map((j) => runBootstrapRange(j)));
     for (const c of r.candidates) {
-      expect(c.andersonDarling.method).toBe('table');
+      expect(c.andersonDarling.method).toBe(c.family === 'weibull' ? 'bootstrap' : 'table');
       if (!c.chiSquare.computable) throw new Error('chi-square');
       expect(c.chiSquare.decidedBy).toBe('bootstrap');
     }
@@ -259,5 +259,29 @@ describe('the chi-square decision at small n has the right size (parametric boot
     const se = Math.sqrt((0.05 * 0.95) / R);
     expect(Math.abs(rejected / R - 0.05)).toBeLessThan(4 * se);
     expect(asymptotic / R).toBeGreaterThan(0.05 + 4 * se); // the asymptotic k - 1 - m reference is too liberal here
+  });
+});
+
+describe('A² tables whose size is off switch to the bootstrap automatically, and say so', () => {
+  it('Weibull below n = 100 and gamma with a fitted shape below 0.5: bootstrap, with a warning', () => {
+    const w = analyze(getFamily('weibull').random({ shape: 1.5, scale: 4 }, createRng(5, 0), 60), { families: ['weibull'], bootstrapReplicates: 19 });
+    expect(w.candidates[0]?.andersonDarling.method).toBe('bootstrap');
+    expect(w.warnings.join('\n')).toMatch(/Weibull: Anderson–Darling p-value by bootstrap, not the table/);
+    const g = analyze(getFamily('gamma').random({ shape: 0.1, scale: 3 }, createRng(5, 1), 200), { families: ['gamma'], bootstrapReplicates: 19 });
+    expect(g.candidates[0]?.andersonDarling.method).toBe('bootstrap');
+    expect(g.warnings.join('\n')).toMatch(/below the simulated table's smallest shape/);
+    const w200 = analyze(getFamily('weibull').random({ shape: 1.5, scale: 4 }, createRng(5, 2), 200), { families: ['weibull'] });
+    expect(w200.candidates[0]?.andersonDarling.method).toBe('table');
+  });
+  it('gamma shape 0.1, n = 200: A² rejection rate within 4 binomial SE of 5 % (the table gave 9.6 %)', () => {
+    // Seeded Monte Carlo, R = 600, B = 99: SE = √(0.05·0.95/R) = 0.89 %.
+    const R = 600;
+    let rejected = 0;
+    for (let i = 0; i < R; i++) {
+      const xs = getFamily('gamma').random({ shape: 0.1, scale: 3 }, createRng(77, i), 200);
+      const r = analyze(xs, { families: ['gamma'], bootstrapReplicates: 99, seed: 500 + i });
+      if (r.candidates[0]?.andersonDarling.rejected) rejected++;
+    }
+    expect(Math.abs(rejected / R - 0.05)).toBeLessThan(4 * Math.sqrt((0.05 * 0.95) / R));
   });
 });
