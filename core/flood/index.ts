@@ -16,3 +16,4 @@ export { MGB_INWARD_ALPHA, MGB_OUTWARD_ALPHA, mgbPValues, mgbStatistics, multipl
 export type { MgbResult } from './grubbs-beck.js';
 export { STATION_SKEW_MSE_METHOD, stationSkewMse, weightSkew } from './regional-skew.js';
 export type { SkewWeighting } from './regional-skew.js';
+export { EMA_CAUTIONS } from './ema-cautions.js';

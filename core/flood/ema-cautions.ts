@@ -1,0 +1,11 @@
+/**
+ * The cautions every log-Pearson III / EMA result carries (the kind Bulletin 17C itself gives
+ * about its procedures, in our own words), and the deference to the governing agency.
+ */
+export const EMA_CAUTIONS: readonly string[] = Object.freeze([
+  'A design flood is a safety decision: these numbers support, and do not replace, the procedures of the governing agency (for example Bulletin 17C where it applies), local regulations and review by a licensed engineer or hydrologist.',
+  'The analysis assumes the annual peaks are independent and come from one unchanging distribution; regulation, urbanization, land-use or climate change and mixed flood causes (snowmelt, rain, dam failure) break that assumption.',
+  'Historical information, perception thresholds, low-outlier decisions and the regional skew and its mean square error come from judgement and regional studies; state their sources. Defaults used here are listed as assumptions.',
+  'Quantiles far beyond the record length (e.g. the 500-year flood from 70 years of data) rest mainly on the fitted curve and on the skew; their intervals are wide and are themselves approximate.',
+  'The station-skew mean square error uses the Bulletin 17B formula, and the intervals are a parametric bootstrap of the EMA, not Bulletin 17C\'s own interval method; check against the agency\'s software before any design use.',
+]);
