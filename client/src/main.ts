@@ -17,6 +17,7 @@ import { glossaryNode } from './views/glossary.js';
 import { $, doneLine, input, noteCensoring, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
 import { exportCsv, exportHtml, exportJson } from './page-export.js';
 import { byId, el } from './dom.js';
+import { planCalculatorNode } from './views/life-plan.js';
 
 let state: PageState = INITIAL_STATE;
 let demos: readonly DemoEntry[] = [];
@@ -326,6 +327,8 @@ export async function start(): Promise<void> {
   const id = Array.from(crypto.getRandomValues(new Uint8Array(6)), (b) => b.toString(16).padStart(2, '0')).join('');
   runner = new Runner(`page-${id}`);
   wire();
+  // The test-planning calculator (views/life-plan.ts): self-contained, needs no data.
+  document.querySelector('.rail')?.append(planCalculatorNode());
   try {
     const list = await api.demoList();
     demos = list.datasets;
