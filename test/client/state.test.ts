@@ -123,6 +123,11 @@ describe('results belong to one source', () => {
     expect(lateFail.error).toBeNull();
   });
 
+  it('keeps the chosen evidence view across results and sources (a choice of how to look, not a setting of the data)', () => {
+    const chosen = run(shown, { type: 'view-chosen', view: 'cdf' });
+    expect(run(chosen, { type: 'source-loaded', source: { kind: 'file', name: 'other.csv', csv: FATIGUE } }).evidenceView).toBe('cdf');
+  });
+
   it('selects only a model the shown result has', () => {
     const other = REPORT.candidates[1]!.family;
     expect(run(shown, { type: 'select', family: other }).selected).toBe(other);
