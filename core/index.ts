@@ -80,3 +80,5 @@ export { hamedRaoMannKendall } from './trend/index.js';
 export type { HamedRaoResult } from './trend/index.js';
 export { fitByLMoments, LMOMENT_FAMILIES } from './lmoments/family-fits.js';
 export type { LMomentFamily, LMomentFit } from './lmoments/family-fits.js';
+export { gevRatios, gloT4, gpaT4, pe3T4, ratioDiagram } from './lmoments/ratio-diagram.js';
+export type { RatioDiagram, RatioPoint } from './lmoments/ratio-diagram.js';
