@@ -11,7 +11,7 @@
  */
 import { candidateCells } from './candidate-cells.js';
 import { escapeHtml as e } from './escape.js';
-import { sig } from './format.js';
+import { pValue, sig } from './format.js';
 import type { AnalyzeResponse } from './api.js';
 import { skipLine } from './skip-words.js';
 import { cellRows, classRows, groupedText, isGrouped } from './grouped-view.js';
@@ -164,7 +164,7 @@ export function buildReportHtml(ctx: ReportContext): string {
     .map((c) => {
       const k = candidateCells(c);
       const chi = k.chiComputable
-        ? `<td class="num">${e(k.chiSquare)}<div class="small">${e(k.chiSquareNote)}</div></td><td class="num">${e(k.dof)}</td><td class="num">${e(k.chiP)}</td>`
+        ? `<td class="num">${e(k.chiSquare)}<div class="small">${e(k.chiSquareNote)}</div></td><td class="num">${e(k.dof)}</td><td class="num">${e(k.chiP)}${chiBootstrapNote(c)}</td>`
         : `<td colspan="3">${e(sharedReason !== null ? 'not computed (reason below the table)' : `not computed: ${k.chiSquareNote}`)}</td>`;
       return (
         `<tr${c.family === ctx.selected ? ' class="selected"' : ''}><td class="num">${e(k.rank)}</td><td><strong>${e(k.model)}</strong></td>` +
@@ -298,4 +298,13 @@ function answerHtml(ctx: ReportContext): string {
     (warnings.length > 0 ? `<ul>${warnings.map((w) => `<li>${e(w)}</li>`).join('')}</ul>` : '') +
     '<p class="small">No decision number was asked for (B-life, return level or tolerance); the answer is the verdict on the model.</p></div>'
   );
+}
+
+/** When the parametric bootstrap decides the chi-square test, its p-value (with its Monte Carlo
+ *  standard error and B) under the asymptotic pair, which no longer decides. */
+function chiBootstrapNote(c: AnalyzeResponse['candidates'][number]): string {
+  const chi = c.chiSquare as { readonly computable: boolean; readonly decidedBy?: string; readonly bootstrap?: { readonly pValue: number; readonly monteCarloStandardError: number; readonly replicates: number } };
+  if (!chi.computable || chi.decidedBy !== 'bootstrap' || !chi.bootstrap) return '';
+  const b = chi.bootstrap;
+  return `<div class="small"><strong>bootstrap p = ${e(pValue(b.pValue))}</strong> ± ${e(sig(b.monteCarloStandardError, 2))}, B = ${e(b.replicates)}; decides (the pair above is asymptotic)</div>`;
 }

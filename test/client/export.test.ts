@@ -193,6 +193,23 @@ describe('the report opens with the answer and records every input', () => {
     expect(none).toContain('Confidence levelnot used');
   });
 
+  it('shows the bootstrap chi-square p where it decides the test, beside the asymptotic pair', () => {
+    const base = response();
+    const i = base.candidates.findIndex((c) => c.chiSquare.computable);
+    const c = base.candidates[i]!;
+    const boot = { ...c, chiSquare: { ...c.chiSquare, decidedBy: 'bootstrap' as const, bootstrap: { pValue: 0.0312, monteCarloStandardError: 0.0055, replicates: 999, unrefitted: 0, seed: 1 } } };
+    const candidates = base.candidates.map((x, j) => (j === i ? boot : x));
+    const html = buildReportHtml({ response: { ...base, candidates } as AnalyzeResponse, selected: c.family, sourceName: 's', column: 'c', units: '', quantity: '', generatedAt: new Date(0), charts: [], binsTable: [], requestedBins: null });
+    expect(html).toContain('bootstrap p = 0.0312');
+    expect(html).toContain('B = 999; decides');
+    // Only where the bootstrap decides (for n = 40 the core decides by bootstrap where the Chernoff–Lehmann bracket is wide).
+    const deciding = candidates.filter((x) => x.chiSquare.computable && (x.chiSquare as { decidedBy?: string }).decidedBy === 'bootstrap').length;
+    expect(html.match(/bootstrap p = /g)).toHaveLength(deciding);
+    const asymptotic = candidates.map((x, j) => (j === i ? x : { ...x, chiSquare: { ...x.chiSquare, decidedBy: 'asymptotic' as const } }));
+    const html2 = buildReportHtml({ response: { ...base, candidates: asymptotic } as AnalyzeResponse, selected: c.family, sourceName: 's', column: 'c', units: '', quantity: '', generatedAt: new Date(0), charts: [], binsTable: [], requestedBins: null });
+    expect(html2.match(/bootstrap p = /g)).toHaveLength(1);
+  });
+
   it('dataRecord: SHA-256 of "abc" is the FIPS 180-2 Appendix B.1 value (from memory; python3 hashlib.sha256(b"abc") agrees); large data are recorded by checksum only', async () => {
     const abc = await dataRecord('abc');
     expect(abc.sha256).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
@@ -251,7 +268,8 @@ describe('table cells shared by the page and the report', () => {
     const cells = candidateCells(c);
     expect(cells.dof).toMatch(/^\d+ \[\d+\]$/);
     expect(cells.chiP).toMatch(/\[.+\]$/);
-    expect(['published formula']).toContain(cells.adMethod);
+    // The published formula, or the parametric bootstrap where the core chose it (small samples).
+    expect(cells.adMethod).toMatch(/^(published formula|bootstrap, B = \d+)/);
     expect(cells.badge).toMatch(/^(✓ not rejected|✗ rejected by .+)$/);
   });
 });
