@@ -15,7 +15,7 @@ describe('test-planning calculator', () => {
     if (!r.ok) return;
     const b = planBlock(r.plan);
     expect(b.answer).toMatch(/test 22 units for 1000 each \(shape β = 2 assumed\)/);
-    expect(b.tables[0]!.rows.find((row) => row[1] === '1')![2]).toBe('22');
+    expect(b.tables[0]!.rows.find((row) => row[0] === '1000')![1]).toBe('22');
     expect(b.lines.map((l) => l.text).join(' ')).toMatch(/rounded up to 22/);
     expect(b.lines.some((l) => l.kind === 'caution' && /assumed, not measured/.test(l.text))).toBe(true);
     // The exported report prints the same block.

@@ -44,9 +44,9 @@ export function planBlock(plan: TestPlan): SectionBlock {
     lines: [...plan.derivation.map((text) => ({ kind: 'fact' as const, text })), ...plan.cautions.map((text) => ({ kind: 'caution' as const, text })), { kind: 'note', text: `Source: ${plan.source}.` }],
     tables: [
       {
-        caption: 'Units needed for each test length (k = test time ÷ t)',
-        head: ['test time per unit', 'k', 'units (binomial)', 'units (Weibayes form)'],
-        rows: plan.rows.map((r) => [num(r.testTime), num(r.timeRatio), String(r.unitsBinomial), `${r.unitsWeibayes} (${num(r.unitsWeibayesExact)})`]),
+        caption: `Units needed for each test length per unit (0.5 to 3 times t = ${num(i.time)})`,
+        head: ['Test time', 'Units (binomial)', 'Units (Weibayes)'],
+        rows: plan.rows.map((r) => [num(r.testTime), String(r.unitsBinomial), `${r.unitsWeibayes} (${num(r.unitsWeibayesExact)})`]),
       },
     ],
     charts: [],
