@@ -54,3 +54,19 @@ describe('capability page section', () => {
     expect(shareWords(12)).toMatch(/^12 ppm, about 1 part in 83/);
   });
 });
+
+describe('capability page section when no model passes', () => {
+  it('no empty passing table; the rejected table is shown open, and the room to the limits says its model is rejected', () => {
+    const rng = createRng(77, 0);
+    // a two-peaked mixture no single family fits (invented)
+    const mix = Array.from({ length: 300 }, (_, i) => (i % 2 === 0 ? 10 : 14) + 0.5 * rng.normal());
+    const r = analyzeDataset({ values: mix }, { lsl: 8, usl: 16, families: ['normal', 'lognormal', 'gamma'], capabilityReplicates: 19, seed: 1 });
+    expect(r.capability!.comparison.passing).toHaveLength(0);
+    const b = capabilitySection({ report: r, selected: undefined, units: '' })!;
+    expect(b.tables.some((t) => /each model that passes/.test(t.caption))).toBe(false);
+    const rej = b.tables.find((t) => /here every one/.test(t.caption))!;
+    expect(rej.folded).toBe(false);
+    expect(b.answer).toMatch(/^No model passes the tests/);
+    expect(b.lines.filter((l) => /^(Upper|Lower) side/.test(l.text)).every((l) => /rejected by a test/.test(l.text))).toBe(true);
+  });
+});

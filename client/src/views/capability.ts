@@ -31,13 +31,23 @@ function answerRow(cap: Cap): ComparisonRow | null {
   return passing.find((r) => r.kind === 'transformation') ?? passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
 }
 
-function headroom(cap: Cap, u: string): BlockLine[] {
-  const q = cap.transform && cap.transform.kind !== 'none' ? cap.transform.percentile : cap.percentile;
+/** Room between the model's 0.135 % / 99.865 % points and each limit, under the model the answer stands on. */
+function headroom(cap: Cap, row: ComparisonRow | null, u: string): BlockLine[] {
+  const t = cap.transform;
+  let lo = cap.mean - 3 * cap.sdOverall;
+  let hi = cap.mean + 3 * cap.sdOverall;
+  let basis = 'under the normal model (mean ± 3 overall sd)';
+  if (row?.kind === 'transformation' && t && t.kind !== 'none') {
+    lo = t.percentile.lowerQuantile;
+    hi = t.percentile.upperQuantile;
+    basis = `under ${row.model}`;
+  } else if (row?.kind !== 'normal' && cap.percentile) {
+    lo = cap.percentile.lowerQuantile;
+    hi = cap.percentile.upperQuantile;
+    basis = `under ${cap.percentile.family}${row ? '' : ' (rejected by a test, as every model is here)'}`;
+  } else if (!row) basis += ' (rejected by a test, as every model is here)';
   const lines: BlockLine[] = [];
   const unit = u ? ` ${u}` : '';
-  const lo = q ? q.lowerQuantile : cap.mean - 3 * cap.sdOverall;
-  const hi = q ? q.upperQuantile : cap.mean + 3 * cap.sdOverall;
-  const basis = q ? `under ${q.family}` : 'under the normal model (mean ± 3 overall sd)';
   if (cap.usl !== null) {
     const room = cap.usl - hi;
     lines.push({ kind: room >= 0 ? 'fact' : 'warning', text: `Upper side: the 99.865 % point (${sig(hi, 5)}${unit}) is ${sig(Math.abs(room), 3)}${unit} ${room >= 0 ? 'inside' : 'beyond'} the USL ${basis}.` });
@@ -76,7 +86,7 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   ];
   if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
   // By how much
-  lines.push(...headroom(cap, u));
+  lines.push(...headroom(cap, row, u));
   // What would change it
   const pp = cap.overall.find((x) => x.name === 'Pp');
   const ppkN = cap.overall.find((x) => x.name === 'Ppk');
@@ -98,9 +108,17 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   if (cap.within) for (const x of cap.within.indices) idxRows.push([x.name, `within subgroups: ${cap.within.description} (σ ${sig(cap.within.sigma, 4)})`, sig(x.estimate, 4), `${sig(x.lower, 4)} to ${sig(x.upper, 4)}`, x.intervalMethod]);
   tables.push({ caption: `Normal-theory indices, each with the spread it uses; two-sided ${pct(cap.confidence)} intervals.`, head: ['Index', 'Spread used', 'Estimate', 'Interval', 'Interval method'], rows: idxRows, folded: true });
   if (cap.comparison) {
-    tables.push({ caption: 'Share outside the tolerance under each model that passes the tests (the model and the spread each number uses).', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on'], rows: comparisonRows(cap.comparison.passing) });
+    const none = cap.comparison.passing.length === 0;
+    if (!none) tables.push({ caption: 'Share outside the tolerance under each model that passes the tests (the model and the spread each number uses).', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on'], rows: comparisonRows(cap.comparison.passing) });
     if (cap.comparison.rejected.length > 0) {
-      tables.push({ caption: 'Models the tests reject: not used for the answer and not in the spread.', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on', 'Rejected by'], rows: comparisonRows(cap.comparison.rejected), folded: true });
+      tables.push({
+        caption: none
+          ? 'Models the tests reject — here every one: what each would say, not an answer; no spread is drawn from them.'
+          : 'Models the tests reject: not used for the answer and not in the spread.',
+        head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on', 'Rejected by'],
+        rows: comparisonRows(cap.comparison.rejected),
+        folded: !none,
+      });
     }
   }
   if (t && t.kind !== 'none') {
