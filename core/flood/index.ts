@@ -17,3 +17,5 @@ export type { MgbResult } from './grubbs-beck.js';
 export { STATION_SKEW_MSE_METHOD, stationSkewMse, weightSkew } from './regional-skew.js';
 export type { SkewWeighting } from './regional-skew.js';
 export { EMA_CAUTIONS } from './ema-cautions.js';
+export { declusterRuns, fitGpdLMoments, fitGpdMl, gpdLogLikelihood, gpdReturnLevel, peaksOverThreshold, thresholdDiagnostics } from './pot.js';
+export type { Cluster, GpdFit, PotOptions, PotResult, PotReturnLevel, ThresholdDiagnostic } from './pot.js';
