@@ -65,7 +65,7 @@ export function analyzeLife(input: LifeInput, options: LifeOptions = {}): LifeRe
     const gofSeed = (options.seed ?? 20261201) + 7919 * LIFE_FAMILIES.indexOf(fit.family);
     const goodnessOfFit = B > 0 ? (options.goodnessOfFit ? options.goodnessOfFit(fit, data, B, gofSeed) : censoredGofBootstrap(fit, data, { replicates: B, seed: gofSeed })) : null;
     if (goodnessOfFit && goodnessOfFit.failedReplicates > 0) {
-      w.push(`${goodnessOfFit.failedReplicates} of ${B} bootstrap replicates could not be refitted and were left out of the p-value.`);
+      w.push(`${goodnessOfFit.failedReplicates} of ${B} bootstrap replicates could not be refitted; they are counted as exceeding the observed statistic (conservative), so the p-value is if anything too large.`);
     }
     return {
       family: fit.family,

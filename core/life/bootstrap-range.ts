@@ -5,7 +5,8 @@
  * job and the sum over any split equals the one-piece run (as core/gof/bootstrap.ts does for
  * complete samples). The method and its sources are described in bootstrap.ts.
  *
- * p = (1 + #{A²_b ≥ A²_obs}) / (1 + B_valid), with its binomial Monte Carlo standard error.
+ * p = (1 + #{A²_b ≥ A²_obs} + #{unrefittable}) / (1 + B), unrefittable replicates counted as
+ * exceeding (conservative), with its binomial Monte Carlo standard error.
  */
 import { getFamily, type Parameters } from '../families/index.js';
 import type { BootstrapCounts, CancelSignal } from '../gof/index.js';
@@ -69,7 +70,8 @@ export function runCensoredReplicates(
     const life = fam.random(parameters, rng, n);
     for (let i = 0; i < n; i++) {
       const x = life[i] as number;
-      const c = data.failed[i] ? G.drawBeyond(data.times[i] as number, rng.uniform()) : (data.times[i] as number);
+      // Random censorship: every unit's censoring time is drawn from the Kaplan–Meier censoring distribution.
+      const c = G.drawBeyond(Number.NEGATIVE_INFINITY, rng.uniform());
       if (x <= c) {
         t[i] = x;
         f[i] = 1;
@@ -99,14 +101,15 @@ export function runCensoredGofRange(job: CensoredGofJob, opts: CensoredRangeOpti
 
 /** The p-value result from the observed statistic and the counts over the whole range. */
 export function censoredGofFromCounts(observed: number, counts: BootstrapCounts): CensoredGofResult {
-  const ok = counts.valid;
-  const p = (1 + counts.exceed) / (1 + ok);
+  // Unrefittable replicates count as exceeding (conservative), so B is every replicate run.
+  const b = counts.completed;
+  const p = (1 + counts.exceed + counts.failed) / (1 + b);
   return {
     statistic: observed,
     pValue: p,
-    replicates: ok,
+    replicates: b,
     failedReplicates: counts.failed,
-    monteCarloError: ok > 0 ? Math.sqrt((p * (1 - p)) / ok) : Number.NaN,
+    monteCarloError: b > 0 ? Math.sqrt((p * (1 - p)) / b) : Number.NaN,
     method: CENSORED_AD_METHOD,
   };
 }

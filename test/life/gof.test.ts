@@ -69,3 +69,29 @@ describe('censored Anderson–Darling', () => {
     expect(gw.monteCarloError).toBeCloseTo(Math.sqrt((gw.pValue * (1 - gw.pValue)) / 99), 14);
   });
 });
+
+describe('censored bootstrap: unrefittable replicates are counted, censoring by random censorship', () => {
+  it('2 failures among 15 units: every replicate counts (unrefittable ones as exceeding), so B stays 99', () => {
+    // Design from the issue: with only 2 failures many replicates have too few failures to refit;
+    // leaving them out made the p-value describe another design.
+    const times = [120, 340, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500];
+    const failed = [1, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0];
+    const data = prepareLifeData({ times, failed });
+    const fit = fitCensored('weibull', data);
+    if (!fit.ok) throw new Error('fit');
+    const r = censoredGofBootstrap(fit, data, { replicates: 99, seed: 3 });
+    expect(r.failedReplicates).toBeGreaterThan(0);
+    expect(r.replicates).toBe(99);
+    expect(r.pValue).toBeGreaterThanOrEqual((1 + r.failedReplicates) / 100);
+    expect(r.method).toMatch(/counted as exceeding/);
+  });
+  it('the Kaplan–Meier censoring distribution every replicate unit draws from has mass 1/8 at the first of staggered withdrawals', () => {
+    // Efron (1981) random censorship: C ~ Ĝ independently of the lifetime; Ĝ here has atoms at the withdrawals.
+    const data = prepareLifeData({ times: [5, 8, 10, 12, 15, 20, 25, 30], failed: [0, 1, 0, 1, 0, 1, 1, 0] });
+    const G = censoringDistribution(data);
+    let below = 0;
+    for (let k = 0; k < 200; k++) if (G.drawBeyond(Number.NEGATIVE_INFINITY, (k + 0.5) / 200) < 8) below++;
+    // The mass of Ĝ at 5 is 1/8 (first withdrawal, 8 at risk): 25 of the 200 evenly spaced draws.
+    expect(below).toBe(25);
+  });
+});
