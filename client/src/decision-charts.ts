@@ -1,6 +1,7 @@
 /** Draws the decision area's chart slots from the report (page and exported report alike). */
 import type { DatasetReport, Evidence } from '../../core/index.js';
 import { capabilityHistogramChart } from '../charts/capability-histogram.js';
+import { controlChart } from '../charts/control-chart.js';
 import { hazardChart } from '../charts/hazard.js';
 import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
 import type { ChartOptions } from '../charts/options.js';
@@ -13,8 +14,9 @@ export interface SlotContext {
   readonly lifeScale: LifeScale;
 }
 
-/** Draw one slot into `box`; null when the report lacks what it needs. */
-export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
+/** Draw one slot into `box`; null when the report lacks what it needs. ('control-chart' is
+ *  accepted before every ChartSlot list names it.) */
+export function drawSlot(slot: ChartSlot | 'control-chart', box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
   const r = ctx.report;
   const labels = Object.fromEntries(r.candidates.map((c) => [c.family, capital(c.label)]));
   const selected = r.candidates.some((c) => c.family === ctx.selected) ? ctx.selected : (r.candidates[0]?.family ?? '');
@@ -25,6 +27,8 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       return r.life ? hazardChart(box, { curves: r.life.curves, labels, selected }, options) : null;
     case 'return-period':
       return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates.map((c) => ({ ...c, label: capital(c.label) })), selected }, options) : null;
+    case 'control-chart':
+      return r.capability?.stability ? controlChart(box, r.capability.stability, options) : null;
     case 'capability-histogram': {
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);

@@ -14,6 +14,7 @@ import { lifeProbabilityChart, logTicks } from '../../client/charts/life-probabi
 import { returnPeriodChart } from '../../client/charts/return-period.js';
 import { resetIds } from '../../client/charts/frame.js';
 import { blockHtml, decisionBlocks } from '../../client/src/decision.js';
+import { drawSlot } from '../../client/src/decision-charts.js';
 import { normaliseSvg } from './svg-normalise.js';
 
 const read = (f: string, cols: [string, 'number' | 'text'][]) =>
@@ -100,6 +101,20 @@ describe('capability histogram', () => {
     expect(texts(svg)).toContain('Target 25');
     expect(svg.querySelectorAll('rect[data-kind="bar"]').length).toBe(ce.histogram.bars.length);
     expect(normaliseSvg(svg.outerHTML)).toMatchSnapshot();
+  });
+});
+
+describe('stability chart slot', () => {
+  it('draws the control chart from the capability report when subgroups are given, and nothing without them', () => {
+    const sg = read('shaft-diameter.csv', [['diameter_mm', 'number'], ['subgroup', 'text']]);
+    const withGroups = analyzeDataset({ values: (sg.columns[0] as NumberColumn).values, subgroups: (sg.columns[1] as TextColumn).texts }, { families: ['normal'], lsl: 24.99, usl: 25.01, seed: 1 });
+    const ctx = { report: withGroups, selected: 'normal', lifeScale: 'weibull' as const };
+    const svg = drawSlot('control-chart', host(), ctx, { ...OPTS, units: 'mm', quantity: 'Diameter' });
+    expect(withGroups.capability?.stability).toBeTruthy();
+    expect(svg?.getAttribute('role')).toBe('img');
+    // The shaft demo without subgroups has no stability chart to draw.
+    expect(CAP.capability?.stability ?? null).toBeNull();
+    expect(drawSlot('control-chart', host(), { report: CAP, selected: 'normal', lifeScale: 'weibull' }, OPTS)).toBeNull();
   });
 });
 
