@@ -78,7 +78,7 @@ describe.skipIf(SKIP_BROWSER)('the page on explicit state', () => {
     expect(await page.isChecked('#family-boxes input[value="gev"]')).toBe(false);
     await expect(page.locator('#demo-settings').textContent()).resolves.toMatch(/^Default settings for fatigue\.csv \(the settings of river-peaks stay with it\)/);
     expect(await page.locator('#headline').isVisible()).toBe(false);
-    expect(await page.locator('[data-block="flood"]').count()).toBe(0);
+    expect(await page.locator('#decision-body [data-block="flood"]').count()).toBe(0);
   });
 
   it('a failed load leaves no answer, no models and no sections of the previous data', { timeout: 120_000 }, async () => {
@@ -90,7 +90,7 @@ describe.skipIf(SKIP_BROWSER)('the page on explicit state', () => {
     expect(await page.locator('#error').textContent()).toMatch(/empty\.csv: the file is empty/);
     expect(await page.locator('#headline').isVisible()).toBe(false);
     expect(await page.locator('#model-choices button').count()).toBe(0);
-    expect(await page.locator('[data-block]').count()).toBe(0);
+    expect(await page.locator('#decision-body [data-block]').count()).toBe(0);
     expect(await page.locator('#loaded').isVisible()).toBe(false);
     // A file the server cannot analyse: its name is on screen, nothing of the bearing demo is.
     await page.click('#demo-list button[data-name="bearing-life"]');
