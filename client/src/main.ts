@@ -4,6 +4,7 @@
  * built by request.ts and sent by runner.ts, exports written by page-export.ts. Nothing here computes a statistic or decides what a setting means. Nothing
  * runs at import: `start()` is called once the page has loaded.
  */
+import { takeOpenedSeries } from './opened-series.js';
 import { api, ApiError, type DemoEntry } from './api.js';
 import { readFileText } from './read-file.js';
 import { firstLineIsNumber } from './columns.js';
@@ -335,6 +336,12 @@ export async function start(): Promise<void> {
     renderDemoList(demos);
   } catch (err) {
     $('demo-list').append(el('li', { className: 'muted small' }, `Demo list unavailable: ${err instanceof Error ? err.message : String(err)}`));
+  }
+  // A series opened from the many-series page: its values are the source, with the defaults.
+  const opened = takeOpenedSeries();
+  if (opened) {
+    sourceLoaded({ type: 'source-loaded', source: { kind: 'file', name: opened.name, csv: opened.csv }, header: true });
+    return;
   }
   try {
     setStatus('Loading the worked scenario…');

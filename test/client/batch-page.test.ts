@@ -76,3 +76,18 @@ describe('the decision-number chart', () => {
     expect([...div.querySelectorAll('circle title')].some((t) => t.textContent === 'S4999: 4999')).toBe(true);
   });
 });
+
+describe('handing a series to the full view', () => {
+  it('is taken once from storage and refused when malformed', async () => {
+    const { takeOpenedSeries, OPENED_SERIES_KEY } = await import('../../client/src/opened-series.js');
+    const store = new Map<string, string>();
+    const storage = { getItem: (k: string) => store.get(k) ?? null, removeItem: (k: string) => void store.delete(k) };
+    store.set(OPENED_SERIES_KEY, JSON.stringify({ name: 'f.csv: series G1', csv: 'value\n1\n2\n' }));
+    expect(takeOpenedSeries(storage)).toEqual({ name: 'f.csv: series G1', csv: 'value\n1\n2\n' });
+    expect(takeOpenedSeries(storage)).toBeNull();
+    store.set(OPENED_SERIES_KEY, '{not json');
+    expect(takeOpenedSeries(storage)).toBeNull();
+    store.set(OPENED_SERIES_KEY, JSON.stringify({ name: 3, csv: 'x' }));
+    expect(takeOpenedSeries(storage)).toBeNull();
+  });
+});
