@@ -82,3 +82,5 @@ export { fitByLMoments, LMOMENT_FAMILIES } from './lmoments/family-fits.js';
 export type { LMomentFamily, LMomentFit } from './lmoments/family-fits.js';
 export { gevRatios, gloT4, gpaT4, pe3T4, ratioDiagram } from './lmoments/ratio-diagram.js';
 export type { RatioDiagram, RatioPoint } from './lmoments/ratio-diagram.js';
+export { declusterRuns, peaksOverThreshold, thresholdDiagnostics } from './flood/index.js';
+export type { Cluster, GpdFit, PotResult, PotReturnLevel, ThresholdDiagnostic } from './flood/index.js';
