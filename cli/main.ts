@@ -20,6 +20,8 @@ else {
   const code = runCli(process.argv.slice(2), {
     out: (s) => process.stdout.write(s),
     err: (s) => process.stderr.write(s),
+    progress: true,
+    errTty: process.stderr.isTTY === true,
     // The second thread runs this same file; only from the built JavaScript (not from sources
     // run through a TypeScript loader, which a worker would not inherit reliably).
     ...(self.pathname.endsWith('.js') ? { workerEntry: self } : {}),

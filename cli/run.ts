@@ -5,7 +5,6 @@
 import {
   InputError,
   PLUMBLINE_VERSION,
-  analyzeDataset,
   datasetOptionsFrom,
   isPlumblineError,
   readColumn,
@@ -14,6 +13,7 @@ import {
   type DatasetInput,
   type PlumblineError,
 } from '../core/index.js';
+import { analyzeWithProgress } from './analyze-progress.js';
 import { columnArg, csvArgs, flagArg, parseArgs, type AnalyzeArgs } from './args.js';
 import { helpText } from './help.js';
 import { cliInput, type CliInput } from './input-summary.js';
@@ -21,6 +21,7 @@ import { needsTable, readDataset, withFileRow } from './read-dataset.js';
 import { readInputText, type InputText } from './read-input.js';
 import { isParquetFile, parquetAsText } from './read-parquet.js';
 import { PIECES_MIN_BYTES, readColumnInPieces, regularFileSize } from './read-pieces.js';
+import { createProgress, type Progress } from './progress.js';
 import { batchArgs, isBatch } from './batch-args.js';
 import { runBatch } from './batch.js';
 import { runMerge } from './merge.js';
@@ -29,6 +30,7 @@ import { statusColumnHint } from './status-hint.js';
 import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
 import { isRecordedLife, runRecordedLife } from './life-recorded.js';
+import { isFloodEma, runFloodEma } from './flood-ema.js';
 import { runPlanCommand } from './life-plan.js';
 
 export interface CliIo {
@@ -36,7 +38,13 @@ export interface CliIo {
   err(s: string): void;
   /** The command's own module file, to run the second thread from (cli/second-thread.ts); none: one thread. */
   readonly workerEntry?: URL;
+  /** Show bootstrap progress on `err` when a run takes longer than a second (the command does; runCli's other callers choose). */
+  readonly progress?: boolean;
+  /** Standard error is a terminal (progress rewrites one line). */
+  readonly errTty?: boolean;
 }
+
+const SILENT: Progress = { replicates: () => {}, end: () => {} };
 
 /** Exit codes (sysexits.h style for the internal error). */
 export const EXIT_OK = 0;
@@ -107,6 +115,7 @@ function readsInPieces(args: AnalyzeArgs): boolean {
 
 function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): number {
   if (isRecordedLife(args)) return runRecordedLife(args, io);
+  if (isFloodEma(args)) return runFloodEma(args, io);
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
   const { read, input, dataset, rowNumbers, hint } = source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
   if (hint) io.err(`plumbline: warning: ${hint}\n`);
@@ -123,7 +132,9 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): numbe
   let report: AnyDatasetReport;
   try {
     const options = datasetOptionsFrom(args.options);
-    report = analyzeDataset(dataset, io.workerEntry ? { ...options, delegated: secondThread(io.workerEntry, options) } : options);
+    // The bootstrap reports progress on stderr when the run takes longer than a second (cli/progress.ts).
+    const progress = io.progress === true ? createProgress((s) => io.err(s), { tty: io.errTty === true }) : SILENT;
+    report = analyzeWithProgress(dataset, io.workerEntry ? { ...options, delegated: secondThread(io.workerEntry, options) } : options, progress);
   } catch (e) {
     throw withFileRow(e, fileLabel, dataset.grouped ? rowNumbers : undefined);
   }
