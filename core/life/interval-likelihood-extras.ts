@@ -43,7 +43,7 @@ export function recordedLifeExtras(input: LifeInput, o: RecordedLifeExtrasOption
       ? planTest({ reliability: o.planReliability, time: o.planTime, confidence: o.planConfidence ?? 0.9, shape: o.assumedShape, failuresAllowed: o.planFailures ?? 0 })
       : null;
   const life = ['weibull', 'lognormal', 'gamma', 'normal', 'exponential'];
-  const report = analyzeRecordedLife(input, {
+  const run = (): RecordedLifeReport => analyzeRecordedLife(input, {
     ...(o.families ? { families: o.families.filter((f) => life.includes(f)) as LifeFamilyName[] } : {}),
     ...(o.bLifePercents ? { bLifePercents: o.bLifePercents } : {}),
     ...(o.reliabilityTimes ? { reliabilityTimes: o.reliabilityTimes } : {}),
@@ -52,5 +52,11 @@ export function recordedLifeExtras(input: LifeInput, o: RecordedLifeExtrasOption
     estimation,
     ...(o.assumedShape != null ? { assumedShape: o.assumedShape } : {}),
   });
-  return { report, plan };
+  if (asked) return { report: run(), plan };
+  // Not asked for: an extra must never stop the report it rides on.
+  try {
+    return { report: run(), plan };
+  } catch {
+    return null;
+  }
 }

@@ -98,3 +98,18 @@ describe('analyzeRecordedLife: the report for life data as recorded', () => {
     }
   });
 });
+
+describe('recordedLifeExtras (the workflow hook)', () => {
+  it('runs by default for small samples, not for large ones unless asked; a plan needs a time and a shape', async () => {
+    const { recordedLifeExtras, MIXTURE_UNITS } = await import('../../core/life/index.js');
+    const small = recordedLifeExtras({ times: life.nist.times, failed: life.nist.failed }, {});
+    expect(small?.report?.candidates.length).toBeGreaterThan(0);
+    expect(small?.plan).toBeNull();
+    const n = MIXTURE_UNITS + 1;
+    const big = { times: Array.from({ length: n }, (_, i) => 1 + i), failed: Array.from({ length: n }, (_, i) => i % 2) };
+    expect(recordedLifeExtras(big, {})).toBeNull();
+    const asked = recordedLifeExtras({ times: life.nist.times, failed: life.nist.failed }, { assumedShape: 2, planReliability: 0.9, planTime: 100 });
+    expect(asked?.report?.weibayes?.shape).toBe(2);
+    expect(asked?.plan?.rows.find((r) => r.timeRatio === 1)?.unitsBinomial).toBe(22);
+  });
+});
