@@ -45,6 +45,7 @@ import {
   prepareSample,
   finishAnalysis,
   planAnalysis,
+  runBootstrapRange,
   type AnalysisReport,
 } from '../core/index.js';
 import type { WorkerPool as WorkerPoolType } from '../server/pool.js';
@@ -263,6 +264,23 @@ async function bootstrapCase(values: readonly number[]): Promise<void> {
   check('bootstrap report, worker pool vs in-process analyze()', reports[0], inline);
 }
 
+/**
+ * Cost of one bootstrap p-value (A² and chi-square together, as the analysis runs them): B = 999
+ * replicates of a gamma sample, each drawn, refitted by maximum likelihood, A² and X² recomputed;
+ * one thread, in-process (the worker pool splits the same ranges).
+ */
+function pValueBootstrapCases(): void {
+  for (const n of [20, 200, 2000]) {
+    const x = getFamily('gamma').random({ shape: 2, scale: 3 }, createRng(SEED, n), n);
+    const plan = planAnalysis(x, { families: ['gamma'], pMethod: 'bootstrap', bootstrapReplicates: 999 });
+    const c = plan.candidates[0];
+    const job = plan.bootstrapJobs[0];
+    if (!c || !job || !c.chiSquare.computable) throw new Error(`bench: no bootstrap job at n = ${n}`);
+    const withChi = { ...job, chiSquare: { observed: c.chiSquare.statistic, k: c.chiSquare.k } };
+    inProcess(`bootstrap p-values (A² + χ², B = 999, gamma), n = ${n.toLocaleString('en-US')}, 1 thread`, () => runBootstrapRange(withChi), 1, QUICK ? 1 : 3, '');
+  }
+}
+
 // ---------------------------------------------------------------- SciPy
 async function scipyCase(file: string, ours: number): Promise<void> {
   const probe = spawnSync('python3', ['-c', 'import scipy, numpy; print(scipy.__version__)'], { encoding: 'utf8' });
@@ -319,6 +337,7 @@ async function main(): Promise<void> {
 
   log('bootstrap:');
   await bootstrapCase(plainValues(files[0] as string));
+  pValueBootstrapCases();
 
   log('SciPy:');
   if (QUICK) notes.push('SciPy comparison skipped (--quick).');
