@@ -384,7 +384,9 @@ function chiSquareWithBootstrap(c: ChiSquareReport, reason: string | null, count
   if (!c.computable) return c;
   if (reason === null || !counts || counts.chiSquareExceed === undefined) return { ...c, decidedBy: 'asymptotic' };
   const bp = chiSquareBootstrapPValue(counts);
-  const rejected = bp.pValue < opts.alpha;
+  // A Monte Carlo p-value (1 + #)/(B + 1) rejects when p ≤ α: exact size when α(B + 1) is a whole
+  // number (Davison & Hinkley 1997, §4.2.5 [from memory]); p < α would have size α - 1/(B + 1).
+  const rejected = bp.pValue <= opts.alpha;
   const a = formatNumber(opts.alpha);
   const decision =
     `${rejected ? 'Rejected' : 'Not rejected'} at α = ${a}: X² = ${formatNumber(c.statistic)}, bootstrap p = ${formatNumber(bp.pValue)} ` +
@@ -443,7 +445,7 @@ function andersonDarlingReport(c: FittedCandidate, opts: ResolvedOptions, n: num
     throw new PlumblineError('not-computable', `Bootstrap counts for ${c.family.name} cover [${counts.start}, ${counts.end}), expected [0, ${opts.bootstrapReplicates}).`);
   }
   const bp = bootstrapPValue(counts);
-  const rejected = bp.pValue < alpha;
+  const rejected = bp.pValue <= alpha; // Monte Carlo p-value: reject at p ≤ α (see chiSquareWithBootstrap)
   const methodDetail =
     `Parametric bootstrap (Stute, González Manteiga & Presedo Quindimil 1993 [from memory]): ${bp.replicates} samples of n = ${n} ` +
     `drawn from the fitted ${c.family.label}, each refitted by maximum likelihood and its A² recomputed; p = (1 + #{A²* ≥ A²})/(B + 1) with Monte Carlo standard error √(p(1 - p)/B); seed ${opts.seed}, replicate i on random stream i. ` +

@@ -78,7 +78,7 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
   const candidates: DatasetCandidate[] = kept.map((c, i) => {
     const g = c.goodnessOfFit;
     const pValue = g?.pValue ?? Number.NaN;
-    const rejected = pValue < alpha;
+    const rejected = pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
     const p = `p = ${formatNumber(pValue)}`;
     const ad: AndersonDarlingReport = {
       statistic: g?.statistic ?? Number.NaN,
