@@ -14,6 +14,8 @@ import { weibull3 } from './weibull3.js';
 import { lognormal3 } from './lognormal3.js';
 import { pearson3 } from './pearson3.js';
 import { logpearson3 } from './logpearson3.js';
+import { genpareto } from './genpareto.js';
+import { genlogistic } from './genlogistic.js';
 
 export type * from './types.js';
 export { exponential, gamma, lognormal, normal, weibull };
@@ -24,6 +26,8 @@ export { weibull3, lognormal3 };
 // Pearson type III and log-Pearson type III (flood frequency, Bulletin 17C); not in DEFAULT_FAMILIES.
 export { pearson3, logpearson3 };
 export { NORMAL_SKEW, Pearson3Distribution } from './pearson3.js';
+// Generalized Pareto and generalized logistic (peaks over a threshold, L-moment families); not in DEFAULT_FAMILIES.
+export { genpareto, genlogistic };
 export type { GevFit, GevFitOptions } from './gev.js';
 
 const registry = new Map<FamilyName, Family>();
@@ -59,6 +63,8 @@ registerFamily(weibull3);
 registerFamily(lognormal3);
 registerFamily(pearson3);
 registerFamily(logpearson3);
+registerFamily(genpareto);
+registerFamily(genlogistic);
 
 /** The default candidate set for a complete sample. */
 export const DEFAULT_FAMILIES: readonly FamilyName[] = ['normal', 'lognormal', 'gamma', 'weibull', 'exponential'];

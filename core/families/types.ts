@@ -2,7 +2,7 @@ import type { Sample } from '../sample.js';
 import type { Rng } from '../random/index.js';
 
 /** Names of the model families Plumbline can fit. */
-export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential' | 'gumbel' | 'gev' | 'weibull3' | 'lognormal3' | 'pearson3' | 'logpearson3';
+export type FamilyName = 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponential' | 'gumbel' | 'gev' | 'weibull3' | 'lognormal3' | 'pearson3' | 'logpearson3' | 'genpareto' | 'genlogistic';
 
 /** Parameters by role name, e.g. `{ shape: 1.4, scale: 722 }`. Never positional. */
 export type Parameters = Readonly<Record<string, number>>;

@@ -58,6 +58,16 @@ const CASES: Partial<Record<FamilyName, Parameters[]>> = {
     { mean: 2, sd: 0.3, skew: -0.6 },
     { mean: 0.5, sd: 0.2, skew: 0 },
   ],
+  genpareto: [
+    { location: 0, scale: 1, shape: 0.2 },
+    { location: 25, scale: 14, shape: -0.1 },
+    { location: -2, scale: 0.5, shape: 0 },
+  ],
+  genlogistic: [
+    { location: 0, scale: 1, shape: 0.2 },
+    { location: 100, scale: 15, shape: -0.25 },
+    { location: 5, scale: 2, shape: 0 },
+  ],
 };
 
 const PS = [1e-12, 1e-6, 1e-3, 0.01, 0.1, 0.3, 0.5, 0.7, 0.9, 0.99, 0.999, 1 - 1e-6];
