@@ -4,7 +4,7 @@
  * formatting they rely on. The report is built from a real core analysis of an invented sample.
  */
 import { describe, expect, it } from 'vitest';
-import { analyze, analyzeDataset, computeEvidence, prepareSample } from '../../core/index.js';
+import { analyze, analyzeDataset, computeEvidence, formatNumber, pValueText, prepareSample } from '../../core/index.js';
 import { csvCell, csvDocument } from '../../client/src/csv-export.js';
 import { escapeHtml } from '../../client/src/escape.js';
 import { pValue, sig } from '../../client/src/format.js';
@@ -53,6 +53,18 @@ describe('number formatting for reading', () => {
     expect(sig(1234.5678)).toBe('1235');
     expect(sig(-0.000123456)).toBe('−0.0001235');
     expect(sig(1.5e9)).toBe('1.5e+9');
+  });
+  it('prints the same digits as the CLI: sig is core formatNumber with a true minus sign, pValue is core pValueText', () => {
+    for (const x of [1234.5678, -0.000123456, 1.5e9, 9999999.6, -2.5e-9, 0.1 + 0.2, 42, -7.25, 6.02e23]) {
+      for (const d of [2, 3, 4, 6]) expect(sig(x, d)).toBe(formatNumber(x, d).replace(/^-/, '−'));
+    }
+    // 9999999.6 to 4 digits rounds up to 1e7, past plain notation: written as the CLI writes it.
+    expect(sig(9999999.6)).toBe('1e+7');
+    expect(sig(null)).toBe('—');
+    for (const p of [0.04321, 3.2e-7, 0, 1e-320, 0.5]) expect(pValue(p)).toBe(pValueText(p));
+    // A bound below 1e-4 keeps two digits, as an estimate there does.
+    expect(pValue(3.214e-7, 'upper-bound')).toBe('< 3.2e-7');
+    expect(pValue(3.214e-7, 'upper-bound')).toBe(pValueText(3.214e-7, 'upper-bound'));
   });
 });
 
