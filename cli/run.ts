@@ -31,6 +31,7 @@ import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
 import { isRecordedLife, runRecordedLife } from './life-recorded.js';
 import { isFloodEma, runFloodEma } from './flood-ema.js';
+import { isFloodPot, runFloodPot } from './flood-pot.js';
 import { runPlanCommand } from './life-plan.js';
 
 export interface CliIo {
@@ -115,6 +116,7 @@ function readsInPieces(args: AnalyzeArgs): boolean {
 
 function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): number {
   if (isRecordedLife(args)) return runRecordedLife(args, io);
+  if (isFloodPot(args)) return runFloodPot(args, io);
   if (isFloodEma(args)) return runFloodEma(args, io);
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
   const { read, input, dataset, rowNumbers, hint } = source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
