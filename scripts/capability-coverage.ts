@@ -20,6 +20,7 @@
  * Pp runs about 1 point low at both sizes.
  */
 import { makeModel, percentileCapability, percentileIntervals, fitModelSpec, type ModelSpec } from '../core/capability/index.js';
+import { PlumblineError } from '../core/errors.js';
 import { createRng } from '../core/random/index.js';
 
 export const COVERAGE_SETUP = {
@@ -56,7 +57,13 @@ export interface SimulationResult {
 export function simulateOne(n: number, s: number, setup: typeof COVERAGE_SETUP = COVERAGE_SETUP): SimulationResult {
   const { truth, limits, alpha, replicates, dataSeed, bootstrapSeedBase } = setup;
   const x = makeModel(truth).draw(createRng(dataSeed, s), n).sort();
-  const spec = fitModelSpec({ kind: truth.kind === 'johnson' ? 'johnson' : 'boxcox' }, x);
+  let spec: ModelSpec;
+  try {
+    spec = fitModelSpec({ kind: truth.kind === 'johnson' ? 'johnson' : 'boxcox' }, x);
+  } catch (e) {
+    if (e instanceof PlumblineError) return { sample: s, intervals: {} }; // the sample itself cannot be fitted: counted apart
+    throw e;
+  }
   const r = percentileIntervals(spec, x, limits, alpha, bootstrapSeedBase + s, replicates);
   const intervals: Record<string, [number, number]> = {};
   for (const iv of r.intervals ?? []) intervals[iv.name] = [iv.lower, iv.upper];
@@ -91,7 +98,7 @@ function main(): void {
         return [k, { covered: covered[k], simulations: m, coverage: c, standardError: Math.sqrt((c * (1 - c)) / m) }];
       }),
     );
-    results.push({ n, coverage, firstSamples: first, seconds: (Date.now() - t0) / 1000 });
+    results.push({ n, coverage, samplesWithoutInterval: simulations - Math.max(0, ...Object.values(counted)), firstSamples: first, seconds: (Date.now() - t0) / 1000 });
   }
   process.stdout.write(JSON.stringify({ generator: 'scripts/capability-coverage.ts', setup, trueIndices, results }, null, 1) + '\n');
 }

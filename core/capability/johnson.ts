@@ -20,7 +20,8 @@
  * Sample quantiles: position nP + ½ with linear interpolation between order statistics (NumPy's
  * 'hazen' rule). ζ = 0.524 (so 3ζ ≈ 1.57 and the outer quantiles are the 5.8 % and 94.2 % points;
  * common practice, no source). SL is chosen when |mn/p² - 1| ≤ SL_TOLERANCE (common practice, no
- * source), since an exact 1 does not occur in data.
+ * source), since an exact 1 does not occur in data, and m/p > 1 (SL's long tail is the upper one; a
+ * left-skewed sample near the boundary gets SU or SB by the ratio instead).
  */
 import { InputError, PlumblineError } from '../errors.js';
 import { normalCdf, normalQuantile } from '../special/index.js';
@@ -135,11 +136,10 @@ export function fitJohnson(sorted: ArrayLike<number>, zeta = JOHNSON_ZETA): John
   const mid = (x1 + x1m) / 2;
   const method = `Slifker & Shapiro (1980) percentile method, ζ = ${zeta}, quantiles at ${[-3 * zeta, -zeta, zeta, 3 * zeta].map((z) => (100 * normalCdf(z)).toFixed(2) + ' %').join(', ')}`;
   let par: JohnsonParameters;
-  if (Math.abs(ratio - 1) <= SL_TOLERANCE) {
+  if (Math.abs(ratio - 1) <= SL_TOLERANCE && mp > 1) {
     const delta = (2 * zeta) / Math.log(mp);
     const gamma = delta * Math.log((mp - 1) / (p * Math.sqrt(mp)));
     const xi = mid - (p / 2) * ((mp + 1) / (mp - 1));
-    if (!(mp > 1)) throw new PlumblineError('not-computable', 'The lognormal (SL) fit needs a longer upper than central interval (m/p > 1); the data are skewed to the left.');
     par = { type: 'SL', gamma, delta, xi, lambda: 1 };
   } else if (ratio > 1) {
     const s = mp + np_;

@@ -164,3 +164,16 @@ describe('capability on the transformed scale', () => {
     expect(r.notes.join(' ')).toMatch(/lower specification limit 0 lies outside the model's support \(x > 0\)/);
   });
 });
+
+describe('Johnson type choice near the lognormal boundary', () => {
+  it('a left-skewed sample with mn/p² ≈ 1 is not forced into SL (whose tail is the upper one): SU or SB by the ratio', () => {
+    // mirror the committed SL sample: same ratio, m and n swapped, so m/p < 1
+    const sl = (fx.johnsonFits as { type: string; x: number[] }[]).find((s) => s.type === 'SL')!;
+    const mirrored = sortedOf(sl.x.map((v) => -v));
+    const f = fitJohnson(mirrored);
+    expect(Math.abs(f.ratio - 1)).toBeLessThanOrEqual(0.01);
+    expect(f.type).toBe(f.ratio > 1 ? 'SU' : 'SB');
+    const z = [-3 * f.zeta, -f.zeta, f.zeta, 3 * f.zeta];
+    for (let i = 0; i < 4; i++) expect(Math.abs(johnsonZ(f, f.quantiles[i]!) - z[i]!)).toBeLessThan(1e-9);
+  });
+});
