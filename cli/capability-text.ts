@@ -71,8 +71,10 @@ export function capabilityExtensionLines(c: CapabilitySection): string[] {
 
   const cmp = c.comparison;
   const head = ['model', 'spread from', 'Ppk', 'ppm below', 'ppm above', 'ppm total', cmp.passing.some((r) => r.ppmBelowNaturalBound !== null) ? 'ppm below bound' : ''];
-  out.push('  Models that pass the tests:');
-  out.push(...table(head, cmp.passing.map(rowCells)));
+  if (cmp.passing.length > 0) {
+    out.push('  Models that pass the tests:');
+    out.push(...table(head, cmp.passing.map(rowCells)));
+  } else out.push('  No model passes the tests.');
   if (cmp.rejected.length > 0) {
     out.push('  Rejected by a test (shown apart, not in the spread):');
     out.push(...table([...head.slice(0, 6), 'rejected by'], cmp.rejected.map((r) => [...rowCells(r).slice(0, 6), r.rejectedBy.join(', ')])));

@@ -28,6 +28,11 @@ describe('plumbline analyze: capability transformations', () => {
     expect(txt.stdout).toMatch(/Transformation: Johnson S[UBL] by Slifker & Shapiro percentiles/);
     expect(txt.stdout).toMatch(/Models that pass the tests:/);
   });
+  it('when no model passes: no empty table, the rejected models apart (shaft-diameter demo, every model rejected)', async () => {
+    const r = await cli('analyze', 'datasets/shaft-diameter.csv', '--column', 'diameter_mm', '--lsl', '24.99', '--usl', '25.01', '--capability-replicates', '19');
+    expect(r.stdout).toMatch(/No model passes the tests\.\n  Rejected by a test \(shown apart, not in the spread\):/);
+    expect(r.stdout).not.toMatch(/Models that pass the tests:/);
+  });
   it('default is none; an unknown transformation is refused (exit 2) naming the choices', async () => {
     const d = await cli('analyze', DATA, '--usl', '200', '--capability-replicates', '19', '--json');
     expect(JSON.parse(d.stdout).capability.transform).toEqual({ kind: 'none' });
