@@ -309,7 +309,9 @@ function wire(): void {
       renderAnswer(state);
     });
   }
-  $('export-html').addEventListener('click', () => exportHtml(state));
+  $('export-html').addEventListener('click', () => {
+    exportHtml(state).catch((err: unknown) => showError(`The report could not be written: ${err instanceof Error ? err.message : String(err)}`));
+  });
   $('export-json').addEventListener('click', () => exportJson(state));
   $('export-csv').addEventListener('click', () => exportCsv(state));
 

@@ -7,10 +7,10 @@ import { blockHtml, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import { download, el, slug } from './dom.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
-import { buildReportHtml } from './report-html.js';
+import { buildReportHtml, dataRecord, type DataRecord } from './report-html.js';
 import { binsCsv } from './bins-csv.js';
 import { isGrouped } from './grouped-view.js';
-import type { PageState } from './state.js';
+import type { PageState, Result } from './state.js';
 import { $, edgeText, groupedChart, lifeScale, quantity, showError, units } from './render.js';
 
 
@@ -35,12 +35,23 @@ export function decisionReportHtml(st: PageState, resp: AnalyzeResponse): string
     .join('');
 }
 
-export function exportHtml(st: PageState): void {
+/** The page's record for the report: the data the analysis read (or their SHA-256) and the page-only reading settings. */
+export async function pageRecord(res: Result): Promise<{ data: DataRecord; settings: [string, string][] }> {
+  return {
+    data: await dataRecord(res.data.csv),
+    settings: [
+      ['Decimal mark', res.data.decimal === ',' ? 'comma (,)' : 'point (.)'],
+      ['Header line', res.data.header ? 'first line is a header' : 'none: every line is data'],
+    ],
+  };
+}
+
+export async function exportHtml(st: PageState): Promise<void> {
   const resp = needResult(st);
   const res = st.result;
   const fam = st.selected;
   if (!resp || !res || !fam) return;
-  const base = { response: resp, selected: fam, sourceName: res.source, column: res.column, units: units(st), quantity: quantity(st), generatedAt: new Date() };
+  const base = { response: resp, selected: fam, sourceName: res.source, column: res.column, units: units(st), quantity: quantity(st), generatedAt: new Date(), ...(await pageRecord(res)) };
   if (isGrouped(resp)) {
     const svg = groupedChart(st, resp, fam, el('div'), { width: 760, height: 440 });
     download(exportName(st, 'html'), buildReportHtml({ ...base, charts: svg ? [{ svg: svg.outerHTML, caption: $('cap-grouped').textContent ?? '' }] : [], binsTable: [], requestedBins: null }), 'text/html;charset=utf-8');

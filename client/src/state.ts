@@ -52,6 +52,8 @@ export interface Result {
   readonly requestedBins: number | null;
   /** False when a later run for the same source failed or was stopped: the page says the result is the previous one. */
   readonly current: boolean;
+  /** The text the analysis read and how it was read, for the report's record of the data. */
+  readonly data: { readonly csv: string; readonly header: boolean; readonly decimal: '.' | ',' };
 }
 
 export interface RunState {
@@ -231,7 +233,7 @@ export function update(state: PageState, action: Action): PageState {
       return {
         ...state,
         run: { ...state.run, phase: 'idle' },
-        result: { report: action.report, source: state.source.name, column: action.column, requestedBins: action.requestedBins, current: true },
+        result: { report: action.report, source: state.source.name, column: action.column, requestedBins: action.requestedBins, current: true, data: { csv: state.source.csv, header: state.reading.header, decimal: state.reading.decimal } },
         selected,
         error: null,
       };

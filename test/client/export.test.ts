@@ -3,7 +3,9 @@
  * The exports: the self-contained HTML report, the bins CSV, and the escaping and number
  * formatting they rely on. The report is built from a real core analysis of an invented sample.
  */
-import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { describe, expect, it, vi } from 'vitest';
 import { analyze, analyzeDataset, computeEvidence, formatNumber, pValueText, prepareSample } from '../../core/index.js';
 import { csvCell, csvDocument } from '../../client/src/csv-export.js';
 import { escapeHtml } from '../../client/src/escape.js';
@@ -13,6 +15,8 @@ import { binsCsv } from '../../client/src/bins-csv.js';
 import { binsTableRows, drawEvidence, evidenceFor } from '../../client/src/evidence-render.js';
 import { candidateCells } from '../../client/src/candidate-cells.js';
 import type { AnalyzeResponse } from '../../client/src/api.js';
+import { exportHtml } from '../../client/src/page-export.js';
+import { INITIAL_STATE, update } from '../../client/src/state.js';
 
 describe('CSV cells (OWASP "CSV Injection": neutralise cells starting with = + - @, tab or CR)', () => {
   it.each([
@@ -283,5 +287,59 @@ describe('table cells shared by the page and the report', () => {
     // The published formula, or the parametric bootstrap where the core chose it (small samples).
     expect(cells.adMethod).toMatch(/^(published formula|bootstrap, B = \d+)/);
     expect(cells.badge).toMatch(/^(✓ not rejected|✗ rejected by .+)$/);
+  });
+});
+
+describe('the page\'s report export records the data it analysed', () => {
+  // An invented column; its SHA-256 by python3 hashlib.sha256 (printf 'value\n12.5\n…\n' | sha256sum agrees).
+  const CSV = 'value\n12.5\n13.1\n11.8\n14.2\n12.9\n13.7\n12.2\n13.3\n';
+  const SHA = '1317d1e4a2b8c909c371af506b15b65b8704b26735c25748ec67cd0624881e13';
+
+  async function exported(csv: string, decimal?: ','): Promise<Document> {
+    const page = new DOMParser().parseFromString(readFileSync(resolve(process.cwd(), 'client/index.html'), 'utf8'), 'text/html');
+    document.body.innerHTML = page.body.innerHTML;
+    const values = csv.split('\n').slice(1).filter(Boolean).map((v) => Number(v.replace(',', '.')));
+    const report = analyzeDataset({ values }, { families: ['normal', 'lognormal'], seed: 3 });
+    const resp = { ...report, evidence: computeEvidence(prepareSample(values), report), input: { source: 'csv', n: values.length, column: 'value' } } as AnalyzeResponse;
+    let st = update(INITIAL_STATE, { type: 'source-loaded', source: { kind: 'file', name: 'parts.csv', csv } });
+    if (decimal) st = update(st, { type: 'reading-changed', decimal });
+    st = update(st, { type: 'run-started' });
+    st = update(st, { type: 'run-finished', generation: st.run.generation, report: resp, column: 'value', requestedBins: null });
+    let blob: Blob | null = null;
+    const create = vi.spyOn(URL, 'createObjectURL').mockImplementation((b) => {
+      blob = b as Blob;
+      return 'blob:report';
+    });
+    vi.spyOn(URL, 'revokeObjectURL').mockImplementation(() => undefined);
+    const click = vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(() => undefined); // jsdom does not navigate
+    await exportHtml(st);
+    create.mockRestore();
+    click.mockRestore();
+    expect(blob).not.toBeNull();
+    const text = await new Promise<string>((done) => {
+      const reader = new FileReader();
+      reader.onload = () => done(String(reader.result));
+      reader.readAsText(blob!);
+    });
+    return new DOMParser().parseFromString(text, 'text/html');
+  }
+
+  it('a small file: its SHA-256 (FIPS 180-4, checked with python3 hashlib) and the text itself, with the reading settings', async () => {
+    const doc = await exported(CSV);
+    const record = doc.getElementById('record')!.parentElement!.textContent ?? '';
+    expect(record).toContain(`SHA-256 of the data as analysed${SHA}`);
+    expect(doc.querySelector('pre.data')?.textContent).toBe(CSV);
+    expect(record).toContain('Decimal markpoint (.)');
+    expect(record).toContain('Header linefirst line is a header');
+  });
+
+  it('a file past the inline limit: the SHA-256 only, no copy of the data', async () => {
+    const rows = Array.from({ length: 4000 }, (_, i) => (10 + ((i * 7919) % 1000) / 100).toFixed(2));
+    const csv = `value\n${rows.join('\n')}\n`;
+    expect(csv.length).toBeGreaterThan(DATA_INLINE_LIMIT);
+    const doc = await exported(csv);
+    const record = doc.getElementById('record')!.parentElement!.textContent ?? '';
+    expect(record).toContain(`SHA-256 of the data as analysed${(await dataRecord(csv)).sha256}`);
+    expect(doc.querySelector('pre.data')).toBeNull();
   });
 });
