@@ -13,12 +13,7 @@ import type { ChartOptions } from './options.js';
 import { INK, styleFor } from './palette.js';
 import { round } from './text.js';
 
-const GENPARETO = { colour: '#6a4c93', dash: '5 2', pattern: 'medium dashes' };
-const GENLOGISTIC = { colour: '#3d7a6e', dash: '1 2', pattern: 'close dots' };
-
 function style(family: string) {
-  if (family === 'genpareto') return GENPARETO;
-  if (family === 'genlogistic') return GENLOGISTIC;
   if (family === 'bound') return { colour: INK.reference, dash: '3 3', pattern: 'dashes' };
   return styleFor(family);
 }

@@ -26,6 +26,8 @@ export const BY_FAMILY: Readonly<Record<string, SeriesStyle>> = {
   lognormal3: { colour: '#6b5a2e', dash: '3 5', pattern: 'sparse dashes' },
   pearson3: { colour: '#4a6b8a', dash: '10 2 2 2 2 2', pattern: 'dash-dot-dot-dot' },
   logpearson3: { colour: '#555555', dash: '1 3', pattern: 'fine dots' },
+  genpareto: { colour: '#6a4c93', dash: '5 2', pattern: 'medium dashes' },
+  genlogistic: { colour: '#3d7a6e', dash: '1 2', pattern: 'close dots' },
 };
 
 export const SPARE: readonly SeriesStyle[] = [
