@@ -14,9 +14,8 @@ export interface SlotContext {
   readonly lifeScale: LifeScale;
 }
 
-/** Draw one slot into `box`; null when the report lacks what it needs. ('control-chart' is
- *  accepted before every ChartSlot list names it.) */
-export function drawSlot(slot: ChartSlot | 'control-chart', box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
+/** Draw one slot into `box`; null when the report lacks what it needs. */
+export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, options: ChartOptions): SVGSVGElement | null {
   const r = ctx.report;
   const labels = Object.fromEntries(r.candidates.map((c) => [c.family, capital(c.label)]));
   const selected = r.candidates.some((c) => c.family === ctx.selected) ? ctx.selected : (r.candidates[0]?.family ?? '');

@@ -14,6 +14,7 @@ import { lifeProbabilityChart, logTicks } from '../../client/charts/life-probabi
 import { returnPeriodChart } from '../../client/charts/return-period.js';
 import { resetIds } from '../../client/charts/frame.js';
 import { blockHtml, decisionBlocks } from '../../client/src/decision.js';
+import { blockNode } from '../../client/src/views/block.js';
 import { drawSlot } from '../../client/src/decision-charts.js';
 import { normaliseSvg } from './svg-normalise.js';
 
@@ -115,6 +116,24 @@ describe('stability chart slot', () => {
     // The shaft demo without subgroups has no stability chart to draw.
     expect(CAP.capability?.stability ?? null).toBeNull();
     expect(drawSlot('control-chart', host(), { report: CAP, selected: 'normal', lifeScale: 'weibull' }, OPTS)).toBeNull();
+  });
+
+  it('the capability block lists the control-chart slot when the report has a stability section, and the page draws it there', () => {
+    const sg = read('shaft-diameter.csv', [['diameter_mm', 'number'], ['subgroup', 'text']]);
+    const withGroups = analyzeDataset({ values: (sg.columns[0] as NumberColumn).values, subgroups: (sg.columns[1] as TextColumn).texts }, { families: ['normal'], lsl: 24.99, usl: 25.01, seed: 1 });
+    const block = decisionBlocks(withGroups, 'normal', 'mm').find((b) => b.id === 'capability')!;
+    expect(block.charts).toContain('control-chart');
+    const ctx = { report: withGroups, selected: 'normal', lifeScale: 'weibull' as const };
+    const node = blockNode(block, (slot) => {
+      const box = document.createElement('div');
+      box.dataset['slot'] = slot;
+      drawSlot(slot, box, ctx, { ...OPTS, units: 'mm', quantity: 'Diameter' });
+      return box;
+    });
+    document.body.append(node);
+    expect(node.querySelector('[data-slot="control-chart"] svg[role="img"]')).not.toBeNull();
+    // Without subgroups or an order there is no stability section and no slot for it.
+    expect(decisionBlocks(CAP, 'normal', 'mm').find((b) => b.id === 'capability')!.charts).not.toContain('control-chart');
   });
 });
 

@@ -147,6 +147,7 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
     lead: 'How far the process sits from each limit, the share expected outside under each model that fits, and what would change the answer.',
     lines,
     tables,
-    charts: ['capability-histogram'],
+    // The stability chart (individuals or subgroup means and spread) when the report has a stability section.
+    charts: cap.stability ? ['capability-histogram', 'control-chart'] : ['capability-histogram'],
   };
 };
