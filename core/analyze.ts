@@ -615,7 +615,7 @@ function methodsFor(plan: AnalysisPlan, candidates: readonly CandidateReport[]):
     },
     {
       topic: 'chi-square p-value',
-      description: `X² = Σ(O - E)²/E with k - 1 - m degrees of freedom (pValue) and k - 1 (pValueUpper); the true null distribution lies between them for large n because the parameters were estimated from the raw data. Where that bracket straddles α, or n < ${CHI_SQUARE_BOOTSTRAP_BELOW_N} (where k - 1 - m rejects too often), the decision uses a parametric-bootstrap p-value instead: samples drawn from the fitted model, each refitted on its raw values and X²* computed on equiprobable bins of its own fit, p = (1 + #{X²* ≥ X²})/(B + 1), unrefittable replicates counted as exceeding.`,
+      description: `X² = Σ(O - E)²/E with k - 1 - m degrees of freedom (pValue) and k - 1 (pValueUpper); the true null distribution lies between them for large n because the parameters were estimated from the raw data. Where that bracket straddles α, or n < ${CHI_SQUARE_BOOTSTRAP_BELOW_N} (where k - 1 - m rejects too often), the decision uses a parametric-bootstrap p-value instead: samples drawn from the fitted model, each refitted on its raw values and X²* computed on equiprobable bins of its own fit, p = (1 + #{X²* > X²} + ½·#{X²* = X²})/(B + 1) (mid-p: X² is discrete), unrefittable replicates counted as exceeding.`,
       source: 'Chernoff & Lehmann (1954), Ann. Math. Stat. 25:579-586; NIST/SEMATECH e-Handbook §1.3.5.15; parametric bootstrap: Davison & Hinkley (1997), Bootstrap Methods, §4.2 [from memory].',
     },
     {
