@@ -37,6 +37,19 @@ export interface CandidateCells {
 
 const TEST_NAMES: Readonly<Record<string, string>> = { 'chi-square': 'χ²', 'anderson-darling': 'A²' };
 
+/** The chi-square's parametric-bootstrap p-value when it decides the test (core decidedBy 'bootstrap'), else null. */
+export function chiSquareBootstrap(chi: (CandidateReport | GroupedCandidateReport)['chiSquare']): { readonly pValue: number; readonly monteCarloStandardError: number; readonly replicates: number } | null {
+  if (!chi.computable || !('decidedBy' in chi) || chi.decidedBy !== 'bootstrap' || !chi.bootstrap) return null;
+  return chi.bootstrap;
+}
+
+/** The deciding chi-square p-value in words: "bootstrap p = 0.031" when the bootstrap decides, else "p = 0.042". */
+export function chiSquareDecidingP(chi: (CandidateReport | GroupedCandidateReport)['chiSquare']): string {
+  if (!chi.computable) return '';
+  const boot = chiSquareBootstrap(chi);
+  return boot ? `bootstrap p = ${pValue(boot.pValue)}` : `p = ${pValue(chi.pValue)}`;
+}
+
 export function parametersText(c: CandidateReport | GroupedCandidateReport): string {
   return Object.entries(c.parameters)
     .map(([name, v]) => `${name} ${sig(v, 5)}`)
@@ -59,6 +72,8 @@ export function candidateCells(c: CandidateReport | GroupedCandidateReport): Can
   const grouped = chi.computable && 'classesGiven' in chi ? chi : null;
   const upper = chi.computable && !('classesGiven' in chi) ? chi : null;
   const note = grouped ? `k = ${grouped.k} of ${grouped.classesGiven} classes` : upper ? `k = ${upper.k} bins` : '';
+  // When the parametric bootstrap decides, its p is the deciding value and the asymptotic pair stands beside it.
+  const boot = chiSquareBootstrap(chi);
   return {
     rank: String(c.rank),
     model: c.label ? c.label[0]!.toUpperCase() + c.label.slice(1) : c.family,
@@ -74,8 +89,8 @@ export function candidateCells(c: CandidateReport | GroupedCandidateReport): Can
     chiP: upper ? `${pValue(upper.pValue)} [${pValue(upper.pValueUpper)}]` : grouped ? pValue(grouped.pValue) : '—',
     dofMain: chi.computable ? String(chi.dof) : '—',
     dofBracket: upper ? `[${upper.dofUpper}]` : grouped ? 'k − 1 − m, asymptotic' : '',
-    chiPMain: chi.computable ? pValue(chi.pValue) : '—',
-    chiPBracket: upper ? `[${pValue(upper.pValueUpper)}]` : '',
+    chiPMain: boot ? chiSquareDecidingP(chi) : chi.computable ? pValue(chi.pValue) : '—',
+    chiPBracket: boot && upper ? `asymptotic ${pValue(upper.pValue)} [${pValue(upper.pValueUpper)}]; bootstrap ± ${sig(boot.monteCarloStandardError, 2)}, B = ${boot.replicates}` : upper ? `[${pValue(upper.pValueUpper)}]` : '',
     adOffered,
     adStatistic: 'offered' in ad ? 'not offered' : sig(ad.statistic, 4),
     adP: 'offered' in ad ? '—' : pValue(ad.pValue, ad.pValueIs),

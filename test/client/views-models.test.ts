@@ -7,7 +7,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyzeDataset, readColumns, type NumberColumn } from '../../core/index.js';
+import { analyzeDataset, pValueText, readColumns, type NumberColumn } from '../../core/index.js';
+import { candidateCells, chiSquareDecidingP } from '../../client/src/candidate-cells.js';
+import { sig } from '../../client/src/format.js';
 import type { AnalyzeResponse } from '../../client/src/api.js';
 import { modelChoices, modelSentence } from '../../client/src/views/models.js';
 import { rankingRows } from '../../client/src/views/ranking-table.js';
@@ -73,5 +75,40 @@ describe('glossary', () => {
   it('a block links the symbols it uses', () => {
     const sec = blockNode({ id: 'flood', title: 'T', lead: 'L', lines: [], tables: [], charts: [], terms: ['xi', 'return', 'nonexistent'] }, () => document.createElement('div'));
     expect([...sec.querySelectorAll('a.term')].map((a) => a.getAttribute('href'))).toEqual(['#g-xi', '#g-return']);
+  });
+});
+
+describe('the chi-square p that decides: the parametric bootstrap below n = 50 (core decidedBy)', () => {
+  // Bearing demo, n = 30: the core decides the normal's and the exponential's chi-square by bootstrap
+  // (B = 999, seed 1); the asymptotic pair (dof k − 1 − m and k − 1) stands beside it.
+  const boot = REPORT.candidates.filter((c) => c.chiSquare.computable && c.chiSquare.decidedBy === 'bootstrap');
+
+  it('the test-number row leads with "bootstrap p = X" and keeps the asymptotic pair beside it', () => {
+    expect(boot.map((c) => c.family)).toContain('normal');
+    const normal = boot.find((c) => c.family === 'normal')!;
+    const chi = normal.chiSquare as Extract<typeof normal.chiSquare, { computable: true }>;
+    const cells = candidateCells(normal);
+    expect(cells.chiPMain).toBe(`bootstrap p = ${pValueText(chi.bootstrap!.pValue)}`);
+    expect(cells.chiPBracket).toBe(`asymptotic ${pValueText(chi.pValue)} [${pValueText(chi.pValueUpper)}]; bootstrap ± ${sig(chi.bootstrap!.monteCarloStandardError, 2)}, B = 999`);
+    const row = rankingRows(REPORT, null).find((r) => r.dataset['family'] === 'normal')!;
+    expect(row.textContent).toContain(`bootstrap p = ${pValueText(chi.bootstrap!.pValue)}asymptotic ${pValueText(chi.pValue)} [`);
+  });
+
+  it('the model choices and the answer name the bootstrap p as the deciding one', () => {
+    const normal = boot.find((c) => c.family === 'normal')!;
+    const chi = normal.chiSquare as Extract<typeof normal.chiSquare, { computable: true }>;
+    const text = modelChoices(REPORT, null).querySelector('button[data-family="normal"]')!.textContent ?? '';
+    expect(text).toContain(`χ² bootstrap p = ${pValueText(chi.bootstrap!.pValue)} (asymptotic ${pValueText(chi.pValue)} to ${pValueText(chi.pValueUpper)})`);
+    expect(chiSquareDecidingP(normal.chiSquare)).toBe(`bootstrap p = ${pValueText(chi.bootstrap!.pValue)}`);
+  });
+
+  it('where the asymptotic reference decides, no bootstrap p is shown', () => {
+    const normal = boot.find((c) => c.family === 'normal')!;
+    const asym = { ...normal, chiSquare: { ...normal.chiSquare, decidedBy: 'asymptotic' as const } } as typeof normal;
+    const cells = candidateCells(asym);
+    expect(cells.chiPMain).not.toMatch(/bootstrap/);
+    expect(cells.chiPBracket).toMatch(/^\[.+\]$/);
+    const report = { ...REPORT, candidates: REPORT.candidates.map((c) => (c.family === 'normal' ? asym : c)) } as AnalyzeResponse;
+    expect(modelChoices(report, null).querySelector('button[data-family="normal"]')!.textContent).toMatch(/χ² p = [^(]+ to /);
   });
 });

@@ -5,6 +5,7 @@
  * record, another acceptable model gives a very different number). Pure: report in, words out.
  */
 import type { DatasetCandidate, DatasetReport } from '../../../core/index.js';
+import { chiSquareDecidingP } from '../candidate-cells.js';
 import { capital } from '../families.js';
 import { pValue, sig } from '../format.js';
 import { end, pct, withU } from './numbers.js';
@@ -27,7 +28,7 @@ const q = (x: number): string => String(Number(x.toPrecision(6)));
 const TEST_WORDS: Readonly<Record<string, string>> = { 'chi-square': testWords(['chi-square']), 'anderson-darling': testWords(['anderson-darling']) };
 
 function testP(c: DatasetCandidate, test: string): string {
-  if (test === 'chi-square' && c.chiSquare.computable) return ` (p = ${pValue(c.chiSquare.pValue)})`;
+  if (test === 'chi-square' && c.chiSquare.computable) return ` (${chiSquareDecidingP(c.chiSquare)})`;
   if (test === 'anderson-darling' && !('offered' in c.andersonDarling)) return ` (p ${c.andersonDarling.pValueIs === 'estimate' ? '= ' : ''}${pValue(c.andersonDarling.pValue, c.andersonDarling.pValueIs)})`;
   return '';
 }

@@ -7,6 +7,7 @@ import type { AnalyzeResponse } from '../api.js';
 import { styleFor } from '../../charts/palette.js';
 import { el } from '../dom.js';
 import { capital, modelLabel } from '../families.js';
+import { chiSquareBootstrap, chiSquareDecidingP } from '../candidate-cells.js';
 import { fixed, pValue } from '../format.js';
 import type { CandidateReport, GroupedCandidateReport } from '../types.js';
 import { testWords } from './test-words.js';
@@ -20,7 +21,9 @@ function pWords(c: Candidate): string {
   const ad = c.andersonDarling;
   if (!('offered' in ad)) parts.push(`A² p ${ad.pValueIs === 'estimate' ? '= ' : ''}${pValue(ad.pValue, ad.pValueIs)}`);
   const chi = c.chiSquare;
-  if (chi.computable) parts.push(`χ² p = ${pValue(chi.pValue)}${'pValueUpper' in chi ? ` to ${pValue(chi.pValueUpper)}` : ''}`);
+  const asymptotic = chi.computable ? `${pValue(chi.pValue)}${'pValueUpper' in chi ? ` to ${pValue(chi.pValueUpper)}` : ''}` : '';
+  if (chi.computable && chiSquareBootstrap(chi)) parts.push(`χ² ${chiSquareDecidingP(chi)} (asymptotic ${asymptotic})`);
+  else if (chi.computable) parts.push(`χ² p = ${asymptotic}`);
   else parts.push('χ² not computed');
   return parts.join(' · ');
 }
