@@ -3,7 +3,7 @@
  * a guard nobody checks). For every mutation below: the file is changed in one place (the text
  * must occur exactly once), the named test files are run with vitest, and the file is restored
  * whatever happens. A mutation whose tests still pass is a "survivor": the script lists it and
- * exits 1.
+ * exits 1. The named tests must pass on the unmutated tree first (else it stops, exit 2).
  *
  *   node --import tsx scripts/mutation-server.ts            every mutation (a few minutes)
  *   node --import tsx scripts/mutation-server.ts job-limit  only those whose name contains the word
@@ -172,6 +172,14 @@ function main(): void {
   const filter = process.argv[2];
   const chosen = MUTATIONS.filter((m) => filter === undefined || m.name.includes(filter));
   const survivors: string[] = [];
+  // A mutation counts as caught only if its tests pass on the unmutated tree.
+  const baseline = [...new Set(chosen.flatMap((m) => m.tests))];
+  const base = runTests(baseline);
+  console.log(`baseline (unmutated): ${base.summary}`);
+  if (!base.passed) {
+    console.log('The tests fail without any mutation; fix them first (a failing test catches nothing).');
+    process.exit(2);
+  }
   for (const m of chosen) {
     const path = resolve(ROOT, m.file);
     const original = readFileSync(path, 'utf8');
@@ -191,10 +199,11 @@ function main(): void {
         else console.log(`!! ${m.file} changed while mutated; check that "${m.find.trim().slice(0, 60)}" is back`);
       }
     };
-    process.once('SIGINT', () => {
+    const onInterrupt = (): void => {
       restore();
       process.exit(130);
-    });
+    };
+    process.once('SIGINT', onInterrupt);
     try {
       writeFileSync(path, mutated);
       const { passed, summary } = runTests(m.tests);
@@ -202,6 +211,7 @@ function main(): void {
       if (passed) survivors.push(m.name);
     } finally {
       restore();
+      process.off('SIGINT', onInterrupt);
     }
   }
   console.log(`\n${chosen.length - survivors.length} of ${chosen.length} mutations caught by a failing test.`);
