@@ -81,12 +81,14 @@ describe('glossary', () => {
 describe('the chi-square p that decides: the parametric bootstrap below n = 50 (core decidedBy)', () => {
   // Bearing demo, n = 30: the core decides the normal's and the exponential's chi-square by bootstrap
   // (B = 999, seed 1); the asymptotic pair (dof k − 1 − m and k − 1) stands beside it.
-  const boot = REPORT.candidates.filter((c) => c.chiSquare.computable && c.chiSquare.decidedBy === 'bootstrap');
+  type Chi = { pValue: number; pValueUpper: number; decidedBy?: string; bootstrap?: { pValue: number; monteCarloStandardError: number } };
+  const chiOf = (c: AnalyzeResponse['candidates'][number]): Chi => c.chiSquare as unknown as Chi;
+  const boot = REPORT.candidates.filter((c) => c.chiSquare.computable && chiOf(c).decidedBy === 'bootstrap');
 
   it('the test-number row leads with "bootstrap p = X" and keeps the asymptotic pair beside it', () => {
     expect(boot.map((c) => c.family)).toContain('normal');
     const normal = boot.find((c) => c.family === 'normal')!;
-    const chi = normal.chiSquare as Extract<typeof normal.chiSquare, { computable: true }>;
+    const chi = chiOf(normal);
     const cells = candidateCells(normal);
     expect(cells.chiPMain).toBe(`bootstrap p = ${pValueText(chi.bootstrap!.pValue)}`);
     expect(cells.chiPBracket).toBe(`asymptotic ${pValueText(chi.pValue)} [${pValueText(chi.pValueUpper)}]; bootstrap ± ${sig(chi.bootstrap!.monteCarloStandardError, 2)}, B = 999`);
@@ -96,7 +98,7 @@ describe('the chi-square p that decides: the parametric bootstrap below n = 50 (
 
   it('the model choices and the answer name the bootstrap p as the deciding one', () => {
     const normal = boot.find((c) => c.family === 'normal')!;
-    const chi = normal.chiSquare as Extract<typeof normal.chiSquare, { computable: true }>;
+    const chi = chiOf(normal);
     const text = modelChoices(REPORT, null).querySelector('button[data-family="normal"]')!.textContent ?? '';
     expect(text).toContain(`χ² bootstrap p = ${pValueText(chi.bootstrap!.pValue)} (asymptotic ${pValueText(chi.pValue)} to ${pValueText(chi.pValueUpper)})`);
     expect(chiSquareDecidingP(normal.chiSquare)).toBe(`bootstrap p = ${pValueText(chi.bootstrap!.pValue)}`);
