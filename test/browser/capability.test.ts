@@ -36,21 +36,22 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     expect(text).toMatch(/Stability \(subgroup means and standard deviations, order from the subgroup column/);
     expect(text).toMatch(/safety-critical/);
     expect(text).toMatch(/Upper side: the 99\.865 % point/);
-    // the rejected models' table is folded apart (a details element), never in the passing table
+    // the stability chart: 25 subgroup means and 25 standard deviations
+    const cc = block.locator('[data-slot="control-chart"] svg');
+    await expect(cc.locator('title').first().textContent()).resolves.toMatch(/^Is the process stable\? Subgroup means and standard deviations/);
+    expect(await cc.locator('circle').count()).toBe(50);
+    // shaft-diameter: every model is rejected (the gauge's resolution ties the values), so there is no
+    // table of passing models and the rejected ones are shown open as what each would say, not an answer
     const captions = await block.locator('caption').allTextContents();
-    expect(captions.some((c) => /each model that passes the tests/.test(c))).toBe(true);
-    const rejected = block.locator('details', { hasText: 'Models the tests reject' });
-    if ((await rejected.count()) > 0) {
-      const rejectedModels = await rejected.locator('tbody th').allTextContents();
-      const passing = await block.locator('table', { hasText: 'each model that passes' }).locator('tbody th').allTextContents();
-      for (const m of rejectedModels) expect(passing).not.toContain(m);
-    }
+    expect(captions.some((c) => /each model that passes the tests/.test(c))).toBe(false);
+    expect(captions.some((c) => /here every one/.test(c))).toBe(true);
+    await expect(block.locator('.block-answer').textContent()).resolves.toMatch(/^No model passes the tests/);
     const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
     const file = join(OUT, 'report-capability-section.html');
     await download.saveAs(file);
     const html = readFileSync(file, 'utf8');
     expect(html).toContain('Can it meet the tolerance?');
-    expect(html).toMatch(/Models the tests reject|each model that passes the tests/);
+    expect(html).toMatch(/Models the tests reject — here every one/);
     await block.scrollIntoViewIfNeeded();
     await page.screenshot({ path: join(OUT, 'capability-section-1366x768.png') });
     expect(problems).toEqual([]);

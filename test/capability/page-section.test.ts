@@ -40,6 +40,7 @@ describe('capability page section', () => {
     expect(b.lines.some((l) => /^Stability \(individuals and moving range, order from the order column, on the Box–Cox transformed \(λ = [0-9.-]+\) scale\): No point/.test(l.text))).toBe(true);
     expect(b.lines.some((l) => l.kind === 'caution' && /safety-critical/.test(l.text))).toBe(true);
     expect(blockHtml(b, () => '')).toContain('Can it meet the tolerance?');
+    expect(b.charts).toEqual(['capability-histogram', 'control-chart']);
   });
   it('an unstable process: the answer says so first', () => {
     const shifted = skewed.map((v, i) => (i >= 80 ? v + 6 : v));
