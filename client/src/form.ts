@@ -64,9 +64,14 @@ export function applyOptionTable(): void {
       for (const v of spec.choices) c.append(el('option', { value: v, selected: v === spec.default }, words.get(v) ?? v.replace(/-/g, ' ')));
     }
     if (c instanceof HTMLInputElement && c.type === 'number') {
+      // The table's limits replace whatever the HTML says; a limit the table does not have is removed.
+      // (An exclusive limit is shown as the HTML limit; the request check refuses the limit itself.)
       if (spec.min !== undefined && Number.isFinite(spec.min)) c.min = String(spec.min);
+      else c.removeAttribute('min');
       if (spec.max !== undefined && Number.isFinite(spec.max) && spec.max < 1e12) c.max = String(spec.max);
-      if (spec.kind === 'integer') c.step = '1';
+      else c.removeAttribute('max');
+      // Whole numbers step by 1; any other number is accepted as typed (a step would mark e.g. α = 0.001 invalid).
+      c.step = spec.kind === 'integer' ? '1' : 'any';
     }
   }
 }

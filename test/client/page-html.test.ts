@@ -37,3 +37,19 @@ describe('client/index.html', () => {
     expect(doc.getElementById('caution')?.textContent).toMatch(/governing codes.*licensed/s);
   });
 });
+
+describe('the number fields carry the option table\'s limits (core/options), before and after the page starts', () => {
+  it('applyOptionTable leaves every number field of the HTML as the HTML already says it, and bins starts at 2 as the table says', async () => {
+    const { applyOptionTable } = await import('../../client/src/form.js');
+    const { optionNamed } = await import('../../core/index.js');
+    document.body.innerHTML = doc.body.innerHTML;
+    const attrs = (): Record<string, [string | null, string | null, string | null]> =>
+      Object.fromEntries([...document.querySelectorAll<HTMLInputElement>('input[type="number"]')].map((i) => [i.id, [i.getAttribute('min'), i.getAttribute('max'), i.getAttribute('step')]]));
+    const before = attrs();
+    applyOptionTable();
+    expect(attrs()).toEqual(before);
+    const bins = optionNamed('bins')!;
+    expect(before['bins-input']![0]).toBe(String(bins.min));
+    expect(before['replicates-input']).toEqual([String(optionNamed('replicates')!.min), String(optionNamed('replicates')!.max), '1']);
+  });
+});
