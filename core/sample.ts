@@ -150,7 +150,9 @@ export function prepareSample(values: ArrayLike<number>, opts: { alreadySorted?:
     throw new InputError('The sample contains a non-finite value.', {}, 'not-a-number');
   }
   const sum = compensated(sorted);
-  const mean = sum / n;
+  // The mean lies in [min, max]; the last rounding of sum/n can step just outside (nine values of
+  // 1e307 average to 9.999999999999999e306), so it is held there.
+  const mean = Math.min(max, Math.max(min, sum / n));
   let s = 0;
   let c = 0;
   let negative = 0;

@@ -99,7 +99,10 @@ function violations(r: AnalysisReport, n: number): string | null {
     const ad = c.andersonDarling;
     if (!(ad.statistic >= 0)) return `${where}: A² = ${ad.statistic}`;
     if (!inUnit(ad.pValue)) return `${where}: AD p = ${ad.pValue}`;
-    const adShould = ad.pValueIs === 'upper-bound' ? ad.pValue <= ad.alpha : ad.pValueIs === 'lower-bound' ? false : ad.pValue < ad.alpha;
+    // A Monte Carlo p-value (1 + #)/(B + 1) rejects at p ≤ α (exact size when α(B + 1) is whole;
+    // Davison & Hinkley 1997 §4.2.5); a table p-value at p < α.
+    const adShould =
+      ad.pValueIs === 'upper-bound' ? ad.pValue <= ad.alpha : ad.pValueIs === 'lower-bound' ? false : ad.method === 'bootstrap' ? ad.pValue <= ad.alpha : ad.pValue < ad.alpha;
     if (ad.rejected !== adShould) return `${where}: AD rejected=${ad.rejected} with p ${ad.pValueIs} ${ad.pValue}, α ${ad.alpha}`;
     if (ad.pValueIs === 'lower-bound' && ad.pValue < ad.alpha) return `${where}: AD lower bound ${ad.pValue} < α cannot decide`;
     if (ad.rejected !== c.rejectedBy.includes('anderson-darling')) return `${where}: rejectedBy disagrees with AD`;
@@ -115,7 +118,10 @@ function violations(r: AnalysisReport, n: number): string | null {
       if (!inUnit(chi.pValue) || !inUnit(chi.pValueUpper)) return `${where}: chi p = ${chi.pValue}, ${chi.pValueUpper}`;
       // More dof, same statistic: the k - 1 tail is at least the k - 1 - m tail (chi-square sf grows with dof).
       if (chi.pValueUpper < chi.pValue - 1e-12) return `${where}: pValueUpper ${chi.pValueUpper} < pValue ${chi.pValue}`;
-      if (chi.rejected !== chi.pValue < chi.alpha) return `${where}: chi rejected=${chi.rejected}, p ${chi.pValue}, α ${chi.alpha}`;
+      // The decision is the bootstrap's where the Chernoff–Lehmann bracket is wide (decidedBy), else k − 1 − m's.
+      const boot = (chi as { decidedBy?: string; bootstrap?: { pValue: number } }).decidedBy === 'bootstrap' ? (chi as { bootstrap?: { pValue: number } }).bootstrap : undefined;
+      const chiShould = boot ? boot.pValue <= chi.alpha : chi.pValue < chi.alpha;
+      if (chi.rejected !== chiShould) return `${where}: chi rejected=${chi.rejected}, p ${boot ? `bootstrap ${boot.pValue}` : chi.pValue}, α ${chi.alpha}`;
       if (chi.rejected !== c.rejectedBy.includes('chi-square')) return `${where}: rejectedBy disagrees with chi-square`;
       if (chi.bins.length !== chi.k || chi.dof !== chi.k - 1 - c.estimatedParameters) return `${where}: k/dof mismatch`;
       const obs = chi.bins.reduce((s, b) => s + b.observed, 0);
