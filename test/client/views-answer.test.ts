@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyzeDataset, readColumns, type DatasetReport, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { analyzeDataset, pValueText, readColumns, type DatasetReport, type NumberColumn, type TextColumn } from '../../core/index.js';
 import { answerFor } from '../../client/src/views/answer.js';
 import { SECTIONS, sectionBlocks } from '../../client/src/views/sections.js';
 import { modelLabel } from '../../client/src/families.js';
@@ -93,5 +93,19 @@ describe('the section registry', () => {
     // What would change it: a range across the acceptable models, in words.
     const sens = blocks[2]!.lines.map((l) => l.text).join(' ');
     expect(sens).toMatch(/return level T=200: from [\d.]+ \(.+\) to [\d.]+ \(.+\) across 2 models|only .+ gives it/);
+  });
+});
+
+describe('the answer names the chi-square p that decided the rejection', () => {
+  it('below n = 50 the core decides by the parametric bootstrap: "(bootstrap p = X)", not the asymptotic p', () => {
+    // The 30 bearing hours read as a plain sample, with a return period asked so that the answer has a number.
+    const hours = (read('bearing-life.csv', ['hours']).columns[0] as NumberColumn).values;
+    const r = analyzeDataset({ values: hours }, { families: ['weibull', 'exponential'], returnPeriods: [10], seed: 1 }) as DatasetReport;
+    const exp = r.candidates.find((c) => c.family === 'exponential')!;
+    const chi = exp.chiSquare as unknown as { decidedBy?: string; bootstrap?: { pValue: number } };
+    expect(exp.rejectedBy).toContain('chi-square');
+    expect(chi.decidedBy).toBe('bootstrap');
+    const a = answerFor(r, 'exponential', 'h')!;
+    expect(a.cautions[0]).toContain(`chi-square test (bootstrap p = ${pValueText(chi.bootstrap!.pValue)})`);
   });
 });
