@@ -44,15 +44,18 @@ export function controlChart(container: Element, chart: StabilityChart, options:
   const half = (frame.innerHeight - GAP) / 2;
   const yTop = yScale(chart.location, 0, half);
   const yBottom = yScale(chart.dispersion, half + GAP, frame.innerHeight);
-  const axTop = axisLeft(yTop).ticks(4);
-  const axBottom = axisLeft(yBottom).ticks(3);
+  // Ticks at least 18 px apart in each panel (a short panel gets fewer), so labels never touch.
+  const topTicks = spacedTicks(yTop, 4, 18);
+  const bottomTicks = spacedTicks(yBottom, 3, 18);
+  const axTop = axisLeft(yTop).tickValues(topTicks).tickFormat(yTop.tickFormat(4));
+  const axBottom = axisLeft(yBottom).tickValues(bottomTicks).tickFormat(yBottom.tickFormat(3));
   // the left margin fits the wider of the two panels' tick labels
-  const wider = Math.max(...yTop.ticks(4).map((t) => textWidth(yTop.tickFormat(4)(t), 11))) >= Math.max(...yBottom.ticks(3).map((t) => textWidth(yBottom.tickFormat(3)(t), 11))) ? axTop : axBottom;
+  const wider = Math.max(...topTicks.map((t) => textWidth(yTop.tickFormat(4)(t), 11))) >= Math.max(...bottomTicks.map((t) => textWidth(yBottom.tickFormat(3)(t), 11))) ? axTop : axBottom;
   fitYAxis(frame, wider);
   const n = chart.location.points.length;
   const x = scaleLinear().domain([0, Math.max(1, n - 1)]).range([0, frame.innerWidth]);
   const xi = (i: number): number => x(i);
-  drawGrid(frame, [...yTop.ticks(4).map((t) => yTop(t)), ...yBottom.ticks(3).map((t) => yBottom(t))]);
+  drawGrid(frame, [...topTicks.map((t) => yTop(t)), ...bottomTicks.map((t) => yBottom(t))]);
   const u = options.units && !scale ? ` (${options.units})` : '';
   drawYAxis(frame, axTop, `${chart.location.statistic}${u}`);
   const lower = frame.plot.append('g').attr('data-kind', 'y-axis').attr('aria-hidden', 'true').attr('font-size', 11);
@@ -67,4 +70,13 @@ export function controlChart(container: Element, chart: StabilityChart, options:
   drawPanel(frame, frame.plot.append('g').attr('data-panel', 'location') as Group, chart.location, yTop, xi);
   drawPanel(frame, frame.plot.append('g').attr('data-panel', 'dispersion') as Group, chart.dispersion, yBottom, (i) => xi(i + offset));
   return frame.svg.node() as SVGSVGElement;
+}
+
+/** The scale's ticks (about `count`), every k-th kept so that neighbours are at least `minPx` apart. */
+function spacedTicks(y: { ticks(count: number): number[]; (v: number): number }, count: number, minPx: number): number[] {
+  const all = y.ticks(count);
+  if (all.length < 2) return all;
+  const gap = Math.abs(y(all[1] as number) - y(all[0] as number));
+  const every = Math.max(1, Math.ceil(minPx / Math.max(gap, 1e-9)));
+  return all.filter((_, i) => i % every === 0);
 }
