@@ -64,9 +64,26 @@ function start(): void {
     table.scroller.scrollTop = 0;
     renderTable();
     shown.textContent = `${order.length} of ${rows.length} series shown`;
-    const width = Math.max(300, Math.min(1100, chart.clientWidth || 900));
-    drawSeriesDecisions(chart, order.map((i) => rows[i] as SeriesSummary), { width, height: 320 });
+    drawChart();
   };
+  /** The chart of decision numbers, only when some series has one, drawn at the box's width. */
+  const drawChart = (): void => {
+    const rows = summaries();
+    const picked = order.map((i) => rows[i] as SeriesSummary);
+    const any = picked.some((r) => r.estimate !== null);
+    chart.hidden = !any;
+    clear(chart);
+    if (!any) return;
+    const width = Math.max(280, Math.min(1100, chart.clientWidth || 900));
+    drawSeriesDecisions(chart, picked, { width, height: width < 500 ? 260 : 320 });
+  };
+  let resizing = 0;
+  window.addEventListener('resize', () => {
+    window.clearTimeout(resizing);
+    resizing = window.setTimeout(() => {
+      if (!result.hidden) drawChart();
+    }, 150);
+  });
   table.scroller.addEventListener('scroll', () => requestAnimationFrame(renderTable));
 
   const setFilters = (): void => {
@@ -178,12 +195,14 @@ function start(): void {
         statusLine.textContent = stopped ? `Stopped: ${rows.length} of ${records.length} series were analysed; the summary shows those only.` : `Done: ${rows.length} series.`;
         headline.textContent =
           `${t.total} series${stopped ? ' (stopped early)' : ''}: the best model of ${t.ok} is rejected by neither test; ${t.rejected} need a closer look (their best model is rejected by a test); ` +
-          `${t.errors} could not be analysed${t.warned > 0 ? `; ${t.warned} carry warnings` : ''}. Open a series to see its evidence before using its number.`;
+          `${t.errors} could not be analysed. Open a series to see its evidence and warnings before using its number.`;
         clear(fModel);
         fModel.append(el('option', { value: '' }, 'any'));
         for (const m of modelsOf(rows)) fModel.append(el('option', { value: m }, m));
         result.hidden = false;
         renderResult();
+        // The answer comes first on the page: bring it into view.
+        result.scrollIntoView({ block: 'start' });
       },
       (e: unknown) => {
         statusLine.textContent = `The analysis stopped: ${e instanceof Error ? e.message : String(e)}. It can be run again.`;
