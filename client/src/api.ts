@@ -2,7 +2,18 @@
  * The page's calls to the local server (server/API.md). Every failure becomes an `ApiError`
  * carrying the server's message, so the page can show it as it is.
  */
-import type { AnalyzeRequestBody, AnalyzeResponse, ErrorBody, InputSummary, JobViewBody, RequestData } from '../../core/index.js';
+import type {
+  AnalyzeRequestBody,
+  AnalyzeResponse,
+  DemoAnalysisBody,
+  DemoEntry,
+  DemoFileBody,
+  DemoSettings,
+  ErrorBody,
+  InputSummary,
+  JobViewBody,
+  RequestData,
+} from '../../core/index.js';
 
 // The request and response shapes are the server's own, from the one shared contract (core/api-types.ts).
 export type { AnalyzeResponse, InputSummary };
@@ -13,38 +24,10 @@ export type AnalyzeRequest = AnalyzeRequestBody & { readonly csv: string };
 /** Grouped counts (server/API.md `grouped`): class limits with counts instead of a value column. */
 export type GroupedRequest = AnalyzeRequestBody & { readonly grouped: NonNullable<RequestData['grouped']> };
 
-/** A demo's decision settings (server/demo.ts). */
-export interface DemoSettings {
-  readonly column: string;
-  readonly fields: Readonly<Record<string, unknown>>;
-  readonly description: string;
-}
-
-export interface DemoEntry {
-  readonly name: string;
-  readonly file: string;
-  readonly bytes: number;
-  readonly columns: readonly string[];
-  readonly defaultColumn: string;
-  readonly settings?: DemoSettings;
-}
-
-export interface DemoFile {
-  readonly name: string;
-  readonly file: string;
-  readonly columns: readonly string[];
-  readonly defaultColumn: string;
-  readonly settings?: DemoSettings;
-  readonly csv: string;
-}
-
-export interface DemoAnalysis {
-  readonly name: string;
-  readonly column: string;
-  readonly settings?: DemoSettings;
-  readonly csv: string;
-  readonly result: AnalyzeResponse;
-}
+/** The demo endpoints' shapes, from the shared contract too. */
+export type { DemoEntry, DemoSettings };
+export type DemoFile = DemoFileBody;
+export type DemoAnalysis = DemoAnalysisBody;
 
 export type JobStatus = JobViewBody;
 
