@@ -19,9 +19,10 @@ import { sampleLMoments } from '../lmoments/sample-lmoments.js';
 import { familyBasics } from './define.js';
 import { POSITIVE, REAL } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
+import { SMALL_SHAPE, shapeLog } from './shape-log.js';
 
 const BOUNDS = Object.freeze({ location: REAL, scale: POSITIVE, shape: REAL });
-const SMALL = 1e-12;
+const SMALL = SMALL_SHAPE;
 
 class GenLogisticDistribution implements Distribution {
   readonly family = 'genlogistic' as const;
@@ -42,7 +43,7 @@ class GenLogisticDistribution implements Distribution {
   }
   private y(x: number): number {
     const z = (x - this.mu) / this.sigma;
-    return Math.abs(this.s) < SMALL ? z : Math.log1p(this.s * z) / this.s;
+    return shapeLog(z, this.s);
   }
   private where(x: number): number {
     if (x <= this.support.lower) return -1;

@@ -18,9 +18,10 @@ import { fitGpdMl } from '../flood/pot.js';
 import { familyBasics } from './define.js';
 import { POSITIVE, REAL } from './parameters.js';
 import type { Distribution, Family, FitOutcome, Interval, Parameters } from './types.js';
+import { SMALL_SHAPE, shapeLog } from './shape-log.js';
 
 const BOUNDS = Object.freeze({ location: REAL, scale: POSITIVE, shape: REAL });
-const SMALL = 1e-12;
+const SMALL = SMALL_SHAPE;
 
 class GenParetoDistribution implements Distribution {
   readonly family = 'genpareto' as const;
@@ -39,7 +40,7 @@ class GenParetoDistribution implements Distribution {
   /** t = −ln S(x) inside the support. */
   private t(x: number): number {
     const z = (x - this.mu) / this.sigma;
-    return Math.abs(this.xi) < SMALL ? z : Math.log1p(this.xi * z) / this.xi;
+    return shapeLog(z, this.xi);
   }
   private where(x: number): number {
     if (x <= this.support.lower) return -1;
