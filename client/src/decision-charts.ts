@@ -6,6 +6,7 @@ import { hazardChart } from '../charts/hazard.js';
 import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
 import type { ChartOptions } from '../charts/options.js';
 import { returnPeriodChart } from '../charts/return-period.js';
+import { turnbullChart } from '../charts/turnbull.js';
 import { capital, type ChartSlot } from './decision.js';
 
 export interface SlotContext {
@@ -28,6 +29,12 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates.map((c) => ({ ...c, label: capital(c.label) })), selected }, options) : null;
     case 'control-chart':
       return r.capability?.stability ? controlChart(box, r.capability.stability, options) : null;
+    case 'turnbull': {
+      const rec = r.life?.recorded?.report;
+      if (!rec) return null;
+      const c = rec.candidates.find((x) => x.family === selected) ?? rec.candidates[0];
+      return turnbullChart(box, { turnbull: rec.turnbull, fitted: c ? { family: c.family, label: capital(c.label), time: c.curves.time, cdf: c.curves.cdf } : null }, options);
+    }
     case 'capability-histogram': {
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);

@@ -1,6 +1,7 @@
 /**
  * Life data as recorded on the page: the recorded-life section on the opening bearing demo (the
- * Weibull mixture ranked beside the single models with the estimator named, the Turnbull boxes),
+ * Weibull mixture ranked beside the single models with the estimator named, the Turnbull boxes and
+ * their chart),
  * the test-planning calculator (n = ln(1 - C)/ln R: R = C = 0.9 → 22 units; R = 0.95 → 45), and the
  * section in the exported report. Screenshots into test-output/ (git-ignored).
  */
@@ -34,7 +35,21 @@ describe.skipIf(SKIP_BROWSER)('life data as recorded on the page', () => {
     expect(text).toMatch(/Weibull mixture/);
     expect(text).toMatch(/maximum likelihood/);
     expect(text).toMatch(/licensed practice/);
-    await block.scrollIntoViewIfNeeded();
+    // The Turnbull chart slot: boxes where the failures are known to lie, the selected model's line.
+    const chart = block.locator('svg[role="img"]');
+    await chart.first().waitFor();
+    expect(await chart.first().locator('rect[data-kind="box"]').count()).toBeGreaterThan(5);
+    expect(await chart.first().locator('path[data-kind="curve"]').count()).toBe(1);
+    // The page redraws the decision area shortly after a layout change (a chart drawn at its box's
+    // width); scroll once it is settled (a few tries), for the screenshot only.
+    for (let tries = 0; tries < 8; tries++) {
+      try {
+        await block.scrollIntoViewIfNeeded({ timeout: 2000 });
+        break;
+      } catch {
+        await page.waitForTimeout(300);
+      }
+    }
     await page.screenshot({ path: join(OUT, 'life-recorded-1366x768.png') });
     const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
     const file = join(OUT, 'report-life-recorded.html');
@@ -42,6 +57,7 @@ describe.skipIf(SKIP_BROWSER)('life data as recorded on the page', () => {
     const html = readFileSync(file, 'utf8');
     expect(html).toContain('data-block="life-recorded"');
     expect(html).toContain('Turnbull');
+    expect(html).toContain('Where the failures are known to lie');
   });
 
   it('the test-planning calculator answers and follows its fields', { timeout: 60_000 }, async () => {

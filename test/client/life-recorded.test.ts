@@ -8,11 +8,13 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { analyzeDataset, readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
 import { recordedLifeExtras } from '../../core/life/index.js';
 import { blockHtml, blockNode } from '../../client/src/views/block.js';
 import { recordedBlock } from '../../client/src/views/life-recorded.js';
 import { SECTIONS } from '../../client/src/views/sections.js';
+import { drawSlot } from '../../client/src/decision-charts.js';
+import { resetIds } from '../../client/charts/frame.js';
 
 const t = readColumns(readFileSync(join(process.cwd(), 'datasets', 'seal-failure-modes.csv'), 'utf8'), [
   { select: 'hours', kind: 'number' },
@@ -57,5 +59,19 @@ describe('recorded-life section', () => {
     expect(b.tables[0]!.head.at(-1)).toBe('r');
     expect(b.tables[0]!.rows.every((r) => r[2] === 'rank regression')).toBe(true);
     expect(b.tables[1]!.rows.every((r) => r[2] === '—' && r[3] === '—')).toBe(true);
+  });
+
+  it('lists the Turnbull chart slot, and the decision area draws it from the dataset report: one box per innermost interval, the selected model as the line', () => {
+    resetIds();
+    const report = JSON.parse(JSON.stringify(analyzeDataset({ values: times, status: failed }, { families: ['weibull', 'lognormal'], bootstrapReplicates: 19, seed: 1 })));
+    const rec = report.life.recorded.report;
+    const b = recordedBlock(rec, null, 'h');
+    expect(b.charts).toEqual(['turnbull']);
+    const box = document.body.appendChild(document.createElement('div'));
+    const svg = drawSlot('turnbull', box, { report, selected: 'lognormal', lifeScale: 'weibull' }, { width: 640, height: 400, units: 'h' })!;
+    expect(svg.querySelectorAll('rect[data-kind="box"]')).toHaveLength(rec.turnbull.intervals.length);
+    expect(svg.querySelector('path[data-kind="curve"]')!.getAttribute('data-family')).toBe('lognormal');
+    // Without the recorded extras there is nothing to draw.
+    expect(drawSlot('turnbull', box, { report: { ...report, life: { ...report.life, recorded: undefined } }, selected: 'weibull', lifeScale: 'weibull' }, { width: 640, height: 400, units: '' })).toBeNull();
   });
 });

@@ -100,7 +100,7 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
     lead: 'The same units seen another way: a two-subpopulation mixture beside the single models, rank regression when asked for, Weibayes when the shape is assumed, and the nonparametric estimate.',
     lines,
     tables,
-    charts: [],
+    charts: r.turnbull.intervals.length > 0 ? ['turnbull'] : [],
     terms: ['blife', 'censored', 'bounds'],
   };
 }
