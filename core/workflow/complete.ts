@@ -18,6 +18,7 @@ import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingP
 import type { MethodNote } from '../report.js';
 import { prepareSample } from '../sample.js';
 import { mannKendall } from '../trend/index.js';
+import { floodEstimatorsFor } from './flood-estimators.js';
 import type { WorkflowSettings } from './options.js';
 import { quantityNumber, sensitivityRows, type QuantityValue } from './sensitivity.js';
 import type { CapabilitySection, DatasetCandidate, DatasetOptions, DatasetReport, FloodSection, ReturnLevelRow, TrendSection } from './types.js';
@@ -111,6 +112,8 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
     const gumbelVersusGev = hasGev && hasGumbel ? floodFrequency(values, { periods, level: settings.confidence, alpha: base.options.alpha, shapeGuard: GEV_SHAPE_GUARD }).gumbelVersusGev : null;
     const far = periods.filter((T) => T > RECORD_MULTIPLE * sample.n);
     const warnings = [...sectionWarnings];
+    const estimators = floodEstimatorsFor(values, options, { periods, confidence: settings.confidence, seed: base.options.seed });
+    if (estimators) warnings.push(...estimators.section.warnings);
     extraWarnings.push(...warnings);
     const cautions = [
       FLOOD_CAUTION,
@@ -129,9 +132,11 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
       beyondRecord: far,
       gumbelVersusGev,
       gevSignNote: hasGev ? GEV_SIGN_NOTE : null,
+      ...(estimators ? { estimators: estimators.section } : {}),
       warnings,
       cautions,
     };
+    if (estimators) methods.push(...estimators.methods);
     methods.push(
       {
         topic: 'return levels',

@@ -15,6 +15,7 @@ import type { BoundMethod, LifeCurves, LifeSampleSummary, PlotPositionMethod, Re
 import type { AnalyzeOptions } from '../analyze.js';
 import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
+import type { FloodEstimators } from './flood-estimators.js';
 
 /** What the data are: decides which candidates and sections the report carries. */
 export type DataKind = 'complete' | 'censored' | 'grouped';
@@ -58,6 +59,9 @@ export interface DatasetOptions extends Omit<AnalyzeOptions, 'onProgress' | 'sig
   readonly designLife?: number | null;
   /** Plotting positions of the return-period plot (default 'weibull'). */
   readonly plottingPosition?: PlottingFormula;
+  /** Log-Pearson III by EMA (`estimation: 'ema'`): a regional skew of log10 peaks and its mean square error, weighted with the station skew. */
+  readonly regionalSkew?: number | null;
+  readonly regionalSkewMse?: number | null;
   /** Specification limits (either may be absent); any one turns on capability. */
   readonly lsl?: number | null;
   readonly usl?: number | null;
@@ -165,6 +169,8 @@ export interface FloodSection {
   readonly gumbelVersusGev: GumbelVersusGev | null;
   /** The GEV shape sign convention (present when the GEV is a candidate). */
   readonly gevSignNote: string | null;
+  /** Estimators beside maximum likelihood (`estimation: 'ema'` or `'lmoments'`): L-moment fits, log-Pearson III by EMA. */
+  readonly estimators?: FloodEstimators;
   readonly warnings: readonly string[];
   readonly cautions: readonly string[];
 }
