@@ -46,7 +46,7 @@ export { computeEvidence, DEFAULT_BAND_ALPHA, DEFAULT_GRID_POINTS, DEFAULT_MAX_P
 export type * from './evidence/types.js';
 export type * from './workflow/index.js';
 export type * from './api-types.js';
-export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync, planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, jobSampleSize, splitDatasetJob } from './workflow/index.js';
+export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync, planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, combineDatasetJobResults, jobSampleSize, splitDatasetJob, POOL_CAPABILITY_WORK } from './workflow/index.js';
 export * from './batch/index.js';
 export * from './options/index.js';
 export { formatPValue, pValueText } from './format/index.js';

@@ -25,7 +25,7 @@ import {
   InputError,
   readColumn,
   SKIP_REASON_WORDS,
-  type BootstrapCounts,
+  type DatasetJobResult,
   type Sample,
 } from '../core/index.js';
 import { checkBootstrapWork, checkDatasetSize } from './limits.js';
@@ -165,12 +165,13 @@ export function planRequest(req: AnalyzeRequest): PlannedRequest {
   const options = req.options;
   checkDatasetSize(dataset, options);
   const plan = planDataset(dataset, options);
-  if (plan.kind === 'complete') checkBootstrapWork(plan.jobs);
+  // the capability jobs are bounded in the core (POOL_CAPABILITY_WORK); this limit is the goodness-of-fit bootstrap's
+  if (plan.kind === 'complete') checkBootstrapWork(plan.plan.plan.bootstrapJobs);
   return { request: req, dataset, input, plan };
 }
 
 /** The response of a planned request, from its bootstrap counts (one per job, in order; none when done). */
-export function finishRequest(planned: PlannedRequest, counts: readonly BootstrapCounts[]): AnalyzeResponse {
+export function finishRequest(planned: PlannedRequest, counts: readonly DatasetJobResult[]): AnalyzeResponse {
   const { plan, request, input, dataset } = planned;
   const report = plan.kind === 'done' ? plan.report : finishDataset(plan, counts);
   if (!request.evidence || report.dataKind === 'grouped' || !dataset.values) return { ...report, input };

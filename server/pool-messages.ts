@@ -1,5 +1,5 @@
 /** Messages between the worker pool (pool.ts) and its workers (worker.ts). */
-import type { BootstrapCounts, DatasetJob } from '../core/index.js';
+import type { DatasetJob, DatasetJobResult } from '../core/index.js';
 import type { ErrorBody } from './errors.js';
 
 /** Which route a request body came from (decides the fields allowed). */
@@ -11,13 +11,13 @@ export type ToWorker =
   /** Parse, validate and plan a request body (UTF-8 JSON bytes); finish at once when no bootstrap is needed. */
   | { readonly type: 'plan'; readonly id: number; readonly body: Uint8Array; readonly kind: BodyKind }
   /** Finish a plan kept by this worker with the combined bootstrap counts (one per job, in order). */
-  | { readonly type: 'finish'; readonly id: number; readonly token: number; readonly counts: readonly BootstrapCounts[] }
+  | { readonly type: 'finish'; readonly id: number; readonly token: number; readonly counts: readonly DatasetJobResult[] }
   /** Forget a kept plan (its job was cancelled). */
   | { readonly type: 'drop'; readonly id: number; readonly token: number };
 
 export type FromWorker =
   | { readonly type: 'progress'; readonly id: number; readonly done: number }
-  | { readonly type: 'counts'; readonly id: number; readonly counts: BootstrapCounts }
+  | { readonly type: 'counts'; readonly id: number; readonly counts: DatasetJobResult }
   /** The finished response body (JSON text). */
   | { readonly type: 'result'; readonly id: number; readonly json: string; readonly client?: string }
   /** Planned; the bootstrap jobs must run before `finish` (token = this message's id). */

@@ -6,7 +6,7 @@
  * Bootstrap: each family's job [0, B) is split into contiguous ranges (several per worker and
  * bounded in size, so the load evens out, progress is smooth and a new request never waits long
  * behind a long bootstrap); the counts of each family are added back up with the core's
- * combineBootstrapCounts. Replicate i always draws from random stream i, so the result does not
+ * combineDatasetJobResults (the capability bootstrap's values concatenated). Replicate i always draws from random stream i, so the result does not
  * depend on the number of workers or on the split.
  *
  * Scheduling: a worker's own follow-up (finishing a plan it keeps) first, then request planning,
@@ -14,7 +14,7 @@
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import { PlumblineError, combineBootstrapCounts, jobSampleSize, splitDatasetJob, type BootstrapCounts, type DatasetJob } from '../core/index.js';
+import { PlumblineError, combineDatasetJobResults, jobSampleSize, splitDatasetJob, type BootstrapCounts, type DatasetJob, type DatasetJobResult, type DatasetJobResultOf } from '../core/index.js';
 import { ClientFault, WorkerFailed, type Logger } from './errors.js';
 import type { BodyKind, FromWorker, ToWorker } from './pool-messages.js';
 
@@ -167,7 +167,7 @@ export class WorkerPool {
   }
 
   /** Finish a kept plan with its bootstrap counts; returns the response JSON. */
-  async finish(ticket: PlanTicket, counts: readonly BootstrapCounts[]): Promise<string> {
+  async finish(ticket: PlanTicket, counts: readonly DatasetJobResult[]): Promise<string> {
     ticket.slot.kept.delete(ticket.token);
     const { reply } = this.submit({ type: 'finish', token: ticket.token, counts }, { slot: ticket.slot });
     const m = await reply;
@@ -204,7 +204,7 @@ export class WorkerPool {
     slot.onDeath.add(onDeath);
     if (opts.signal?.aborted) local.abort();
     else opts.signal?.addEventListener('abort', onAbort, { once: true });
-    let counts: BootstrapCounts[];
+    let counts: DatasetJobResult[];
     try {
       counts = await this.run(planned.jobs, { ...opts, signal: local.signal });
     } catch (e) {
@@ -221,7 +221,7 @@ export class WorkerPool {
    * Run full-range jobs ([0, B) per family) and return one combined count per job, in order.
    * Throws PlumblineError 'cancelled' when the signal aborts.
    */
-  async run(jobs: readonly DatasetJob[], opts: RunOptions = {}): Promise<BootstrapCounts[]> {
+  async run<J extends DatasetJob>(jobs: readonly J[], opts: RunOptions = {}): Promise<DatasetJobResultOf<J>[]> {
     const total = jobs.reduce((s, j) => s + (j.end - j.start), 0);
     let done = 0;
     const report = (delta: number): void => {
@@ -241,7 +241,7 @@ export class WorkerPool {
           if (m.type !== 'counts') throw this.unexpected(m);
           return m.counts;
         }),
-      ).then((counts) => combineBootstrapCounts(counts));
+      ).then((counts) => combineDatasetJobResults(counts));
     });
     const abort = (): void => {
       for (const t of tasks) {
@@ -258,7 +258,7 @@ export class WorkerPool {
     try {
       const counts = await Promise.all(perJob);
       if (counts.some((c) => c.cancelled)) throw new PlumblineError('cancelled', 'The analysis was cancelled.');
-      return counts;
+      return counts as DatasetJobResultOf<J>[];
     } catch (e) {
       // One range failed (its worker died): stop the others at once instead of letting them run on.
       abort();

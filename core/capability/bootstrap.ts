@@ -8,6 +8,8 @@
  *
  * Planned and finished like core/gof/bootstrap.ts: replicate i always uses `createRng(seed, i)`, so
  * a range [start, end) can run on any worker and the combined values are the same for any split.
+ * core/workflow/capability-jobs.ts makes these jobs of the one pipeline (the server's worker pool
+ * and the CLI run them in ranges with progress); analyzeDataset runs them here, inline.
  */
 import { CompensatedSum } from '../compensated.js';
 import { PlumblineError } from '../errors.js';
@@ -266,6 +268,9 @@ export function capabilityBootstrapIntervals(
 /** Largest n·B run inline (on the calling thread); beyond it the interval is not computed and the report says so. */
 export const INLINE_BOOTSTRAP_WORK = 5e6;
 
+/** Largest n·B planned as jobs of the pipeline (core/workflow/capability-jobs.ts: the server's worker pool, the CLI). */
+export const POOL_BOOTSTRAP_WORK = 5e7;
+
 export interface PercentileIntervals {
   readonly intervals: readonly BootstrapIndexInterval[] | null;
   /** Why there is no interval, or a caveat on it. */
@@ -274,9 +279,23 @@ export interface PercentileIntervals {
 }
 
 /**
- * The whole interval on the calling thread: the job, every replicate, the jackknife and the BCa ends.
- * A worker pool can instead split the job with splitCapabilityBootstrap, run the ranges and pass
- * the combined values to capabilityBootstrapIntervals.
+ * The full-range job [0, replicates) of the interval of `model` under `limits` (what
+ * percentileIntervals runs inline; a worker pool splits it with splitCapabilityBootstrap).
+ */
+export function capabilityBootstrapJob(model: ModelSpec, n: number, limits: SpecLimits, seed: number, replicates: number): CapabilityBootstrapJob {
+  return { model, n, lsl: limits.lsl, usl: limits.usl, seed, start: 0, end: replicates };
+}
+
+/** Whether two jobs ask for the same replicates (same model, n, limits, seed and range). */
+export function sameCapabilityJob(a: CapabilityBootstrapJob, b: CapabilityBootstrapJob): boolean {
+  const key = (j: CapabilityBootstrapJob): string => JSON.stringify([j.model, j.n, j.lsl, j.usl, j.seed, j.start, j.end]);
+  return key(a) === key(b);
+}
+
+/**
+ * The whole interval: the job's replicates (run here on the calling thread, or `ran`: the combined
+ * values of the same job run elsewhere, e.g. on the server's worker pool), the jackknife and the
+ * BCa ends. Run here, the work is capped at n·B ≤ INLINE_BOOTSTRAP_WORK.
  */
 export function percentileIntervals(
   model: ModelSpec,
@@ -285,13 +304,14 @@ export function percentileIntervals(
   alpha: number,
   seed: number,
   replicates: number,
+  ran: CapabilityBootstrapValues | null = null,
 ): PercentileIntervals {
   const n = sorted.length;
-  if (n * replicates > INLINE_BOOTSTRAP_WORK) {
-    return { intervals: null, seed, note: `No bootstrap interval: ${n} values × ${replicates} replicates is more refitting than this run does inline (n·B > ${INLINE_BOOTSTRAP_WORK}); lower the replicates to get one.` };
+  if (ran === null && n * replicates > INLINE_BOOTSTRAP_WORK) {
+    return { intervals: null, seed, note: `No bootstrap interval: ${n} values × ${replicates} replicates is more refitting than this run does (n·B above ${INLINE_BOOTSTRAP_WORK} in one thread, above ${POOL_BOOTSTRAP_WORK} as jobs on the worker pool or the command line); lower the replicates to get one.` };
   }
   try {
-    const values = runCapabilityBootstrapRange({ model, n, lsl: limits.lsl, usl: limits.usl, seed, start: 0, end: replicates });
+    const values = ran ?? runCapabilityBootstrapRange(capabilityBootstrapJob(model, n, limits, seed, replicates));
     const est = percentileCapability(makeModel(model), limits);
     const estimates: Partial<Record<PercentileIndexName, number>> = {};
     for (const ix of est.indices) estimates[ix.name] = ix.estimate;

@@ -13,7 +13,7 @@
  */
 import type { FamilyName, Parameters } from '../families/index.js';
 import { PlumblineError } from '../errors.js';
-import { percentileIntervals, type PercentileIntervals } from './bootstrap.js';
+import { capabilityBootstrapJob, percentileIntervals, type CapabilityBootstrapJob, type CapabilityBootstrapValues, type PercentileIntervals } from './bootstrap.js';
 import { compareModels, type ComparisonCandidate, type ModelComparison } from './comparison.js';
 import { individualsChart, subgroupChart, type StabilityChart } from './control-chart.js';
 import type { SpecLimits } from './indices.js';
@@ -51,6 +51,11 @@ export interface CapabilityExtensionsInput {
   readonly sd: number;
   /** The family the percentile method used (capability.ts), or null. */
   readonly percentileFamily: FamilyName | null;
+  /**
+   * The combined values of a bootstrap job run elsewhere (the worker pool), or null when that job
+   * was not run there: the interval is then computed here, within INLINE_BOOTSTRAP_WORK.
+   */
+  readonly ran?: (job: CapabilityBootstrapJob) => CapabilityBootstrapValues | null;
 }
 
 export type TransformSection =
@@ -80,8 +85,22 @@ function transformValue(model: ModelSpec, x: number): number {
   return x;
 }
 
+/**
+ * The transformation of the data and the limits its percentile interval uses (a limit that has no
+ * image on the transformed scale is dropped). Throws a PlumblineError when it cannot be fitted.
+ */
+export function transformTarget(sorted: Float64Array, kind: 'boxcox' | 'johnson', limits: SpecLimits, testAlpha: number): { readonly fitted: TransformedCapability; readonly limits: SpecLimits } {
+  const fitted = transformedCapability(sorted, kind, limits, testAlpha);
+  return {
+    fitted,
+    limits: { lsl: fitted.transformedLimits.lsl === null ? null : limits.lsl, usl: fitted.transformedLimits.usl === null ? null : limits.usl },
+  };
+}
+
 export function capabilityExtensions(input: CapabilityExtensionsInput): CapabilityExtensions {
   const { limits, alpha, sorted } = input;
+  const intervalsOf = (model: ModelSpec, on: SpecLimits): PercentileIntervals =>
+    percentileIntervals(model, sorted, on, alpha, input.seed, input.replicates, input.ran?.(capabilityBootstrapJob(model, sorted.length, on, input.seed, input.replicates)) ?? null);
   const warnings: string[] = [];
   let bounds: BoundHandling | null = null;
   const b = input.naturalLowerBound;
@@ -102,12 +121,8 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
   const extraRows: ComparisonCandidate[] = [];
   if (input.transform !== 'none') {
     try {
-      const t = transformedCapability(sorted, input.transform, limits, input.testAlpha);
-      const effective: SpecLimits = {
-        lsl: t.transformedLimits.lsl === null ? null : limits.lsl,
-        usl: t.transformedLimits.usl === null ? null : limits.usl,
-      };
-      const intervals = percentileIntervals(t.model, sorted, effective, alpha, input.seed, input.replicates);
+      const { fitted: t, limits: effective } = transformTarget(sorted, input.transform, limits, input.testAlpha);
+      const intervals = intervalsOf(t.model, effective);
       transform = { ...t, intervals };
       const name = t.kind === 'boxcox' ? `Box–Cox normal (λ = ${fmt(t.lambda as number)})` : `Johnson ${t.type as string}`;
       extraRows.push({ model: name, dist: makeModel(t.model), rejectedBy: t.normality.passes ? [] : ['Anderson–Darling on the transformed values'] });
@@ -123,7 +138,7 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
   let pIntervals: PercentileIntervals | null = null;
   if (input.transform === 'none' && input.percentileFamily !== null) {
     const c = input.candidates.find((x) => x.family === input.percentileFamily);
-    if (c) pIntervals = percentileIntervals({ kind: 'family', family: c.family, parameters: c.parameters }, sorted, limits, alpha, input.seed, input.replicates);
+    if (c) pIntervals = intervalsOf({ kind: 'family', family: c.family, parameters: c.parameters }, limits);
   }
 
   const normal = input.candidates.find((c) => c.family === 'normal');

@@ -25,10 +25,13 @@ export type { ModelKind } from './fit-model.js';
 export {
   CAPABILITY_BOOTSTRAP_REPLICATES,
   capabilityBootstrapIntervals,
+  capabilityBootstrapJob,
+  sameCapabilityJob,
   capabilityReplicate,
   jackknifeIndices,
   JACKKNIFE_GROUPS,
   INLINE_BOOTSTRAP_WORK,
+  POOL_BOOTSTRAP_WORK,
   percentileIntervals,
   expandedZ,
   studentTUpper,
@@ -43,5 +46,5 @@ export { compareModels, OVERALL_SIGMA, PERCENTILE_SIGMA } from './comparison.js'
 export type { ComparisonCandidate, ComparisonRow, ModelComparison, NormalRowInput } from './comparison.js';
 export { D3_PAIR, D4_PAIR, individualsChart, subgroupChart, STABILITY_SOURCE, UNSTABLE_WARNING } from './control-chart.js';
 export type { ChartPanel, ChartPoint, StabilityChart } from './control-chart.js';
-export { capabilityExtensions } from './extensions.js';
+export { capabilityExtensions, transformTarget } from './extensions.js';
 export type { BoundHandling, CapabilityExtensions, CapabilityExtensionsInput, ExtensionCandidate, TransformSection } from './extensions.js';

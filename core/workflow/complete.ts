@@ -11,7 +11,7 @@
  */
 import { finishAnalysis, planAnalysis, type AnalysisPlan } from '../analyze.js';
 import type { BootstrapCounts } from '../gof/index.js';
-import { capability, capabilityExtensions, CAPABILITY_BOOTSTRAP_REPLICATES, ppmOutOfSpec } from '../capability/index.js';
+import { capability, capabilityExtensions, CAPABILITY_BOOTSTRAP_REPLICATES, ppmOutOfSpec, type CapabilityExtensionsInput } from '../capability/index.js';
 import { InputError } from '../errors.js';
 import { DEFAULT_FAMILIES, EXTREME_VALUE_FAMILIES, GEV_SHAPE_GUARD, getFamily, type FamilyName } from '../families/index.js';
 import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingPositions, RECORD_MULTIPLE, returnLevels, type ReturnLevelMethod } from '../flood/index.js';
@@ -55,8 +55,12 @@ export function planComplete(input: CompleteInput, options: DatasetOptions, sett
   return { input, options, settings, plan: planAnalysis(sample, { ...analyzeOptions, families }) };
 }
 
-/** The report from a plan and its bootstrap counts (one per job, each covering its whole range). */
-export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts[]): DatasetReport {
+/**
+ * The report from a plan and its bootstrap counts (one per job, each covering its whole range);
+ * `ran`: the capability bootstrap jobs run elsewhere (core/workflow/capability-jobs.ts), looked up
+ * by job; one not found there is run inline.
+ */
+export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts[], ran: CapabilityExtensionsInput['ran'] = undefined): DatasetReport {
   const { input, options, settings, plan } = p;
   const { values } = input;
   const sample = plan.sample;
@@ -197,6 +201,7 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
       mean: rep.mean,
       sd: rep.sdOverall,
       percentileFamily,
+      ...(ran ? { ran } : {}),
     });
     warnings.push(...extWarnings);
     capabilitySection = { ...rep, ...ext, warnings, percentileFamily, gateRule };

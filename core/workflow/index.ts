@@ -4,4 +4,5 @@ export { analyzeDataset, analyzeDatasetAsync } from './analyze-dataset.js';
 export { DEFAULT_CONFIDENCE } from './options.js';
 export { DEFAULT_LIFE_REPLICATES } from './life.js';
 export { GROUPED_DOF_RULE } from './grouped.js';
-export { planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, jobSampleSize, splitDatasetJob, type DatasetPlan, type DatasetJob } from './pipeline.js';
+export { planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, combineDatasetJobResults, jobSampleSize, splitDatasetJob, type DatasetPlan, type DatasetJob, type DatasetJobResult, type DatasetJobResultOf } from './pipeline.js';
+export { POOL_CAPABILITY_WORK, planCapabilityJobs, type CapabilityJob } from './capability-jobs.js';

@@ -9,10 +9,15 @@
  *    (core/analyze planAnalysis) with the workflow sections added at the finish;
  *  - grouped counts: no bootstrap, the report is made at planning;
  *  - censored life data: the fits and bounds at planning, the censored Anderson–Darling bootstrap
- *    as one job per family (core/life/bootstrap-range.ts), the report from their counts.
+ *    as one job per family (core/life/bootstrap-range.ts), the report from their counts;
+ *  - capability: the percentile indices' bootstrap interval as jobs beside the complete sample's
+ *    (capability-jobs.ts), each job's result its replicate values instead of counts.
  */
+import { PlumblineError } from '../errors.js';
 import { getFamily } from '../families/index.js';
-import { runBootstrapRange, type BootstrapCounts, type BootstrapJob, type BootstrapRunOptions } from '../gof/index.js';
+import { combineBootstrapCounts, runBootstrapRange, type BootstrapCounts, type BootstrapJob, type BootstrapRunOptions } from '../gof/index.js';
+import type { CapabilityBootstrapValues } from '../capability/index.js';
+import { capabilityLookup, combineCapabilityBootstrap, planCapabilityJobs, runCapabilityJob, type CapabilityJob } from './capability-jobs.js';
 import { censoredAndersonDarling, censoredGofFromCounts, LIFE_FAMILIES, runCensoredGofRange, type CensoredGofJob, type CensoredGofResult, type LifeFamilyName } from '../life/index.js';
 import { route } from './analyze-dataset.js';
 import { finishComplete, planComplete, type CompletePlan } from './complete.js';
@@ -20,20 +25,46 @@ import { DEFAULT_LIFE_REPLICATES } from './life.js';
 import { workflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport } from './types.js';
 
-/** One full-range job [0, B) of either bootstrap; ranges of it are `{ ...job, start, end }`. */
-export type DatasetJob = BootstrapJob | CensoredGofJob;
+/** One full-range job [0, B) of any bootstrap; ranges of it are `{ ...job, start, end }`. */
+export type DatasetJob = BootstrapJob | CensoredGofJob | CapabilityJob;
+
+/** What a job's range gives: counts (the goodness-of-fit bootstraps) or replicate values (capability). */
+export type DatasetJobResult = BootstrapCounts | CapabilityBootstrapValues;
+
+/** The result of a range of a job of type J. */
+export type DatasetJobResultOf<J extends DatasetJob> = J extends CapabilityJob ? CapabilityBootstrapValues : BootstrapCounts;
+
+function isCapabilityJob(job: DatasetJob): job is CapabilityJob {
+  return 'kind' in job && job.kind === 'capability';
+}
+
+function isCapabilityResult(r: DatasetJobResult): r is CapabilityBootstrapValues {
+  return 'values' in r;
+}
 
 export type DatasetPlan =
   /** The report is ready (nothing left to run elsewhere). */
   | { readonly kind: 'done'; readonly report: AnyDatasetReport }
-  /** A complete sample: run `jobs` (one full range [0, B) per family that needs the bootstrap), then finish. */
-  | { readonly kind: 'complete'; readonly plan: CompletePlan; readonly jobs: readonly BootstrapJob[] }
+  /**
+   * A complete sample: run `jobs` (one full range [0, B) per family that needs the bootstrap, then
+   * the capability jobs, `capabilityJobs`), then finish.
+   */
+  | { readonly kind: 'complete'; readonly plan: CompletePlan; readonly jobs: readonly (BootstrapJob | CapabilityJob)[]; readonly capabilityJobs: readonly CapabilityJob[] }
   /** Censored life data: run `jobs` (one censored range [0, B) per fitted family), then finish. */
   | { readonly kind: 'life'; readonly jobs: readonly CensoredGofJob[]; readonly report: (results: ReadonlyMap<LifeFamilyName, CensoredGofResult>) => DatasetReport };
 
-/** Run replicates [job.start, job.end) of either kind of job (pure: same job, same counts). */
-export function runDatasetJob(job: DatasetJob, opts: BootstrapRunOptions = {}): BootstrapCounts {
-  return 'kind' in job && job.kind === 'censored' ? runCensoredGofRange(job, opts) : runBootstrapRange(job as BootstrapJob, opts);
+/** Run replicates [job.start, job.end) of any kind of job (pure: same job, same result). */
+export function runDatasetJob<J extends DatasetJob>(job: J, opts: BootstrapRunOptions = {}): DatasetJobResultOf<J> {
+  const j: DatasetJob = job;
+  if (isCapabilityJob(j)) return runCapabilityJob(j, opts) as DatasetJobResultOf<J>;
+  return ('kind' in j && j.kind === 'censored' ? runCensoredGofRange(j, opts) : runBootstrapRange(j as BootstrapJob, opts)) as DatasetJobResultOf<J>;
+}
+
+/** Combine the results of the disjoint ranges of one job (counts added, capability values concatenated in replicate order). */
+export function combineDatasetJobResults(parts: readonly DatasetJobResult[]): DatasetJobResult {
+  if (parts.length > 0 && parts.every(isCapabilityResult)) return combineCapabilityBootstrap(parts as CapabilityBootstrapValues[]);
+  if (parts.some(isCapabilityResult)) throw new PlumblineError('not-computable', 'Bootstrap ranges of different kinds cannot be combined.');
+  return combineBootstrapCounts(parts as BootstrapCounts[]);
 }
 
 /** Split a job's replicates [start, end) into `parts` contiguous ranges of the same job (as splitBootstrapJob). */
@@ -51,7 +82,7 @@ export function splitDatasetJob<J extends DatasetJob>(job: J, parts: number): J[
 
 /** Sampled values one job draws per replicate (its n). */
 export function jobSampleSize(job: DatasetJob): number {
-  return 'kind' in job && job.kind === 'censored' ? job.times.length : (job as BootstrapJob).n;
+  return 'kind' in job && job.kind === 'censored' ? job.times.length : (job as BootstrapJob | CapabilityJob).n;
 }
 
 /** Everything before the bootstrap. Throws the core's InputError on bad input or options. */
@@ -74,7 +105,8 @@ export function planDataset(input: DatasetInput, options: DatasetOptions = {}): 
     return { kind: 'life', jobs, report: (results) => r.run((fit) => results.get(fit.family) ?? null) };
   }
   const plan = planComplete(r.input, options, settings);
-  return { kind: 'complete', plan, jobs: plan.plan.bootstrapJobs };
+  const capabilityJobs = planCapabilityJobs(plan);
+  return { kind: 'complete', plan, jobs: [...plan.plan.bootstrapJobs, ...capabilityJobs], capabilityJobs };
 }
 
 export function censoredBootstrapWork(input: DatasetInput, options: DatasetOptions = {}): number {
@@ -83,10 +115,20 @@ export function censoredBootstrapWork(input: DatasetInput, options: DatasetOptio
   return (options.bootstrapReplicates ?? DEFAULT_LIFE_REPLICATES) * input.values.length * families;
 }
 
-/** The report of a plan from its jobs' counts (one per job, in order, each over the job's whole range). */
-export function finishDataset(plan: Exclude<DatasetPlan, { kind: 'done' }>, counts: readonly BootstrapCounts[]): DatasetReport {
-  if (plan.kind === 'complete') return finishComplete(plan.plan, counts);
+/** The report of a plan from its jobs' results (one per job, in order, each over the job's whole range). */
+export function finishDataset(plan: Exclude<DatasetPlan, { kind: 'done' }>, counts: readonly DatasetJobResult[]): DatasetReport {
+  if (plan.kind === 'complete') {
+    const k = plan.plan.plan.bootstrapJobs.length;
+    const fit = counts.slice(0, k);
+    const cap = counts.slice(k);
+    if (fit.some(isCapabilityResult) || !cap.every(isCapabilityResult)) throw new PlumblineError('not-computable', 'The bootstrap results do not match the plan\'s jobs.');
+    return finishComplete(plan.plan, fit as BootstrapCounts[], capabilityLookup(plan.capabilityJobs, cap as CapabilityBootstrapValues[]));
+  }
   const results = new Map<LifeFamilyName, CensoredGofResult>();
-  plan.jobs.forEach((job, i) => results.set(job.family, censoredGofFromCounts(job.observed, counts[i] as BootstrapCounts)));
+  plan.jobs.forEach((job, i) => {
+    const c = counts[i];
+    if (c === undefined || isCapabilityResult(c)) throw new PlumblineError('not-computable', `No censored bootstrap counts for ${job.family}.`);
+    results.set(job.family, censoredGofFromCounts(job.observed, c));
+  });
   return plan.report(results);
 }

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   analyzeDataset,
-  combineBootstrapCounts,
+  combineDatasetJobResults,
   createRng,
   finishDataset,
   getFamily,
@@ -23,7 +23,7 @@ const weibull = (n: number, seed: number): number[] => Array.from(getFamily('wei
 function viaPipeline(input: DatasetInput, options: DatasetOptions): unknown {
   const plan = planDataset(input, options);
   if (plan.kind === 'done') return plan.report;
-  const counts = plan.jobs.map((job) => combineBootstrapCounts(splitDatasetJob(job, 3).map((r) => runDatasetJob(r))));
+  const counts = plan.jobs.map((job) => combineDatasetJobResults(splitDatasetJob(job, 3).map((r) => runDatasetJob(r))));
   return finishDataset(plan, counts);
 }
 

@@ -1,0 +1,100 @@
+/**
+ * The capability bootstrap (core/capability/bootstrap.ts: the percentile indices' interval,
+ * refitting the model on every replicate) as jobs of the one pipeline (pipeline.ts), so that the
+ * server's worker pool and the CLI run it in ranges with progress instead of inline.
+ *
+ * Which model the interval is for is only certain at the finish: with a transformation it is the
+ * transformation fitted to the data (known now), without one it is the best-ranked non-normal
+ * candidate that no test rejects, and some tests are decided by the Anderson–Darling bootstrap that
+ * runs beside this one. So a job is planned for each non-normal candidate, in ranking order (AICc,
+ * known now), until one that passes both tests on their table/asymptotic decisions (no bootstrap
+ * pending); none when the normal model passes its table Anderson–Darling test (then there is no
+ * percentile method). The finish uses the job of the model it chose; a model with no job (a
+ * decision this walk could not foresee) is computed inline as before, within INLINE_BOOTSTRAP_WORK.
+ * Either way the numbers are those of analyzeDataset for the same seed.
+ */
+import type { AdPValue } from '../gof/index.js';
+import {
+  CAPABILITY_BOOTSTRAP_REPLICATES,
+  POOL_BOOTSTRAP_WORK,
+  capabilityBootstrapJob,
+  combineCapabilityBootstrap,
+  runCapabilityBootstrapRange,
+  sameCapabilityJob,
+  transformTarget,
+  type CapabilityBootstrapJob,
+  type CapabilityBootstrapValues,
+  type ModelSpec,
+  type SpecLimits,
+} from '../capability/index.js';
+import { PlumblineError } from '../errors.js';
+import { compareCandidates, informationCriteria } from '../rank.js';
+import type { CompletePlan } from './complete.js';
+
+/** One capability bootstrap job [start, end); `family` names it in progress lines. */
+export interface CapabilityJob extends CapabilityBootstrapJob {
+  readonly kind: 'capability';
+  readonly family: string;
+}
+
+/** Largest n·B planned as a job (worker pool or CLI); beyond it no job, and the report says why there is no interval. */
+export const POOL_CAPABILITY_WORK = POOL_BOOTSTRAP_WORK;
+
+/** The table Anderson–Darling decision (core/analyze.ts: an upper bound rejects at p ≤ α, an estimate at p < α). */
+function tableRejects(t: AdPValue, alpha: number): boolean {
+  return t.pValueIs === 'upper-bound' ? t.pValue <= alpha : t.pValue < alpha;
+}
+
+function job(model: ModelSpec, n: number, limits: SpecLimits, seed: number, replicates: number, label: string): CapabilityJob {
+  return { ...capabilityBootstrapJob(model, n, limits, seed, replicates), kind: 'capability', family: `capability interval, ${label}` };
+}
+
+/** The capability bootstrap jobs of a complete-sample plan (full ranges [0, B)). */
+export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
+  const { settings, options, plan } = p;
+  if (!settings.capability) return [];
+  const sorted = plan.sample.sorted;
+  const n = sorted.length;
+  const replicates = options.capabilityReplicates ?? CAPABILITY_BOOTSTRAP_REPLICATES;
+  if (n * replicates > POOL_CAPABILITY_WORK) return [];
+  const limits: SpecLimits = { lsl: settings.lsl, usl: settings.usl };
+  const { seed, alpha } = plan.options;
+  const transform = options.transform ?? 'none';
+  if (transform !== 'none') {
+    try {
+      const t = transformTarget(sorted, transform, limits, alpha);
+      return [job(t.fitted.model, n, t.limits, seed, replicates, transform === 'boxcox' ? 'Box–Cox' : 'Johnson')];
+    } catch (e) {
+      if (e instanceof PlumblineError && e.code !== 'cancelled') return [];
+      throw e;
+    }
+  }
+  const ranked = plan.candidates
+    .map((c) => ({ c, family: c.family.name, estimatedParameters: c.family.estimatedParameters, aicc: informationCriteria(c.fit.logLikelihood, c.family.estimatedParameters, n).aicc }))
+    .sort(compareCandidates);
+  const normal = ranked.find((r) => r.family === 'normal');
+  if (normal && normal.c.table !== null && !tableRejects(normal.c.table, alpha)) return [];
+  const jobs: CapabilityJob[] = [];
+  for (const { c, family } of ranked) {
+    if (family === 'normal') continue;
+    jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates, c.family.label));
+    const settled = c.table !== null && c.chiSquareBootstrapReason === null;
+    if (settled && !tableRejects(c.table as AdPValue, alpha) && !(c.chiSquare.computable && c.chiSquare.rejected)) break;
+  }
+  return jobs;
+}
+
+/** Run replicates [job.start, job.end) of a capability job (pure: same job, same values). */
+export function runCapabilityJob(j: CapabilityJob, opts: { signal?: { readonly aborted: boolean }; onProgress?: (done: number, total: number) => void } = {}): CapabilityBootstrapValues {
+  return runCapabilityBootstrapRange(j, opts);
+}
+
+/** The finish's look-up: the combined values of the job asking for the same replicates, or null. */
+export function capabilityLookup(jobs: readonly CapabilityJob[], results: readonly CapabilityBootstrapValues[]): (j: CapabilityBootstrapJob) => CapabilityBootstrapValues | null {
+  return (wanted) => {
+    const i = jobs.findIndex((j) => sameCapabilityJob(j, wanted));
+    return i >= 0 ? (results[i] ?? null) : null;
+  };
+}
+
+export { combineCapabilityBootstrap };
