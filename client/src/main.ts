@@ -12,7 +12,7 @@ import { FLOOD_FAMILIES } from './families.js';
 import { INITIAL_STATE, columnLabel, settingsFromReport, update, type Action, type EvidenceView, type PageState } from './state.js';
 import { buildRequest } from './request.js';
 import { LARGE_BYTES, megabytes, Runner } from './runner.js';
-import { applyOptionTable, buildFamilyBoxes, readForm, settingControls, settingKeyOf, showProblems } from './form.js';
+import { buildSettingsForm, controlFor, isRoleControl, readForm, settingControls, settingKeyOf, showProblems, syncForm } from './form.js';
 import type { Settings } from './settings.js';
 import { glossaryNode } from './views/glossary.js';
 import { $, doneLine, input, noteCensoring, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
@@ -57,11 +57,11 @@ function settingsChanged(delay?: number, changed?: Element): void {
     return;
   }
   // Return periods given for the first time: also try the extreme-value families.
-  if (state.settings.returnPeriods.trim() === '' && input('periods-input').value.trim() !== '') {
+  if (state.settings.returnPeriods.trim() === '' && (controlFor('returnPeriods')?.value.trim() ?? '') !== '') {
     for (const b of document.querySelectorAll<HTMLInputElement>('#family-boxes input[name="family"]')) if ((FLOOD_FAMILIES as readonly string[]).includes(b.value)) b.checked = true;
   }
   dispatch({ type: 'settings-edited', patch: readForm() });
-  input('replicates-input').disabled = state.settings.pMethod !== 'bootstrap';
+  syncForm(state.settings);
   noteCensoring(state);
   scheduleRun(delay);
 }
@@ -211,8 +211,7 @@ function select_(family: string): void {
 }
 
 function wire(): void {
-  applyOptionTable();
-  buildFamilyBoxes($('family-boxes'));
+  buildSettingsForm();
   $('glossary-body').append(glossaryNode());
   const fileInput = input('file-input');
   fileInput.addEventListener('change', () => {
@@ -268,14 +267,13 @@ function wire(): void {
   $('column-note').addEventListener('click', (ev) => {
     const b = (ev.target as Element).closest<HTMLElement>('#use-status');
     if (!b) return;
-    select('status-select').value = b.dataset['column'] ?? '0';
+    const status = controlFor('statusColumn');
+    if (status) status.value = b.dataset['column'] ?? '0';
     settingsChanged(0);
   });
 
   // A role column changes what is analysed: run at once; typed values wait a moment for the next keystroke.
-  for (const c of settingControls()) c.addEventListener('change', () => settingsChanged(/^(status|subgroup|order)-select$/.test(c.id) ? 0 : undefined, c));
-  $('family-boxes').addEventListener('change', (ev) => settingsChanged(undefined, ev.target as Element));
-  for (const r of document.querySelectorAll<HTMLInputElement>('input[name="pmethod"]')) r.addEventListener('change', () => settingsChanged(undefined, r));
+  for (const c of settingControls()) c.addEventListener('change', () => settingsChanged(isRoleControl(c) ? 0 : undefined, c));
   $('run-button').addEventListener('click', () => settingsChanged(0));
   $('cancel-button').addEventListener('click', () => {
     const stage = $('progress-wrap').dataset['stage'] ?? '';

@@ -5,15 +5,16 @@
  * Every setting is checked by its option in the core's table with the API's own JSON parser
  * (core/options parseJsonOption), so the page refuses exactly what the API refuses.
  */
-import { optionNamed, parseJsonOption, parseStrictNumber } from '../../core/index.js';
+import { OPTION_COMBINATIONS, checkCombinations, optionNamed, parseFormOption, parseJsonOption, parseStrictNumber, type OptionSpec, type OptionValue } from '../../core/index.js';
 import type { AnalyzeRequest, GroupedRequest } from './api.js';
 import { readGroupedClasses } from './grouped-view.js';
-import type { Settings } from './settings.js';
+import { PAGE_FIELDS, ROLE_FIELDS, pageField, type PageField } from './page-options.js';
+import { settingText, type Settings } from './settings.js';
 import { columnLabel, type PageState } from './state.js';
 
 export interface Problem {
   /** The settings key (the request field name) the problem belongs to. */
-  readonly field: keyof Settings | 'source' | 'classes';
+  readonly field: string;
   readonly message: string;
 }
 
@@ -23,9 +24,6 @@ export type BuiltRequest =
 
 export type RequestOutcome = { readonly ok: true; readonly built: BuiltRequest } | { readonly ok: false; readonly problems: readonly Problem[] };
 
-/** The settings read as numbers, each checked by its option in the core's table (core/options). */
-type NumberKey = 'alpha' | 'bins' | 'replicates' | 'seed' | 'confidence' | 'designLife' | 'lsl' | 'usl' | 'target';
-type ListKey = 'bLifePercents' | 'reliabilityTimes' | 'returnPeriods';
 
 /** A number typed on the page: a point or a comma as decimal mark (the core's strict grammar: no hex, no Infinity). */
 function toNumber(text: string): number {
@@ -39,7 +37,7 @@ function toNumber(text: string): number {
  * exactly what the server refuses, with the same words. The core's message names the JSON field;
  * the page shows it beside that setting.
  */
-function check(key: keyof Settings, value: unknown, problems: Problem[]): boolean {
+function check(key: string, value: unknown, problems: Problem[]): boolean {
   const spec = optionNamed(key);
   if (!spec) return true;
   const out = parseJsonOption(spec, value);
@@ -49,8 +47,8 @@ function check(key: keyof Settings, value: unknown, problems: Problem[]): boolea
 }
 
 /** One optional number: undefined when empty, null when refused (problem recorded). */
-function one(settings: Settings, key: NumberKey, problems: Problem[]): number | undefined | null {
-  const text = String(settings[key]).trim();
+function one(settings: Settings, key: string, problems: Problem[]): number | undefined | null {
+  const text = settingText(settings, key).trim();
   if (text === '') return undefined;
   const x = toNumber(text);
   if (Number.isNaN(x)) {
@@ -61,8 +59,8 @@ function one(settings: Settings, key: NumberKey, problems: Problem[]): number | 
 }
 
 /** A list of numbers separated by commas, semicolons or spaces (each checked, each once, by the option's rule). */
-function many(settings: Settings, key: ListKey, problems: Problem[]): number[] | undefined | null {
-  const text = settings[key].trim();
+function many(settings: Settings, key: string, problems: Problem[]): number[] | undefined | null {
+  const text = settingText(settings, key).trim();
   if (text === '') return undefined;
   const parts = text.split(/[\s,;]+/).filter((t) => t !== '');
   const xs = parts.map(toNumber);
@@ -72,6 +70,66 @@ function many(settings: Settings, key: ListKey, problems: Problem[]): number[] |
     return null;
   }
   return check(key, xs, problems) ? xs : null;
+}
+
+/** One form field's value by its option's kind: undefined when not given, null when refused (problem recorded). */
+function fieldValue(s: Settings, f: PageField, problems: Problem[]): OptionValue | undefined {
+  const kind = f.spec.kind;
+  if (kind === 'number' || kind === 'integer') return one(s, f.name, problems);
+  if (kind === 'numbers') return many(s, f.name, problems);
+  const text = settingText(s, f.name);
+  if (text.trim() === '') return undefined;
+  const out = parseFormOption(f.spec, text);
+  if (out.ok) return out.value;
+  problems.push({ field: f.name, message: `${out.message} (${f.spec.help})` });
+  return null;
+}
+
+/** The settings every kind of data reads, built by hand below; every other field is a trade field, sent where it applies. */
+const FITTING_KEYS = new Set(['families', 'alpha', 'bins', 'pMethod', 'replicates', 'seed', 'confidence']);
+
+/** Whether a trade option applies to these data: life options with a status column, the others without one. */
+function appliesHere(spec: OptionSpec, life: boolean): boolean {
+  const scopes: readonly string[] = spec.appliesTo;
+  return life ? scopes.includes('life') || scopes.includes('censored') : scopes.some((x) => x === 'flood' || x === 'capability' || x === 'trend' || x === 'complete' || x === 'all');
+}
+
+const sameAsDefault = (spec: OptionSpec, v: OptionValue): boolean => JSON.stringify(v) === JSON.stringify(spec.default);
+
+/**
+ * The trade fields that apply, as the request sends them. A field at its table default is not sent
+ * (the server applies the same default). A field whose option needs another
+ * (core/options/combinations.ts) goes only with it: given without it, it is a problem naming what it
+ * needs (a column role without it is quietly not sent, as the subgroups without a tolerance). The remaining rules between options
+ * (conflicts, order) are checked as the API checks them.
+ */
+function tradeFields(s: Settings, life: boolean, problems: Problem[]): Map<string, OptionValue> {
+  const given = new Map<string, OptionValue>();
+  for (const r of ROLE_FIELDS) {
+    const i = s[r.name];
+    if (typeof i === 'number' && i > 0 && appliesHere(r.spec, life)) given.set(r.name, i);
+  }
+  for (const f of PAGE_FIELDS) {
+    if (FITTING_KEYS.has(f.name) || f.control === 'role') continue;
+    // Every typed value is checked; only what applies to these data is sent.
+    const v = fieldValue(s, f, problems);
+    if (!appliesHere(f.spec, life) || v === undefined || v === null || (f.spec.kind === 'boolean' && v === false)) continue;
+    if (!sameAsDefault(f.spec, v)) given.set(f.name, v);
+  }
+  const label = (n: string): string => pageField(n)?.label ?? n;
+  for (let changed = true; changed; ) {
+    changed = false;
+    for (const rule of OPTION_COMBINATIONS) {
+      if (rule.kind !== 'needs' || !given.has(rule.option) || rule.anyOf.some((n) => given.has(n))) continue;
+      if (pageField(rule.option)?.control !== 'role') {
+        const options = rule.anyOf.filter((n) => pageField(n)).map(label);
+        if (options.length > 0) problems.push({ field: rule.option, message: `“${label(rule.option)}” needs ${options.map((o) => `“${o}”`).join(' or ')}${rule.why ? ` (${rule.why})` : ''}.` });
+      }
+      given.delete(rule.option);
+      changed = true;
+    }
+  }
+  return given;
 }
 
 type Mutable<T> = { -readonly [K in keyof T]: T[K] };
@@ -88,15 +146,19 @@ export function buildRequest(state: PageState): RequestOutcome {
   if (s.families.length === 0) problems.push({ field: 'families', message: 'Tick at least one model to try.' });
   else check('families', [...s.families], problems);
   const confidence = one(s, 'confidence', problems);
-  const bl = many(s, 'bLifePercents', problems);
-  const rt = many(s, 'reliabilityTimes', problems);
-  const rp = many(s, 'returnPeriods', problems);
-  const dl = one(s, 'designLife', problems);
-  const lsl = one(s, 'lsl', problems);
-  const usl = one(s, 'usl', problems);
-  const target = one(s, 'target', problems);
-  if (typeof lsl === 'number' && typeof usl === 'number' && !(lsl < usl)) problems.push({ field: 'usl', message: 'The upper limit must be above the lower one.' });
   const column = columnLabel(reading);
+
+  // Trade sections: only the fields that apply to these data (life with a status column; flood,
+  // capability and trend without one), and what the rules between options allow.
+  const life = typeof s.statusColumn === 'number' && s.statusColumn > 0;
+  const wf = tradeFields(s, life, problems);
+  const lsl = wf.get('lsl');
+  const usl = wf.get('usl');
+  if (typeof lsl === 'number' && typeof usl === 'number' && !(lsl < usl)) problems.push({ field: 'usl', message: 'The upper limit must be above the lower one.' });
+  if (problems.length === 0) {
+    const rules = checkCombinations(wf, 'api');
+    if (!rules.ok) problems.push({ field: rules.field, message: rules.message });
+  }
 
   if (reading.shape === 'grouped') {
     const g = reading.grouped;
@@ -112,31 +174,7 @@ export function buildRequest(state: PageState): RequestOutcome {
     return { ok: true, built: { kind: 'grouped', request, column, requestedBins: null } };
   }
   if (problems.length > 0) return { ok: false, problems };
-
-  // Trade sections: only the fields that apply to these data (life with a status column; flood,
-  // capability and trend without one).
-  const wf: Mutable<Partial<AnalyzeRequest>> = {};
-  const life = s.statusColumn > 0;
-  if (life) {
-    wf.statusColumn = s.statusColumn;
-    if (bl) wf.bLifePercents = bl;
-    if (rt) wf.reliabilityTimes = rt;
-    wf.boundMethod = s.boundMethod;
-  } else {
-    if (rp) {
-      wf.returnPeriods = rp;
-      if (typeof dl === 'number') wf.designLife = dl;
-      wf.plottingPosition = s.plottingPosition;
-    }
-    if (typeof lsl === 'number' || typeof usl === 'number') {
-      if (typeof lsl === 'number') wf.lsl = lsl;
-      if (typeof usl === 'number') wf.usl = usl;
-      if (typeof target === 'number') wf.target = target;
-      if (s.subgroupColumn > 0) wf.subgroupColumn = s.subgroupColumn;
-    }
-    if (s.orderColumn > 0) wf.orderColumn = s.orderColumn;
-  }
-  if (Object.keys(wf).length > 0 && typeof confidence === 'number') wf.confidence = confidence;
+  if (wf.size > 0 && typeof confidence === 'number') wf.set('confidence', confidence);
   const request: AnalyzeRequest = {
     csv: source.csv,
     column: reading.column,
@@ -148,7 +186,7 @@ export function buildRequest(state: PageState): RequestOutcome {
     evidence: true,
     ...(typeof seed === 'number' ? { seed } : {}),
     ...(typeof replicates === 'number' ? { replicates } : {}),
-    ...wf,
+    ...Object.fromEntries(wf),
   };
   return { ok: true, built: { kind: 'values', request, column, requestedBins: bins ?? null } };
 }

@@ -13,6 +13,7 @@
 import type { AnalyzeResponse } from './api.js';
 import { guessDecimal, scanColumns, type ColumnChoice, type DecimalGuess } from './columns.js';
 import { defaultGroupedColumns, guessGroupedColumns, type GroupedColumns } from './grouped-view.js';
+import { ROLE_FIELDS } from './page-options.js';
 import { DEFAULT_SETTINGS, demoSettings, type Settings } from './settings.js';
 
 export interface Source {
@@ -143,8 +144,13 @@ function scan(csv: string, header: boolean, decimal: '.' | ',', prefer?: number)
 /** Roles point at columns of this source only, never at the value column. */
 function keepRoles(settings: Settings, reading: Reading): Settings {
   const ok = (i: number): number => (i > 0 && i !== reading.column && reading.columns.some((c) => c.index === i) ? i : 0);
-  const next = { statusColumn: ok(settings.statusColumn), subgroupColumn: ok(settings.subgroupColumn), orderColumn: ok(settings.orderColumn) };
-  return next.statusColumn === settings.statusColumn && next.subgroupColumn === settings.subgroupColumn && next.orderColumn === settings.orderColumn ? settings : { ...settings, ...next };
+  const next: Record<string, number> = {};
+  for (const r of ROLE_FIELDS) {
+    const now = settings[r.name];
+    const kept = ok(typeof now === 'number' ? now : 0);
+    if (kept !== now) next[r.name] = kept;
+  }
+  return Object.keys(next).length === 0 ? settings : ({ ...settings, ...next } as Settings);
 }
 
 function sourceLoaded(state: PageState, a: Extract<Action, { type: 'source-loaded' }>): PageState {
@@ -218,7 +224,7 @@ export function update(state: PageState, action: Action): PageState {
       return { ...state, reading, settings: keepRoles(state.settings, reading) };
     }
     case 'settings-edited':
-      return { ...state, settings: { ...state.settings, ...action.patch } };
+      return { ...state, settings: { ...state.settings, ...action.patch } as Settings };
     case 'labels-edited':
       return {
         ...state,

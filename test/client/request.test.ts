@@ -37,7 +37,8 @@ describe('buildRequest', () => {
     const r = out.built.request;
     expect(r.statusColumn).toBe(3);
     expect(r.bLifePercents).toEqual([1, 10]);
-    expect(r.boundMethod).toBe('likelihood-ratio');
+    // At its table default the bound method is not sent: the server applies the same default.
+    expect(r).not.toHaveProperty('boundMethod');
     expect(r.confidence).toBe(0.9);
     expect(r).not.toHaveProperty('returnPeriods');
     expect(r).not.toHaveProperty('lsl');
@@ -46,7 +47,8 @@ describe('buildRequest', () => {
   it('flood and capability fields without a status column, with the confidence', () => {
     const out = buildRequest(loaded(LIFE_CSV, { returnPeriods: '10 100', designLife: '50', lsl: '100', usl: '600' }));
     if (!out.ok || out.built.kind !== 'values') throw new Error('expected a values request');
-    expect(out.built.request).toMatchObject({ returnPeriods: [10, 100], designLife: 50, plottingPosition: 'weibull', lsl: 100, usl: 600, confidence: 0.9 });
+    expect(out.built.request).toMatchObject({ returnPeriods: [10, 100], designLife: 50, lsl: 100, usl: 600, confidence: 0.9 });
+    expect(out.built.request).not.toHaveProperty('plottingPosition');
   });
 
   it.each([
@@ -86,6 +88,46 @@ describe('buildRequest', () => {
     const out = buildRequest(loaded(LIFE_CSV, { lsl: '5', usl: '5', families: [] }));
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems.map((p) => p.field).sort()).toEqual(['families', 'usl']);
+  });
+
+  // The trade fields are the option table's (client/src/page-options.ts): sent where they apply,
+  // not at their default, and only with what their option needs (core/options/combinations.ts).
+  it('a capability field the table added (transform, natural lower bound) goes with the tolerance, not with a status column', () => {
+    const out = buildRequest(loaded(LIFE_CSV, { usl: '600', transform: 'boxcox', naturalLowerBound: '0', withinMethod: 'pooled' }));
+    if (!out.ok || out.built.kind !== 'values') throw new Error('expected a values request');
+    expect(out.built.request).toMatchObject({ usl: 600, transform: 'boxcox', naturalLowerBound: 0 });
+    // 'pooled' is the table's default: not sent.
+    expect(out.built.request).not.toHaveProperty('withinMethod');
+    const life = buildRequest(loaded(LIFE_CSV, { statusColumn: 3, usl: '600', transform: 'boxcox' }));
+    if (!life.ok || life.built.kind !== 'values') throw new Error('expected a values request');
+    expect(life.built.request).not.toHaveProperty('transform');
+    expect(life.built.request).not.toHaveProperty('usl');
+  });
+
+  it('a field given without the option it needs is a problem that names both', () => {
+    const out = buildRequest(loaded(LIFE_CSV, { designLife: '50' }));
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      expect(out.problems.map((p) => p.field)).toEqual(['designLife']);
+      expect(out.problems[0]!.message).toMatch(/Design life.*needs.*Return periods/);
+    }
+    const plan = buildRequest(loaded(LIFE_CSV, { statusColumn: 3, planTime: '500' }));
+    expect(!plan.ok && plan.problems.map((p) => p.field)).toEqual(['planTime']);
+    // A changed choice needs its section too: Gringorten positions without return periods.
+    expect(buildRequest(loaded(LIFE_CSV, { plottingPosition: 'gringorten' })).ok).toBe(false);
+  });
+
+  it('the rules between options are the API\'s: a file-order trend check with an order column is refused', () => {
+    const out = buildRequest(loaded('year,x\n1,5\n2,6\n3,7\n4,9\n', { orderColumn: 1, trend: 'true' }));
+    expect(out.ok).toBe(false);
+    if (!out.ok) expect(out.problems[0]!.field).toBe('trend');
+    const alone = buildRequest(loaded('year,x\n1,5\n2,6\n3,7\n4,9\n', { trend: 'true' }));
+    expect(alone.ok && alone.built.kind === 'values' && alone.built.request.trend).toBe(true);
+  });
+
+  it('a bad value in a field that does not apply to these data is still shown as a problem', () => {
+    const out = buildRequest(loaded(LIFE_CSV, { bLifePercents: '150' }));
+    expect(!out.ok && out.problems.map((p) => p.field)).toEqual(['bLifePercents']);
   });
 
   it('class limits with counts become a grouped request read with the core CSV reader', () => {
