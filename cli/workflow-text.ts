@@ -3,6 +3,7 @@
  * model sensitivity), each with its cautions. Only sections present in the report are printed.
  */
 import { formatNumber, formatPValue, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
+import { floodEstimatorLines } from './flood-estimators-text.js';
 import { capabilityExtensionLines } from './capability-text.js';
 import { wrap } from './text-report.js';
 
@@ -150,5 +151,5 @@ export function sensitivityLines(rows: readonly SensitivityRow[] | undefined): s
 
 /** All workflow sections of a complete or censored report, in a fixed order. */
 export function workflowSections(r: DatasetReport): string[] {
-  return [...lifeLines(r), ...floodLines(r), ...capabilityLines(r), ...trendLines(r), ...sensitivityLines(r.sensitivity)];
+  return [...lifeLines(r), ...floodLines(r), ...floodEstimatorLines(r), ...capabilityLines(r), ...trendLines(r), ...sensitivityLines(r.sensitivity)];
 }

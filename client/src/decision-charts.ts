@@ -4,6 +4,7 @@ import { capabilityHistogramChart } from '../charts/capability-histogram.js';
 import { controlChart } from '../charts/control-chart.js';
 import { hazardChart } from '../charts/hazard.js';
 import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
+import { lmomentDiagramChart } from '../charts/lmoment-diagram.js';
 import type { ChartOptions } from '../charts/options.js';
 import { returnPeriodChart } from '../charts/return-period.js';
 import { turnbullChart } from '../charts/turnbull.js';
@@ -34,6 +35,10 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       if (!rec) return null;
       const c = rec.candidates.find((x) => x.family === selected) ?? rec.candidates[0];
       return turnbullChart(box, { turnbull: rec.turnbull, fitted: c ? { family: c.family, label: capital(c.label), time: c.curves.time, cdf: c.curves.cdf } : null }, options);
+    }
+    case 'lmoment-diagram': {
+      const lm = r.flood?.estimators?.lmoments;
+      return lm && lm.applicable ? lmomentDiagramChart(box, lm.diagram, options) : null;
     }
     case 'capability-histogram': {
       const ev = r.evidence;

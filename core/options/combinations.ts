@@ -25,6 +25,8 @@ export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
   { kind: 'needs', option: 'lifePlotPositions', anyOf: ['statusColumn'], why: LIFE },
   { kind: 'needs', option: 'designLife', anyOf: ['returnPeriods'], why: 'the chance of exceeding each return level within the design life' },
   { kind: 'needs', option: 'plottingPosition', anyOf: ['returnPeriods'], why: 'it places the points of the return-period plot' },
+  { kind: 'needs', option: 'regionalSkew', anyOf: ['regionalSkewMse'], why: 'the regional skew and its mean square error go together: the weighting needs both' },
+  { kind: 'needs', option: 'regionalSkewMse', anyOf: ['regionalSkew'], why: 'the regional skew and its mean square error go together: the weighting needs both' },
   { kind: 'needs', option: 'target', anyOf: ['lsl', 'usl'] },
   { kind: 'needs', option: 'subgroupColumn', anyOf: ['lsl', 'usl'], why: 'it gives the within-subgroup sigma for Cp and Cpk' },
   { kind: 'needs', option: 'withinMethod', anyOf: ['lsl', 'usl'], why: 'it chooses the within-subgroup sigma for Cp and Cpk' },

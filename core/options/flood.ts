@@ -46,9 +46,8 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     max: 5,
     default: null,
     appliesTo: ['flood'],
-    help: 'regional skew of log10 peaks, weighted with the station skew by mean square errors (log-Pearson III, --estimation ema); needs --regional-skew-mse',
+    help: 'regional skew of log10 peaks, weighted with the station skew by mean square errors (log-Pearson III by expected moments, estimation ema); needs its mean square error',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'regionalSkewMse',
@@ -59,9 +58,8 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     minExclusive: true,
     default: null,
     appliesTo: ['flood'],
-    help: 'mean square error of the regional skew (log-Pearson III, --estimation ema)',
+    help: 'mean square error of the regional skew (log-Pearson III by expected moments, estimation ema)',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'perceptionThreshold',

@@ -18,7 +18,7 @@ import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingP
 import type { MethodNote } from '../report.js';
 import { prepareSample } from '../sample.js';
 import { mannKendall } from '../trend/index.js';
-import { floodEstimatorsFor } from './flood-estimators.js';
+import { checkFloodEstimation, floodEstimatorsFor } from './flood-estimators.js';
 import type { WorkflowSettings } from './options.js';
 import { quantityNumber, sensitivityRows, type QuantityValue } from './sensitivity.js';
 import type { CapabilitySection, DatasetCandidate, DatasetOptions, DatasetReport, FloodSection, ReturnLevelRow, TrendSection } from './types.js';
@@ -39,6 +39,7 @@ export interface CompletePlan {
 
 export function planComplete(input: CompleteInput, options: DatasetOptions, settings: WorkflowSettings): CompletePlan {
   const { values } = input;
+  checkFloodEstimation(options, settings.returnPeriods);
   if (input.subgroups && !settings.capability) {
     throw new InputError('Subgroup labels are used for capability: give a specification limit (lsl and/or usl) too.', {}, 'bad-option');
   }

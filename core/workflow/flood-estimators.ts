@@ -171,7 +171,7 @@ function lmomentBlock(values: ArrayLike<number>, periods: readonly number[]): Fl
     sample: { n: lm.n, l1: lm.l1, l2: lm.l2, t: lm.t, t3: lm.t3, t4: lm.t4 },
     fits,
     notFitted,
-    intervalMethod: 'none: the L-moment levels are point estimates (no interval is computed for them)',
+    intervalMethod: 'point estimates: no interval is computed for the L-moment levels',
     diagram: ratioDiagram(sorted),
   };
 }
@@ -223,4 +223,19 @@ export function floodEstimatorsFor(
     });
   }
   return { section, methods };
+}
+
+/**
+ * A complete sample asking for a flood estimator (`ema`, `lmoments`) needs return periods: the
+ * estimators report levels by return period, and without them the request would change nothing.
+ */
+export function checkFloodEstimation(options: { readonly estimation?: string }, returnPeriods: readonly number[] | null): void {
+  const e = options.estimation;
+  if ((e === 'ema' || e === 'lmoments') && returnPeriods === null) {
+    throw new InputError(
+      `Estimation ${e} applies to the flood section of annual maxima: give return periods too (or a threshold with dates for peaks over a threshold on the command line).`,
+      {},
+      'bad-option',
+    );
+  }
 }
