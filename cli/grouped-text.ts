@@ -1,6 +1,10 @@
 /**
  * The plain-text report for grouped counts (`--grouped`): the classes, the ranked grouped fits
  * with the chi-square test on the (merged) classes, and why there is no Anderson–Darling test.
+ *
+ * With the parameters estimated by maximum likelihood from the same cell counts, Pearson's X² is
+ * asymptotically chi-square with k - 1 - m degrees of freedom (Fisher 1924; Cramér 1946, §30.3;
+ * from memory): the degrees of freedom are the right ones, but the p-value is a large-sample one.
  */
 import { formatNumber, formatPValue, type GroupedCandidateReport, type GroupedDatasetReport } from '../core/index.js';
 import type { CliInput } from './input-summary.js';
@@ -25,7 +29,7 @@ function candidateLines(c: GroupedCandidateReport): string[] {
   if (cs.computable) {
     out.push(
       wrap(
-        `X² = ${formatNumber(cs.statistic)} on ${cs.dof} dof (k - 1 - m, exact here), ${formatPValue(cs.pValue)}; ${cs.k} cells from ${cs.classesGiven} classes${cs.refitted ? ' (merged to ≥ 5 expected, refitted on the merged cells)' : ''}. ` +
+        `X² = ${formatNumber(cs.statistic)} on ${cs.dof} dof (k - 1 - m: the parameters are fitted to these cells by maximum likelihood, so the χ² reference distribution holds asymptotically, as n grows), ${formatPValue(cs.pValue)}; ${cs.k} cells from ${cs.classesGiven} classes${cs.refitted ? ' (merged to ≥ 5 expected, refitted on the merged cells)' : ''}. ` +
           `Counts observed/expected: ${cs.bins.map((b) => `${formatNumber(b.observed)}/${formatNumber(b.expected, 4)}`).join(' ')}.`,
         label('chi-square'),
         cont,

@@ -100,13 +100,20 @@ export function helpText(): string {
 and rank the candidates.
 
 Usage
-  plumbline analyze FILE.csv [--column NAME|INDEX] [options]
+  plumbline analyze FILE [--column NAME|INDEX] [options]
+      fit, test and rank the models on one column (or, with --by or --columns, on many series)
+  plumbline merge [--json|--csv] RUN.jsonl...
+      join the JSON Lines of batch runs (the shards of --shard, say) into one summary by series
+  plumbline plan --plan-reliability R --plan-time T --assumed-shape B [--plan-confidence C]
+                 [--plan-failures r]
+      a life test plan: units to test for each test time, to show R at time T; needs no data
   plumbline --help
   plumbline --version
 
-FILE is a CSV file with a header row (comma, semicolon or tab separated, detected), or - to read
-standard input. Column names are matched exactly, then ignoring case; quote names with spaces.
-Lists are comma-separated, e.g. --b-life 1,10,50.
+FILE is a CSV file with a header row (comma, semicolon or tab separated, detected), an Apache
+Parquet file (recognised by its PAR1 magic bytes; its top-level columns are read as a table), or -
+to read CSV from standard input. Column names are matched exactly, then ignoring case; quote names
+with spaces. Lists are comma-separated, e.g. --b-life 1,10,50.
 
 ${optionsHelp()}
 Exit status

@@ -2,9 +2,9 @@
  * The trade-workflow sections of the text report (life data, flood frequency, capability, trend,
  * model sensitivity), each with its cautions. Only sections present in the report are printed.
  */
-import { formatNumber, formatPValue, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
-import { floodEstimatorLines } from './flood-estimators-text.js';
+import { formatNumber, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
 import { capabilityExtensionLines } from './capability-text.js';
+import { floodEstimatorLines } from './flood-estimators-text.js';
 import { wrap } from './text-report.js';
 
 function pct(x: number): string {
@@ -126,7 +126,8 @@ function trendLines(r: DatasetReport): string[] {
   const t = r.trend;
   if (!t) return [];
   const out: string[] = ['Trend check'];
-  out.push(wrap(`Order from ${t.orderFrom === 'column' ? 'the order column' : 'the row order'}; S = ${t.s}, Z = ${formatNumber(t.z, 4)}, ${formatPValue(t.pValue)} (${t.pMethod}). ${t.decision}`, '  ', '  '));
+  // The core's decision states S and the p-value (core/format); the line adds only how p was found.
+  out.push(wrap(`Order from ${t.orderFrom === 'column' ? 'the order column' : 'the row order'}; Z = ${formatNumber(t.z, 4)}, p by the ${t.pMethod === 'exact' ? 'exact distribution of S' : 'normal approximation'}. ${t.decision}`, '  ', '  '));
   if (t.warning) out.push(wrap(t.warning, '  Warning: ', '  '));
   out.push(...bullets('Cautions', t.cautions));
   out.push('');

@@ -12,6 +12,7 @@
  * whose assumptions hold), the plain test otherwise; the result says which.
  */
 import { normalCdf, normalIsf } from '../special/index.js';
+import { formatNumber, formatPValue } from '../format/index.js';
 import { mannKendall, type TrendOptions, type TrendResult } from './mann-kendall.js';
 
 export interface HamedRaoResult {
@@ -96,10 +97,10 @@ export function hamedRaoMannKendall(values: ArrayLike<number>, opts: TrendOption
   const pValue = Math.min(1, 2 * normalCdf(-Math.abs(z)));
   const trendDetected = pValue < alpha;
   const uses = lags.length > 0 ? 'hamed-rao' : 'plain';
-  const fmt = (v: number): string => String(Number(v.toPrecision(4)));
+  const fmt = (v: number): string => formatNumber(v, 4);
   const decision =
     uses === 'hamed-rao'
-      ? `Mann–Kendall with the Hamed–Rao correction (rank autocorrelation at ${lags.length} lag${lags.length === 1 ? '' : 's'}, variance × ${fmt(ratio)}): ${trendDetected ? `a monotonic ${s > 0 ? 'increasing' : 'decreasing'} trend` : 'no monotonic trend detected'} at α = ${alpha} (p = ${fmt(pValue)}; plain test p = ${fmt(plain.pValue)}). The decision uses the corrected test.`
+      ? `Mann–Kendall with the Hamed–Rao correction (rank autocorrelation at ${lags.length} lag${lags.length === 1 ? '' : 's'}, variance × ${fmt(ratio)}): ${trendDetected ? `a monotonic ${s > 0 ? 'increasing' : 'decreasing'} trend` : 'no monotonic trend detected'} at α = ${alpha} (${formatPValue(pValue)}; plain test ${formatPValue(plain.pValue)}). The decision uses the corrected test.`
       : `${plain.decision} No significant autocorrelation of the detrended ranks, so the plain test is used (Hamed–Rao ratio 1).`;
   return {
     plain,

@@ -16,6 +16,7 @@
  */
 import { InputError } from '../errors.js';
 import { normalCdf } from '../special/index.js';
+import { formatNumber, formatPValue } from '../format/index.js';
 import { senSlope, type SenSlope } from './sen-slope.js';
 
 export interface TrendOptions {
@@ -181,11 +182,12 @@ export function mannKendall(values: ArrayLike<number>, opts: TrendOptions = {}):
   const trendDetected = pValue < alpha;
   const direction = !trendDetected ? 'none' : s > 0 ? 'increasing' : 'decreasing';
   const slope = senSlope(x, t, { alpha, varianceS });
-  const fmt = (v: number): string => String(Number(v.toPrecision(4)));
+  // Numbers and the p-value through the one formatter (core/format), so the sentence shows the digits every table shows.
+  const fmt = (v: number): string => formatNumber(v, 4);
   const slopeText = slope ? `; Sen's slope ${fmt(slope.estimate)} per unit of time (${fmt(100 * (1 - alpha))} % interval ${fmt(slope.lower)} to ${fmt(slope.upper)})` : '';
   const decision = trendDetected
-    ? `Mann–Kendall: a monotonic ${direction} trend at α = ${alpha} (S = ${s}, p = ${fmt(pValue)})${slopeText}.`
-    : `Mann–Kendall: no monotonic trend detected at α = ${alpha} (S = ${s}, p = ${fmt(pValue)})${slopeText}.`;
+    ? `Mann–Kendall: a monotonic ${direction} trend at α = ${alpha} (S = ${s}, ${formatPValue(pValue)})${slopeText}.`
+    : `Mann–Kendall: no monotonic trend detected at α = ${alpha} (S = ${s}, ${formatPValue(pValue)})${slopeText}.`;
   const warning = trendDetected
     ? `The values show a ${direction} trend over time. A trend breaks the assumption that all values come from one and the same distribution, on which the fitted models and every number derived from them (return levels, lives, capability) rest. Analyse a period without trend or model the change over time before relying on those numbers.`
     : null;

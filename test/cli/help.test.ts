@@ -25,6 +25,14 @@ describe('--help', () => {
   });
 
   it('keeps lines within 100 columns', () => {
-    for (const line of optionsHelp().split('\n')) expect(line.length, line).toBeLessThanOrEqual(100);
+    for (const line of text.split('\n')) expect(line.length, line).toBeLessThanOrEqual(100);
+    expect(optionsHelp().length).toBeGreaterThan(0);
+  });
+
+  it('names every command the dispatcher takes (cli/args.ts: analyze, merge, plan) with its usage, and Parquet input', () => {
+    const usage = text.slice(text.indexOf('Usage'), text.indexOf('FILE is'));
+    for (const command of ['analyze', 'merge', 'plan']) expect(usage).toMatch(new RegExp(`^  plumbline ${command} `, 'm'));
+    expect(usage).toContain('--plan-reliability R --plan-time T --assumed-shape B');
+    expect(text).toMatch(/Parquet/);
   });
 });

@@ -1,5 +1,5 @@
 /** The trend section: Mann–Kendall test and Sen's slope over the time order. Pure. */
-import { sig } from '../format.js';
+import { pValue, sig } from '../format.js';
 import type { BlockLine, SectionView } from './block.js';
 import { pct } from './numbers.js';
 
@@ -18,7 +18,7 @@ export const trendSection: SectionView = ({ report: r }) => {
     tables: [{
       caption: "Mann–Kendall trend test and Sen's slope.",
       head: ['n', 'S', 'Z', 'p (two-sided)', 'Kendall τ-b', 'Sen slope per unit of order', 'Interval'],
-      rows: [[String(t.n), String(t.s), sig(t.z, 3), `${sig(t.pValue, 3)} (${t.pMethod})`, sig(t.tauB, 3), t.senSlope ? sig(t.senSlope.estimate, 4) : '—', t.senSlope ? `${sig(t.senSlope.lower, 4)} to ${sig(t.senSlope.upper, 4)} (${pct(t.senSlope.confidence)})` : '—']],
+      rows: [[String(t.n), String(t.s), sig(t.z, 3), `${pValue(t.pValue)} (${t.pMethod})`, sig(t.tauB, 3), t.senSlope ? sig(t.senSlope.estimate, 4) : '—', t.senSlope ? `${sig(t.senSlope.lower, 4)} to ${sig(t.senSlope.upper, 4)} (${pct(t.senSlope.confidence)})` : '—']],
       folded: true,
     }],
     charts: [],
