@@ -116,6 +116,9 @@ export function recordedLifeOptions(o: ReadonlyMap<string, OptionValue>): Record
     boundMethod: get('boundMethod'),
     estimation: get('estimation'),
     assumedShape: get('assumedShape'),
+    replicates: get('replicates'),
+    seed: get('seed'),
+    alpha: get('alpha'),
   };
   for (const k of Object.keys(out)) if (out[k] === undefined || out[k] === null) delete out[k];
   if (out.estimation !== undefined && out.estimation !== 'ml' && out.estimation !== 'rank-regression') {

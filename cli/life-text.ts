@@ -53,6 +53,20 @@ export function lifeReportLines(r: RecordedLifeReport): string[] {
       ),
       '',
     );
+    const tested = r.candidates.filter((c) => c.goodnessOfFit !== null);
+    if (tested.length > 0) {
+      out.push(`Goodness of fit: Anderson–Darling on the Turnbull estimate, p by a bootstrap that reproduces each unit's inspections (α = ${f(r.alpha, 3)})`);
+      out.push(
+        ...table(
+          ['model', 'A²', 'p', '± MC SE', 'B', 'unrefitted', 'decision'],
+          tested.map((c) => {
+            const g = c.goodnessOfFit!;
+            return [c.label, f(g.statistic, 4), f(g.pValue, 3), f(g.monteCarloError, 2), String(g.replicates), String(g.failedReplicates), c.rejected ? 'rejected' : 'not rejected'];
+          }),
+        ),
+        '',
+      );
+    } else if (r.goodnessOfFitNote) out.push(`Goodness of fit: ${r.goodnessOfFitNote}.`, '');
     const first = r.candidates[0]!;
     if (first.bLives.length > 0) {
       out.push(`B-lives (bounds two-sided ${pc}; * = bound not closed, the end shown is the search limit; — = no bound for this estimator)`);

@@ -9,13 +9,14 @@
  * exceeding (conservative), with its binomial Monte Carlo standard error.
  */
 import { getFamily, type Parameters } from '../families/index.js';
-import type { BootstrapCounts, CancelSignal } from '../gof/index.js';
+import type { BootstrapCounts } from '../gof/index.js';
 import { createRng } from '../random/index.js';
 import { censoredAndersonDarling } from './anderson-darling.js';
 import { CENSORED_AD_METHOD, censoringDistribution, type CensoredGofResult } from './bootstrap.js';
 import { buildLifeData, prepareLifeData, type LifeData } from './data.js';
 import { fitCensored } from './fit.js';
 import type { LifeFamilyName } from './models.js';
+import { countReplicates, type ReplicateRangeOptions } from './replicate-counts.js';
 
 /** A serialisable range of censored bootstrap replicates (structured-clone safe). */
 export interface CensoredGofJob {
@@ -33,11 +34,7 @@ export interface CensoredGofJob {
   readonly end: number;
 }
 
-export interface CensoredRangeOptions {
-  readonly signal?: CancelSignal;
-  /** After each replicate: replicates done in this range and the range's size. */
-  readonly onProgress?: (done: number, total: number) => void;
-}
+export type CensoredRangeOptions = ReplicateRangeOptions;
 
 /** Run replicates [job.start, job.end) on prepared data (bootstrap.ts runs the whole range this way). */
 export function runCensoredReplicates(
@@ -55,17 +52,7 @@ export function runCensoredReplicates(
   const G = censoringDistribution(data);
   const t = new Float64Array(n);
   const f = new Uint8Array(n);
-  let exceed = 0;
-  let valid = 0;
-  let failed = 0;
-  let completed = 0;
-  let cancelled = false;
-  for (let b = start; b < end; b++) {
-    if (opts.signal?.aborted) {
-      cancelled = true;
-      break;
-    }
-    completed++;
+  return countReplicates(start, end, observed, (b) => {
     const rng = createRng(seed, b);
     const life = fam.random(parameters, rng, n);
     for (let i = 0; i < n; i++) {
@@ -82,15 +69,8 @@ export function runCensoredReplicates(
     }
     const sim = buildLifeData(t, f);
     const rf = fitCensored(family, sim, { warmStart: parameters });
-    const a = rf.ok && Number.isFinite(rf.logLikelihood) ? censoredAndersonDarling(fam.make(rf.parameters), sim) : Number.NaN;
-    if (!Number.isFinite(a)) failed++;
-    else {
-      valid++;
-      if (a >= observed) exceed++;
-    }
-    opts.onProgress?.(completed, end - start);
-  }
-  return { start, end, completed, valid, exceed, failed, cancelled };
+    return rf.ok && Number.isFinite(rf.logLikelihood) ? censoredAndersonDarling(fam.make(rf.parameters), sim) : Number.NaN;
+  }, opts);
 }
 
 /** Run one job's range. Pure: same job, same counts. */

@@ -25,5 +25,8 @@ export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanIn
 export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
 export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
 export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, type RankRegressionFit, type RankRegressionOutcome, type RankRegressionFamily } from './rank-regression.js';
-export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';
+export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, INTERVAL_GOF_REPLICATES, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';
 export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type RecordedLifeExtrasOptions } from './interval-likelihood-extras.js';
+export { intervalAndersonDarling } from './interval-anderson-darling.js';
+export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, type IntervalGofOptions, type IntervalRangeOptions } from './interval-bootstrap.js';
+export type { IntervalFitOptions } from './interval-likelihood-fit.js';

@@ -52,7 +52,11 @@ export function censoringKind(lower: number, upper: number): CensoringKind {
   return 'interval';
 }
 
-export function prepareIntervalLifeData(input: IntervalLifeInput): IntervalLifeData {
+/**
+ * `trusted`: rows the bootstrap simulated (not user input): the row checks are skipped, so an exact
+ * time ≤ 0 drawn from a normal model stays a unit (as buildLifeData keeps it for right-censored data).
+ */
+export function prepareIntervalLifeData(input: IntervalLifeInput, options: { readonly trusted?: boolean } = {}): IntervalLifeData {
   const m = input.start.length;
   if (input.end.length !== m) {
     throw new InputError(`The end column has ${input.end.length} entries but the start column has ${m}.`, {}, 'bad-input');
@@ -69,6 +73,10 @@ export function prepareIntervalLifeData(input: IntervalLifeInput): IntervalLifeD
     const hi = Number.isNaN(rawHi) ? Number.POSITIVE_INFINITY : rawHi;
     const c = input.counts ? (input.counts[i] as number) : 1;
     const where = { row: line };
+    if (options.trusted) {
+      rows.push({ lo, hi, c });
+      continue;
+    }
     if (!(Number.isFinite(c) && c >= 0 && Number.isInteger(c))) {
       throw new InputError(`Row ${line}: count ${String(c)} must be a whole number ≥ 0.`, { ...where, value: String(c) }, 'bad-input');
     }

@@ -7,6 +7,7 @@
  * simple stand-ins).
  * A fit whose maximiser does not converge is reported as not fitted (no maximum, not ranked).
  */
+import type { Parameters } from '../families/index.js';
 import { maximize, type MaximizeResult } from '../optimize/index.js';
 import { buildLifeData } from './data.js';
 import { fitCensored, type CensoredFitOutcome, type CensoredFitSuccess } from './fit.js';
@@ -48,7 +49,15 @@ function standIn(data: IntervalLifeData): { times: Float64Array; failed: Uint8Ar
   return { times: Float64Array.from(times), failed: Uint8Array.from(failed) };
 }
 
-export function fitInterval(family: LifeFamilyName, data: IntervalLifeData): CensoredFitOutcome {
+export interface IntervalFitOptions {
+  /**
+   * Start Newton from these parameters (the bootstrap's refits start from the fitted model); kept
+   * only when Newton converges from there, else the stand-in start is used as without it.
+   */
+  readonly warmStart?: Parameters;
+}
+
+export function fitInterval(family: LifeFamilyName, data: IntervalLifeData, options: IntervalFitOptions = {}): CensoredFitOutcome {
   const model = lifeModel(family);
   const k = model.names.length;
   if (data.failures < k) {
@@ -58,11 +67,18 @@ export function fitInterval(family: LifeFamilyName, data: IntervalLifeData): Cen
       reason: `the ${family} model has ${k} parameter${k > 1 ? 's' : ''} and needs at least ${k} failed unit${k > 1 ? 's' : ''} (exact, left- or interval-censored); the data have ${data.failures}`,
     };
   }
-  const s = standIn(data);
-  const start = fitCensored(family, buildLifeData(s.times, s.failed));
-  if (!start.ok) return { ok: false, family, reason: `no starting values: ${start.reason}` };
   const ll = intervalLogLikelihoodOf(family, data);
-  let r: MaximizeResult = maximize(ll, toVector(model, start.parameters), { transforms: model.transforms });
+  let r: MaximizeResult | null = null;
+  if (options.warmStart) {
+    const w = maximize(ll, toVector(model, options.warmStart), { transforms: model.transforms, skipSimplex: true });
+    if (w.converged && Number.isFinite(w.value)) r = w;
+  }
+  if (!r) {
+    const s = standIn(data);
+    const start = fitCensored(family, buildLifeData(s.times, s.failed));
+    if (!start.ok) return { ok: false, family, reason: `no starting values: ${start.reason}` };
+    r = maximize(ll, toVector(model, start.parameters), { transforms: model.transforms });
+  }
   if (!r.converged) {
     const r2 = maximize(ll, r.x, { transforms: model.transforms, initialStep: 0.3 });
     if (r2.value >= r.value) r = r2;
@@ -82,7 +98,7 @@ export function fitInterval(family: LifeFamilyName, data: IntervalLifeData): Cen
     logLikelihood: r.value,
     iterations: r.iterations,
     converged: true,
-    method: `maximum likelihood with exact, left-, interval- and right-censored terms: Nelder–Mead then Newton polishing (core/optimize), started from a right-censored fit of interval midpoints; stop: ${r.reason}`,
+    method: `maximum likelihood with exact, left-, interval- and right-censored terms: Nelder–Mead then Newton polishing (core/optimize), started from ${options.warmStart ? 'the given warm start (Newton only when it converges)' : 'a right-censored fit of interval midpoints'}; stop: ${r.reason}`,
   };
   return fit;
 }

@@ -42,12 +42,15 @@ describe('plumbline analyze with life data as recorded', () => {
   });
 
   it('text report: the estimator, bounds, Turnbull boxes and the safety caution are printed', () => {
-    const r = run(inspectionCsv(), '--interval-columns', 'start,end', '--count-column', 'units', '--b-life', '1,10');
+    const r = run(inspectionCsv(), '--interval-columns', 'start,end', '--count-column', 'units', '--b-life', '1,10', '--replicates', '39');
     expect(r.out).toMatch(/Units: 80 — exact failure times 8, failed before the first inspection 15, found failed at an inspection 48, still running 9/);
     expect(r.out).toMatch(/Estimation: maximum likelihood \(the default\)/);
     expect(r.out).toMatch(/Nonparametric estimate \(Turnbull\)/);
     expect(r.out).toMatch(/B1 .* likelihood ratio/);
     expect(r.out).toMatch(/licensed practice/);
+    // The inspection-scheme A² bootstrap, with --replicates read through the option table.
+    expect(r.out).toMatch(/Goodness of fit: Anderson–Darling on the Turnbull estimate/);
+    expect(r.out).toMatch(/Weibull\s+\S+\s+\S+\s+\S+\s+39\s+\d+\s+(not )?rejected/);
   });
 
   it('the seal demo with --mode-column: each mode and the system; --assumed-shape adds Weibayes', () => {

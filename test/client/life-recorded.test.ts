@@ -8,7 +8,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyzeDataset, readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { analyzeDataset, analyzeRecordedLife, parseStrictNumber, readColumns, type NumberColumn, type TextColumn } from '../../core/index.js';
 import { recordedLifeExtras } from '../../core/life/index.js';
 import { blockHtml, blockNode } from '../../client/src/views/block.js';
 import { recordedBlock } from '../../client/src/views/life-recorded.js';
@@ -73,5 +73,25 @@ describe('recorded-life section', () => {
     expect(svg.querySelector('path[data-kind="curve"]')!.getAttribute('data-family')).toBe('lognormal');
     // Without the recorded extras there is nothing to draw.
     expect(drawSlot('turnbull', box, { report: { ...report, life: { ...report.life, recorded: undefined } }, selected: 'weibull', lifeScale: 'weibull' }, { width: 640, height: 400, units: '' })).toBeNull();
+  });
+
+  it('interval rows: the goodness-of-fit table gives A², p ± its Monte Carlo SE and the verdict by the inspection-scheme bootstrap; exact data say why there is none', () => {
+    const v = readColumns(readFileSync(join(process.cwd(), 'datasets', 'valve-inspections.csv'), 'utf8'), [
+      { select: 'start_months', kind: 'text', keepBlank: true },
+      { select: 'end_months', kind: 'text', keepBlank: true },
+      { select: 'valves', kind: 'number' },
+    ]);
+    const cell = (x: string, empty: number) => (x === '' ? empty : parseStrictNumber(x));
+    const interval = { start: (v.columns[0] as TextColumn).texts.map((x) => cell(x, 0)), end: (v.columns[1] as TextColumn).texts.map((x) => cell(x, Number.POSITIVE_INFINITY)), counts: (v.columns[2] as NumberColumn).values };
+    const rec = JSON.parse(JSON.stringify(analyzeRecordedLife({ interval }, { families: ['weibull', 'exponential'], replicates: 39, seed: 2 })));
+    const b = recordedBlock(rec, null, 'months');
+    const gof = b.tables.find((tb) => /Does each model fit/.test(tb.caption))!;
+    expect(gof.rows.map((r) => r[0])).toEqual(rec.candidates.filter((c: { goodnessOfFit: unknown }) => c.goodnessOfFit).map((c: { label: string }) => c.label));
+    const expo = gof.rows.find((r) => r[0] === 'exponential')!;
+    expect(expo[3]).toBe('39');
+    expect(expo[4]).toMatch(/^rejected/);
+    const exact = recordedBlock(JSON.parse(JSON.stringify(recordedLifeExtras({ times, failed }, {})!.report)), null, 'h');
+    expect(exact.tables.some((tb) => /Does each model fit/.test(tb.caption))).toBe(false);
+    expect(exact.lines.some((l) => /Goodness of fit: .*life section/.test(l.text))).toBe(true);
   });
 });

@@ -55,6 +55,17 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
         r.estimation === 'rank-regression' ? n(c.correlation, 4) : n(c.deltaAicc, 3),
       ]),
     });
+    const tested = r.candidates.filter((c) => c.goodnessOfFit);
+    if (tested.length > 0) {
+      tables.push({
+        caption: `Does each model fit? Anderson–Darling on the nonparametric estimate, p by a bootstrap that re-inspects every unit at its own recorded times (α = ${n(r.alpha, 3)})`,
+        head: ['Model', 'A²', 'p', 'Replicates', 'Verdict'],
+        rows: tested.map((c) => {
+          const g = c.goodnessOfFit!;
+          return [c.label, n(g.statistic), `${n(g.pValue, 3)} ± ${n(g.monteCarloError, 2)}`, String(g.replicates), c.rejected ? 'rejected: the data contradict it' : 'not rejected'];
+        }),
+      });
+    } else if (r.goodnessOfFitNote) lines.push({ kind: 'note', text: `Goodness of fit: ${r.goodnessOfFitNote}.` });
     const rows: string[][] = [];
     for (const c of r.candidates) for (const b of c.bLives) rows.push([`${c.label}: B${n(b.percent, 3)}`, n(b.estimate), n(b.lower), n(b.upper), b.method]);
     if (rows.length > 0) tables.push({ caption: `B-lives${u ? ` [${u}]` : ''} with two-sided ${pct(r.confidence)} bounds where the estimator gives them`, head: ['Life', 'Estimate', 'Lower', 'Upper', 'Estimator and bounds'], rows });
