@@ -245,7 +245,14 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
       },
     });
   }
-  if (settings.capability) quantities.push({ quantity: 'ppm out of spec', value: (c) => (c.ppmOutOfSpec ? { estimate: c.ppmOutOfSpec.total } : null) });
+  if (settings.capability) {
+    // One normal number per report: the normal's ppm is the capability comparison's (overall sd, n - 1), named so.
+    const normalRow = capabilitySection ? [...capabilitySection.comparison.passing, ...capabilitySection.comparison.rejected].find((row) => row.kind === 'normal') : undefined;
+    quantities.push({
+      quantity: 'ppm out of spec',
+      value: (c) => (c.family === 'normal' && normalRow ? { estimate: normalRow.ppmTotal, label: `${c.label} (sd n - 1)` } : c.ppmOutOfSpec ? { estimate: c.ppmOutOfSpec.total } : null),
+    });
+  }
   const sensitivity = quantities.length > 0 ? sensitivityRows(candidates, quantities) : undefined;
 
   return {

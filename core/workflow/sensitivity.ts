@@ -15,6 +15,8 @@ export interface SensitivitySource {
 
 export interface QuantityValue {
   readonly estimate: number;
+  /** The row's name for this value when it is not the candidate's own fit (e.g. the normal with the n - 1 sd). */
+  readonly label?: string;
   readonly lower?: number | null;
   readonly upper?: number | null;
 }
@@ -38,7 +40,7 @@ export function sensitivityRows<C extends SensitivitySource>(
       if (v === null || !Number.isFinite(v.estimate)) continue;
       values.push({
         family: c.family,
-        label: c.label,
+        label: v.label ?? c.label,
         estimate: v.estimate,
         ...(v.lower !== undefined ? { lower: v.lower } : {}),
         ...(v.upper !== undefined ? { upper: v.upper } : {}),

@@ -33,6 +33,20 @@ describe('plumbline analyze: capability transformations', () => {
     expect(r.stdout).toMatch(/No model passes the tests\.\n  Rejected by a test \(shown apart, not in the spread\):/);
     expect(r.stdout).not.toMatch(/Models that pass the tests:/);
   });
+  it('one normal number per report: the sensitivity row gives the comparison\'s normal ppm (overall sd, n - 1) and says so', async () => {
+    const r = await cli('analyze', DATA, '--usl', '120', '--transform', 'boxcox', '--capability-replicates', '19', '--json');
+    const j = JSON.parse(r.stdout);
+    const rows = [...j.capability.comparison.passing, ...j.capability.comparison.rejected];
+    const normal = rows.find((x: { kind: string }) => x.kind === 'normal');
+    expect(normal.sigma).toMatch(/n - 1/);
+    const sens = j.sensitivity.find((s: { quantity: string }) => s.quantity === 'ppm out of spec').values.find((v: { family: string }) => v.family === 'normal');
+    expect(sens.estimate).toBe(normal.ppmTotal);
+    expect(sens.label).toMatch(/sd n - 1/);
+    const txt = await cli('analyze', DATA, '--usl', '120', '--transform', 'boxcox', '--capability-replicates', '19');
+    const shown = [...txt.stdout.matchAll(/normal \(sd n - 1\) ([0-9.]+)/g)].map((m) => m[1]);
+    expect(shown).toHaveLength(1);
+    expect(txt.stdout).toMatch(new RegExp(`normal +sd \\(n - 1\\) +[0-9.]+ +0 +${shown[0]!.replace('.', '\\.')} `));
+  });
   it('default is none; an unknown transformation is refused (exit 2) naming the choices', async () => {
     const d = await cli('analyze', DATA, '--usl', '200', '--capability-replicates', '19', '--json');
     expect(JSON.parse(d.stdout).capability.transform).toEqual({ kind: 'none' });
