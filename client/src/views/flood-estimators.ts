@@ -47,8 +47,8 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
     lines.push({ kind: 'note', text: `Station-skew MSE: ${s.mseMethod}.` });
     tables.push({
       caption: `Log-Pearson III by expected moments: flows by return period, two-sided ${pct(ema.confidence)} intervals (${ema.intervalMethod}).`,
-      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, 'Lower', 'Upper', 'Estimator'],
-      rows: ema.returnLevels.map((x) => [sig(x.period), sig(1 / x.period, 3), sig(x.estimate), end(x.lower, 'not computed'), end(x.upper, 'not computed'), 'expected moments']),
+      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, 'Lower', 'Upper'],
+      rows: ema.returnLevels.map((x) => [sig(x.period), sig(1 / x.period, 3), sig(x.estimate), end(x.lower, 'not computed'), end(x.upper, 'not computed')]),
     });
   } else if (ema && !ema.applicable) {
     lines.push({ kind: 'warning', text: `Log-Pearson III by expected moments was not fitted: ${ema.reason}.` });

@@ -1,0 +1,119 @@
+/**
+ * Flood work on the page: the invented river-peaks demo (datasets/README.md) with "expected
+ * moments" chosen and a regional skew with its mean square error typed in. The section of the
+ * estimators beside maximum likelihood shows log-Pearson III by the expected moments algorithm
+ * (the weighted skew, the low-outlier decision, flows with intervals), the L-moment fits and the
+ * L-moment ratio diagram, with the design-flood cautions; then L-moments alone; at 1366 and
+ * 800 px wide (nothing wider than the window); the exported report carries the section.
+ * Screenshots into test-output/ (git-ignored).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { SKIP_BROWSER } from './server-process.js';
+import { OUT, openSession, waitForStatus, type BrowserSession } from './session.js';
+
+describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
+  let session: BrowserSession;
+  let page: Page;
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    session = await openSession({ problems, acceptDownloads: true, open: true });
+    page = session.page;
+  }, 180_000);
+
+  afterAll(async () => {
+    await session?.close();
+  });
+
+  const block = () => page.locator('[data-block="flood-estimators"]');
+
+  /** Scroll the block into view once the decision area has settled (it redraws after layout changes). */
+  async function showBlock(): Promise<void> {
+    for (let tries = 0; tries < 8; tries++) {
+      try {
+        await block().scrollIntoViewIfNeeded({ timeout: 2000 });
+        return;
+      } catch {
+        await page.waitForTimeout(300);
+      }
+    }
+  }
+
+  async function setField(id: string, value: string): Promise<void> {
+    // Secondary fields sit folded under "More settings": open their disclosure first.
+    await page.evaluate((i) => document.getElementById(i)?.closest('details')?.setAttribute('open', ''), id);
+    const tag = await page.locator(`#${id}`).evaluate((n) => n.tagName);
+    if (tag === 'SELECT') await page.selectOption(`#${id}`, value);
+    else {
+      await page.fill(`#${id}`, value);
+      await page.locator(`#${id}`).dispatchEvent('change');
+    }
+  }
+
+  it('river peaks by expected moments with a regional skew: EMA levels, L-moment fits, ratio diagram, cautions (1366 and 800 px)', { timeout: 300_000 }, async () => {
+    await waitForStatus(page, /^Done: /, 120_000);
+    await page.click('#demo-list button[data-name="river-peaks"]');
+    await waitForStatus(page, /^Done: .* 60 values/, 120_000);
+    await page.waitForSelector('[data-block="flood"]');
+    await setField('regional-skew-mse-input', '0.12');
+    await setField('regional-skew-input', '-0.1');
+    await setField('estimation-select', 'ema');
+    await page.waitForFunction(() => /regional −0\.1 \(MSE 0\.12\)/.test(document.querySelector('[data-block="flood-estimators"]')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    const text = (await block().textContent()) ?? '';
+    // The answer first: the EMA 100... here the largest period of the demo (200 years), with its interval.
+    expect(text).toMatch(/200-year flow by log-Pearson III \(expected moments\): [\d.]+ m³\/s, 90 % interval [\d.]+ to [\d.]+/);
+    expect(text).toMatch(/Skew weighted by mean square errors: station 0\.548/);
+    expect(text).toMatch(/Low outliers: none found/);
+    expect(text).toMatch(/Fits by L-moments/);
+    expect(text).toMatch(/generalized logistic/);
+    expect(text).toMatch(/governing agency/);
+    expect(text).toMatch(/licensed engineer or hydrologist/);
+    // The ratio diagram: the sample's point, four family curves and the bound, four family points.
+    const chart = block().locator('svg[role="img"]').first();
+    await chart.waitFor();
+    expect(await chart.locator('circle[data-kind="sample"]').count()).toBe(1);
+    expect(await chart.locator('path[data-kind="curve"]').count()).toBe(5);
+    expect(await chart.locator('rect[data-kind="family-point"]').count()).toBe(4);
+    await showBlock();
+    await page.screenshot({ path: join(OUT, 'flood-estimators-1366x768.png') });
+
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.waitForTimeout(600);
+    await showBlock();
+    await page.screenshot({ path: join(OUT, 'flood-estimators-800x900.png') });
+    const wide = await page.evaluate(() => {
+      const b = document.querySelector('[data-block="flood-estimators"]') as HTMLElement;
+      const svg = b.querySelector('svg') as SVGSVGElement;
+      return { page: document.documentElement.scrollWidth, window: window.innerWidth, block: b.getBoundingClientRect().right, svg: svg.getBoundingClientRect().right };
+    });
+    expect(wide.page).toBeLessThanOrEqual(wide.window);
+    expect(wide.block).toBeLessThanOrEqual(wide.window);
+    expect(wide.svg).toBeLessThanOrEqual(wide.window);
+    await page.setViewportSize({ width: 1366, height: 768 });
+    await page.waitForTimeout(400);
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, 'report-flood-estimators.html');
+    await download.saveAs(file);
+    const html = readFileSync(file, 'utf8');
+    expect(html).toContain('data-block="flood-estimators"');
+    expect(html).toContain('L-moment ratios');
+    expect(html).toMatch(/licensed engineer or hydrologist/);
+  });
+
+  it('L-moments alone: the five fits as point estimates, no EMA table', { timeout: 200_000 }, async () => {
+    await setField('regional-skew-input', '');
+    await setField('regional-skew-mse-input', '');
+    await setField('estimation-select', 'lmoments');
+    await page.waitForFunction(() => /Flood levels by L-moments/.test(document.querySelector('[data-block="flood-estimators"]')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    const text = (await block().textContent()) ?? '';
+    expect(text).toMatch(/200-year level by L-moment fits: [\d.]+ m³\/s to [\d.]+ m³\/s across the 5 families \(point estimates, no intervals\)/);
+    expect(text).not.toMatch(/expected moments:/);
+    await showBlock();
+    await page.screenshot({ path: join(OUT, 'flood-lmoments-1366x768.png') });
+    expect(problems).toEqual([]);
+  });
+});
