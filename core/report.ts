@@ -82,7 +82,7 @@ export interface AndersonDarlingReport {
   /** Bootstrap only. */
   readonly replicates?: number;
   readonly monteCarloStandardError?: number;
-  /** Bootstrap only: replicates whose refit failed (excluded from `replicates`). */
+  /** Bootstrap only: replicates whose refit failed (included in `replicates`, counted as exceeding the observed A²). */
   readonly failedReplicates?: number;
   readonly seed?: number;
   readonly alpha: number;

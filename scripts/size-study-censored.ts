@@ -5,11 +5,14 @@
  * samples the Weibull is fitted by censored maximum likelihood and its bootstrap p-value (B
  * replicates, refitted) compared with α = 0.05. SE = √(0.05·0.95/R).
  *
- *   npx tsx scripts/size-study-censored.ts [R=1000] [B=99]
+ *   npx tsx scripts/size-study-censored.ts [R=1000] [B=99] [--write]
+ *
+ * --write puts the table into docs/size-study.md (between its size-study:censored markers).
  */
 import { fileURLToPath } from 'node:url';
 import { createRng, getFamily } from '../core/index.js';
 import { censoredGofBootstrap, fitCensored, prepareLifeData } from '../core/life/index.js';
+import { writeSection } from './size-study-write.js';
 
 const SHAPE = 1.5;
 const SCALE = 100;
@@ -69,17 +72,25 @@ export function censoredSizeCell(kind: 'fixed' | 'staggered', q: number, samples
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  const samples = Number(process.argv[2] ?? 1000);
-  const replicates = Number(process.argv[3] ?? 99);
+  const args = process.argv.slice(2).filter((a) => a !== '--write');
+  const write = process.argv.includes('--write');
+  const samples = Number(args[0] ?? 1000);
+  const replicates = Number(args[1] ?? 99);
   const started = Date.now();
-  console.log('| censoring | target censored | censored (measured) | samples | A² size % | SE % |');
-  console.log('|---|---|---|---|---|---|');
+  const lines = ['| censoring | target censored | censored (measured) | samples | A² size % | SE % |', '|---|---|---|---|---|---|'];
+  console.log(lines.join('\n'));
   for (const kind of ['fixed', 'staggered'] as const) {
     for (const q of [0.3, 0.7]) {
       const r = censoredSizeCell(kind, q, samples, replicates);
       const se = 100 * Math.sqrt((0.05 * 0.95) / r.samples);
-      console.log(`| ${kind} | ${100 * q} % | ${(100 * r.censoredShare).toFixed(1)} % | ${r.samples}${r.skipped ? ` (+${r.skipped} not fitted)` : ''} | ${((100 * r.rejected) / r.samples).toFixed(2)} | ${se.toFixed(2)} |`);
+      const size = r.rejected / r.samples;
+      const line = `| ${kind} | ${100 * q} % | ${(100 * r.censoredShare).toFixed(1)} % | ${r.samples}${r.skipped ? ` (+${r.skipped} not fitted)` : ''} | ${(100 * size).toFixed(2)}${Math.abs(size - 0.05) > 0.005 ? ' ⚠' : ''} | ${se.toFixed(2)} |`;
+      lines.push(line);
+      console.log(line);
     }
   }
-  console.log(`\nWeibull shape ${SHAPE}, scale ${SCALE}, n = ${N}; R = ${samples}, B = ${replicates}, α = 0.05, seed ${SEED}; ${((Date.now() - started) / 1000).toFixed(0)} s.`);
+  const tail = `\nWeibull shape ${SHAPE}, scale ${SCALE}, n = ${N}; R = ${samples}, B = ${replicates}, α = 0.05, seed ${SEED}; ${((Date.now() - started) / 1000).toFixed(0)} s. ⚠ marks a size more than 0.5 points from 5 %.`;
+  lines.push(tail);
+  console.log(tail);
+  if (write) writeSection('censored', lines.join('\n'));
 }

@@ -4,9 +4,12 @@
  * from the fitted model, refit the family to every replicate by maximum likelihood, recompute A²
  * at the refitted parameters, and count the replicates at least as large as the observed A²:
  *
- *   p = (1 + #{A²* ≥ A²}) / (B + 1)      (Davison & Hinkley 1997, Bootstrap Methods, eq. 4.11 [from memory])
+ *   p = (1 + #{A²* ≥ A²} + #{unrefittable}) / (B + 1)   (Davison & Hinkley 1997, Bootstrap Methods, eq. 4.11 [from memory])
  *
- * with Monte Carlo standard error √(p(1 - p)/B). Replicate i always uses the random stream
+ * over all B replicates run, a replicate that cannot be refitted counted as exceeding (it can only
+ * raise p, so the test stays conservative and the p-value still describes the n and the model as
+ * given; leaving such replicates out would describe the replicates that happened to refit), with
+ * Monte Carlo standard error √(p(1 - p)/B). Replicate i always uses the random stream
  * `createRng(seed, i)`, so the counts are a pure function of (family, parameters, n, observed,
  * seed, start, end): ranges [start, end) can run anywhere (worker threads) and be added up, and the
  * result is the same whatever the split. Cancellation is checked between replicates.
@@ -55,11 +58,11 @@ export interface BootstrapCounts {
   readonly end: number;
   /** Replicates run (refit succeeded or not); less than end - start only when cancelled. */
   readonly completed: number;
-  /** Replicates whose refit succeeded (the ones that count in B). */
+  /** Replicates whose refit succeeded. */
   readonly valid: number;
   /** Valid replicates with A²* ≥ observed A². */
   readonly exceed: number;
-  /** Replicates whose refit failed (excluded from B). */
+  /** Replicates whose refit failed (counted in B, as exceeding the observed statistic). */
   readonly failed: number;
   readonly cancelled: boolean;
   /**
@@ -194,17 +197,22 @@ export function combineBootstrapCounts(parts: readonly BootstrapCounts[]): Boots
 export interface BootstrapPValue {
   readonly pValue: number;
   readonly monteCarloStandardError: number;
-  /** B: the valid replicates. */
+  /** B: every replicate run (unrefittable ones included, counted as exceeding). */
   readonly replicates: number;
+  /** Of those, the replicates that could not be refitted. */
   readonly failed: number;
 }
 
-/** p = (1 + exceed)/(B + 1) and its Monte Carlo standard error √(p(1 - p)/B). */
+/**
+ * p = (1 + #{A²* ≥ A²} + #{unrefittable})/(B + 1) over every replicate run, and its Monte Carlo
+ * standard error √(p(1 - p)/B). When no replicate could be refitted there is no p-value at all
+ * (not-computable), rather than p = 1.
+ */
 export function bootstrapPValue(counts: BootstrapCounts): BootstrapPValue {
   if (counts.cancelled) throw new PlumblineError('cancelled', 'The bootstrap was cancelled.');
-  const b = counts.valid;
-  if (b === 0) throw new PlumblineError('not-computable', 'No bootstrap replicate could be refitted.');
-  const p = (1 + counts.exceed) / (b + 1);
+  if (counts.valid === 0) throw new PlumblineError('not-computable', 'No bootstrap replicate could be refitted.');
+  const b = counts.completed;
+  const p = (1 + counts.exceed + counts.failed) / (b + 1);
   return { pValue: p, monteCarloStandardError: Math.sqrt((p * (1 - p)) / b), replicates: b, failed: counts.failed };
 }
 

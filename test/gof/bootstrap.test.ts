@@ -48,9 +48,37 @@ describe('parametric bootstrap', () => {
   it('p = (1 + #exceed)/(B + 1) with SE √(p(1 - p)/B) (Davison & Hinkley 1997 [from memory])', () => {
     const counts = runBootstrapRange(jobFor('normal', 199));
     const p = bootstrapPValue(counts);
-    expect(p.replicates).toBe(counts.valid);
-    expect(p.pValue).toBe((1 + counts.exceed) / (counts.valid + 1));
-    expect(p.monteCarloStandardError).toBeCloseTo(Math.sqrt((p.pValue * (1 - p.pValue)) / counts.valid), 15);
+    expect(counts.failed).toBe(0);
+    expect(p.replicates).toBe(199);
+    expect(p.pValue).toBe((1 + counts.exceed) / (199 + 1));
+    expect(p.monteCarloStandardError).toBeCloseTo(Math.sqrt((p.pValue * (1 - p.pValue)) / 199), 15);
+  });
+
+  it('counts a replicate that cannot be refitted as exceeding: p = (1 + #exceed + #failed)/(B + 1) over all B run', () => {
+    // Subnormal data (the invariant suite's case): some gamma replicates' refitted scale underflows.
+    // Counting them as exceeding keeps the test conservative and B the number asked for
+    // (as the censored bootstrap does); leaving them out described only the replicates that refitted.
+    const xs = prepareSample([1e-323, 1e-323, 1e-323, 2.5e-323, 3e-323, 1.5e-323]);
+    const fam = getFamily('gamma');
+    const fit = fam.fit(xs);
+    if (!fit.ok) throw new Error('gamma');
+    const observed = andersonDarlingStatistic(fam.make(fit.parameters), xs.sorted);
+    const counts = runBootstrapRange({ family: 'gamma', parameters: fit.parameters, n: xs.n, observed, seed: 1954, start: 0, end: 39 });
+    expect(counts.failed).toBeGreaterThan(0);
+    const p = bootstrapPValue(counts);
+    expect(p.replicates).toBe(39);
+    expect(p.failed).toBe(counts.failed);
+    expect(p.pValue).toBe((1 + counts.exceed + counts.failed) / 40);
+    const r = analyze(xs.sorted, { families: ['gamma'], pMethod: 'bootstrap', bootstrapReplicates: 39 });
+    const ad = r.candidates[0]?.andersonDarling;
+    expect(ad?.replicates).toBe(39);
+    expect(ad?.failedReplicates).toBe(counts.failed);
+    expect(ad?.methodDetail).toMatch(new RegExp(`${counts.failed} of the 39 replicates could not be refitted and were counted as exceeding`));
+    expect(r.warnings.join('\n')).toMatch(new RegExp(`gamma: ${counts.failed} of 39 bootstrap replicates could not be refitted; they were counted as exceeding`));
+  });
+
+  it('has no p-value when no replicate could be refitted (not p = 1)', () => {
+    expect(() => bootstrapPValue({ start: 0, end: 19, completed: 19, valid: 0, exceed: 0, failed: 19, cancelled: false })).toThrow(/No bootstrap replicate could be refitted/);
   });
 
   it('for the normal case lands near the Table 4.9 p-value (D1, B = 999)', () => {
