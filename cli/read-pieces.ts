@@ -47,13 +47,14 @@ function readWith(
   chunkBytes: number,
   firstPieceChars: number,
   encoding: PiecesRead['encoding'],
+  shared: boolean,
 ): { read: ColumnResult; bytes: number } {
   const fd = openSync(file, 'r');
   try {
     const buf = Buffer.allocUnsafe(chunkBytes);
     const decoder =
       encoding === 'latin-1' ? null : new TextDecoder(encoding, { fatal: encoding === 'utf-8', ignoreBOM: encoding === 'utf-8' });
-    const pieces = new ColumnPieces(options);
+    const pieces = new ColumnPieces(options, { shared });
     let pending = '';
     let bytes = 0;
     let first = true;
@@ -107,7 +108,14 @@ function readWith(
  * Read one column of `file` in pieces of `chunkBytes` bytes; the first piece holds at least
  * `firstPieceChars` characters (tests make it small to cut pieces often).
  */
-export function readColumnInPieces(file: string, options: ColumnOptions, chunkBytes = 16 * 2 ** 20, firstPieceChars = FIRST_PIECE_CHARS): PiecesRead {
+export function readColumnInPieces(
+  file: string,
+  options: ColumnOptions,
+  chunkBytes = 16 * 2 ** 20,
+  firstPieceChars = FIRST_PIECE_CHARS,
+  /** Values on a SharedArrayBuffer (read by the CLI's second thread without a copy). */
+  shared = false,
+): PiecesRead {
   const head = Buffer.alloc(2);
   const fd = openSync(file, 'r');
   let got: number;
@@ -119,11 +127,11 @@ export function readColumnInPieces(file: string, options: ColumnOptions, chunkBy
   const encoding: PiecesRead['encoding'] =
     got === 2 && head[0] === 0xff && head[1] === 0xfe ? 'utf-16le' : got === 2 && head[0] === 0xfe && head[1] === 0xff ? 'utf-16be' : 'utf-8';
   try {
-    const r = readWith(file, options, chunkBytes, firstPieceChars, encoding);
+    const r = readWith(file, options, chunkBytes, firstPieceChars, encoding, shared);
     return { ...r, encoding, warnings: [] };
   } catch (e) {
     if (!(e instanceof NotUtf8)) throw e;
-    const r = readWith(file, options, chunkBytes, firstPieceChars, 'latin-1');
+    const r = readWith(file, options, chunkBytes, firstPieceChars, 'latin-1', shared);
     return { ...r, encoding: 'latin-1', warnings: ['the file is not valid UTF-8; it was read as Latin-1 (ISO 8859-1)'] };
   }
 }

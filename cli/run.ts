@@ -96,15 +96,16 @@ function readInput(args: AnalyzeArgs, fileLabel: string, source: InputText = rea
   const column = columnArg(args, 'column');
   const read = readColumn(source.text, { ...(column !== undefined ? { column } : {}), ...csv });
   const hint = statusColumnHint(source.text, read, csv);
-  return { read, input: cliInput(fileLabel, read, csv.decimal, source.encoding, source.warnings), dataset: { values: read.values }, hint };
+  return { read, input: cliInput(fileLabel, read, csv.decimal, source.encoding, source.warnings), dataset: { values: read.values, sortInPlace: true }, hint };
 }
 
 /** A large file's one value column, read in pieces (cli/read-pieces.ts): never one string. */
 function readLargeColumn(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
   const csv = csvArgs(args);
   const column = columnArg(args, 'column');
-  const r = readColumnInPieces(args.file, { ...(column !== undefined ? { column } : {}), ...csv });
-  return { read: r.read, input: cliInput(fileLabel, r.read, csv.decimal, r.encoding, r.warnings), dataset: { values: r.read.values } };
+  const r = readColumnInPieces(args.file, { ...(column !== undefined ? { column } : {}), ...csv }, undefined, undefined, true);
+  // The values are not needed in file order afterwards: the core sorts them where they are.
+  return { read: r.read, input: cliInput(fileLabel, r.read, csv.decimal, r.encoding, r.warnings), dataset: { values: r.read.values, sortInPlace: true } };
 }
 
 /** Whether to read the file in pieces: one value column from a regular file past PIECES_MIN_BYTES. */

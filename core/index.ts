@@ -4,7 +4,7 @@
  */
 export * from './errors.js';
 export type * from './report.js';
-export { prepareSample } from './sample.js';
+export { LOG_CACHE_MAX_N, prepareSample } from './sample.js';
 export type { Sample } from './sample.js';
 export { createRng } from './random/index.js';
 export type { Rng } from './random/index.js';
@@ -52,6 +52,7 @@ export * from './options/index.js';
 export { formatPValue, pValueText } from './format/index.js';
 export type { PValueKind, PValueResult } from './format/index.js';
 export { analyzeRecordedLife, planTest, weibayes, prepareIntervalLifeData, turnbull, SAFETY_CAUTION, RANK_REGRESSION_REASON } from './life/index.js';
+export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './life/index.js';
 export type {
   RecordedLifeInput,
   RecordedLifeOptions,

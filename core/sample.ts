@@ -24,8 +24,18 @@ export interface Sample {
   readonly zeros: number;
   /** Number of distinct values. */
   readonly distinct: number;
-  /** ln x of `sorted` (ascending as well), or null when some value is ≤ 0. */
+  /**
+   * ln x of `sorted` (ascending as well), cached; null when some value is ≤ 0, and null past
+   * LOG_CACHE_MAX_N values (a second n-length array would not fit the memory a 10^8-value run may
+   * use): visit them with `logBlocks` instead, which works at every size.
+   */
   logs(): Float64Array | null;
+  /**
+   * Visit ln x of `sorted` in ascending order, block by block (`start` = index of block[0]): the
+   * cached array as one block when it is cached, else blocks of LOG_BLOCK computed on the fly.
+   * Throws InputError when some value is ≤ 0.
+   */
+  logBlocks(visit: (block: Float64Array, start: number) => void): void;
   /** Σ ln x (compensated), or NaN when some value is ≤ 0. */
   sumLog(): number;
 }
@@ -46,6 +56,15 @@ function compensated(xs: Float64Array): number {
 const LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 /** Below this size the built-in sort is as fast. */
 const RADIX_MIN = 4096;
+/**
+ * Past this many values neither the radix sort's scratch copy nor the ln x cache is made (each is
+ * another 8 bytes per value): the built-in sort works in place, and ln x is computed block by block.
+ * 2^24 values keep a 10^7-value run near 300 MiB and let 10^8 values (800 MB) run within 1.5 GiB
+ * (measured in bench/batch.ts; common practice, no source).
+ */
+export const LOG_CACHE_MAX_N = 2 ** 24;
+/** Block length of `logBlocks` when ln x is not cached (512 KiB of scratch). */
+const LOG_BLOCK = 65536;
 
 /**
  * Sort finite doubles ascending in place, with exactly the order of Float64Array.prototype.sort
@@ -56,7 +75,7 @@ const RADIX_MIN = 4096;
  */
 function sortAscending(a: Float64Array): void {
   const n = a.length;
-  if (n < RADIX_MIN || !LITTLE_ENDIAN) {
+  if (n < RADIX_MIN || n > LOG_CACHE_MAX_N || !LITTLE_ENDIAN) {
     a.sort();
     return;
   }
@@ -126,14 +145,28 @@ function sortAscending(a: Float64Array): void {
 /**
  * Build a Sample. Throws InputError for non-finite values (with the 0-based index in the
  * message as "value #i", 1-based) and for an empty sample. Does not copy `alreadySorted`
- * when told the array is already ascending and owned by the caller.
+ * when told the array is already ascending and owned by the caller; with `inPlace` a Float64Array
+ * the caller gives up (its order is not needed back) is checked and sorted where it is, not copied.
  */
-export function prepareSample(values: ArrayLike<number>, opts: { alreadySorted?: boolean } = {}): Sample {
+export function prepareSample(
+  values: ArrayLike<number>,
+  opts: { alreadySorted?: boolean; inPlace?: boolean; /** tests: cache ln x only up to this n (default LOG_CACHE_MAX_N) */ logCacheMaxN?: number } = {},
+): Sample {
+  const logCacheMaxN = opts.logCacheMaxN ?? LOG_CACHE_MAX_N;
   const n = values.length;
   if (n === 0) throw new InputError('No values to analyse: the sample is empty.', {}, 'too-few-values');
   let sorted: Float64Array;
   if (opts.alreadySorted && values instanceof Float64Array) sorted = values;
-  else {
+  else if (opts.inPlace && values instanceof Float64Array) {
+    for (let i = 0; i < n; i++) {
+      const v = values[i] as number;
+      if (!Number.isFinite(v)) {
+        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
+      }
+    }
+    sorted = values;
+    sortAscending(sorted);
+  } else {
     sorted = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const v = values[i] as number;
@@ -189,15 +222,45 @@ export function prepareSample(values: ArrayLike<number>, opts: { alreadySorted?:
     distinct,
     logs(): Float64Array | null {
       if (logCache !== undefined) return logCache;
-      if (nonPositive > 0) return (logCache = null);
+      if (nonPositive > 0 || n > logCacheMaxN) return (logCache = null);
       const out = new Float64Array(n);
       for (let i = 0; i < n; i++) out[i] = Math.log(sorted[i] as number);
       return (logCache = out);
     },
+    logBlocks(visit: (block: Float64Array, start: number) => void): void {
+      if (nonPositive > 0) throw new InputError('ln x needs every value > 0.', {}, 'bad-input');
+      const cached = this.logs();
+      if (cached !== null) {
+        visit(cached, 0);
+        return;
+      }
+      const block = new Float64Array(Math.min(LOG_BLOCK, n));
+      for (let start = 0; start < n; start += LOG_BLOCK) {
+        const len = Math.min(LOG_BLOCK, n - start);
+        for (let i = 0; i < len; i++) block[i] = Math.log(sorted[start + i] as number);
+        visit(len === block.length ? block : block.subarray(0, len), start);
+      }
+    },
     sumLog(): number {
       if (sumLogCache !== undefined) return sumLogCache;
-      const l = this.logs();
-      return (sumLogCache = l === null ? Number.NaN : compensated(l));
+      if (nonPositive > 0) return (sumLogCache = Number.NaN);
+      // Neumaier's compensated sum carried across blocks: the same operations, in the same order, as
+      // compensated() over the whole cached array.
+      const acc = new Float64Array(2); // [sum, compensation]
+      this.logBlocks((block) => {
+        let s = acc[0] as number;
+        let c = acc[1] as number;
+        for (let i = 0; i < block.length; i++) {
+          const x = block[i] as number;
+          const t = s + x;
+          if (Math.abs(s) >= Math.abs(x)) c += s - t + x;
+          else c += x - t + s;
+          s = t;
+        }
+        acc[0] = s;
+        acc[1] = c;
+      });
+      return (sumLogCache = (acc[0] as number) + (acc[1] as number));
     },
   };
 }

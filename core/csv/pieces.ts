@@ -67,9 +67,12 @@ function mergeSkipped(into: Map<string, SkipCount>, more: readonly SkipCount[]):
   }
 }
 
+/** Values past which the array grows by a quarter and is handed out without a copy. */
+const BIG = 1 << 22;
+
 /** Accumulates one column over pieces of a file's text (in order); `finish` gives the ColumnResult. */
 export class ColumnPieces {
-  private values = new Float64Array(1 << 16);
+  private values: Float64Array;
   private kept = 0;
   private rowsRead = 0;
   private blankLines = 0;
@@ -78,7 +81,20 @@ export class ColumnPieces {
   private first: ColumnResult | null = null;
   private columnIndex = 0;
 
-  constructor(private readonly options: ColumnOptions) {}
+  /**
+   * `shared`: keep the values on a SharedArrayBuffer, so that a second thread can read them
+   * without a copy (the CLI's large single series, cli/second-thread.ts).
+   */
+  constructor(
+    private readonly options: ColumnOptions,
+    private readonly storage: { readonly shared?: boolean } = {},
+  ) {
+    this.values = this.allocate(1 << 16);
+  }
+
+  private allocate(length: number): Float64Array {
+    return this.storage.shared === true ? new Float64Array(new SharedArrayBuffer(length * Float64Array.BYTES_PER_ELEMENT)) : new Float64Array(length);
+  }
 
   /** Read one piece: whole records only (cut with lastRecordEnd), the file's first piece first. */
   add(text: string): void {
@@ -108,16 +124,18 @@ export class ColumnPieces {
    */
   reserve(rows: number): void {
     if (!(rows > this.values.length)) return;
-    const grown = new Float64Array(Math.ceil(rows));
+    const grown = this.allocate(Math.ceil(rows));
     grown.set(this.values.subarray(0, this.kept));
     this.values = grown;
   }
 
   private append(v: Float64Array): void {
     if (this.kept + v.length > this.values.length) {
+      // Doubling while small; past 2^22 values by a quarter, so that a reserve that fell a little
+      // short does not leave 10^8 values in an array of twice their size.
       let cap = this.values.length;
-      while (cap < this.kept + v.length) cap *= 2;
-      const grown = new Float64Array(cap);
+      while (cap < this.kept + v.length) cap = cap < BIG ? cap * 2 : Math.ceil(cap * 1.25);
+      const grown = this.allocate(cap);
       grown.set(this.values.subarray(0, this.kept));
       this.values = grown;
     }
@@ -132,8 +150,8 @@ export class ColumnPieces {
     }
     const skipped = REASON_ORDER.map((r) => this.skipped.get(r)).filter((s): s is SkipCount => s !== undefined);
     const firstWarnings = this.first.warnings;
-    // The array itself when it is (nearly) full, not a copy: a copy of 10^7 values is 80 MB more.
-    const values = this.kept >= 0.9 * this.values.length ? this.values.subarray(0, this.kept) : this.values.slice(0, this.kept);
+    // The array itself when it is (nearly) full or large, not a copy: a copy of 10^7 values is 80 MB more.
+    const values = this.kept >= 0.9 * this.values.length || this.kept >= BIG ? this.values.subarray(0, this.kept) : this.values.slice(0, this.kept);
     return {
       ...this.first,
       values,

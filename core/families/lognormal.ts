@@ -92,15 +92,16 @@ const { make, applicable } = basics;
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
-  const logs = sample.logs() as Float64Array; // non-null: every value is > 0
   const n = sample.n;
-  const sumLog = sample.sumLog();
+  const sumLog = sample.sumLog(); // every value is > 0
   const meanlog = sumLog / n;
   const ss = new CompensatedSum();
-  for (let i = 0; i < n; i++) {
-    const d = (logs[i] as number) - meanlog;
-    ss.add(d * d);
-  }
+  sample.logBlocks((logs) => {
+    for (let i = 0; i < logs.length; i++) {
+      const d = (logs[i] as number) - meanlog;
+      ss.add(d * d);
+    }
+  });
   const sdlog = Math.sqrt(ss.value / n);
   // At the MLE Σ(ln x - meanlog)²/sdlog² = n, so ln L = -Σ ln x - n ln sdlog - n ln √(2π) - n/2.
   const logLikelihood = -sumLog - n * (Math.log(sdlog) + LN_SQRT_2PI + 0.5);

@@ -131,15 +131,16 @@ const basics = familyBasics({ name: 'weibull', label: 'Weibull', bounds: BOUNDS,
 const { make, applicable } = basics;
 
 /**
- * One pass over the logs at shape c: S0 = Σw, S1 = Σw·y, S2 = Σw·y² with w = exp(c·y),
- * y = ln x - ln max. S0 and S1 are compensated (Neumaier); S2 feeds only the derivative.
+ * One block of the pass over the logs at shape c, carried in `acc` = [s0, c0, s1, c1, s2]:
+ * S0 = Σw, S1 = Σw·y, S2 = Σw·y² with w = exp(c·y), y = ln x - ln max. S0 and S1 are compensated
+ * (Neumaier, the compensation carried across blocks); S2 feeds only the derivative.
  */
-function weightedSums(logs: Float64Array, logMax: number, c: number, out: Float64Array): void {
-  let s0 = 0;
-  let c0 = 0;
-  let s1 = 0;
-  let c1 = 0;
-  let s2 = 0;
+function addWeightedSums(logs: Float64Array, logMax: number, c: number, acc: Float64Array): void {
+  let s0 = acc[0] as number;
+  let c0 = acc[1] as number;
+  let s1 = acc[2] as number;
+  let c1 = acc[3] as number;
+  let s2 = acc[4] as number;
   for (let i = 0; i < logs.length; i++) {
     const y = (logs[i] as number) - logMax;
     const w = Math.exp(c * y);
@@ -154,42 +155,62 @@ function weightedSums(logs: Float64Array, logMax: number, c: number, out: Float6
     s1 = t;
     s2 += wy * y;
   }
-  out[0] = s0 + c0;
-  out[1] = s1 + c1;
-  out[2] = s2;
+  acc[0] = s0;
+  acc[1] = c0;
+  acc[2] = s1;
+  acc[3] = c1;
+  acc[4] = s2;
+}
+
+/** The pass over every ln x (sample.logBlocks) at shape c: out = [S0, S1, S2]. */
+function weightedSums(sample: Sample, logMax: number, c: number, acc: Float64Array, out: Float64Array): void {
+  acc.fill(0);
+  sample.logBlocks((block) => addWeightedSums(block, logMax, c, acc));
+  out[0] = (acc[0] as number) + (acc[1] as number);
+  out[1] = (acc[2] as number) + (acc[3] as number);
+  out[2] = acc[4] as number;
 }
 
 function fit(sample: Sample): FitOutcome {
   const na = applicable(sample);
   if (na) return na;
   const n = sample.n;
-  const logs = sample.logs() as Float64Array; // non-null: every value is > 0
-  const logMax = logs[n - 1] as number;
+  const logMax = Math.log(sample.max); // every value is > 0
   // One pass for Σy (compensated; y = ln x - ln max is formed exactly near the top, so clustered
   // data keep their digits) and Σy² (for Menon's start only).
-  let ys = 0;
-  let yc = 0;
-  let yy = 0;
-  for (let i = 0; i < n; i++) {
-    const y = (logs[i] as number) - logMax;
-    const t = ys + y;
-    if (Math.abs(ys) >= Math.abs(y)) yc += ys - t + y;
-    else yc += y - t + ys;
-    ys = t;
-    yy += y * y;
-  }
+  const first = new Float64Array(3); // [Σy, its compensation, Σy²], carried across blocks
+  sample.logBlocks((logs) => {
+    let ys = first[0] as number;
+    let yc = first[1] as number;
+    let yy = first[2] as number;
+    for (let i = 0; i < logs.length; i++) {
+      const y = (logs[i] as number) - logMax;
+      const t = ys + y;
+      if (Math.abs(ys) >= Math.abs(y)) yc += ys - t + y;
+      else yc += y - t + ys;
+      ys = t;
+      yy += y * y;
+    }
+    first[0] = ys;
+    first[1] = yc;
+    first[2] = yy;
+  });
+  const ys = first[0] as number;
+  const yc = first[1] as number;
+  const yy = first[2] as number;
   const sumY = ys + yc;
   const meanY = sumY / n; // < 0: the values are not all equal
   const sdLog = Math.sqrt(Math.max(yy / n - meanY * meanY, 0));
   const lower = -1 / meanY;
   const start = Math.max(Math.PI / (Math.sqrt(6) * sdLog), 1.5 * lower);
   const sums = new Float64Array(3);
+  const acc = new Float64Array(5);
   // The last evaluation: shape c, ln S0(c) and A(c) = S1/S0 = d ln S0/dc.
   let lastC = Number.NaN;
   let lastLogS0 = Number.NaN;
   let lastA = Number.NaN;
   const profile = (c: number, out: Float64Array): void => {
-    weightedSums(logs, logMax, c, sums);
+    weightedSums(sample, logMax, c, acc, sums);
     const s0 = sums[0] as number;
     const a = (sums[1] as number) / s0;
     lastC = c;

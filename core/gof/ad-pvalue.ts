@@ -37,7 +37,9 @@ export function tablePValue(family: FamilyName, parameters: Parameters, sample: 
           ? andersonDarlingStatistic(getFamily('normal').make({ mean: parameters['mean'] as number, sd: (parameters['sd'] as number) * inflate }), sample.sorted)
           : logs !== null
             ? andersonDarlingStatistic(getFamily('normal').make({ mean: parameters['meanlog'] as number, sd: (parameters['sdlog'] as number) * inflate }), logs)
-            : Number.NaN;
+            : sample.nonPositive === 0 // ln x not cached (very large samples): the lognormal of x, the same statistic
+              ? andersonDarlingStatistic(getFamily('lognormal').make({ meanlog: parameters['meanlog'] as number, sdlog: (parameters['sdlog'] as number) * inflate }), sample.sorted)
+              : Number.NaN;
       if (Number.isNaN(tableA2)) return null;
       const aStar = normalCaseModified(tableA2, n);
       const on = family === 'normal' ? 'x' : 'ln x';

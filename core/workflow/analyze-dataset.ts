@@ -45,7 +45,7 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
   if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
     throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');
   }
-  return { kind: 'complete', input: { values, subgroups: input.subgroups ?? null, order: input.order ?? null } };
+  return { kind: 'complete', input: { values, subgroups: input.subgroups ?? null, order: input.order ?? null, ...(input.sortInPlace === true ? { sortInPlace: true } : {}) } };
 }
 
 export function analyzeDataset(input: DatasetInput & { readonly grouped: NonNullable<DatasetInput['grouped']> }, options?: DatasetOptions): GroupedDatasetReport;

@@ -27,6 +27,8 @@ export interface CompleteInput {
   readonly values: ArrayLike<number>;
   readonly subgroups?: readonly (string | number)[] | null;
   readonly order?: ArrayLike<number> | null;
+  /** See DatasetInput.sortInPlace: used only when there is no order and no subgroup column. */
+  readonly sortInPlace?: boolean;
 }
 
 /** Everything before the bootstrap of a complete sample (the bootstrap jobs can run anywhere). */
@@ -49,7 +51,7 @@ export function planComplete(input: CompleteInput, options: DatasetOptions, sett
   if (input.order && input.order.length !== values.length) {
     throw new InputError(`There are ${input.order.length} order values for ${values.length} values.`, {}, 'bad-input');
   }
-  const sample = prepareSample(values);
+  const sample = prepareSample(values, { inPlace: input.sortInPlace === true && !input.order && !input.subgroups });
   const families: readonly FamilyName[] =
     options.families ?? (settings.returnPeriods !== null ? [...DEFAULT_FAMILIES, ...EXTREME_VALUE_FAMILIES] : DEFAULT_FAMILIES);
   const { confidence: _c, bLifePercents: _b, boundMethod: _m, reliabilityTimes: _r, lifePlotPositions: _l, returnPeriods: _p, designLife: _d, plottingPosition: _pp, lsl: _ls, usl: _us, target: _t, withinMethod: _w, trend: _tr, transform: _tf, naturalLowerBound: _nb, capabilityReplicates: _cr, ...analyzeOptions } = options;
