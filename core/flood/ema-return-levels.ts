@@ -11,7 +11,11 @@
  * threshold"; user intervals kept as given), refits by EMA with the same regional skew, and the
  * interval is the percentile range of the replicates' log10 Q_T. Bulletin 17C's own intervals
  * (Cohn, Lane & Stedinger 2001, WRR 37(6):1695-1706, from the EMA's asymptotic covariance) are
- * not implemented here; the report names the method used.
+ * not implemented here; the report names the method used. Measured coverage of the nominal 90 %
+ * interval of the 100-year quantile on systematic records (scripts/flood-ema-coverage.py, seeded,
+ * 1000 records per case, Monte Carlo s.e. 0.9 points): 87.4 % (skew +0.3, n = 60), 90.4 % (skew −0.3,
+ * n = 60), 85.0 % (skew +0.3, n = 30): somewhat short in short records; the first-order
+ * (delta-method) alternative of ema-variance.ts covered 98–100 % there.
  */
 import type { Rng } from '../random/index.js';
 import { Pearson3Distribution } from '../families/index.js';

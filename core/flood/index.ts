@@ -12,6 +12,8 @@ export type { EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
 export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
 export type { EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
 export { intervalMoments } from './ema-moments.js';
+export { lp3QuantileInterval, lp3QuantileVariance, standardizedRawMoments } from './ema-variance.js';
+export type { QuantileVariance } from './ema-variance.js';
 export { MGB_INWARD_ALPHA, MGB_OUTWARD_ALPHA, mgbPValues, mgbStatistics, multipleGrubbsBeck } from './grubbs-beck.js';
 export type { MgbResult } from './grubbs-beck.js';
 export { STATION_SKEW_MSE_METHOD, stationSkewMse, weightSkew } from './regional-skew.js';
