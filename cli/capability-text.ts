@@ -86,5 +86,15 @@ export function capabilityExtensionLines(c: CapabilitySection): string[] {
   if (s) {
     out.push(wrap(`${s.kind} (order from the ${s.orderFrom}${s.scale && s.scale !== 'original' ? `, on the ${s.scale} scale` : ''}); sigma ${f4(s.sigma)} from ${s.sigmaMethod}. ${s.statement} (${s.source}.)`, '  Stability: ', '  '));
   }
+  const r = c.rangeChart;
+  if (r) {
+    // the location limits sit close to the centre: 7 significant digits so they differ in print
+    const f7 = (x: number): string => formatNumber(x, 7);
+    const lim = (p: { lower: number; upper: number } | undefined, f: (x: number) => string): string => (p ? `${f(p.lower)} … ${f(p.upper)}` : '');
+    const k = r.factors;
+    const factors = k ? ` Factors for subgroups of ${k.n}: A2 ${f4(k.A2)}, D3 ${f4(k.D3)}, D4 ${f4(k.D4)} (d2 ${f4(k.d2)}, d3 ${f4(k.d3)}).` : ' Unequal subgroup sizes: each subgroup has its own limits.';
+    const same = k ? ` x̄ limits ${lim(r.location.points[0], f7)}; range limits ${lim(r.dispersion.points[0], f4)}.` : '';
+    out.push(wrap(`centre x̿ ${f7(r.location.center)}, R̄ ${f4(r.dispersion.center)}; sigma ${f4(r.sigma)} from ${r.sigmaMethod}.${same}${factors} ${r.statement}`, '  Beside it, subgroup means and ranges: ', '  '));
+  }
   return out;
 }

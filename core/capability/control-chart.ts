@@ -8,12 +8,19 @@
  * - X̄ and S (subgroups): σ̂ = mean of sᵢ/c4(nᵢ); X̄ limits x̿ ± 3σ̂/√nᵢ; S limits
  *   c4(nᵢ)σ̂ ± 3σ̂√(1 - c4(nᵢ)²) (lower end floored at 0). With equal sizes these are Montgomery's
  *   x̿ ± A3·s̄, B3·s̄ and B4·s̄ with A3 = 3/(c4√n), B3,4 = 1 ∓ 3√(1 - c4²)/c4.
+ * - X̄ and R (subgroups, shown beside X̄ and S): σ̂ = mean of Rᵢ/d2(nᵢ); X̄ limits x̿ ± 3σ̂/√nᵢ; R limits
+ *   d2(nᵢ)σ̂ ± 3d3(nᵢ)σ̂ (lower end floored at 0). With equal sizes these are Montgomery's x̿ ± A2·R̄,
+ *   D3·R̄ and D4·R̄ with A2 = 3/(d2√n), D3 = max(0, 1 - 3d3/d2), D4 = 1 + 3d3/d2 (Montgomery,
+ *   Appendix VI, factors for variables control charts [from memory; edition not checked]; d2 and d3
+ *   are integrated here, constants.ts, and checked against that table and SciPy in
+ *   test/capability/control-constants.test.ts). The range uses only two values of each subgroup, so
+ *   Montgomery advises the S chart beyond about 10 per subgroup.
  * A point beyond a limit (the first Western Electric rule) marks the process as not shown to be in
  * control; indices of an unstable process do not predict its future output.
  */
 import { CompensatedSum } from '../compensated.js';
 import { InputError } from '../errors.js';
-import { c4, d2 } from './constants.js';
+import { c4, d2, d3 } from './constants.js';
 
 export interface ChartPoint {
   /** Time/order value or subgroup label. */
@@ -25,13 +32,13 @@ export interface ChartPoint {
 }
 
 export interface ChartPanel {
-  readonly statistic: 'individual value' | 'moving range' | 'subgroup mean' | 'subgroup standard deviation';
+  readonly statistic: 'individual value' | 'moving range' | 'subgroup mean' | 'subgroup standard deviation' | 'subgroup range';
   readonly center: number;
   readonly points: readonly ChartPoint[];
 }
 
 export interface StabilityChart {
-  readonly kind: 'individuals and moving range' | 'subgroup means and standard deviations';
+  readonly kind: 'individuals and moving range' | 'subgroup means and standard deviations' | 'subgroup means and ranges';
   readonly location: ChartPanel;
   readonly dispersion: ChartPanel;
   /** The within-process sigma behind the limits and how it was estimated. */
@@ -44,6 +51,25 @@ export interface StabilityChart {
   readonly scale?: string;
   readonly statement: string;
   readonly source: string;
+  /** X̄ and R with equal subgroup sizes: the table factors behind the limits. */
+  readonly factors?: RangeChartFactors;
+}
+
+/** Montgomery's factors for an X̄ and R chart with subgroups of n. */
+export interface RangeChartFactors {
+  readonly n: number;
+  readonly d2: number;
+  readonly d3: number;
+  readonly A2: number;
+  readonly D3: number;
+  readonly D4: number;
+}
+
+/** A2, D3, D4 (and d2, d3) for subgroups of n, from the integrated d2 and d3. */
+export function rangeChartFactors(n: number): RangeChartFactors {
+  const a = d2(n);
+  const b = d3(n);
+  return { n, d2: a, d3: b, A2: 3 / (a * Math.sqrt(n)), D3: Math.max(0, 1 - (3 * b) / a), D4: 1 + (3 * b) / a };
 }
 
 export const D3_PAIR = Math.sqrt(2 * (1 - 2 / Math.PI));
@@ -146,5 +172,68 @@ export function subgroupChart(groups: readonly { readonly label: string | number
     orderFrom: 'subgroup column',
     statement: statement(count),
     source: STABILITY_SOURCE,
+  };
+}
+
+/**
+ * X̄ and R chart of subgroups (first-seen label order); subgroups of one value are skipped. With
+ * equal sizes the limits are x̿ ± A2·R̄, D3·R̄ and D4·R̄ (`factors`).
+ */
+export function subgroupRangeChart(groups: readonly { readonly label: string | number; readonly values: readonly number[] }[]): StabilityChart {
+  const usable = groups.filter((g) => g.values.length >= 2);
+  if (usable.length < 2) throw new InputError('A subgroup chart needs at least 2 subgroups of 2 or more values.', {}, 'not-computable');
+  const stats = usable.map((g) => {
+    const m = new CompensatedSum();
+    let lo = Number.POSITIVE_INFINITY;
+    let hi = Number.NEGATIVE_INFINITY;
+    for (const v of g.values) {
+      m.add(v);
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+    return { label: g.label, n: g.values.length, mean: m.value / g.values.length, range: hi - lo };
+  });
+  const grand = new CompensatedSum();
+  let total = 0;
+  for (const g of stats) {
+    grand.add(g.mean * g.n);
+    total += g.n;
+  }
+  const xbarbar = grand.value / total;
+  const sig = new CompensatedSum();
+  const rSum = new CompensatedSum();
+  for (const g of stats) {
+    sig.add(g.range / d2(g.n));
+    rSum.add(g.range);
+  }
+  const sigma = sig.value / stats.length;
+  const rBar = rSum.value / stats.length;
+  const location: ChartPoint[] = stats.map((g) => {
+    const h = (3 * sigma) / Math.sqrt(g.n);
+    return { label: g.label, value: g.mean, lower: xbarbar - h, upper: xbarbar + h, beyond: beyond(g.mean, xbarbar - h, xbarbar + h) };
+  });
+  const dispersion: ChartPoint[] = stats.map((g) => {
+    const center = d2(g.n) * sigma;
+    const half = 3 * d3(g.n) * sigma;
+    const lo = Math.max(0, center - half);
+    const hi = center + half;
+    return { label: g.label, value: g.range, lower: lo, upper: hi, beyond: beyond(g.range, lo, hi) };
+  });
+  const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  const sizes = new Set(stats.map((g) => g.n));
+  const equal = sizes.size === 1 ? (stats[0] as { n: number }).n : null;
+  const large = Math.max(...sizes) > 10 ? ' Subgroups of more than 10: the S chart is the better one here (the range uses two values of each).' : '';
+  return {
+    kind: 'subgroup means and ranges',
+    location: { statistic: 'subgroup mean', center: xbarbar, points: location },
+    dispersion: { statistic: 'subgroup range', center: rBar, points: dispersion },
+    sigma,
+    sigmaMethod: equal !== null ? `mean range / d2(${equal}) = ${String(Number(rBar.toPrecision(6)))} / ${d2(equal).toFixed(6)}` : 'mean of Rᵢ / d2(nᵢ) over the subgroups',
+    pointsBeyond: count,
+    stable: count === 0,
+    orderFrom: 'subgroup column',
+    statement: statement(count) + large,
+    source: STABILITY_SOURCE.replace('constants c4, d2 computed exactly', 'constants c4, d2, d3 computed exactly; A2, D3, D4 from them'),
+    ...(equal !== null ? { factors: rangeChartFactors(equal) } : {}),
   };
 }

@@ -8,14 +8,14 @@
  *   indices of the best non-normal fitted family (the model capability.ts reports);
  * - `comparison`: every model side by side, rejected ones apart (comparison.ts);
  * - `stability`: an individuals or subgroup chart when an order or subgroup column is given
- *   (control-chart.ts);
+ *   (control-chart.ts); with subgroups also `rangeChart`, the X̄ and R chart beside it;
  * - `bounds`: how a one-sided specification with a natural lower bound was handled.
  */
 import type { FamilyName, Parameters } from '../families/index.js';
 import { PlumblineError } from '../errors.js';
 import { capabilityBootstrapJob, percentileIntervals, type CapabilityBootstrapJob, type CapabilityBootstrapValues, type PercentileIntervals } from './bootstrap.js';
 import { compareModels, type ComparisonCandidate, type ModelComparison } from './comparison.js';
-import { individualsChart, subgroupChart, type StabilityChart } from './control-chart.js';
+import { individualsChart, subgroupChart, subgroupRangeChart, type StabilityChart } from './control-chart.js';
 import type { SpecLimits } from './indices.js';
 import { makeModel, type ModelSpec } from './model.js';
 import { boxCoxTransform } from './boxcox.js';
@@ -73,6 +73,8 @@ export interface CapabilityExtensions {
   readonly percentileIntervals: PercentileIntervals | null;
   readonly comparison: ModelComparison;
   readonly stability: StabilityChart | null;
+  /** With subgroups: the X̄ and R chart beside the X̄ and S one (`stability`), on the same scale. */
+  readonly rangeChart: StabilityChart | null;
   readonly bounds: BoundHandling | null;
   readonly warnings: readonly string[];
 }
@@ -151,6 +153,7 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
   // Shewhart limits assume roughly normal values: with a fitted transformation the chart is drawn on
   // the transformed scale (where the model is normal), so a long tail does not raise false alarms.
   let stability: StabilityChart | null = null;
+  let rangeChart: StabilityChart | null = null;
   const candidateTr = transform.kind !== 'none' && transform.normality.passes ? transform : null;
   const transformed = candidateTr ? Float64Array.from(input.values as ArrayLike<number>, (x) => transformValue(candidateTr.model, x)) : null;
   // a value outside a Johnson SB/SL curve's bounds has no finite transformed value: chart the original scale then
@@ -168,18 +171,22 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
         map.set(k, list);
       }
       const groups = [...map.entries()].map(([label, values]) => ({ label, values }));
-      chart = groups.some((g) => g.values.length >= 2) ? subgroupChart(groups) : individualsChart(scaled, input.order);
+      const subgrouped = groups.some((g) => g.values.length >= 2);
+      chart = subgrouped ? subgroupChart(groups) : individualsChart(scaled, input.order);
+      if (subgrouped) rangeChart = subgroupRangeChart(groups);
     } else if (input.order) chart = individualsChart(scaled, input.order);
     if (chart) {
       const normal = input.candidates.find((c) => c.family === 'normal');
       const skewNote = !tr && normal && normal.rejectedBy.length > 0 ? ' The limits assume roughly normal values and the normal model is rejected here: points beyond on the long-tail side may be false alarms; a transformation (Box–Cox or Johnson) charts the data on a scale where they are normal.' : '';
       stability = { ...chart, scale: scaleName, statement: chart.statement + skewNote };
+      if (rangeChart) rangeChart = { ...rangeChart, scale: scaleName, statement: rangeChart.statement + skewNote };
     }
   } catch (e) {
     if (!(e instanceof PlumblineError) || e.code === 'cancelled') throw e;
     warnings.push(`No stability chart: ${e.message}`);
   }
   if (stability && !stability.stable) warnings.push(`Stability: ${stability.statement}`);
+  else if (rangeChart && !rangeChart.stable) warnings.push(`Stability (subgroup means and ranges): ${rangeChart.statement}`);
 
-  return { transform, percentileIntervals: pIntervals, comparison, stability, bounds, warnings };
+  return { transform, percentileIntervals: pIntervals, comparison, stability, rangeChart, bounds, warnings };
 }

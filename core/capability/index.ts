@@ -1,7 +1,7 @@
 /** Process capability: the one public entry of core/capability. */
 export { capability, CAPABILITY_CAUTION } from './capability.js';
 export type { CapabilityOptions, CapabilityReport, NormalityGate } from './capability.js';
-export { c4, d2 } from './constants.js';
+export { c4, d2, d3 } from './constants.js';
 export { bissellInterval, chiSquareInterval, cpm, normalIndices } from './indices.js';
 export type { IndexEstimate, IndexName, SpecLimits } from './indices.js';
 export { percentileCapability, PERCENTILE_TAIL } from './percentile.js';
@@ -44,7 +44,7 @@ export { transformedCapability } from './transformed.js';
 export type { TransformedCapability, TransformKind, TransformNormality } from './transformed.js';
 export { compareModels, OVERALL_SIGMA, PERCENTILE_SIGMA } from './comparison.js';
 export type { ComparisonCandidate, ComparisonRow, ModelComparison, NormalRowInput } from './comparison.js';
-export { D3_PAIR, D4_PAIR, individualsChart, subgroupChart, STABILITY_SOURCE, UNSTABLE_WARNING } from './control-chart.js';
-export type { ChartPanel, ChartPoint, StabilityChart } from './control-chart.js';
+export { D3_PAIR, D4_PAIR, individualsChart, rangeChartFactors, subgroupChart, subgroupRangeChart, STABILITY_SOURCE, UNSTABLE_WARNING } from './control-chart.js';
+export type { ChartPanel, ChartPoint, RangeChartFactors, StabilityChart } from './control-chart.js';
 export { capabilityExtensions, transformTarget } from './extensions.js';
 export type { BoundHandling, CapabilityExtensions, CapabilityExtensionsInput, ExtensionCandidate, TransformSection } from './extensions.js';

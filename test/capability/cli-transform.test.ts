@@ -47,6 +47,16 @@ describe('plumbline analyze: capability transformations', () => {
     expect(shown).toHaveLength(1);
     expect(txt.stdout).toMatch(new RegExp(`normal +sd \\(n - 1\\) +[0-9.]+ +0 +${shown[0]!.replace('.', '\\.')} `));
   });
+  it('with a subgroup column the X̄ and R chart is given beside the X̄ and S one, with its factors (shaft-diameter demo, subgroups of 5)', async () => {
+    const args = ['analyze', 'datasets/shaft-diameter.csv', '--column', 'diameter_mm', '--subgroup-column', 'subgroup', '--lsl', '24.99', '--usl', '25.01', '--capability-replicates', '19'];
+    const j = JSON.parse((await cli(...args, '--json')).stdout).capability;
+    expect(j.rangeChart.kind).toBe('subgroup means and ranges');
+    expect(j.rangeChart.factors.n).toBe(5);
+    expect(j.rangeChart.location.points).toHaveLength(25);
+    const t = (await cli(...args)).stdout;
+    // Montgomery's table (from memory) prints A2 0.577, D4 2.114 for n = 5
+    expect(t).toMatch(/Beside it, subgroup means and ranges:[\s\S]*A2 0\.5768, D3 0, D4 2\.114/);
+  });
   it('default is none; an unknown transformation is refused (exit 2) naming the choices', async () => {
     const d = await cli('analyze', DATA, '--usl', '200', '--capability-replicates', '19', '--json');
     expect(JSON.parse(d.stdout).capability.transform).toEqual({ kind: 'none' });
