@@ -11,6 +11,7 @@ import {
   type AnyDatasetReport,
   type ColumnResult,
   type DatasetInput,
+  type DatasetOptions,
   type PlumblineError,
 } from '../core/index.js';
 import { analyzeWithProgress } from './analyze-progress.js';
@@ -25,7 +26,7 @@ import { createProgress, type Progress } from './progress.js';
 import { batchArgs, isBatch } from './batch-args.js';
 import { runBatch } from './batch.js';
 import { runMerge } from './merge.js';
-import { secondThread } from './second-thread.js';
+import { PARALLEL_MIN_N, secondThread, type SecondThread } from './second-thread.js';
 import { statusColumnHint } from './status-hint.js';
 import { groupedTextReport } from './grouped-text.js';
 import { textReport } from './text-report.js';
@@ -120,6 +121,21 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): numbe
   if (isFloodPot(args)) return runFloodPot(args, io);
   if (isFloodEma(args)) return runFloodEma(args, io);
   const fileLabel = args.file === '-' ? 'standard input' : args.file;
+  const options = datasetOptionsFrom(args.options);
+  // A file that may hold PARALLEL_MIN_N values: the second thread starts now, while the file is read.
+  const size = source === undefined ? regularFileSize(args.file) : null;
+  const second = io.workerEntry ? secondThread(io.workerEntry, options, size !== null && size >= EARLY_THREAD_MIN_BYTES) : null;
+  try {
+    return analyzeRead(args, io, fileLabel, options, second, source);
+  } finally {
+    second?.stop();
+  }
+}
+
+/** Files at least this large start the second thread before reading (~10 bytes a row: PARALLEL_MIN_N rows). */
+const EARLY_THREAD_MIN_BYTES = 10 * PARALLEL_MIN_N;
+
+function analyzeRead(args: AnalyzeArgs, io: CliIo, fileLabel: string, options: DatasetOptions, second: SecondThread | null, source?: InputText): number {
   const { read, input, dataset, rowNumbers, hint } = source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
   if (hint) io.err(`plumbline: warning: ${hint}\n`);
   if (read.values.length === 0) {
@@ -134,10 +150,9 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): numbe
   }
   let report: AnyDatasetReport;
   try {
-    const options = datasetOptionsFrom(args.options);
     // The bootstrap reports progress on stderr when the run takes longer than a second (cli/progress.ts).
     const progress = io.progress === true ? createProgress((s) => io.err(s), { tty: io.errTty === true }) : SILENT;
-    report = analyzeWithProgress(dataset, io.workerEntry ? { ...options, delegated: secondThread(io.workerEntry, options) } : options, progress);
+    report = analyzeWithProgress(dataset, second !== null ? { ...options, delegated: second } : options, progress);
   } catch (e) {
     throw withFileRow(e, fileLabel, dataset.grouped ? rowNumbers : undefined);
   }

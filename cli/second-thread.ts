@@ -59,14 +59,18 @@ export interface SecondThreadOptions {
 
 interface WorkerInput {
   readonly plumblineSecondThread: true;
-  readonly values: SharedArrayBuffer;
-  /** Where the sorted values start in `values` (bytes) and how many there are. */
-  readonly offset: number;
-  readonly length: number;
   readonly flag: SharedArrayBuffer;
   readonly port: MessagePort;
   readonly families: readonly FamilyName[];
   readonly options: SecondThreadOptions;
+}
+
+/** The one message the worker waits for: the sorted values on shared memory. */
+interface WorkerValues {
+  readonly values: SharedArrayBuffer;
+  /** Where the sorted values start in `values` (bytes) and how many there are. */
+  readonly offset: number;
+  readonly length: number;
 }
 
 type WorkerOutput = { readonly results: readonly EvaluatedFamily[] } | { readonly error: string };
@@ -76,40 +80,80 @@ export function isWorkerRun(): boolean {
   return !isMainThread && (workerData as Partial<WorkerInput> | null)?.plumblineSecondThread === true;
 }
 
-/** The worker's side: evaluate its families on the shared sorted values, post, raise the flag. */
+/**
+ * The worker's side: wait for the shared sorted values (the worker may be started while the main
+ * thread is still reading the file), evaluate its families, post, raise the flag.
+ */
 export function runSecondThread(): void {
   const d = workerData as WorkerInput;
   const flag = new Int32Array(d.flag);
-  let out: WorkerOutput;
-  try {
-    // No ln x cache here (the lognormal and gamma fits need only sums of ln x, visited block by
-    // block): a second n-length array in this thread would be 80 MB more at 10^7 values.
-    const sample = prepareSample(new Float64Array(d.values, d.offset, d.length), { alreadySorted: true, logCacheMaxN: 0 });
-    out = { results: evaluateFamilies(sample, d.families, d.options) };
-  } catch (e) {
-    out = { error: e instanceof Error ? e.message : String(e) };
-  }
-  try {
-    d.port.postMessage(out);
-  } finally {
-    Atomics.store(flag, 0, 1);
-    Atomics.notify(flag, 0);
-    d.port.close();
-  }
+  d.port.once('message', (v: WorkerValues) => {
+    let out: WorkerOutput;
+    try {
+      // No ln x cache here (the lognormal and gamma fits need only sums of ln x, visited block by
+      // block): a second n-length array in this thread would be 80 MB more at 10^7 values.
+      const sample = prepareSample(new Float64Array(v.values, v.offset, v.length), { alreadySorted: true, logCacheMaxN: 0 });
+      out = { results: evaluateFamilies(sample, d.families, d.options) };
+    } catch (e) {
+      out = { error: e instanceof Error ? e.message : String(e) };
+    }
+    try {
+      d.port.postMessage(out);
+    } finally {
+      Atomics.store(flag, 0, 1);
+      Atomics.notify(flag, 0);
+      d.port.close();
+    }
+  });
+}
+
+/** The CLI's handle on the second thread: the `delegated` option for analyzeDataset, and `stop`. */
+export interface SecondThread extends DelegatedFamilies {
+  /** End the worker if it was started and not collected (the run failed before the analysis). */
+  stop(): void;
 }
 
 /**
- * The `delegated` option for analyzeDataset: starts the worker (from `entry`, the running
- * command's own file) once the sample is prepared, if it is large enough.
+ * The `delegated` option for analyzeDataset: a worker (from `entry`, the running command's own
+ * file) that evaluates the AWAY families once the sample is prepared, if it is large enough. With
+ * `early` (a file large enough to give PARALLEL_MIN_N values) the worker is started at once, so that
+ * its start-up (loading the bundle, ~40-90 ms) overlaps the reading of the file; it is ended
+ * unused if the sample turns out small.
  */
-export function secondThread(entry: URL, options: SecondThreadOptions): DelegatedFamilies {
+export function secondThread(entry: URL, options: SecondThreadOptions, early = false): SecondThread {
   let worker: Worker | null = null;
   let port: MessagePort | null = null;
   let flag: Int32Array | null = null;
+  const spawn = (): void => {
+    try {
+      const flagBuffer = new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT);
+      const channel = new MessageChannel();
+      const input: WorkerInput = { plumblineSecondThread: true, flag: flagBuffer, port: channel.port2, families: AWAY, options };
+      worker = new Worker(entry, { workerData: input, transferList: [channel.port2] });
+      worker.on('error', () => {}); // reported as a missing result: collect() falls back
+      worker.unref();
+      port = channel.port1;
+      flag = new Int32Array(flagBuffer);
+    } catch {
+      worker = null;
+    }
+  };
+  const stop = (): void => {
+    if (worker !== null) void worker.terminate();
+    port?.close();
+    worker = null;
+    port = null;
+  };
+  if (early && idleCore()) spawn();
   return {
     families: AWAY,
     start(sample: Sample): void {
-      if (sample.n < PARALLEL_MIN_N || !idleCore()) return;
+      if (sample.n < PARALLEL_MIN_N) return stop();
+      if (worker === null) {
+        if (!idleCore()) return;
+        spawn();
+      }
+      if (worker === null || port === null) return;
       try {
         // The sorted values themselves when they already live on shared memory (the piece reader's
         // array, sorted in place), else one shared copy.
@@ -120,27 +164,24 @@ export function secondThread(entry: URL, options: SecondThreadOptions): Delegate
           values = new Float64Array(new SharedArrayBuffer(sample.n * Float64Array.BYTES_PER_ELEMENT));
           values.set(own);
         }
-        const flagBuffer = new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT);
-        const channel = new MessageChannel();
-        const input: WorkerInput = { plumblineSecondThread: true, values: values.buffer as SharedArrayBuffer, offset: values.byteOffset, length: values.length, flag: flagBuffer, port: channel.port2, families: AWAY, options };
-        worker = new Worker(entry, { workerData: input, transferList: [channel.port2] });
-        worker.on('error', () => {}); // reported as a missing result: collect() falls back
-        worker.unref();
-        port = channel.port1;
-        flag = new Int32Array(flagBuffer);
+        const message: WorkerValues = { values: values.buffer as SharedArrayBuffer, offset: values.byteOffset, length: values.length };
+        (port as MessagePort).postMessage(message);
       } catch {
-        worker = null;
+        stop();
       }
     },
     collect(): readonly EvaluatedFamily[] | null {
       if (worker === null || port === null || flag === null) return null;
-      const w = worker;
+      const w: Worker = worker;
+      const p: MessagePort = port;
       worker = null;
+      port = null;
       const done = Atomics.wait(flag, 0, 0, WAIT_MS) !== 'timed-out';
-      const m = done ? (receiveMessageOnPort(port)?.message as WorkerOutput | undefined) : undefined;
-      port.close();
+      const m = done ? (receiveMessageOnPort(p)?.message as WorkerOutput | undefined) : undefined;
+      p.close();
       if (!done) void w.terminate();
       return m !== undefined && 'results' in m ? m.results : null;
     },
+    stop,
   };
 }
