@@ -13,7 +13,7 @@
  */
 import { InputError } from '../errors.js';
 import type { Distribution } from '../families/index.js';
-import { plotPositions, prepareLifeData, type LifeData, type LifeInput, type PlotPoint, type PlotPositionMethod } from '../life/index.js';
+import { drawingPositions, prepareLifeData, type DrawingPositions, type LifeData, type LifeInput, type PlotPositionMethod } from '../life/index.js';
 import { finiteOrNull, quantileOfPair } from './quantileMap.js';
 import { probabilityTicks, scaleFor, scaleY } from './probabilityPlot.js';
 import { thinMonotone } from './thin.js';
@@ -126,12 +126,14 @@ export function kaplanMeierCdf(life: LifeData, cap: number): CdfEvidence['empiri
  * mapped through the fitted quantile at each plotted height (for Johnson's ranks the Beta(j, n + 1 − j)
  * rank band; for Kaplan–Meier Greenwood's band), so a point outside it is unusual at its height.
  */
-export function censoredProbabilityPlot(dist: Distribution, life: LifeData, points: readonly PlotPoint[], method: PlotPositionMethod, cap: number, bandLevel: number): ProbabilityPlotEvidence {
+export function censoredProbabilityPlot(dist: Distribution, life: LifeData, points: DrawingPositions, method: PlotPositionMethod, cap: number, bandLevel: number): ProbabilityPlotEvidence {
   const spec = scaleFor(dist.family);
   const tx = (v: number): number => (spec.xTransform === 'ln' ? Math.log(v) : v);
-  const hx = Float64Array.from(points, (p) => tx(p.time));
-  const hy = Float64Array.from(points, (p) => p.F);
-  const keep = points.length > 0 ? thinMonotone(hx, hy, cap) : [];
+  const hx = points.time.map(tx);
+  const hy = points.F;
+  // Thinned for drawing first, so only the drawn failures' bands are computed (each a pair of Beta
+  // quantiles for Johnson's ranks): bounded work however many units there are.
+  const keep = points.count > 0 ? thinMonotone(hx, hy, cap) : [];
   const xs: number[] = [];
   const ys: number[] = [];
   const ranks: number[] = [];
@@ -142,8 +144,8 @@ export function censoredProbabilityPlot(dist: Distribution, life: LifeData, poin
   const bandUpper: (number | null)[] = [];
   let omitted = 0;
   for (const j of keep) {
-    const pt = points[j] as PlotPoint;
-    const y = scaleY(spec.scale, pt.F, 1 - pt.F, dist);
+    const F = points.F[j] as number;
+    const y = scaleY(spec.scale, F, 1 - F, dist);
     const x = hx[j] as number;
     if (!Number.isFinite(y) || !Number.isFinite(x)) {
       omitted++;
@@ -151,17 +153,18 @@ export function censoredProbabilityPlot(dist: Distribution, life: LifeData, poin
     }
     xs.push(x);
     ys.push(y);
-    ranks.push(pt.rank);
-    const lx = tx(quantileOfPair(dist, pt.F, 1 - pt.F));
+    ranks.push(points.rank[j] as number);
+    const lx = tx(quantileOfPair(dist, F, 1 - F));
     if (Number.isFinite(lx)) {
       lineX.push(lx);
       lineY.push(y);
     }
+    const band = points.band(j);
     bandY.push(y);
-    bandLower.push(finiteOrNull(tx(quantileOfPair(dist, pt.lower, 1 - pt.lower))));
-    bandUpper.push(finiteOrNull(tx(quantileOfPair(dist, pt.upper, 1 - pt.upper))));
+    bandLower.push(finiteOrNull(tx(quantileOfPair(dist, band.lower, 1 - band.lower))));
+    bandUpper.push(finiteOrNull(tx(quantileOfPair(dist, band.upper, 1 - band.upper))));
   }
-  const ticks = points.length > 0 ? probabilityTicks(spec.scale, (points[0] as PlotPoint).F, (points[points.length - 1] as PlotPoint).F, dist) : [];
+  const ticks = points.count > 0 ? probabilityTicks(spec.scale, points.F[0] as number, points.F[points.count - 1] as number, dist) : [];
   const sx: number[] = [];
   for (const v of marks(life.suspensionTimes, cap).x) {
     const t = tx(v);
@@ -183,13 +186,16 @@ export function censoredProbabilityPlot(dist: Distribution, life: LifeData, poin
     band: { level: bandLevel, y: bandY, lower: bandLower, upper: bandUpper, description },
     probabilityTicks: ticks,
     suspensions: sx,
-    thinned: keep.length < points.length,
-    total: points.length,
+    thinned: keep.length < points.count,
+    total: points.count,
     omitted,
   };
 }
 
-/** The failures' plotting positions (with bands at `bandLevel`) for every candidate of one sample. */
-export function censoredPositions(life: LifeData, method: PlotPositionMethod, bandLevel: number): readonly PlotPoint[] {
-  return plotPositions(life, method, bandLevel).points;
+/**
+ * The failures' plotting positions for every candidate of one sample, bands at `bandLevel` computed
+ * only for the failures a plot draws (shared by the candidates, so each band is computed once).
+ */
+export function censoredPositions(life: LifeData, method: PlotPositionMethod, bandLevel: number): DrawingPositions {
+  return drawingPositions(life, method, bandLevel);
 }

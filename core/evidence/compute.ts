@@ -53,9 +53,9 @@ export function computeEvidence(
   const bandCache = new Map<number, ReturnType<typeof orderStatisticInterval>>();
   const life = censoring ? prepareCensored(sorted, censoring) : null;
   const method = censoring?.positions ?? lifePositionsOf(report) ?? 'johnson-benard';
-  const positions = life ? censoredPositions(life, method, 1 - bandAlpha) : [];
+  const positions = life ? censoredPositions(life, method, 1 - bandAlpha) : null;
   const candidates: CandidateEvidence[] = fitted.map(({ c, dist }) => {
-    if (life) {
+    if (life && positions) {
       return {
         family: c.family,
         label: c.label,

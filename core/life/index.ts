@@ -9,7 +9,7 @@ export { fitWeibullCensored, type WeibullCensoredFit } from './weibull-censored.
 export { fitCensored, logLikelihoodOf, type CensoredFitOutcome, type CensoredFitSuccess, type CensoredFitFailure, type CensoredFitOptions } from './fit.js';
 export { LIFE_FAMILIES, lifeModel, type LifeFamilyName, type LifeModel } from './models.js';
 export { bLife, reliabilityAt, parameterInterval, type BLife, type ReliabilityAt, type BoundedEstimate, type BoundMethod, type LikelihoodSource } from './bounds.js';
-export { plotPositions, johnsonBenardPositions, kaplanMeierPositions, weibullScaleY, lognormalScaleY, type PlotPositions, type PlotPoint, type PlotCoordinates, type PlotPositionMethod } from './positions.js';
+export { plotPositions, drawingPositions, type DrawingPositions, johnsonBenardPositions, kaplanMeierPositions, weibullScaleY, lognormalScaleY, type PlotPositions, type PlotPoint, type PlotCoordinates, type PlotPositionMethod } from './positions.js';
 export { censoredAndersonDarling } from './anderson-darling.js';
 export { censoredGofBootstrap, CENSORED_AD_METHOD, type CensoredGofResult, type BootstrapOptions } from './bootstrap.js';
 export { runCensoredGofRange, censoredGofFromCounts, type CensoredGofJob, type CensoredRangeOptions } from './bootstrap-range.js';

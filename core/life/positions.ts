@@ -60,26 +60,68 @@ export function lognormalScaleY(F: number): number {
   return normalQuantile(F);
 }
 
-export function johnsonBenardPositions(data: LifeData, bandLevel: number): PlotPoint[] {
+/**
+ * The failures' positions for drawing: time, F and rank of every failure at once (one pass, cheap),
+ * and the pointwise band of any one failure on demand, computed when first asked and then kept.
+ * Johnson's band needs two Beta quantiles per failure (a root search each), so a plot that draws a
+ * thinned set of a large sample's failures pays only for the points it draws; the numbers are the
+ * ones `plotPositions` states for the same failure.
+ */
+export interface DrawingPositions {
+  readonly method: PlotPositionMethod;
+  readonly count: number;
+  readonly time: Float64Array;
+  readonly F: Float64Array;
+  readonly rank: Float64Array;
+  /** The pointwise band for F of failure `i` (0-based among the failures, in time order). */
+  band(i: number): { readonly lower: number; readonly upper: number };
+}
+
+function johnsonBenardDrawing(data: LifeData, bandLevel: number): DrawingPositions {
   const n = data.n;
-  const out: PlotPoint[] = [];
+  const count = data.failures;
+  const time = new Float64Array(count);
+  const F = new Float64Array(count);
+  const rank = new Float64Array(count);
   let prev = 0;
-  const a = (1 - bandLevel) / 2;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0, k = 0; i < n; i++) {
     if (!data.failed[i]) continue;
     const reverse = n - i; // units at or after this one
     const j = prev + (n + 1 - prev) / (1 + reverse);
     prev = j;
-    const F = (j - 0.3) / (n + 0.4);
-    const b = n + 1 - j;
-    out.push({ time: data.times[i] as number, F, lower: betaQuantile(a, j, b).x, upper: betaQuantile(1 - a, j, b).x, rank: j });
+    time[k] = data.times[i] as number;
+    F[k] = (j - 0.3) / (n + 0.4);
+    rank[k++] = j;
   }
-  return out;
+  const a = (1 - bandLevel) / 2;
+  const lower = new Float64Array(count).fill(Number.NaN);
+  const upper = new Float64Array(count).fill(Number.NaN);
+  return {
+    method: 'johnson-benard',
+    count,
+    time,
+    F,
+    rank,
+    band(i) {
+      if (Number.isNaN(lower[i] as number)) {
+        const j = rank[i] as number;
+        const b = n + 1 - j;
+        lower[i] = betaQuantile(a, j, b).x;
+        upper[i] = betaQuantile(1 - a, j, b).x;
+      }
+      return { lower: lower[i] as number, upper: upper[i] as number };
+    },
+  };
 }
 
-export function kaplanMeierPositions(data: LifeData, bandLevel: number): PlotPoint[] {
+function kaplanMeierDrawing(data: LifeData, bandLevel: number): DrawingPositions {
+  // Greenwood's band is a running sum: computed for every step in the same pass (no search).
   const z = normalQuantile(0.5 + bandLevel / 2);
-  const out: PlotPoint[] = [];
+  const time: number[] = [];
+  const Fs: number[] = [];
+  const ranks: number[] = [];
+  const lowers: number[] = [];
+  const uppers: number[] = [];
   let S = 1;
   let logS = 0;
   let greenwood = 0;
@@ -102,9 +144,43 @@ export function kaplanMeierPositions(data: LifeData, bandLevel: number): PlotPoi
       lower = S > 0 ? 0 : 1 - sPrev;
       upper = 1;
     }
-    out.push({ time: t, F, lower: Math.min(lower, F), upper: Math.max(upper, F), rank: atRisk });
+    time.push(t);
+    Fs.push(F);
+    ranks.push(atRisk);
+    lowers.push(Math.min(lower, F));
+    uppers.push(Math.max(upper, F));
   });
+  return {
+    method: 'kaplan-meier',
+    count: time.length,
+    time: Float64Array.from(time),
+    F: Float64Array.from(Fs),
+    rank: Float64Array.from(ranks),
+    band: (i) => ({ lower: lowers[i] as number, upper: uppers[i] as number }),
+  };
+}
+
+/** The failures' positions for drawing, bands on demand (see DrawingPositions). */
+export function drawingPositions(data: LifeData, method: PlotPositionMethod = 'johnson-benard', bandLevel = 0.9): DrawingPositions {
+  return method === 'kaplan-meier' ? kaplanMeierDrawing(data, bandLevel) : johnsonBenardDrawing(data, bandLevel);
+}
+
+/** Every failure's position with its band, as the report states them. */
+function allPoints(d: DrawingPositions): PlotPoint[] {
+  const out: PlotPoint[] = [];
+  for (let i = 0; i < d.count; i++) {
+    const b = d.band(i);
+    out.push({ time: d.time[i] as number, F: d.F[i] as number, lower: b.lower, upper: b.upper, rank: d.rank[i] as number });
+  }
   return out;
+}
+
+export function johnsonBenardPositions(data: LifeData, bandLevel: number): PlotPoint[] {
+  return allPoints(johnsonBenardDrawing(data, bandLevel));
+}
+
+export function kaplanMeierPositions(data: LifeData, bandLevel: number): PlotPoint[] {
+  return allPoints(kaplanMeierDrawing(data, bandLevel));
 }
 
 function coordinates(points: readonly PlotPoint[], y: (F: number) => number): PlotCoordinates[] {
