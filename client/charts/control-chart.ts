@@ -38,7 +38,8 @@ function drawPanel(frame: Frame, g: Group, p: ChartPanel, y: ReturnType<typeof y
 export function controlChart(container: Element, chart: StabilityChart, options: ChartOptions): SVGSVGElement {
   const scale = chart.scale && chart.scale !== 'original' ? `, ${chart.scale} scale` : '';
   const individuals = chart.kind === 'individuals and moving range';
-  const title = `Is the process stable? ${individuals ? 'Individual values and moving ranges' : 'Subgroup means and standard deviations'}${scale}`;
+  const what = individuals ? 'Individual values and moving ranges' : chart.kind === 'subgroup means and ranges' ? 'Subgroup means and ranges' : 'Subgroup means and standard deviations';
+  const title = `Is the process stable? ${what}${scale}`;
   const description = `Upper panel: each ${chart.location.statistic} in order with its centre line and dashed 3-sigma limits; lower panel: each ${chart.dispersion.statistic} with its limits. Hollow points lie beyond a limit. ${chart.statement}`;
   const frame = createFrame(container, options, title, description, { notes: [`Limits: ${chart.source}. Sigma ${sig(chart.sigma)} from ${chart.sigmaMethod}.`] });
   const half = (frame.innerHeight - GAP) / 2;

@@ -30,6 +30,8 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       return r.flood ? returnPeriodChart(box, { flood: r.flood, candidates: r.candidates.map((c) => ({ ...c, label: capital(c.label) })), selected }, options) : null;
     case 'control-chart':
       return r.capability?.stability ? controlChart(box, r.capability.stability, options) : null;
+    case 'range-chart':
+      return r.capability?.rangeChart ? controlChart(box, r.capability.rangeChart, options) : null;
     case 'turnbull': {
       const rec = r.life?.recorded?.report;
       if (!rec) return null;

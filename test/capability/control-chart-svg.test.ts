@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 /** The stability chart's SVG: what it shows is what the core's StabilityChart says (meaning first). */
 import { describe, expect, it } from 'vitest';
-import { individualsChart, subgroupChart } from '../../core/capability/index.js';
+import { individualsChart, subgroupChart, subgroupRangeChart } from '../../core/capability/index.js';
 import { controlChart } from '../../client/charts/control-chart.js';
 
 const opts = { width: 640, height: 420, units: 'mm' };
@@ -33,5 +33,15 @@ describe('control chart SVG', () => {
     expect(text).toMatch(/subgroup mean/);
     expect(text).toMatch(/subgroup standard deviation/);
     expect(svg.querySelectorAll('[data-kind="beyond"]').length).toBe(chart.pointsBeyond);
+  });
+  it('subgroup means and ranges: its own title, the range panel, the subgroup beyond D4·R̄ marked', () => {
+    const groups = Array.from({ length: 8 }, (_, i) => ({ label: `S${i + 1}`, values: i === 5 ? [9.9, 10.0, 10.01, 10.1] : [10 + (i % 3) * 0.01, 10.02, 9.99, 10.01] }));
+    const chart = subgroupRangeChart(groups);
+    const svg = controlChart(document.createElement('div'), chart, opts);
+    expect(svg.querySelector('title')!.textContent).toMatch(/^Is the process stable\? Subgroup means and ranges/);
+    const text = [...svg.querySelectorAll('text')].map((t) => t.textContent).join(' | ');
+    expect(text).toMatch(/subgroup range/);
+    const marked = [...svg.querySelectorAll('[data-panel="dispersion"] [data-kind="beyond"] title')].map((t) => t.textContent);
+    expect(marked.some((t) => /^S6: .* above the upper limit/.test(t ?? ''))).toBe(true);
   });
 });

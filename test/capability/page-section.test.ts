@@ -70,4 +70,12 @@ describe('capability page section when no model passes', () => {
     expect(b.answer).toMatch(/^No model passes the tests/);
     expect(b.lines.filter((l) => /^(Upper|Lower) side/.test(l.text)).every((l) => /rejected by a test/.test(l.text))).toBe(true);
   });
+  it('with subgroups: the means-and-ranges chart slot beside the stability chart, and its line with Montgomery\'s factors', () => {
+    const subgroups = skewed.map((_, i) => Math.floor(i / 5));
+    const r3 = analyzeDataset({ values: skewed, subgroups }, { usl: 12, families: ['normal', 'lognormal'], capabilityReplicates: 19, seed: 3 });
+    const b3 = capabilitySection({ report: r3, selected: undefined, units: '' })!;
+    expect(b3.charts).toEqual(['capability-histogram', 'control-chart', 'range-chart']);
+    // factors for subgroups of 5: A2 0.5768 and D4 2.114 (Montgomery prints 0.577 and 2.114, from memory)
+    expect(b3.lines.some((l) => /^Beside it, subgroup means and ranges: .*A2 0\.5768, D3 0, D4 2\.114 /.test(l.text))).toBe(true);
+  });
 });

@@ -96,6 +96,12 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   const spread = cap.comparison?.spread;
   if (spread) lines.push({ kind: 'note', text: `The model matters: among models that pass the tests, the share outside ranges from ${sig(spread.lowest, 3)} ppm (${spread.lowestModel}) to ${sig(spread.highest, 3)} ppm (${spread.highestModel}).` });
   if (cap.stability) lines.push({ kind: cap.stability.stable ? 'fact' : 'warning', text: `Stability (${cap.stability.kind}, order from the ${cap.stability.orderFrom}${cap.stability.scale && cap.stability.scale !== 'original' ? `, on the ${cap.stability.scale} scale` : ''}): ${cap.stability.statement}` });
+  const rc = cap.rangeChart;
+  if (rc) {
+    const k = rc.factors;
+    const factors = k ? ` Factors for subgroups of ${k.n}: A2 ${sig(k.A2)}, D3 ${sig(k.D3)}, D4 ${sig(k.D4)} (Montgomery's table; d2 ${sig(k.d2)} and d3 ${sig(k.d3)} integrated here).` : ' Subgroups of unequal size: each has its own limits.';
+    lines.push({ kind: rc.stable ? 'fact' : 'warning', text: `Beside it, subgroup means and ranges: sigma ${sig(rc.sigma)} from ${rc.sigmaMethod}.${factors} ${rc.statement}` });
+  }
   else lines.push({ kind: 'note', text: 'Stability not checked: give an order or subgroup column to see a control chart; indices of an unstable process do not predict its future.' });
   if (cap.normality) lines.push({ kind: cap.normality.passes ? 'fact' : 'warning', text: `Normality gate: ${cap.normality.statement}` });
   if (t && t.kind !== 'none') {
@@ -147,7 +153,7 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
     lead: 'How far the process sits from each limit, the share expected outside under each model that fits, and what would change the answer.',
     lines,
     tables,
-    // The stability chart (individuals or subgroup means and spread) when the report has a stability section.
-    charts: cap.stability ? ['capability-histogram', 'control-chart'] : ['capability-histogram'],
+    // The stability chart (individuals, or subgroup means and standard deviations) and, with subgroups, the means-and-ranges chart beside it.
+    charts: ['capability-histogram', ...(cap.stability ? (['control-chart'] as const) : []), ...(cap.rangeChart ? (['range-chart'] as const) : [])],
   };
 };
