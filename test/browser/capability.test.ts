@@ -2,7 +2,9 @@
  * The capability section in a real browser: the shaft-diameter demo (invented, 25 subgroups of 5,
  * datasets/README.md) shows the answer first, the passing models with the spread each uses, the
  * rejected models apart, the stability verdict from the subgroup column and the safety caution; the
- * exported HTML report carries the same section.
+ * exported HTML report carries the same section. The pump-seal-wear demo (invented, right-skewed,
+ * 80 values) is then driven through the form's transform select and natural-lower-bound input (ids
+ * from the option table, client/src/page-options.ts) at 1366 and 800 px.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -63,6 +65,56 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
       }
     }
     await page.screenshot({ path: join(OUT, 'capability-section-1366x768.png') });
+    expect(problems).toEqual([]);
+  });
+
+  async function setField(id: string, value: string): Promise<void> {
+    // Secondary fields sit folded under "More settings": open their disclosure first.
+    await page.evaluate((i) => document.getElementById(i)?.closest('details')?.setAttribute('open', ''), id);
+    const tag = await page.locator(`#${id}`).evaluate((n) => n.tagName);
+    if (tag === 'SELECT') await page.selectOption(`#${id}`, value);
+    else {
+      await page.fill(`#${id}`, value);
+      await page.locator(`#${id}`).dispatchEvent('change');
+    }
+  }
+
+  async function showBlock(): Promise<void> {
+    for (let tries = 0; tries < 8; tries++) {
+      try {
+        await page.locator('[data-block="capability"]').scrollIntoViewIfNeeded({ timeout: 2000 });
+        return;
+      } catch {
+        await page.waitForTimeout(300);
+      }
+    }
+  }
+
+  it('pump-seal wear: the transform select and the natural lower bound give the Box–Cox answer, upper side only (1366 and 800 px)', { timeout: 300_000 }, async () => {
+    await page.click('#demo-list button[data-name="pump-seal-wear"]');
+    await waitForStatus(page, /^Done: .* 80 values/, 120_000);
+    await setField('usl-input', '120');
+    await setField('natural-lower-bound-input', '0');
+    await setField('transform-select', 'boxcox');
+    const answer = () => document.querySelector('[data-block="capability"] .block-answer')?.textContent ?? '';
+    await page.waitForFunction((src) => new RegExp(src).test(document.querySelector('[data-block="capability"] .block-answer')?.textContent ?? ''), 'under Box–Cox normal \\(λ = ', { timeout: 120_000 });
+    const block = page.locator('[data-block="capability"]');
+    const text = (await block.textContent()) ?? '';
+    expect(await page.evaluate(answer)).toMatch(/bootstrap interval/);
+    expect(text).toMatch(/Upper limit only, with a natural lower bound at 0/);
+    expect(text).not.toMatch(/Lower side: the 0\.135 % point/);
+    expect(text).toMatch(/Upper side: the 99\.865 % point/);
+    expect(text).toMatch(/safety-critical/);
+    await expect(page.locator('#transform-select').inputValue()).resolves.toBe('boxcox');
+    await showBlock();
+    await page.screenshot({ path: join(OUT, 'capability-boxcox-1366x768.png') });
+    await page.setViewportSize({ width: 800, height: 1000 });
+    await page.waitForTimeout(800);
+    await showBlock();
+    // nothing wider than the window at 800 px
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(800);
+    await page.screenshot({ path: join(OUT, 'capability-boxcox-800x1000.png') });
+    await page.setViewportSize({ width: 1366, height: 768 });
     expect(problems).toEqual([]);
   });
 });
