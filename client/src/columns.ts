@@ -130,3 +130,44 @@ export function guessDecimal(text: string): DecimalGuess {
   if (comma > 0 && point === 0) return { mark: thousands === comma ? '.' : ',', ambiguous: thousands === comma, example };
   return { mark: '.', ambiguous: false, example: '' };
 }
+
+/** A column that looks like the key of several series pooled in one file (a gauge, a part number, a site). */
+export interface SeriesKey {
+  readonly index: number;
+  readonly label: string;
+  /** The different labels seen in the first rows, in order of appearance. */
+  readonly labels: readonly string[];
+}
+
+/**
+ * A column of text labels that splits the rows into runs (G01 G01 … G02 G02 …): the long-table
+ * layout of several series in one file, which fitted as one sample pools different populations.
+ * Looked at on the first 200 rows: every cell filled, not numbers, at least two labels, each label
+ * on one unbroken run of rows, and at least three rows per label on average. A subgroup column is
+ * passed over (subgroups belong to one process by design), as are the columns in `skip` (the value
+ * column and the roles). Common practice, no source.
+ */
+export function seriesKeyColumn(text: string, options: { header: boolean; decimal: '.' | ',' }, columns: readonly ColumnChoice[], skip: readonly number[]): SeriesKey | null {
+  const sample = head(text, 200);
+  for (const c of columns) {
+    if (skip.includes(c.index) || /sub\s*-?group/i.test(c.label)) continue;
+    let texts: readonly string[];
+    try {
+      const t = readColumns(sample, [{ select: c.index, kind: 'text' }], { header: options.header, decimal: options.decimal, skipInvalid: true });
+      const col = t.columns[0];
+      texts = col?.kind === 'text' ? col.texts.map((s) => s.trim()) : [];
+    } catch {
+      continue;
+    }
+    if (texts.length < 6 || texts.some((s) => s === '' || Number.isFinite(parseStrictNumber(s, options.decimal)))) continue;
+    const labels: string[] = [];
+    let runs = 0;
+    for (let i = 0; i < texts.length; i++) {
+      if (i > 0 && texts[i] === texts[i - 1]) continue;
+      runs++;
+      if (!labels.includes(texts[i]!)) labels.push(texts[i]!);
+    }
+    if (labels.length >= 2 && runs === labels.length && texts.length >= 3 * labels.length) return { index: c.index, label: c.label, labels };
+  }
+  return null;
+}

@@ -15,7 +15,7 @@ import { LARGE_BYTES, megabytes, Runner } from './runner.js';
 import { buildSettingsForm, controlFor, isRoleControl, readForm, settingControls, settingKeyOf, showProblems, syncForm } from './form.js';
 import type { Settings } from './settings.js';
 import { glossaryNode } from './views/glossary.js';
-import { $, doneLine, input, noteCensoring, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
+import { $, doneLine, input, noteCensoring, noteSeries, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
 import { exportCsv, exportHtml, exportJson } from './page-export.js';
 import { byId, el } from './dom.js';
 import { planCalculatorNode } from './views/life-plan.js';
@@ -63,6 +63,7 @@ function settingsChanged(delay?: number, changed?: Element): void {
   dispatch({ type: 'settings-edited', patch: readForm() });
   syncForm(state.settings);
   noteCensoring(state);
+  noteSeries(state);
   scheduleRun(delay);
 }
 

@@ -9,6 +9,8 @@ import { blockNode, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { byId, clear, el } from './dom.js';
+import { seriesKeyColumn } from './columns.js';
+import { ROLE_FIELDS } from './page-options.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
 import { capital, modelLabel } from './families.js';
 import { sig } from './format.js';
@@ -96,6 +98,7 @@ export function renderSource(st: PageState): void {
   showSettings(st.settings, reading.columns, reading.column);
   renderLabels(st);
   noteCensoring(st);
+  noteSeries(st);
 }
 
 export function renderLabels(st: PageState): void {
@@ -125,6 +128,28 @@ export function noteCensoring(st: PageState): void {
       `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
       `Do not base a maintenance interval on this fit without a censored-data analysis. `,
     el('button', { type: 'button', className: 'btn small', id: 'use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as failed (1) / still running (0)`),
+  );
+}
+
+/**
+ * A text column that splits the rows into runs (a gauge, a part, a site) means several series in
+ * one file, which fitted as one sample pools different populations: say so, and point to the
+ * many-series page.
+ */
+export function noteSeries(st: PageState): void {
+  const note = $('series-note');
+  const r = st.reading;
+  clear(note);
+  const roles = ROLE_FIELDS.map((f) => st.settings[f.name]).filter((i): i is number => typeof i === 'number' && i > 0);
+  const key = st.source && r.shape === 'values' ? seriesKeyColumn(st.source.csv, { header: r.header, decimal: r.decimal }, r.columns, [r.column, ...roles]) : null;
+  note.hidden = key === null;
+  if (!key) return;
+  const shown = key.labels.slice(0, 4).join(', ') + (key.labels.length > 4 ? ', …' : '');
+  note.append(
+    `Column “${key.label}” splits the rows into runs (${shown}): this looks like several series in one file, and here all their values are fitted as one sample. `,
+    'Analyse each series on its own on the ',
+    el('a', { href: './batch.html' }, 'many-series page'),
+    ', or load one series at a time.',
   );
 }
 

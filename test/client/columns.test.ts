@@ -5,7 +5,7 @@
  * ("it looks like a decimal comma").
  */
 import { describe, expect, it } from 'vitest';
-import { guessDecimal, isRowNumbers, scanColumns } from '../../client/src/columns.js';
+import { guessDecimal, isRowNumbers, scanColumns, seriesKeyColumn } from '../../client/src/columns.js';
 import { buildRequest } from '../../client/src/request.js';
 import { INITIAL_STATE, update } from '../../client/src/state.js';
 
@@ -58,5 +58,34 @@ describe('row-number columns', () => {
 
   it('read with a point instead, no column is numeric: still not the row numbers', () => {
     expect(scanColumns(SPREADSHEET, { header: true, decimal: '.' }).suggested).toBe(2);
+  });
+});
+
+// Several series pooled in one long table (the many-series layout, client/src/batch): a text key
+// in unbroken runs. Invented rows in the layout of datasets/gauge-peaks.csv and seal-failure-modes.csv.
+describe('seriesKeyColumn: a text column that splits the rows into runs', () => {
+  const opts = { header: true, decimal: '.' as const };
+  const cols = (text: string) => scanColumns(text, opts).columns;
+  const rows = (f: (i: number) => string, n: number) => Array.from({ length: n }, (_, i) => f(i)).join('\n');
+
+  it('a gauge column (G01 × 10, G02 × 10, G03 × 10) beside year and peak: found, labels in order', () => {
+    const text = `gauge,year,peak\n${rows((i) => `G0${1 + Math.floor(i / 10)},${1990 + (i % 10)},${100 + i}`, 30)}\n`;
+    expect(seriesKeyColumn(text, opts, cols(text), [3])).toEqual({ index: 1, label: 'gauge', labels: ['G01', 'G02', 'G03'] });
+  });
+
+  it('unit identifiers (each once), a failure-mode column with blanks, labels that alternate, numeric subgroups: none', () => {
+    const units = `seal,hours,status,mode\n${rows((i) => `S${i},${100 + i},${i % 2},${i % 2 ? 'crack' : ''}`, 30)}\n`;
+    expect(seriesKeyColumn(units, opts, cols(units), [2])).toBeNull();
+    const alternating = `line,x\n${rows((i) => `${i % 2 ? 'A' : 'B'},${i}`, 30)}\n`;
+    expect(seriesKeyColumn(alternating, opts, cols(alternating), [2])).toBeNull();
+    const subgroups = `subgroup,d\n${rows((i) => `${1 + Math.floor(i / 5)},${25 + i / 1000}`, 30)}\n`;
+    expect(seriesKeyColumn(subgroups, opts, cols(subgroups), [2])).toBeNull();
+    const textSubgroups = `Sub-group,d\n${rows((i) => `S${1 + Math.floor(i / 5)},${25 + i / 1000}`, 30)}\n`;
+    expect(seriesKeyColumn(textSubgroups, opts, cols(textSubgroups), [2])).toBeNull();
+  });
+
+  it('the value column and the role columns are never the key', () => {
+    const text = `gauge,year,peak\n${rows((i) => `G0${1 + Math.floor(i / 10)},${1990 + (i % 10)},${100 + i}`, 30)}\n`;
+    expect(seriesKeyColumn(text, opts, cols(text), [1, 3])).toBeNull();
   });
 });
