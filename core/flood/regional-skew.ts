@@ -1,16 +1,28 @@
 /**
  * Weighting the station skew with a regional skew by their mean square errors (USGS Bulletin 17B,
- * IACWD 1982, eq. 5; kept in Bulletin 17C, England et al. 2018, §6 [from memory]):
+ * IACWD 1982, eq. 5; kept in Bulletin 17C, England et al. 2018 [from memory]):
  *   G_w = (MSE_R · G_s + MSE_s · G_R) / (MSE_R + MSE_s),
- * the minimum-variance combination of two independent unbiased estimates. The station skew's MSE
- * is Bulletin 17B's approximation (IACWD 1982, after Wallis, Matalas & Slack 1974
- * [from memory]):
- *   MSE_s ≈ 10^(A − B log10(n/10)),
+ * the minimum-variance combination of two independent unbiased estimates.
+ *
+ * The station skew's MSE is the variance of the bias-corrected sample skew of a Pearson III sample
+ * of n values by Griffis & Stedinger (2009, J. Hydrologic Eng. 14(2):121-130), the approximation
+ * Bulletin 17C uses in place of 17B's [both attributions and the coefficients from memory]:
+ *   MSE_s ≈ (6/n + a(n)) [1 + (9/6 + b(n)) G² + (15/48 + c(n)) G⁴],
+ *   a(n) = −17.75/n² + 50.06/n³,
+ *   b(n) = 3.92/n^0.3 − 31.1/n^0.6 + 34.86/n^0.9,
+ *   c(n) = −7.31/n^0.59 + 45.9/n^1.18 − 86.5/n^1.77.
+ * Its leading term 6/n (1 + 3G²/2 + 5G⁴/16) is the large-sample variance of the sample skew of a
+ * Pearson III population (test/flood/ema.test.ts derives it from the moment covariances of
+ * ema-variance.ts); the corrections a, b, c were checked against a seeded SciPy simulation of the
+ * estimator (scripts/fixtures/flood-ema.py "skewVariance": within 3 % for n = 20 to 100, skews −1
+ * to 1, where the 17B formula is off by up to 14 %). n is the record length in years and G the
+ * station skew; for records with censored years Bulletin 17C uses an effective record length
+ * instead, which is not implemented here (the report says so). Bulletin 17B's approximation
+ * (IACWD 1982, after Wallis, Matalas & Slack 1974; coefficients as printed in the TxDOT Hydraulic
+ * Design Manual, ch. 4, quoting 17B) stays available as stationSkewMse17b:
+ *   MSE ≈ 10^(A − B log10(n/10)),
  *   A = −0.33 + 0.08|G| (|G| ≤ 0.90), −0.52 + 0.30|G| (|G| > 0.90),
- *   B = 0.94 − 0.26|G| (|G| ≤ 1.50), 0.55 (|G| > 1.50),
- * with n the record length in years. Bulletin 17C computes the station skew's MSE from the EMA
- * moments and the record's censoring; this file uses the simpler 17B formula with the whole
- * record length, and the report says so.
+ *   B = 0.94 − 0.26|G| (|G| ≤ 1.50), 0.55 (|G| > 1.50).
  */
 import { InputError } from '../errors.js';
 
@@ -28,11 +40,26 @@ export interface SkewWeighting {
 }
 
 export const STATION_SKEW_MSE_METHOD =
-  'Bulletin 17B approximation 10^(A − B log10(n/10)) with n the record length (Bulletin 17C instead derives it from the EMA moments)';
+  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the record length in years (17C\'s effective record length for censored years is not used)';
 
-/** Bulletin 17B's approximate mean square error of a station skew from n years. */
-export function stationSkewMse(skew: number, years: number): number {
+function checkYears(years: number): void {
   if (!(years > 0)) throw new InputError(`the record length must be positive (got ${String(years)})`, {}, 'bad-option');
+}
+
+/** Griffis & Stedinger's (2009) mean square error of the station skew from n years (Bulletin 17C). */
+export function stationSkewMse(skew: number, years: number): number {
+  checkYears(years);
+  const n = years;
+  const a = -17.75 / (n * n) + 50.06 / (n * n * n);
+  const b = 3.92 / Math.pow(n, 0.3) - 31.1 / Math.pow(n, 0.6) + 34.86 / Math.pow(n, 0.9);
+  const c = -7.31 / Math.pow(n, 0.59) + 45.9 / Math.pow(n, 1.18) - 86.5 / Math.pow(n, 1.77);
+  const g2 = skew * skew;
+  return (6 / n + a) * (1 + (9 / 6 + b) * g2 + (15 / 48 + c) * g2 * g2);
+}
+
+/** Bulletin 17B's approximate mean square error of a station skew from n years (superseded by 17C). */
+export function stationSkewMse17b(skew: number, years: number): number {
+  checkYears(years);
   const g = Math.abs(skew);
   const a = g <= 0.9 ? -0.33 + 0.08 * g : -0.52 + 0.3 * g;
   const b = g <= 1.5 ? 0.94 - 0.26 * g : 0.55;

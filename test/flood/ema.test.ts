@@ -5,14 +5,16 @@
  * - the reduction to the moments of log10 Q with a systematic record only (Bulletin 17B eq. 6 skew;
  *   Cohn, Lane & Baier 1997: EMA equals the method of moments without censoring);
  * - the multiple Grubbs–Beck p-values vs a seeded NumPy Monte Carlo of the statistic;
- * - the Bulletin 17B station-skew MSE formula by hand.
+ * - the station-skew MSE (Griffis & Stedinger 2009, Bulletin 17C) vs a seeded SciPy simulation of the skew
+ *   estimator, its large-sample limit, and Bulletin 17B's formula by hand.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { intervalMoments } from '../../core/flood/ema-moments.js';
 import { emaIterate, fitEma, type LogObservation } from '../../core/flood/ema.js';
 import { mgbPValues, mgbStatistics, MGB_REPLICATES, multipleGrubbsBeck } from '../../core/flood/grubbs-beck.js';
-import { stationSkewMse, weightSkew } from '../../core/flood/regional-skew.js';
+import { stationSkewMse, stationSkewMse17b, weightSkew } from '../../core/flood/regional-skew.js';
+import { standardizedRawMoments } from '../../core/flood/ema-variance.js';
 
 interface MomentCase {
   mean: number;
@@ -35,6 +37,7 @@ interface Fixture {
   intervalMoments: MomentCase[];
   mgb: { n: number; k: number; eta: number; p: number; se: number }[];
   ema: { peaks: number[]; intervals: [number | null, number | null][]; station: EmaRef; regional: { skew: number; mse: number; fit: EmaRef } };
+  skewVariance: { skew: number; n: number; variance: number; se: number }[];
 }
 const FIX = JSON.parse(readFileSync(new URL('../fixtures/flood-ema.json', import.meta.url), 'utf8')) as Fixture;
 
@@ -103,11 +106,33 @@ describe('EMA with historical years, censored low values and a lower-bounded pea
   });
 });
 
-describe('regional skew weighting (Bulletin 17B MSE formula, by hand)', () => {
-  it('MSE of a station skew 0.5 from 50 years: 10^(−0.29 − 0.81 log10 5)', () => {
-    expect(rel(stationSkewMse(0.5, 50), Math.pow(10, -0.29 - 0.81 * Math.log10(5)))).toBeLessThanOrEqual(1e-14);
+describe('station-skew MSE: Griffis & Stedinger (2009), the Bulletin 17C approximation [coefficients from memory]', () => {
+  it('matches the variance of the bias-corrected station skew in a seeded SciPy simulation (n = 20, 50, 100; skew −1 … 1; within 3 % and 4 MC s.e.)', () => {
+    for (const r of FIX.skewVariance) {
+      const m = stationSkewMse(r.skew, r.n);
+      expect(Math.abs(m - r.variance), `skew ${r.skew}, n ${r.n}`).toBeLessThan(4 * r.se);
+      expect(rel(m, r.variance)).toBeLessThan(0.03);
+    }
+  });
+  it('the simulation tells it from Bulletin 17B\'s formula (off by more than 10 % in some cells)', () => {
+    const off = FIX.skewVariance.map((r) => rel(stationSkewMse17b(r.skew, r.n), r.variance));
+    expect(Math.max(...off)).toBeGreaterThan(0.1);
+  });
+  it('its leading term is the large-sample variance of the sample skew, ∇gᵀΣ∇g/n with ∇g = (−3, −3γ/2, 1) from the Pearson III raw moments', () => {
+    for (const g of [-1, -0.3, 0, 0.4, 1.2]) {
+      const a = standardizedRawMoments(g);
+      const grad = [-3, -1.5 * g, 1];
+      let v = 0;
+      for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) v += grad[i]! * (a[i + j + 2]! - a[i + 1]! * a[j + 1]!) * grad[j]!;
+      expect(v).toBeCloseTo(6 * (1 + 1.5 * g * g + (5 / 16) * g ** 4), 10);
+      // at large n the correction terms vanish (b(n) ~ 3.92/n^0.3 is the slowest): n·MSE → that limit
+      expect(rel(1e14 * stationSkewMse(g, 1e14), v)).toBeLessThan(1e-3);
+    }
+  });
+  it('Bulletin 17B\'s formula by hand (kept as stationSkewMse17b): 10^(−0.29 − 0.81 log10 5) for G = 0.5, n = 50', () => {
+    expect(rel(stationSkewMse17b(0.5, 50), Math.pow(10, -0.29 - 0.81 * Math.log10(5)))).toBeLessThanOrEqual(1e-14);
     // |G| > 0.9 and > 1.5 branches: A = −0.52 + 0.3|G|, B = 0.55.
-    expect(rel(stationSkewMse(-1.6, 40), Math.pow(10, -0.52 + 0.48 - 0.55 * Math.log10(4)))).toBeLessThanOrEqual(1e-14);
+    expect(rel(stationSkewMse17b(-1.6, 40), Math.pow(10, -0.52 + 0.48 - 0.55 * Math.log10(4)))).toBeLessThanOrEqual(1e-14);
   });
   it('weights are MSE_R/(MSE_R + MSE_S) and MSE_S/(MSE_R + MSE_S)', () => {
     const w = weightSkew(0.5, 50, { skew: -0.1, mse: 0.302 });

@@ -34,8 +34,8 @@ describe('flood estimators on the page and in the text report', () => {
     const b = floodEstimatorsSection({ report: ema, selected: undefined, units: 'm³/s' })!;
     const block = ema.flood!.estimators!.ema!;
     const top = block.applicable ? block.returnLevels[1]! : null;
-    expect(b.answer).toMatch(/^100-year flow by log-Pearson III \(expected moments\): 1130 m³\/s, 90 % interval [\d.]+ to [\d.]+\.$/);
-    expect(Math.round(top!.estimate)).toBe(1130);
+    expect(b.answer).toMatch(/^100-year flow by log-Pearson III \(expected moments\): [\d.]+ m³\/s, 90 % interval [\d.]+ to [\d.]+\.$/);
+    expect(b.answer).toContain(`: ${Number(top!.estimate.toPrecision(4))} m³/s,`);
     const text = b.lines.map((l) => l.text).join(' ');
     expect(text).toMatch(/regional −0\.1 \(MSE 0\.12\)/);
     expect(text).toMatch(/Low outliers: none found/);

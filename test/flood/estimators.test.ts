@@ -5,7 +5,7 @@
  * independently of the TypeScript):
  * - log-Pearson III by EMA on a systematic record without low outliers = the moments of log10 Q
  *   (NumPy mean, ddof=1 sd, SciPy skew(bias=False) = the Bulletin's station skew), flows by SciPy
- *   pearson3.isf; the Bulletin 17B station-skew MSE and the MSE weighting with a regional skew;
+ *   pearson3.isf; the station-skew MSE (Griffis & Stedinger 2009, Bulletin 17C) and the MSE weighting with a regional skew;
  * - sample L-moments from exact binomial PWM weights; L-moment fits (Hosking & Wallis 1997 App. A
  *   coded in Python) and their levels by SciPy's gumbel_r, genextreme, genpareto, pearson3 and the
  *   generalized logistic quantile written out; Pearson III from the exact τ3 by quadrature.
@@ -48,7 +48,7 @@ describe('log-Pearson III by EMA in the flood section (estimation ema)', () => {
     expect(r.flood!.estimators!.requested).toBe('ema');
   });
 
-  it('a regional skew is weighted by inverse MSEs (Bulletin 17B; fixture weights), levels by SciPy at the weighted skew', () => {
+  it('a regional skew is weighted by inverse MSEs (Griffis & Stedinger station-skew MSE; fixture weights), levels by SciPy at the weighted skew', () => {
     const w = run({ estimation: 'ema', regionalSkew: -0.1, regionalSkewMse: 0.12 }).flood!.estimators!.ema as FloodEmaBlock;
     expect(rel(w.parameters.skew, fx.lp3.regional.weightedSkew)).toBeLessThan(1e-12);
     expect(rel(w.skew.stationWeight, fx.lp3.regional.stationWeight)).toBeLessThan(1e-12);
