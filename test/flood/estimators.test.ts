@@ -62,6 +62,20 @@ describe('log-Pearson III by EMA in the flood section (estimation ema)', () => {
     expect(() => quick({ regionalSkew: -0.1, regionalSkewMse: 0.1 })).toThrow(/ask for estimation ema/);
   });
 
+  it('two planted drought years: the multiple Grubbs–Beck test censors them below the smallest retained peak, and the bootstrap intervals still bracket each level', () => {
+    const dry = flows.map((q, i) => (i === 10 ? 9 : i === 30 ? 14 : q));
+    const e = (analyzeDataset({ values: dry }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema', seed: 2 }) as DatasetReport).flood!.estimators!.ema as FloodEmaBlock;
+    expect(e.lowOutliers.count).toBe(2);
+    const retained = dry.filter((q) => q !== 9 && q !== 14);
+    expect(e.lowOutliers.threshold).toBe(Math.min(...retained));
+    expect(e.counts.years).toBe(60);
+    expect(e.iterations).toBeGreaterThan(1);
+    for (const l of e.returnLevels) {
+      expect(l.lower!).toBeLessThan(l.estimate);
+      expect(l.upper!).toBeGreaterThan(l.estimate);
+    }
+  });
+
   it('negative flows: EMA not applicable, said with the reason (the L-moment fits still run)', () => {
     const r2 = analyzeDataset({ values: flows.map((q, i) => (i === 3 ? -q : q)) }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema', seed: 1 }) as DatasetReport;
     const e = r2.flood!.estimators!;
