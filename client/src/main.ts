@@ -73,7 +73,7 @@ async function run(): Promise<void> {
   const out = buildRequest(state);
   showProblems(out.ok ? [] : out.problems);
   if (!out.ok) {
-    const classes = out.problems.find((p) => p.field === 'classes');
+    const classes = out.problems.find((p) => p.field === 'classes' || p.field === 'intervals');
     if (classes) showError(`${source.name}, classes ${columnLabel(state.reading)}: ${classes.message}`);
     setStatus('Fix the highlighted setting to run the analysis.');
     return;
@@ -255,7 +255,13 @@ function wire(): void {
     scheduleRun(0);
   };
   select('column-select').addEventListener('change', () => reading({ column: Number(select('column-select').value) }));
-  select('shape-select').addEventListener('change', () => reading({ shape: select('shape-select').value === 'grouped' ? 'grouped' : 'values' }));
+  select('shape-select').addEventListener('change', () => {
+    const v = select('shape-select').value;
+    reading({ shape: v === 'grouped' || v === 'interval' ? v : 'values' });
+  });
+  select('interval-start-select').addEventListener('change', () => reading({ interval: { start: Number(select('interval-start-select').value) } }));
+  select('interval-end-select').addEventListener('change', () => reading({ interval: { end: Number(select('interval-end-select').value) } }));
+  select('interval-count-select').addEventListener('change', () => reading({ interval: { count: Number(select('interval-count-select').value) } }));
   select('lower-select').addEventListener('change', () => reading({ grouped: { lower: Number(select('lower-select').value) } }));
   select('upper-select').addEventListener('change', () => reading({ grouped: { upper: Number(select('upper-select').value) } }));
   select('count-select').addEventListener('change', () => reading({ grouped: { count: Number(select('count-select').value) } }));

@@ -86,7 +86,8 @@ export function renderSource(st: PageState): void {
   cs.disabled = reading.columns.length <= 1;
   select('shape-select').value = reading.shape;
   $('grouped-cols').hidden = reading.shape !== 'grouped';
-  $('value-cols').hidden = reading.shape === 'grouped';
+  $('interval-cols').hidden = reading.shape !== 'interval';
+  $('value-cols').hidden = reading.shape !== 'values';
   const fill = (id: string, chosen: number): void => {
     const sel = select(id);
     clear(sel);
@@ -95,6 +96,11 @@ export function renderSource(st: PageState): void {
   fill('lower-select', reading.grouped.lower);
   fill('upper-select', reading.grouped.upper);
   fill('count-select', reading.grouped.count);
+  fill('interval-start-select', reading.interval.start);
+  fill('interval-end-select', reading.interval.end);
+  fill('interval-count-select', reading.interval.count);
+  select('interval-count-select').prepend(el('option', { value: '0', selected: reading.interval.count === 0 }, 'none (each row is one unit)'));
+  select('interval-count-select').value = String(reading.interval.count);
   showSettings(st.settings, reading.columns, reading.column);
   renderLabels(st);
   noteCensoring(st);

@@ -103,11 +103,12 @@ const sameAsDefault = (spec: OptionSpec, v: OptionValue): boolean => JSON.string
  * needs (a column role without it is quietly not sent, as the subgroups without a tolerance). The remaining rules between options
  * (conflicts, order) are checked as the API checks them.
  */
-function tradeFields(s: Settings, life: boolean, problems: Problem[]): Map<string, OptionValue> {
-  const given = new Map<string, OptionValue>();
+function tradeFields(s: Settings, life: boolean, problems: Problem[], reading: ReadonlyMap<string, OptionValue> = new Map()): Map<string, OptionValue> {
+  // The reading's own fields (interval columns) count as given; the column roles only for one value per row.
+  const given = new Map<string, OptionValue>(reading);
   for (const r of ROLE_FIELDS) {
     const i = s[r.name];
-    if (typeof i === 'number' && i > 0 && appliesHere(r.spec, life)) given.set(r.name, i);
+    if (reading.size === 0 && typeof i === 'number' && i > 0 && appliesHere(r.spec, life)) given.set(r.name, i);
   }
   for (const f of PAGE_FIELDS) {
     if (FITTING_KEYS.has(f.name) || f.control === 'role') continue;
@@ -150,8 +151,12 @@ export function buildRequest(state: PageState): RequestOutcome {
 
   // Trade sections: only the fields that apply to these data (life with a status column; flood,
   // capability and trend without one), and what the rules between options allow.
-  const life = typeof s.statusColumn === 'number' && s.statusColumn > 0;
-  const wf = tradeFields(s, life, problems);
+  const iv = reading.interval;
+  const intervalFields = new Map<string, OptionValue>(
+    reading.shape === 'interval' ? [['intervalColumns', [iv.start, iv.end]], ...(iv.count > 0 ? [['countColumn', iv.count] as [string, OptionValue]] : [])] : [],
+  );
+  const life = reading.shape === 'interval' || (typeof s.statusColumn === 'number' && s.statusColumn > 0);
+  const wf = tradeFields(s, life, problems, intervalFields);
   const lsl = wf.get('lsl');
   const usl = wf.get('usl');
   if (typeof lsl === 'number' && typeof usl === 'number' && !(lsl < usl)) problems.push({ field: 'usl', message: 'The upper limit must be above the lower one.' });
@@ -173,15 +178,20 @@ export function buildRequest(state: PageState): RequestOutcome {
     const request: GroupedRequest = { grouped, families: [...s.families], alpha: alpha ?? 0.05, ...(typeof seed === 'number' ? { seed } : {}) };
     return { ok: true, built: { kind: 'grouped', request, column, requestedBins: null } };
   }
+  if (reading.shape === 'interval' && new Set([iv.start, iv.end, ...(iv.count > 0 ? [iv.count] : [])]).size !== (iv.count > 0 ? 3 : 2)) {
+    problems.push({ field: 'intervals', message: 'Choose different columns for the start of the interval, its end and the count.' });
+  }
   if (problems.length > 0) return { ok: false, problems };
   if (wf.size > 0 && typeof confidence === 'number') wf.set('confidence', confidence);
+  // Interval rows name their columns in intervalColumns (in wf); there is no value column and no bins.
+  const values = reading.shape !== 'interval';
   const request: AnalyzeRequest = {
     csv: source.csv,
-    column: reading.column,
-    csvOptions: { decimal: reading.decimal, header: reading.header, skipInvalid: true },
+    ...(values ? { column: reading.column } : {}),
+    csvOptions: { decimal: reading.decimal, header: reading.header, skipInvalid: values },
     families: [...s.families],
     alpha: alpha ?? 0.05,
-    bins: bins ?? null,
+    ...(values ? { bins: bins ?? null } : {}),
     pMethod: s.pMethod,
     evidence: true,
     ...(typeof seed === 'number' ? { seed } : {}),

@@ -13,6 +13,7 @@
 import type { AnalyzeResponse } from './api.js';
 import { guessDecimal, scanColumns, type ColumnChoice, type DecimalGuess } from './columns.js';
 import { defaultGroupedColumns, guessGroupedColumns, type GroupedColumns } from './grouped-view.js';
+import { defaultIntervalColumns, guessIntervalColumns, type IntervalColumns } from './interval-view.js';
 import { ROLE_FIELDS } from './page-options.js';
 import { DEFAULT_SETTINGS, demoSettings, type Settings } from './settings.js';
 
@@ -25,6 +26,8 @@ export interface Source {
   readonly rows?: number;
 }
 
+export type Shape = 'values' | 'grouped' | 'interval';
+
 /** How the source's text is read: header, decimal mark, columns, and the shape of the data. */
 export interface Reading {
   readonly header: boolean;
@@ -34,8 +37,10 @@ export interface Reading {
   readonly columns: readonly ColumnChoice[];
   /** The value column (1-based). */
   readonly column: number;
-  readonly shape: 'values' | 'grouped';
+  /** One value per row; class limits with counts; or inspection intervals (start, end, count) of life data. */
+  readonly shape: Shape;
   readonly grouped: GroupedColumns;
+  readonly interval: IntervalColumns;
 }
 
 /** Whose settings are on screen, in words for the page. */
@@ -92,7 +97,7 @@ const NO_GUESS: DecimalGuess = { mark: '.', ambiguous: false, example: '' };
 
 export const INITIAL_STATE: PageState = {
   source: null,
-  reading: { header: true, decimal: '.', decimalGuess: NO_GUESS, columns: [], column: 1, shape: 'values', grouped: { lower: 1, upper: 2, count: 3 } },
+  reading: { header: true, decimal: '.', decimalGuess: NO_GUESS, columns: [], column: 1, shape: 'values', grouped: { lower: 1, upper: 2, count: 3 }, interval: { start: 1, end: 2, count: 0 } },
   settings: DEFAULT_SETTINGS,
   settingsNote: { kind: 'defaults', text: '' },
   labels: { quantity: '', units: '', typed: false },
@@ -113,7 +118,7 @@ export interface DemoInfo {
 export type Action =
   | { readonly type: 'source-loaded'; readonly source: Source; readonly header?: boolean; readonly demo?: DemoInfo; readonly column?: number }
   | { readonly type: 'load-failed'; readonly name: string; readonly message: string }
-  | { readonly type: 'reading-changed'; readonly header?: boolean; readonly decimal?: '.' | ','; readonly column?: number; readonly shape?: 'values' | 'grouped'; readonly grouped?: Partial<GroupedColumns> }
+  | { readonly type: 'reading-changed'; readonly header?: boolean; readonly decimal?: '.' | ','; readonly column?: number; readonly shape?: Shape; readonly grouped?: Partial<GroupedColumns>; readonly interval?: Partial<IntervalColumns> }
   | { readonly type: 'settings-edited'; readonly patch: Partial<Settings> }
   | { readonly type: 'labels-edited'; readonly quantity?: string; readonly units?: string }
   | { readonly type: 'run-started' }
@@ -127,6 +132,7 @@ export type Action =
 export function columnLabel(reading: Reading): string {
   const label = (i: number): string => reading.columns.find((c) => c.index === i)?.label ?? `#${i}`;
   if (reading.shape === 'grouped') return `${label(reading.grouped.lower)}–${label(reading.grouped.upper)}, ${label(reading.grouped.count)}`;
+  if (reading.shape === 'interval') return `${label(reading.interval.start)}–${label(reading.interval.end)}${reading.interval.count > 0 ? `, ${label(reading.interval.count)}` : ''}`;
   return label(reading.column);
 }
 
@@ -161,13 +167,15 @@ function sourceLoaded(state: PageState, a: Extract<Action, { type: 'source-loade
   const demoColumn = a.demo ? first.columns.find((c) => c.label === a.demo!.column)?.index : undefined;
   const scanned = demoColumn !== undefined ? { ...first, column: demoColumn } : first;
   const grouped = guessGroupedColumns(scanned.columns);
+  const interval = grouped ? null : guessIntervalColumns(scanned.columns, a.source.csv, { header, decimal });
   const reading: Reading = {
     header,
     decimal,
     decimalGuess,
     ...scanned,
-    shape: grouped ? 'grouped' : 'values',
+    shape: grouped ? 'grouped' : interval ? 'interval' : 'values',
     grouped: grouped ?? defaultGroupedColumns(scanned.columns),
+    interval: interval ?? defaultIntervalColumns(scanned.columns, a.source.csv, { header, decimal }),
   };
   const columnIndex = (name: string): number => scanned.columns.find((c) => c.label === name)?.index ?? 0;
   const settings = keepRoles(a.demo ? demoSettings(a.demo.fields, columnIndex) : DEFAULT_SETTINGS, reading);
@@ -220,6 +228,7 @@ export function update(state: PageState, action: Action): PageState {
         ...scanned,
         shape: action.shape ?? r.shape,
         grouped: rescan ? defaultGroupedColumns(scanned.columns) : { ...r.grouped, ...action.grouped },
+        interval: rescan ? defaultIntervalColumns(scanned.columns, state.source.csv, { header, decimal }) : { ...r.interval, ...action.interval },
       };
       return { ...state, reading, settings: keepRoles(state.settings, reading) };
     }
@@ -283,6 +292,12 @@ export function shownLabels(state: PageState, guess: (column: string) => { quant
     const raw = guess(r.columns.find((c) => c.index === r.grouped.lower)?.label ?? '');
     const bare = raw.quantity.replace(/\b(lower|low|lo|from|min|limit|bound|edge|class)\b/gi, ' ').replace(/\s+/g, ' ').trim();
     return { quantity: bare ? bare[0]!.toUpperCase() + bare.slice(1) : '', units: raw.units, suggested: true };
+  }
+  if (r.shape === 'interval') {
+    // Inspection intervals: the quantity is named by the end column ("end_months" → time in months).
+    const raw = guess(r.columns.find((c) => c.index === r.interval.end)?.label ?? '');
+    const bare = raw.quantity.replace(/\b(end|start|stop|found|from|to|failed|by|at)\b/gi, ' ').replace(/\s+/g, ' ').trim();
+    return { quantity: bare ? bare[0]!.toUpperCase() + bare.slice(1) : 'Time', units: raw.units, suggested: true };
   }
   return { ...guess(columnLabel(r)), suggested: true };
 }

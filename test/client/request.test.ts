@@ -130,6 +130,24 @@ describe('buildRequest', () => {
     expect(!out.ok && out.problems.map((p) => p.field)).toEqual(['bLifePercents']);
   });
 
+  // Life data found at inspections, in the layout of datasets/valve-inspections.csv (invented rows).
+  const VALVES = 'start_months,end_months,valves\n,6,1\n1.4,1.4,1\n6,12,5\n12,,40\n';
+  it('inspection intervals: the shape is guessed from start/end headers, and the request names the columns, the count and the life fields', () => {
+    const st = loaded(VALVES, { bLifePercents: '1, 10', statusColumn: 2 });
+    expect(st.reading.shape).toBe('interval');
+    expect(st.reading.interval).toEqual({ start: 1, end: 2, count: 3 });
+    const out = buildRequest(st);
+    if (!out.ok || out.built.kind !== 'values') throw new Error('expected a request');
+    const r = out.built.request;
+    expect(r).toMatchObject({ intervalColumns: [1, 2], countColumn: 3, bLifePercents: [1, 10], confidence: 0.9 });
+    // No value column, no bins, and never a status column beside interval rows (the API refuses the pair).
+    for (const k of ['column', 'bins', 'statusColumn']) expect(r).not.toHaveProperty(k);
+    const same = buildRequest(update(st, { type: 'reading-changed', interval: { end: 1 } }));
+    expect(!same.ok && same.problems.map((p) => p.field)).toEqual(['intervals']);
+    const noCount = buildRequest(update(st, { type: 'reading-changed', interval: { count: 0 } }));
+    expect(noCount.ok && noCount.built.request).not.toHaveProperty('countColumn');
+  });
+
   it('class limits with counts become a grouped request read with the core CSV reader', () => {
     const s = loaded('lower,upper,count\n0,1,5\n1,2,9\n2,3,4\n');
     expect(s.reading.shape).toBe('grouped');
