@@ -10,12 +10,13 @@ import {
   EMA_CAUTIONS,
   InputError,
   createRng,
+  emaCandidateFields,
   emaReturnLevels,
   fitEma,
   readColumns,
   readPeakFile,
   type CodeSummary,
-  type EmaFit,
+  type EmaCandidateFields,
   type EmaRecord,
   type EmaReturnLevel,
   type NumberColumn,
@@ -49,19 +50,7 @@ export interface FloodEmaJson {
     readonly codes: readonly CodeSummary[];
     readonly historicalPeriod: { readonly firstYear: number; readonly threshold: number; readonly yearsBelow: number; readonly assumed: boolean } | null;
   };
-  readonly candidates: readonly {
-    readonly family: 'logpearson3';
-    readonly estimation: 'ema';
-    readonly parameters: { readonly mean: number; readonly sd: number; readonly skew: number };
-    readonly logLikelihood: null;
-    readonly skew: EmaFit['skew'];
-    readonly counts: EmaFit['counts'];
-    readonly lowOutliers: { readonly count: number; readonly threshold: number | null; readonly method: string | null };
-    readonly iterations: number;
-    readonly converged: boolean;
-    readonly method: string;
-    readonly returnLevels: readonly EmaReturnLevel[];
-  }[];
+  readonly candidates: readonly (EmaCandidateFields & { readonly returnLevels: readonly EmaReturnLevel[] })[];
   readonly warnings: readonly string[];
   readonly cautions: readonly string[];
 }
@@ -108,19 +97,7 @@ export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
     dataKind: 'flood-ema',
     input: { file, format, codes, historicalPeriod },
     candidates: [
-      {
-        family: 'logpearson3',
-        estimation: 'ema',
-        parameters: fit.parameters,
-        logLikelihood: null,
-        skew: fit.skew,
-        counts: fit.counts,
-        lowOutliers: { count: fit.counts.lowOutliers, threshold: fit.lowOutlierThreshold, method: fit.lowOutlierTest?.method ?? null },
-        iterations: fit.iterations,
-        converged: fit.converged,
-        method: fit.method,
-        returnLevels,
-      },
+      { ...emaCandidateFields(fit), returnLevels },
     ],
     warnings,
     cautions: EMA_CAUTIONS,

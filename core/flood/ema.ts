@@ -236,3 +236,33 @@ export function fitEma(record: EmaRecord): EmaFit {
       (record.regionalSkew ? ', skew weighted with the regional skew by mean square errors' : ', station skew'),
   };
 }
+
+/** The fields of an EMA fit that every report of it carries (the CLI's JSON, the flood section), under the contract's names. */
+export interface EmaCandidateFields {
+  readonly family: 'logpearson3';
+  readonly estimation: 'ema';
+  readonly parameters: EmaFit['parameters'];
+  /** null: the EMA is a moments estimator, not maximum likelihood. */
+  readonly logLikelihood: null;
+  readonly skew: SkewWeighting;
+  readonly counts: EmaCounts;
+  readonly lowOutliers: { readonly count: number; readonly threshold: number | null; readonly method: string | null };
+  readonly iterations: number;
+  readonly converged: boolean;
+  readonly method: string;
+}
+
+export function emaCandidateFields(fit: EmaFit): EmaCandidateFields {
+  return {
+    family: 'logpearson3',
+    estimation: 'ema',
+    parameters: fit.parameters,
+    logLikelihood: null,
+    skew: fit.skew,
+    counts: fit.counts,
+    lowOutliers: { count: fit.counts.lowOutliers, threshold: fit.lowOutlierThreshold, method: fit.lowOutlierTest?.method ?? null },
+    iterations: fit.iterations,
+    converged: fit.converged,
+    method: fit.method,
+  };
+}

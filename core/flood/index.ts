@@ -7,8 +7,8 @@ export { exceedanceRisk, periodForRisk } from './risk.js';
 export { floodFrequency } from './analysis.js';
 export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } from './analysis.js';
 // Log-Pearson III by the expected moments algorithm (Bulletin 17C): EMA, low outliers, regional skew.
-export { emaIterate, fitEma, recordObservations } from './ema.js';
-export type { EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
+export { emaCandidateFields, emaIterate, fitEma, recordObservations } from './ema.js';
+export type { EmaCandidateFields, EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
 export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
 export type { EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
 export { intervalMoments } from './ema-moments.js';

@@ -20,7 +20,7 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName } from '../families/index.js';
-import { DEFAULT_EMA_REPLICATES, EMA_CAUTIONS, emaReturnLevels, fitEma, type EmaFit, type EmaRecord, type SkewWeighting } from '../flood/index.js';
+import { DEFAULT_EMA_REPLICATES, EMA_CAUTIONS, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
 import { fitByLMoments, LMOMENT_FAMILIES, ratioDiagram, sampleLMoments, type LMomentFamily, type RatioDiagram } from '../lmoments/index.js';
 import { createRng } from '../random/index.js';
 import type { MethodNote } from '../report.js';
@@ -36,19 +36,8 @@ export interface EstimatorReturnLevel {
   readonly upper: number | null;
 }
 
-export interface FloodEmaBlock {
+export interface FloodEmaBlock extends EmaCandidateFields {
   readonly applicable: true;
-  readonly family: 'logpearson3';
-  readonly estimation: 'ema';
-  /** Moments of log10 flows; `skew` is the weighted skew when a regional skew was given. */
-  readonly parameters: { readonly mean: number; readonly sd: number; readonly skew: number };
-  readonly logLikelihood: null;
-  readonly skew: SkewWeighting;
-  readonly counts: EmaFit['counts'];
-  readonly lowOutliers: { readonly count: number; readonly threshold: number | null; readonly method: string | null };
-  readonly iterations: number;
-  readonly converged: boolean;
-  readonly method: string;
   readonly confidence: number;
   /** How the intervals were found, in words. */
   readonly intervalMethod: string;
@@ -120,16 +109,7 @@ function emaBlock(values: ArrayLike<number>, s: FloodEstimatorSettings, warnings
   const levels = emaReturnLevels(record, fit, s.periods, { confidence: s.confidence, replicates, rng: createRng(s.seed, EMA_INTERVAL_STREAM) });
   return {
     applicable: true,
-    family: 'logpearson3',
-    estimation: 'ema',
-    parameters: fit.parameters,
-    logLikelihood: null,
-    skew: fit.skew,
-    counts: fit.counts,
-    lowOutliers: { count: fit.counts.lowOutliers, threshold: fit.lowOutlierThreshold, method: fit.lowOutlierTest?.method ?? null },
-    iterations: fit.iterations,
-    converged: fit.converged,
-    method: fit.method,
+    ...emaCandidateFields(fit),
     confidence: s.confidence,
     intervalMethod: levels[0]?.method ?? 'none',
     returnLevels: levels.map((l) => ({ period: l.period, estimate: l.estimate, lower: l.lower, upper: l.upper })),
