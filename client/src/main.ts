@@ -271,8 +271,8 @@ function wire(): void {
     const b = (ev.target as Element).closest<HTMLElement>('#decimal-switch');
     if (b) reading({ decimal: b.dataset['mark'] === ',' ? ',' : '.' });
   });
-  $('column-note').addEventListener('click', (ev) => {
-    const b = (ev.target as Element).closest<HTMLElement>('#use-status');
+  document.addEventListener('click', (ev) => {
+    const b = (ev.target as Element).closest<HTMLElement>('button.use-status');
     if (!b) return;
     const status = controlFor('statusColumn');
     if (status) status.value = b.dataset['column'] ?? '0';

@@ -122,18 +122,25 @@ const STATUS_NAME = /^(status|st|censor(ed|ing)?|cens|event|failed|failure|suspe
  * A file with a status-like column probably marks some values as censored. Fitting every value as
  * observed biases a life estimate low, so say so and offer the column.
  */
+/** A column named like a failed / still-running flag that is not used as the status column, or undefined. */
+function unusedStatusColumn(st: PageState): { index: number; label: string } | undefined {
+  const r = st.reading;
+  const flag = r.shape === 'values' ? r.columns.find((c) => c.index !== r.column && STATUS_NAME.test(c.label.trim())) : undefined;
+  return flag && st.settings.statusColumn !== flag.index ? flag : undefined;
+}
+
 export function noteCensoring(st: PageState): void {
   const note = $('column-note');
   const r = st.reading;
-  const flag = r.shape === 'values' ? r.columns.find((c) => c.index !== r.column && STATUS_NAME.test(c.label.trim())) : undefined;
+  const flag = unusedStatusColumn(st);
   clear(note);
-  note.hidden = !flag || st.settings.statusColumn === flag.index;
-  if (note.hidden || !flag) return;
+  note.hidden = !flag;
+  if (!flag) return;
   note.append(
     `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +
       `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
       `Do not base a maintenance interval on this fit without a censored-data analysis. `,
-    el('button', { type: 'button', className: 'btn small', id: 'use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as failed (1) / still running (0)`),
+    el('button', { type: 'button', className: 'btn small use-status', id: 'use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as failed (1) / still running (0)`),
   );
 }
 
@@ -227,6 +234,18 @@ export function renderAnswer(st: PageState): void {
   $('answer-empty').hidden = a !== null;
   if (resp && isGrouped(resp)) $('answer-empty').textContent = 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.';
   $('answer').classList.toggle('is-undermined', a?.undermined === true);
+  // A failed / still-running column left unused undermines every fit on screen: said where the answer is read, not only beside the column.
+  const flag = st.result ? unusedStatusColumn(st) : undefined;
+  if (flag) {
+    cautions.append(
+      el(
+        'li',
+        {},
+        `Column “${flag.label}” may mark units still running or removed unfailed, but every value of ${st.result?.column ?? 'the column'} is fitted here as a failure: the fits and every life taken from them are biased low. `,
+        el('button', { type: 'button', className: 'btn small use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as the status column`),
+      ),
+    );
+  }
   if (!a) return;
   head.append(el('strong', {}, a.undermined ? 'Not a number to design on as it stands: ' : 'Decision number: '), a.sentence);
   for (const c of a.cautions) cautions.append(el('li', {}, c));

@@ -11,7 +11,7 @@
  * Plotting positions p_i for the i-th smallest of n:
  *   Blom (1958), Statistical Estimates and Transformed Beta-Variables: (i - 3/8)/(n + 1/4), for
  *     the normal-type scales and the Q–Q plot;
- *   Bernard & Bos-Levenbach (1953), median ranks: (i - 0.3)/(n + 0.4), for the Weibull and
+ *   Benard & Bos-Levenbach (1953), median ranks: (i - 0.3)/(n + 0.4), for the Weibull and
  *     exponential (reliability) scales.
  * 1 - p_i is computed directly from its own formula so the upper tail keeps its digits.
  * The band: see orderStatistic.ts. Points are thinned for drawing only (thin.ts); the band and
@@ -30,9 +30,9 @@ export const BLOM: PlottingPosition = {
   source: 'Blom (1958), Statistical Estimates and Transformed Beta-Variables, Wiley',
 };
 export const BERNARD: PlottingPosition = {
-  name: 'Bernard (median ranks)',
+  name: 'Benard (median ranks)',
   formula: '(i - 0.3)/(n + 0.4)',
-  source: 'Bernard & Bos-Levenbach (1953), Statistica Neerlandica 7:163-173 [from memory]',
+  source: 'Benard & Bos-Levenbach (1953), Statistica Neerlandica 7:163-173 [from memory]',
 };
 
 /** Plotting position p_i and 1 - p_i (1-based i), each from its own formula. */

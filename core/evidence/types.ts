@@ -170,7 +170,7 @@ export interface BinCountsEvidence {
 export type ProbabilityScale = 'normal' | 'lognormal' | 'weibull' | 'exponential' | 'quantile-quantile';
 
 export interface PlottingPosition {
-  /** e.g. "Blom" or "Bernard (median ranks)". */
+  /** e.g. "Blom" or "Benard (median ranks)". */
   readonly name: string;
   /** e.g. "(i - 3/8)/(n + 1/4)". */
   readonly formula: string;

@@ -9,9 +9,9 @@ function dist(family: 'normal' | 'lognormal' | 'gamma' | 'weibull' | 'exponentia
 }
 
 describe('probability plot coordinates', () => {
-  it('exponential: -ln(1 - p) with Bernard median ranks (i - 0.3)/(n + 0.4)', () => {
+  it('exponential: -ln(1 - p) with Benard median ranks (i - 0.3)/(n + 0.4)', () => {
     // Hand-computable: n = 5, p_i = (i - 0.3)/5.4, y_i = -ln(1 - p_i). Values from
-    // python3: -numpy.log1p(-(i-0.3)/5.4), i = 1..5 (Bernard & Bos-Levenbach 1953 positions).
+    // python3: -numpy.log1p(-(i-0.3)/5.4), i = 1..5 (Benard & Bos-Levenbach 1953 positions).
     const expected = [0.13883644485421578, 0.3780661339200499, 0.6931471805599453, 1.1557707025080581, 2.043073897508961];
     const data = [12, 40, 75, 130, 260];
     const s = prepareSample(data);
@@ -76,7 +76,7 @@ describe('probability plot coordinates', () => {
   });
 
   it('the order-statistic band contains the fitted line at every plotted point (every family, n = 60 and thinned n = 20000)', () => {
-    // Beta(i, n+1-i) quantiles at 2.5% and 97.5% bracket its median, and the Blom/Bernard positions lie
+    // Beta(i, n+1-i) quantiles at 2.5% and 97.5% bracket its median, and the Blom/Benard positions lie
     // inside (David & Nagaraja 2003 [from memory]); checked here for each family.
     const cases: [Parameters<typeof dist>[0], Record<string, number>][] = [
       ['normal', { mean: 5, sd: 2 }],
