@@ -175,17 +175,11 @@ export function floodEstimatorsFor(
   options: { readonly estimation?: string; readonly regionalSkew?: number | null; readonly regionalSkewMse?: number | null },
   run: { readonly periods: readonly number[]; readonly confidence: number; readonly seed: number },
 ): { readonly section: FloodEstimators; readonly methods: readonly MethodNote[] } | undefined {
+  checkFloodEstimation(options, run.periods);
   const g = options.regionalSkew ?? null;
   const mse = options.regionalSkewMse ?? null;
-  if ((g === null) !== (mse === null)) {
-    throw new InputError('A regional skew and its mean square error go together: the weighting needs both.', {}, 'bad-option');
-  }
   const estimation = options.estimation;
-  if (estimation !== 'ema' && estimation !== 'lmoments') {
-    if (g !== null) throw new InputError('A regional skew weights the log-Pearson III skew of the expected moments algorithm: ask for estimation ema too.', {}, 'bad-option');
-    return undefined;
-  }
-  if (g !== null && estimation !== 'ema') throw new InputError('A regional skew weights the log-Pearson III skew of the expected moments algorithm: ask for estimation ema, not lmoments.', {}, 'bad-option');
+  if (estimation !== 'ema' && estimation !== 'lmoments') return undefined;
   const section = floodEstimators(values, { estimation, periods: run.periods, confidence: run.confidence, seed: run.seed, regionalSkew: g !== null && mse !== null ? { skew: g, mse } : null });
   const methods: MethodNote[] = [
     {
@@ -206,11 +200,28 @@ export function floodEstimatorsFor(
 }
 
 /**
- * A complete sample asking for a flood estimator (`ema`, `lmoments`) needs return periods: the
- * estimators report levels by return period, and without them the request would change nothing.
+ * The flood-estimator options of a complete sample, checked before any fitting: `ema` or
+ * `lmoments` needs return periods (the estimators report levels by return period; without them
+ * the request would change nothing), and a regional skew needs its mean square error and
+ * `estimation: 'ema'` (it weights the EMA's log-Pearson III skew; otherwise it would be ignored).
  */
-export function checkFloodEstimation(options: { readonly estimation?: string }, returnPeriods: readonly number[] | null): void {
+export function checkFloodEstimation(
+  options: { readonly estimation?: string; readonly regionalSkew?: number | null; readonly regionalSkewMse?: number | null },
+  returnPeriods: readonly number[] | null,
+): void {
   const e = options.estimation;
+  const g = options.regionalSkew ?? null;
+  const mse = options.regionalSkewMse ?? null;
+  if ((g === null) !== (mse === null)) {
+    throw new InputError('A regional skew and its mean square error go together: the weighting needs both.', {}, 'bad-option');
+  }
+  if (g !== null && e !== 'ema') {
+    throw new InputError(
+      `A regional skew weights the log-Pearson III skew of the expected moments algorithm: ask for estimation ema${e === 'lmoments' ? ', not lmoments' : ' too'}.`,
+      {},
+      'bad-option',
+    );
+  }
   if ((e === 'ema' || e === 'lmoments') && returnPeriods === null) {
     throw new InputError(
       `Estimation ${e} applies to the flood section of annual maxima: give return periods too (or a threshold with dates for peaks over a threshold on the command line).`,

@@ -78,8 +78,10 @@ describe('flood estimators on the page and in the text report', () => {
     expect(floodEstimatorLines(wire({}))).toEqual([]);
   });
 
-  it('estimation lmoments or ema without return periods is refused, not ignored', () => {
+  it('estimation lmoments or ema without return periods, or a regional skew without ema, is refused, not ignored', () => {
     expect(() => analyzeDataset({ values: flows }, { estimation: 'lmoments', families: ['gumbel'] })).toThrow(/give return periods too/);
     expect(() => analyzeDataset({ values: flows }, { estimation: 'ema', families: ['gumbel'] })).toThrow(/give return periods too/);
+    // A regional skew is refused before any fitting unless it can weigh an EMA skew (never silently ignored).
+    expect(() => analyzeDataset({ values: flows }, { regionalSkew: -0.1, regionalSkewMse: 0.1, families: ['gumbel'] })).toThrow(/ask for estimation ema too/);
   });
 });
