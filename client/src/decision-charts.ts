@@ -38,6 +38,14 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       const c = rec.candidates.find((x) => x.family === selected) ?? rec.candidates[0];
       return turnbullChart(box, { turnbull: rec.turnbull, fitted: c ? { family: c.family, label: capital(c.label), time: c.curves.time, cdf: c.curves.cdf } : null }, options);
     }
+    case 'ema-return-period': {
+      // Log-Pearson III by expected moments on the return-period plot of the flood section's points, with its intervals.
+      const f = r.flood;
+      const ema = f?.estimators?.ema;
+      if (!f || !ema || !ema.applicable) return null;
+      const rows = ema.returnLevels.map((l) => ({ ...l, exceedanceProbability: 1 / l.period, confidence: ema.confidence, beyondRecord: l.period > 2 * f.recordLength }));
+      return returnPeriodChart(box, { flood: f, candidates: [{ family: 'logpearson3', label: 'Log-Pearson III (expected moments)', returnLevels: rows }], selected: 'logpearson3' }, options);
+    }
     case 'lmoment-diagram': {
       const lm = r.flood?.estimators?.lmoments;
       return lm && lm.applicable ? lmomentDiagramChart(box, lm.diagram, options) : null;

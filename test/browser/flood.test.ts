@@ -72,8 +72,12 @@ describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
     expect(text).toMatch(/governing agency/);
     expect(text).toMatch(/licensed engineer or hydrologist/);
     // The ratio diagram: the sample's point, four family curves and the bound, four family points.
-    const chart = block().locator('svg[role="img"]').first();
-    await chart.waitFor();
+    // Two charts: the EMA levels on the return-period plot, and the ratio diagram.
+    const charts = block().locator('svg[role="img"]');
+    await charts.nth(1).waitFor();
+    expect(await charts.count()).toBe(2);
+    expect(await charts.nth(0).locator('path[data-kind="curve"][data-family="logpearson3"]').count()).toBe(1);
+    const chart = charts.filter({ hasText: 'L-moment ratios' });
     expect(await chart.locator('circle[data-kind="sample"]').count()).toBe(1);
     expect(await chart.locator('path[data-kind="curve"]').count()).toBe(5);
     expect(await chart.locator('rect[data-kind="family-point"]').count()).toBe(4);

@@ -43,7 +43,7 @@ describe('flood estimators on the page and in the text report', () => {
     expect(b.tables[0]!.caption).toMatch(/^Log-Pearson III by expected moments/);
     expect(b.tables[0]!.head[2]).toBe('Flow [m³/s]');
     expect(b.tables[1]!.head[0]).toBe('Model (L-moments)');
-    expect(b.charts).toEqual(['lmoment-diagram']);
+    expect(b.charts).toEqual(['ema-return-period', 'lmoment-diagram']);
     const node = blockNode(b, () => document.createElement('div'));
     expect(node.textContent).toContain('Flood levels by expected moments and L-moments');
     expect(blockHtml(b, () => '')).toContain('data-block="flood-estimators"');
@@ -67,6 +67,16 @@ describe('flood estimators on the page and in the text report', () => {
     expect(svg).not.toBeNull();
     expect(svg!.textContent).toContain('L-moment ratios');
     expect(drawSlot('lmoment-diagram', document.createElement('div'), { report: wire({}), selected: 'gumbel', lifeScale: 'weibull' }, { width: 640, height: 400, units: '' })).toBeNull();
+  });
+
+  it('the EMA return-period slot draws the log-Pearson III levels with their interval whiskers on the flood section\'s points; none without EMA', () => {
+    resetIds();
+    const svg = drawSlot('ema-return-period', document.createElement('div'), { report: ema, selected: 'gumbel', lifeScale: 'weibull' }, { width: 640, height: 400, units: 'm³/s' })!;
+    expect(svg).not.toBeNull();
+    expect(svg.querySelectorAll('path[data-kind="curve"][data-family="logpearson3"]').length).toBe(1);
+    expect(svg.textContent).toContain('Log-Pearson III (expected moments)');
+    expect(drawSlot('ema-return-period', document.createElement('div'), { report: lmo, selected: 'gumbel', lifeScale: 'weibull' }, { width: 640, height: 400, units: '' })).toBeNull();
+    expect(floodEstimatorsSection({ report: lmo, selected: undefined, units: '' })!.charts).toEqual(['lmoment-diagram']);
   });
 
   it('CLI text: the L-moment table and the EMA table each name their estimator', () => {

@@ -91,7 +91,7 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
     lead: 'The estimators flood agencies prescribe, beside maximum likelihood: log-Pearson III by expected moments (on request) and fits by L-moments, with the L-moment ratio diagram.',
     lines,
     tables,
-    charts: lm.applicable ? ['lmoment-diagram'] : [],
+    charts: [...(ema && ema.applicable ? (['ema-return-period'] as const) : []), ...(lm.applicable ? (['lmoment-diagram'] as const) : [])],
     terms: ['return'],
   };
 };
