@@ -8,6 +8,8 @@
 import {
   InputError,
   analyzeRecordedLife,
+  columnSelector,
+  readIntervalRows,
   parseStrictNumber,
   readColumns,
   type ColumnRequest,
@@ -33,20 +35,6 @@ export function isRecordedLife(args: AnalyzeArgs): boolean {
   return o.has('intervalColumns') || o.has('modeColumn') || o.has('assumedShape') || o.has('planReliability') || (o.get('estimation') === 'rank-regression' && o.has('statusColumn'));
 }
 
-function selector(s: string): string | number {
-  return /^[1-9][0-9]*$/.test(s.trim()) ? Number(s.trim()) : s;
-}
-
-/** A time cell: blank means "not given" (NaN), otherwise a strict number. */
-function timeCell(text: string, decimal: '.' | ',', row: number, column: string, file: string): number {
-  if (text.trim() === '') return Number.NaN;
-  const v = parseStrictNumber(text.trim(), decimal);
-  if (Number.isNaN(v)) {
-    throw new InputError(`${file}: row ${row}, column ${JSON.stringify(column)}: ${JSON.stringify(text)} is not a number (leave the cell empty for "before the first inspection" or "still running")`, { row, column, value: text }, 'not-a-number');
-  }
-  return v;
-}
-
 export interface RecordedLifeRead {
   readonly input: RecordedLifeInput;
   readonly columns: readonly { readonly role: string; readonly column: string }[];
@@ -58,41 +46,28 @@ export function readRecordedLife(text: string, args: AnalyzeArgs, file: string):
   const interval = args.options.get('intervalColumns') as readonly string[] | undefined;
   const count = columnArg(args, 'countColumn');
   const mode = columnArg(args, 'modeColumn');
-  const requests: ColumnRequest[] = [];
-  const roles: string[] = [];
   if (interval) {
     if (interval.length !== 2) throw new InputError('--interval-columns takes two columns: START,END', {}, 'bad-option');
     if (mode !== undefined) throw new InputError('--mode-column works with times and --censor-column, not with --interval-columns', {}, 'bad-option');
-    // keepBlank: an empty start or end cell is meaningful here.
-    for (const c of interval) requests.push({ select: selector(c), kind: 'text', keepBlank: true });
-    roles.push('interval start', 'interval end');
-    if (count !== undefined) {
-      requests.push({ select: selector(count), kind: 'number' });
-      roles.push('count');
-    }
-  } else {
-    const value = columnArg(args, 'column');
-    const status = columnArg(args, 'statusColumn');
-    if (value === undefined || status === undefined) {
-      throw new InputError('life data need either --interval-columns START,END or --column TIMES with --censor-column STATUS', {}, 'bad-option');
-    }
-    requests.push({ select: selector(value), kind: 'number' }, { select: selector(status), kind: 'text' });
-    roles.push('times', 'status');
-    if (mode !== undefined) {
-      requests.push({ select: selector(mode), kind: 'text', keepBlank: true });
-      roles.push('failure mode');
-    }
+    const r = readIntervalRows(text, { start: columnSelector(interval[0]!), end: columnSelector(interval[1]!), ...(count !== undefined ? { count: columnSelector(count) } : {}) }, csv, file);
+    return { input: { interval: r.interval }, columns: r.columns.map((c) => ({ role: c.role, column: c.column })), rows: r.interval.start.length };
+  }
+  const requests: ColumnRequest[] = [];
+  const roles: string[] = [];
+  const value = columnArg(args, 'column');
+  const status = columnArg(args, 'statusColumn');
+  if (value === undefined || status === undefined) {
+    throw new InputError('life data need either --interval-columns START,END or --column TIMES with --censor-column STATUS', {}, 'bad-option');
+  }
+  requests.push({ select: columnSelector(value), kind: 'number' }, { select: columnSelector(status), kind: 'text' });
+  roles.push('times', 'status');
+  if (mode !== undefined) {
+    requests.push({ select: columnSelector(mode), kind: 'text', keepBlank: true });
+    roles.push('failure mode');
   }
   const t = readColumns(text, requests, csv);
   const rows = t.rowNumbers;
   const labels = t.columns.map((c, i) => ({ role: roles[i] as string, column: c.column }));
-  if (interval) {
-    const [s, e] = t.columns as TextColumn[];
-    const start = s!.texts.map((x, i) => timeCell(x, csv.decimal, rows[i] as number, s!.column, file));
-    const end = e!.texts.map((x, i) => timeCell(x, csv.decimal, rows[i] as number, e!.column, file));
-    const counts = count !== undefined ? (t.columns[2] as NumberColumn).values : undefined;
-    return { input: { interval: { start, end: end.map((v) => (Number.isNaN(v) ? Number.POSITIVE_INFINITY : v)), ...(counts ? { counts } : {}), lines: Array.from(rows) } }, columns: labels, rows: rows.length };
-  }
   const times = (t.columns[0] as NumberColumn).values;
   const st = t.columns[1] as TextColumn;
   const failed = st.texts.map((x, i) => {

@@ -52,7 +52,7 @@ export * from './options/index.js';
 export { formatPValue, pValueText } from './format/index.js';
 export type { PValueKind, PValueResult } from './format/index.js';
 export { analyzeRecordedLife, planTest, weibayes, prepareIntervalLifeData, turnbull, SAFETY_CAUTION, RANK_REGRESSION_REASON } from './life/index.js';
-export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './life/index.js';
+export { readIntervalRows, columnSelector, INTERVAL_GOF_REPLICATES, type IntervalColumns, type IntervalRowsRead } from './life/index.js';
 export type {
   RecordedLifeInput,
   RecordedLifeOptions,

@@ -24,6 +24,8 @@ import {
   type TextColumn,
   InputError,
   readColumn,
+  readIntervalRows,
+  columnSelector,
   SKIP_REASON_WORDS,
   type DatasetJobResult,
   type Sample,
@@ -75,6 +77,7 @@ export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>;
  * request. Status cells must read 1 or 0; the error names the file row, column and cell.
  */
 export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; input: InputSummary } {
+  if (req.intervalColumns) return intervalDataset(req, req.intervalColumns);
   const wf = req.workflow;
   if (wf?.grouped) return { dataset: { grouped: wf.grouped }, input: { source: 'values', n: wf.grouped.reduce((a, c) => a + c.count, 0) } };
   if (req.values !== undefined || !wf || (wf.statusColumn === undefined && wf.subgroupColumn === undefined && wf.orderColumn === undefined)) {
@@ -143,6 +146,32 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
       header: summary.header,
       warnings: summary.warnings,
       otherColumns,
+    },
+  };
+}
+
+/** Interval rows of life data (START, END and optional count columns of the CSV), read by the core's readIntervalRows as the CLI reads them. */
+function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, string | number]): { dataset: DatasetInput; input: InputSummary } {
+  const r = readIntervalRows(req.csv ?? '', { start: columnSelector(cols[0]), end: columnSelector(cols[1]), ...(req.countColumn !== undefined ? { count: columnSelector(req.countColumn) } : {}) }, req.csvOptions, 'the CSV');
+  const rows = r.interval.start.length;
+  if (rows === 0) throw new InputError('The interval columns have no usable rows.', {}, 'too-few-values');
+  const [start, ...others] = r.columns;
+  return {
+    dataset: { interval: r.interval },
+    input: {
+      source: 'csv',
+      n: r.interval.counts ? Array.from(r.interval.counts).reduce((a, c) => a + c, 0) : rows,
+      column: start!.column,
+      columnIndex: start!.index,
+      rowsRead: r.summary.rowsRead,
+      skipped: r.summary.skipped.map((k) => ({ ...k, description: SKIP_REASON_WORDS[k.reason] })),
+      blankLines: r.summary.blankLines,
+      delimiter: r.summary.delimiter,
+      delimiterDetected: r.summary.delimiterDetected,
+      header: r.summary.header,
+      warnings: r.summary.warnings,
+      // The interval start is `column`; the end and the count are the other columns.
+      otherColumns: others.map((c) => ({ role: c.role as 'interval end' | 'count', column: c.column })),
     },
   };
 }

@@ -10,7 +10,7 @@
  * (1000 classes ≈ 1 s; 10^5 classes took 56 s); the complete-sample bootstrap ≈ 1.4 µs per sampled
  * value with its refit; the censored bootstrap ≈ 11 µs per sampled value (a censored refit each).
  */
-import { censoredBootstrapWork, DEFAULT_LIFE_REPLICATES, type BootstrapJob, type DatasetInput, type DatasetOptions } from '../core/index.js';
+import { censoredBootstrapWork, DEFAULT_LIFE_REPLICATES, INTERVAL_GOF_REPLICATES, type BootstrapJob, type DatasetInput, type DatasetOptions } from '../core/index.js';
 import { HttpError } from './errors.js';
 
 export const REQUEST_LIMITS = {
@@ -35,7 +35,8 @@ export function checkDatasetSize(dataset: DatasetInput, options: DatasetOptions,
       { field: 'grouped', code: 'too-much-work' },
     );
   }
-  const n = dataset.values?.length ?? 0;
+  // Units: the values, or the units of interval rows (their counts added up).
+  const n = dataset.values?.length ?? (dataset.interval ? (dataset.interval.counts ? Array.from(dataset.interval.counts).reduce((a, c) => a + c, 0) : dataset.interval.start.length) : 0);
   if (n > limits.values) {
     throw new HttpError(413, `Too many values: ${fmt(n)}; the server takes at most ${fmt(limits.values)} values per request. Analyse a sample of them, or use the command line.`, {
       field: 'values',
@@ -44,7 +45,7 @@ export function checkDatasetSize(dataset: DatasetInput, options: DatasetOptions,
   }
   const censored = censoredBootstrapWork(dataset, options);
   if (censored > limits.censoredBootstrapValues) {
-    const families = Math.round(censored / (n * (options.bootstrapReplicates ?? DEFAULT_LIFE_REPLICATES)));
+    const families = Math.round(censored / (n * (options.bootstrapReplicates ?? (dataset.interval ? INTERVAL_GOF_REPLICATES : DEFAULT_LIFE_REPLICATES))));
     const most = Math.floor(limits.censoredBootstrapValues / (n * families));
     throw new HttpError(
       422,

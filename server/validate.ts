@@ -32,6 +32,9 @@ export interface AnalyzeRequest {
   readonly workflow: WorkflowRequest | null;
   /** Every analysis option given, under the core's names (core/options datasetOptionsFrom). */
   readonly options: DatasetOptions;
+  /** Life data as recorded at inspections: the START and END columns of the CSV, and its count column (interval rows). */
+  readonly intervalColumns?: readonly [string | number, string | number];
+  readonly countColumn?: string | number;
 }
 
 /** The extra data of a request: the status, subgroup and order columns (or their arrays), grouped counts. */
@@ -184,7 +187,7 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
     if (!hasCsv && body[spec.name] !== undefined) throw badRequest(`"${spec.name}" goes with "csv"; with "values" give "${arr}" as an array.`, spec.name, 'bad-input');
   }
   for (const spec of API_OPTIONS) {
-    if (spec.kind !== 'column' || spec.jsonData !== undefined || hasCsv) continue;
+    if ((spec.kind !== 'column' && spec.kind !== 'columns') || spec.jsonData !== undefined || hasCsv) continue;
     const field = jsonField(spec);
     if (body[field] !== undefined) throw badRequest(`"${field}" goes with "csv"; with "values" leave it out.`, field, 'bad-input');
   }
@@ -207,6 +210,13 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
     if (body.csv.trim() === '') throw badRequest('"csv" is empty: the file has no rows.', 'csv', 'bad-input');
     out.csv = body.csv;
     if (given.has('column')) out.column = given.get('column');
+    const interval = given.get('intervalColumns') as readonly (string | number)[] | undefined;
+    if (interval !== undefined) {
+      if (interval.length !== 2) throw badRequest(`"intervalColumns" takes two columns, START and END; got ${interval.length}.`, 'intervalColumns', 'bad-option');
+      if (given.has('column')) throw badRequest('"column" goes with a value column; interval rows are read from "intervalColumns" (START, END) alone.', 'column', 'bad-option');
+      out.intervalColumns = [interval[0], interval[1]];
+      if (given.has('countColumn')) out.countColumn = given.get('countColumn');
+    }
   }
   return out as unknown as AnalyzeRequest;
 }

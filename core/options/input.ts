@@ -95,10 +95,9 @@ export const INPUT_OPTIONS: readonly OptionSpec[] = [
     name: 'countColumn',
     cli: '--count-column',
     kind: 'column',
-    surfaces: ['cli'],
     default: null,
-    appliesTo: ['grouped'],
-    help: 'grouped counts: the column of counts (default: the column named count)',
+    appliesTo: ['grouped', 'interval'],
+    help: 'the column of counts: of grouped counts (default: the column named count), or of units per interval row (with --interval-columns; default 1 each); on the API with "csv" and "intervalColumns" only',
     group: 'input',
   },
 ];

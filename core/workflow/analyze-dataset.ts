@@ -13,16 +13,25 @@ import type { CensoredGofHook } from '../life/index.js';
 import { finishComplete, planComplete, type CompleteInput } from './complete.js';
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
+import { intervalLifeReport } from './life-interval.js';
 import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
 
 /** What the data are and how they are analysed (also used by core/workflow/pipeline.ts). */
 export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
+  | { readonly kind: 'interval'; readonly run: () => DatasetReport }
   | { readonly kind: 'life'; readonly run: (goodnessOfFit?: CensoredGofHook) => DatasetReport; readonly times: ArrayLike<number>; readonly status: ArrayLike<number> }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
 export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
+  if (input.interval) {
+    if (input.values || input.status || input.grouped || input.subgroups || input.order) {
+      throw new InputError('Interval rows come alone: no value, status, grouped, subgroup or order column with them.', {}, 'bad-option');
+    }
+    const rows = input.interval;
+    return { kind: 'interval', run: () => intervalLifeReport(rows, options, settings) };
+  }
   if (input.grouped) {
     if (input.values || input.status || input.subgroups || input.order) {
       throw new InputError('Grouped counts come alone: no value, status, subgroup or order column with them.', {}, 'bad-option');

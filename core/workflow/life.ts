@@ -8,7 +8,7 @@
 import { PLUMBLINE_VERSION, resolveOptions } from '../analyze.js';
 import { InputError } from '../errors.js';
 import { formatNumber } from '../gof/index.js';
-import { analyzeLife, recordedLifeExtras, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type CensoredGofHook, type LifeCandidate, type LifeFamilyName } from '../life/index.js';
+import { analyzeLife, recordedLifeExtras, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILIES, type BLife, type CensoredGofHook, type CensoredGofResult, type LifeCandidate, type LifeFamilyName, type ReliabilityAt } from '../life/index.js';
 import { RANKING_RULE, verdict } from '../rank.js';
 import type { AndersonDarlingReport, MethodNote, NotApplicableReport } from '../report.js';
 import { prepareSample } from '../sample.js';
@@ -19,7 +19,7 @@ import type { DatasetCandidate, DatasetOptions, DatasetReport, LifeSection } fro
 /** Censored bootstrap replicates when none are asked for (each replicate refits a censored MLE). */
 export const DEFAULT_LIFE_REPLICATES = 999;
 
-const BOUND_TEXT = {
+export const BOUND_TEXT = {
   'likelihood-ratio': 'likelihood-ratio (profile likelihood of the B-life, χ²₁; Meeker & Escobar 1998 §8.3)',
   'fisher-matrix': 'Fisher matrix (observed information, delta method on ln x_p; Meeker & Escobar 1998 §8.4)',
 } as const;
@@ -75,51 +75,8 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
     } else kept.push(c);
   }
   const best = kept[0]?.aicc ?? 0;
-  const candidates: DatasetCandidate[] = kept.map((c, i) => {
-    const g = c.goodnessOfFit;
-    const pValue = g?.pValue ?? Number.NaN;
-    const rejected = pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
-    const p = `p = ${formatNumber(pValue)}`;
-    const ad: AndersonDarlingReport = {
-      statistic: g?.statistic ?? Number.NaN,
-      pValue,
-      pValueIs: 'estimate',
-      method: 'bootstrap',
-      methodDetail: `${g?.method ?? ''}. ${g?.replicates ?? 0} replicates; seed derived from ${opts.seed} for each family.`,
-      replicates: g?.replicates ?? 0,
-      monteCarloStandardError: g?.monteCarloError ?? Number.NaN,
-      ...(g && g.failedReplicates > 0 ? { failedReplicates: g.failedReplicates } : {}),
-      seed: opts.seed,
-      alpha,
-      rejected,
-      decision: `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`,
-    };
-    const rejectedBy = rejected ? (['anderson-darling'] as const) : ([] as const);
-    const rank = i + 1;
-    const deltaAicc = c.aicc - best;
-    return {
-      rank,
-      family: c.family,
-      label: c.label,
-      parameters: c.parameters,
-      estimatedParameters: c.estimatedParameters,
-      logLikelihood: c.logLikelihood,
-      aic: c.aic,
-      aicc: c.aicc,
-      bic: c.bic,
-      deltaAicc,
-      fit: { method: c.method, iterations: c.iterations, converged: c.converged },
-      chiSquare: { computable: false, reason: CHI_SQUARE_NOT_APPLICABLE },
-      andersonDarling: ad,
-      rejectedBy: [...rejectedBy],
-      verdict: verdict(rank, deltaAicc, rejectedBy, alpha, false),
-      bLives: c.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate, lower: b.lower, upper: b.upper, confidence: b.confidence, boundsFound: b.boundsFound })),
-      bLifeMethod: `${BOUND_TEXT[boundMethod]}, two-sided ${formatNumber(100 * settings.confidence)} %`,
-      reliability: c.reliability.map((r) => ({ time: r.time, estimate: r.estimate, lower: r.lower, upper: r.upper, confidence: r.confidence, boundsFound: r.boundsFound })),
-      meanLife: c.meanLife,
-      ...(c.warnings.length > 0 ? { warnings: [...c.warnings] } : {}),
-    };
-  });
+  const ctx = { alpha: opts.alpha, seed: opts.seed, replicates, boundMethod, confidence: settings.confidence };
+  const candidates: DatasetCandidate[] = kept.map((c, i) => lifeCandidate(c, i + 1, c.aicc - best, ctx));
   const warnings: string[] = [...life.warnings];
   for (const c of candidates) for (const w of c.warnings ?? []) warnings.push(`${c.label}: ${w}`);
   if (candidates.length > 0 && candidates.every((c) => c.rejectedBy.length > 0)) {
@@ -178,4 +135,79 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
 /** The recorded-life extras (core/life recordedLifeExtras: mixture, Turnbull, Weibayes, rank regression, test plan) when they ran. */
 function withRecorded(r: ReturnType<typeof recordedLifeExtras>): Pick<LifeSection, 'recorded'> {
   return r ? { recorded: r } : {};
+}
+
+/** What a life candidate needs to become a dataset candidate (core/life LifeCandidate and RecordedLifeCandidate both have it). */
+export interface LifeCandidateLike {
+  readonly family: LifeFamilyName;
+  readonly label: string;
+  readonly parameters: Readonly<Record<string, number>>;
+  readonly estimatedParameters: number;
+  readonly logLikelihood: number;
+  readonly aic: number;
+  readonly aicc: number;
+  readonly bic: number;
+  readonly method: string;
+  readonly iterations?: number;
+  readonly converged: boolean;
+  readonly goodnessOfFit: CensoredGofResult | null;
+  readonly bLives: readonly BLife[];
+  readonly reliability: readonly ReliabilityAt[];
+  readonly meanLife: number;
+  readonly warnings: readonly string[];
+}
+
+/**
+ * A life candidate in the issue-2 frame: chi-square not computable (with the reason), the
+ * Anderson–Darling entry its bootstrap (right-censored or inspection-scheme; rejected at p ≤ α),
+ * its B-lives and reliabilities with bounds. Shared by the status-column and the interval-row reports.
+ */
+export function lifeCandidate(
+  c: LifeCandidateLike,
+  rank: number,
+  deltaAicc: number,
+  ctx: { readonly alpha: number; readonly seed: number; readonly replicates: number; readonly boundMethod: keyof typeof BOUND_TEXT; readonly confidence: number },
+): DatasetCandidate {
+  const { alpha } = ctx;
+  const g = c.goodnessOfFit;
+  const pValue = g?.pValue ?? Number.NaN;
+  const rejected = pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
+  const p = `p = ${formatNumber(pValue)}`;
+  const ad: AndersonDarlingReport = {
+    statistic: g?.statistic ?? Number.NaN,
+    pValue,
+    pValueIs: 'estimate',
+    method: 'bootstrap',
+    methodDetail: `${g?.method ?? ''}. ${g?.replicates ?? 0} replicates; seed derived from ${ctx.seed} for each family.`,
+    replicates: g?.replicates ?? 0,
+    monteCarloStandardError: g?.monteCarloError ?? Number.NaN,
+    ...(g && g.failedReplicates > 0 ? { failedReplicates: g.failedReplicates } : {}),
+    seed: ctx.seed,
+    alpha,
+    rejected,
+    decision: `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`,
+  };
+  const rejectedBy = rejected ? (['anderson-darling'] as const) : ([] as const);
+  return {
+    rank,
+    family: c.family,
+    label: c.label,
+    parameters: c.parameters,
+    estimatedParameters: c.estimatedParameters,
+    logLikelihood: c.logLikelihood,
+    aic: c.aic,
+    aicc: c.aicc,
+    bic: c.bic,
+    deltaAicc,
+    fit: { method: c.method, iterations: c.iterations ?? 0, converged: c.converged },
+    chiSquare: { computable: false, reason: CHI_SQUARE_NOT_APPLICABLE },
+    andersonDarling: ad,
+    rejectedBy: [...rejectedBy],
+    verdict: verdict(rank, deltaAicc, rejectedBy, alpha, false),
+    bLives: c.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate, lower: b.lower, upper: b.upper, confidence: b.confidence, boundsFound: b.boundsFound })),
+    bLifeMethod: `${BOUND_TEXT[ctx.boundMethod]}, two-sided ${formatNumber(100 * ctx.confidence)} %`,
+    reliability: c.reliability.map((r) => ({ time: r.time, estimate: r.estimate, lower: r.lower, upper: r.upper, confidence: r.confidence, boundsFound: r.boundsFound })),
+    meanLife: c.meanLife,
+    ...(c.warnings.length > 0 ? { warnings: [...c.warnings] } : {}),
+  };
 }

@@ -18,7 +18,7 @@ import { getFamily } from '../families/index.js';
 import { combineBootstrapCounts, runBootstrapRange, type BootstrapCounts, type BootstrapJob, type BootstrapRunOptions } from '../gof/index.js';
 import type { CapabilityBootstrapValues } from '../capability/index.js';
 import { capabilityLookup, combineCapabilityBootstrap, planCapabilityJobs, runCapabilityJob, type CapabilityJob } from './capability-jobs.js';
-import { censoredAndersonDarling, censoredGofFromCounts, LIFE_FAMILIES, runCensoredGofRange, type CensoredGofJob, type CensoredGofResult, type LifeFamilyName } from '../life/index.js';
+import { censoredAndersonDarling, censoredGofFromCounts, INTERVAL_GOF_REPLICATES, LIFE_FAMILIES, runCensoredGofRange, type CensoredGofJob, type CensoredGofResult, type LifeFamilyName } from '../life/index.js';
 import { route } from './analyze-dataset.js';
 import { finishComplete, planComplete, type CompletePlan } from './complete.js';
 import { DEFAULT_LIFE_REPLICATES } from './life.js';
@@ -89,7 +89,7 @@ export function jobSampleSize(job: DatasetJob): number {
 export function planDataset(input: DatasetInput, options: DatasetOptions = {}): DatasetPlan {
   const settings = workflowSettings(options);
   const r = route(input, options, settings);
-  if (r.kind === 'grouped') return { kind: 'done', report: r.run() };
+  if (r.kind === 'grouped' || r.kind === 'interval') return { kind: 'done', report: r.run() };
   if (r.kind === 'life') {
     const times = Array.from(r.times);
     const failed = Array.from(r.status);
@@ -110,6 +110,11 @@ export function planDataset(input: DatasetInput, options: DatasetOptions = {}): 
 }
 
 export function censoredBootstrapWork(input: DatasetInput, options: DatasetOptions = {}): number {
+  if (input.interval) {
+    // Interval rows: the inspection-scheme bootstrap (core/life/interval-bootstrap.ts), one refit per replicate and family.
+    const units = input.interval.counts ? Array.from(input.interval.counts).reduce((a, c) => a + c, 0) : input.interval.start.length;
+    return (options.bootstrapReplicates ?? INTERVAL_GOF_REPLICATES) * units * (options.families?.length ?? LIFE_FAMILIES.length);
+  }
   if (input.grouped || !input.values || !input.status) return 0;
   const families = options.families?.length ?? LIFE_FAMILIES.length;
   return (options.bootstrapReplicates ?? DEFAULT_LIFE_REPLICATES) * input.values.length * families;

@@ -11,7 +11,7 @@ import type { CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../ca
 import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
-import type { BoundMethod, LifeCurves, LifeSampleSummary, PlotPositionMethod, RecordedLifeExtras } from '../life/index.js';
+import type { BoundMethod, IntervalLifeInput, LifeCurves, LifeSampleSummary, PlotPositionMethod, RecordedLifeExtras } from '../life/index.js';
 import type { AnalyzeOptions } from '../analyze.js';
 import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
@@ -31,6 +31,8 @@ export interface DatasetInput {
   readonly order?: ArrayLike<number> | null;
   /** Grouped counts: contiguous ascending classes (first lower may be -Infinity, last upper +Infinity). */
   readonly grouped?: readonly GroupedClass[] | null;
+  /** Life data as recorded at inspections: interval rows (start, end, optional counts); they come alone (core/workflow/life-interval.ts). */
+  readonly interval?: IntervalLifeInput | null;
   /**
    * The caller gives up `values` (a Float64Array whose order it does not need back): a complete
    * sample without order or subgroups is then sorted where it is instead of copied (8 bytes per

@@ -125,6 +125,7 @@ function validSample(spec: OptionSpec): OptionValue {
   }
   if (spec.kind === 'numbers') return [(spec.min ?? 0) + 2];
   if (spec.kind === 'column') return 'c';
+  if (spec.kind === 'columns') return ['c', 'd'];
   if (spec.kind === 'text') return ';';
   return (spec.choices ?? [])[0] ?? null;
 }

@@ -1,0 +1,65 @@
+/**
+ * Interval rows from a CSV file's text, one reading for the CLI and the server: the START and END
+ * columns of the interval in which each unit (or `count` units) failed, read with the one CSV reader
+ * (core/csv readColumns, rows kept aligned). An empty START means "failed before the first
+ * inspection" (0), an empty END "still running" (∞); any other cell must be a strict number, and
+ * the error names the file row, the column and the cell. The rows' own checks (end before start, a
+ * count that is not a whole number, ...) are prepareIntervalLifeData's, with the file's row numbers.
+ */
+import { readColumns } from '../csv/index.js';
+import { parseStrictNumber } from '../csv/index.js';
+import type { ColumnRequest, ColumnSelector, CsvOptions, NumberColumn, ReadSummary, TextColumn } from '../csv/index.js';
+import { InputError } from '../errors.js';
+import type { IntervalLifeInput } from './interval-likelihood-data.js';
+
+export interface IntervalColumns {
+  readonly start: ColumnSelector;
+  readonly end: ColumnSelector;
+  readonly count?: ColumnSelector;
+}
+
+export interface IntervalRowsRead {
+  readonly interval: IntervalLifeInput;
+  /** The columns read, by role, with their labels and 1-based indexes. */
+  readonly columns: readonly { readonly role: 'interval start' | 'interval end' | 'count'; readonly column: string; readonly index: number }[];
+  readonly summary: ReadSummary;
+}
+
+/** A column given as text that is a whole number ≥ 1 names the column by number, as everywhere else. */
+export function columnSelector(s: string | number): ColumnSelector {
+  return typeof s === 'number' ? s : /^[1-9][0-9]*$/.test(s.trim()) ? Number(s.trim()) : s;
+}
+
+export function readIntervalRows(text: string, cols: IntervalColumns, options: CsvOptions = {}, file = 'the file'): IntervalRowsRead {
+  const requests: ColumnRequest[] = [
+    // keepBlank: an empty start or end cell is meaningful here.
+    { select: cols.start, kind: 'text', keepBlank: true },
+    { select: cols.end, kind: 'text', keepBlank: true },
+  ];
+  if (cols.count !== undefined) requests.push({ select: cols.count, kind: 'number' });
+  const t = readColumns(text, requests, options);
+  const decimal = options.decimal ?? '.';
+  const [s, e] = t.columns as [TextColumn, TextColumn];
+  if (s.index === e.index) throw new InputError(`The interval start and end are the same column ${JSON.stringify(s.column)}: give two columns.`, { column: s.column }, 'bad-option');
+  const cell = (c: TextColumn, empty: number) =>
+    c.texts.map((x, i) => {
+      if (x.trim() === '') return empty;
+      const v = parseStrictNumber(x.trim(), decimal);
+      if (Number.isNaN(v)) {
+        const row = t.rowNumbers[i] as number;
+        throw new InputError(`${file}: row ${row}, column ${JSON.stringify(c.column)}: ${JSON.stringify(x)} is not a number (leave the cell empty for "before the first inspection" or "still running")`, { row, column: c.column, value: x }, 'not-a-number');
+      }
+      return v;
+    });
+  const counts = cols.count !== undefined ? (t.columns[2] as NumberColumn) : undefined;
+  const { columns: _c, rowNumbers, ...summary } = t;
+  return {
+    interval: { start: cell(s, 0), end: cell(e, Number.POSITIVE_INFINITY), ...(counts ? { counts: counts.values } : {}), lines: Array.from(rowNumbers) },
+    columns: [
+      { role: 'interval start', column: s.column, index: s.index },
+      { role: 'interval end', column: e.column, index: e.index },
+      ...(counts ? [{ role: 'count' as const, column: counts.column, index: counts.index }] : []),
+    ],
+    summary,
+  };
+}
