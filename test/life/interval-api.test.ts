@@ -6,7 +6,7 @@
  * column only with them); the bounded bootstrap work (server/limits.ts); the report's frame.
  */
 import { describe, expect, it } from 'vitest';
-import { analyzeDataset, analyzeRecordedLife } from '../../core/index.js';
+import { analyzeDataset, analyzeRecordedLife, type DatasetReport, type InputSummary } from '../../core/index.js';
 import { finishRequest, planRequest } from '../../server/analysis.js';
 import { parseAnalyzeBody } from '../../server/validate.js';
 import { readFixture, rel } from '../helpers/fixtures.js';
@@ -19,7 +19,7 @@ const CSV = ['start,end,units', ...s.start.map((a: number, i: number) => `${a ==
 function analyze(body: Record<string, unknown>) {
   const planned = planRequest(parseAnalyzeBody(body));
   if (planned.plan.kind !== 'done') throw new Error('interval rows are analysed at planning');
-  return finishRequest(planned, []);
+  return finishRequest(planned, []) as DatasetReport & { readonly input: InputSummary };
 }
 
 describe('interval rows through the API', () => {
