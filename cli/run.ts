@@ -101,10 +101,10 @@ function readInput(args: AnalyzeArgs, fileLabel: string, source: InputText = rea
 }
 
 /** A large file's one value column, read in pieces (cli/read-pieces.ts): never one string. */
-function readLargeColumn(args: AnalyzeArgs, fileLabel: string): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
+function readLargeColumn(args: AnalyzeArgs, fileLabel: string, shared: boolean): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
   const csv = csvArgs(args);
   const column = columnArg(args, 'column');
-  const r = readColumnInPieces(args.file, { ...(column !== undefined ? { column } : {}), ...csv }, undefined, undefined, true);
+  const r = readColumnInPieces(args.file, { ...(column !== undefined ? { column } : {}), ...csv }, undefined, undefined, shared);
   // The values are not needed in file order afterwards: the core sorts them where they are.
   return { read: r.read, input: cliInput(fileLabel, r.read, csv.decimal, r.encoding, r.warnings), dataset: { values: r.read.values, sortInPlace: true } };
 }
@@ -132,11 +132,18 @@ function analyzeCommand(args: AnalyzeArgs, io: CliIo, source?: InputText): numbe
   }
 }
 
+/** Largest file whose values are read onto shared memory (about 2^24 rows of 8-10 characters; common practice, no source: measured here). */
+const SHARED_MAX_BYTES = 192 * 2 ** 20;
+
 /** Files at least this large start the second thread before reading (~10 bytes a row: PARALLEL_MIN_N rows). */
 const EARLY_THREAD_MIN_BYTES = 10 * PARALLEL_MIN_N;
 
 function analyzeRead(args: AnalyzeArgs, io: CliIo, fileLabel: string, options: DatasetOptions, second: SecondThread | null, source?: InputText): number {
-  const { read, input, dataset, rowNumbers, hint } = source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel) : readInput(args, fileLabel);
+  // Values on shared memory (read by the second thread without a copy) only up to SHARED_MAX_BYTES of
+  // file: V8 sorts a typed array on shared memory through a copy of it, which 10^8 values cannot afford.
+  const shared = second !== null && (regularFileSize(args.file) ?? Infinity) <= SHARED_MAX_BYTES;
+  const { read, input, dataset, rowNumbers, hint } =
+    source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel, shared) : readInput(args, fileLabel);
   if (hint) io.err(`plumbline: warning: ${hint}\n`);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);

@@ -19,6 +19,7 @@
 import { availableParallelism, loadavg } from 'node:os';
 import { MessageChannel, Worker, isMainThread, receiveMessageOnPort, workerData, type MessagePort } from 'node:worker_threads';
 import {
+  LOG_CACHE_MAX_N,
   evaluateFamilies,
   prepareSample,
   type DelegatedFamilies,
@@ -160,6 +161,7 @@ export function secondThread(entry: URL, options: SecondThreadOptions, early = f
         const own = sample.sorted;
         let values: Float64Array;
         if (own.buffer instanceof SharedArrayBuffer) values = own;
+        else if (sample.n > LOG_CACHE_MAX_N) return stop(); // a shared copy of this many values would break the memory bound
         else {
           values = new Float64Array(new SharedArrayBuffer(sample.n * Float64Array.BYTES_PER_ELEMENT));
           values.set(own);
