@@ -19,8 +19,10 @@
  * (plain BCa without the small-sample expansion, n = 50: Pp 93.1, Ppk 94.9, Ppu 93.5, Ppl 94.4 %).
  * Pp runs about 1 point low at both sizes.
  * Johnson setup (--johnson, test/fixtures/capability-coverage-johnson.json, same counts):
- *   n = 50:  Pp 97.8, Ppk 97.1, Ppu 95.4, Ppl 97.3 % (wide intervals: over-covers)
+ *   n = 50:  Pp 97.8, Ppk 97.1, Ppu 95.4, Ppl 97.3 % (over-covers)
  *   n = 125: Pp 94.8, Ppk 94.5, Ppu 93.5, Ppl 94.6 %
+ * Why, and why the two-sided rate hides a short lower end when the sample is fitted as SB: see
+ * scripts/capability-coverage-variants.ts (coverage split by the Johnson type fitted to the sample).
  */
 import { makeModel, percentileCapability, percentileIntervals, fitModelSpec, type ModelSpec } from '../core/capability/index.js';
 import { PlumblineError } from '../core/errors.js';
@@ -39,7 +41,8 @@ export const COVERAGE_SETUP = {
 /**
  * A second setup (`--johnson`): a Johnson SU process (γ = -1, δ = 2, ξ = 1, λ = 0.5) fitted by the
  * Slifker–Shapiro percentile method, limits at its 0.05 % and 99.98 % points. Reported, not held
- * to the 1.5-point rule: the four-quantile fit is coarse, and its intervals come out wide.
+ * to the 1.5-point rule: the four-quantile fit often picks the wrong curve type (SB for 30-37 % of
+ * these SU samples), and the interval's placement depends on that choice.
  */
 export const JOHNSON_SETUP = {
   truth: { kind: 'johnson', type: 'SU', gamma: -1, delta: 2, xi: 1, lambda: 0.5 } as ModelSpec,

@@ -31,6 +31,7 @@ export {
   jackknifeIndices,
   JACKKNIFE_GROUPS,
   INLINE_BOOTSTRAP_WORK,
+  johnsonIntervalCaveat,
   POOL_BOOTSTRAP_WORK,
   percentileIntervals,
   expandedZ,

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { COVERAGE_SETUP, JOHNSON_SETUP, simulateOne } from '../../scripts/capability-coverage.js';
+import { johnsonIntervalCaveat } from '../../core/capability/index.js';
 import { readFixture } from '../helpers/fixtures.js';
 
 // The committed seeded simulation (scripts/capability-coverage.ts → test/fixtures/capability-coverage.json):
@@ -32,8 +33,9 @@ describe('coverage of the capability bootstrap interval (committed simulation)',
 });
 
 // The Johnson setup (scripts/capability-coverage.ts --johnson → test/fixtures/capability-coverage-johnson.json):
-// reported as measured. At n = 125 it is within 1.5 points; at n = 50 the Slifker–Shapiro refit is so
-// coarse that the intervals are wide and over-cover by up to 2.8 points (conservative, never short).
+// reported as measured. At n = 125 it is within 1.5 points; at n = 50 it over-covers by up to 2.8
+// points. The two-sided rate is a mixture (see the variants below): samples fitted as SU over-cover,
+// samples fitted as SB have a lower end that is too high.
 const jx = readFixture('capability-coverage-johnson.json');
 
 describe('coverage with the Johnson curve (committed simulation, reported)', () => {
@@ -50,5 +52,47 @@ describe('coverage with the Johnson curve (committed simulation, reported)', () 
         if (r.n === 125) expect(c.coverage).toBeLessThanOrEqual(0.965);
       }
     }
+  });
+});
+
+// Why (scripts/capability-coverage-variants.ts → test/fixtures/capability-coverage-johnson-variants.json):
+// the same 1000 samples × 999 replicates per n, several interval rules from the same replicates, and
+// the report's rule split by the Johnson type fitted to each sample.
+const vx = readFixture('capability-coverage-johnson-variants.json');
+type Cell = { samples: number; coverage: number; truthBelow: number };
+type VariantRun = { n: number; samples: number; coverage: Record<string, Record<string, number>>; truthBelowInterval: Record<string, Record<string, number>>; reportBySampleType: Record<string, Record<string, Cell>> };
+
+describe('Johnson interval coverage by rule and by fitted type (committed diagnostic run)', () => {
+  it('its report rule is the committed coverage run: the same rates at n = 50 and 125 (same seeds, same code path)', () => {
+    expect(vx.setup).toEqual({ ...JSON.parse(JSON.stringify(JOHNSON_SETUP)), simulations: 1000, replicates: 999 });
+    for (const r of vx.results as VariantRun[]) {
+      const committed = jx.results.find((x: { n: number }) => x.n === r.n);
+      expect(r.samples).toBe(1000);
+      for (const [k, c] of Object.entries(committed.coverage as Record<string, { coverage: number }>)) expect(r.coverage.report![k]).toBeCloseTo(100 * c.coverage, 9);
+    }
+  });
+  it('the cause: samples fitted SU over-cover (at least 98.5 %), samples fitted SB have the truth below the interval in 5.8-18.8 % (nominal 2.5 %)', () => {
+    const sb: number[] = [];
+    for (const r of vx.results as VariantRun[]) {
+      for (const c of Object.values(r.reportBySampleType.SU!)) expect(c.coverage).toBeGreaterThanOrEqual(98.5);
+      for (const c of Object.values(r.reportBySampleType.SB!)) {
+        expect(c.samples).toBeGreaterThanOrEqual(300);
+        sb.push(c.truthBelow);
+      }
+    }
+    expect(Math.min(...sb)).toBe(5.8);
+    expect(Math.max(...sb)).toBe(18.8);
+  });
+  it('not the rule: without expansion, acceleration or bias correction n = 50 still over-covers Pp by more than 1.5 points, except the plain percentile, which under-covers Ppu instead', () => {
+    const r50 = (vx.results as VariantRun[]).find((r) => r.n === 50)!;
+    for (const rule of ['bca', 'bc', 'bc-plain']) expect(r50.coverage[rule]!.Pp).toBeGreaterThan(96.5);
+    expect(r50.coverage.percentile!.Ppu).toBeLessThan(95);
+  });
+  it('the report\'s caveat quotes these numbers, and warns of the lower end for an SB fit', () => {
+    const all = (vx.results as VariantRun[]).flatMap((r) => Object.values(r.coverage.report!));
+    expect(Math.min(...all)).toBe(93.5);
+    expect(Math.max(...all)).toBe(97.8);
+    expect(johnsonIntervalCaveat('SB')).toMatch(/93\.5-97\.8 %.*5\.8-18\.8 %.*lower end can overstate capability/);
+    expect(johnsonIntervalCaveat('SU')).toMatch(/conservative \(98\.5-100 %\)/);
   });
 });

@@ -19,6 +19,7 @@ import {
   type DatasetOptions,
   type DatasetReport,
 } from '../../core/index.js';
+import { johnsonIntervalCaveat } from '../../core/capability/index.js';
 
 const lognormal = (n: number, seed: number): number[] => Array.from(getFamily('lognormal').random({ meanlog: 1, sdlog: 0.5 }, createRng(seed), n));
 
@@ -84,5 +85,14 @@ describe('capability bootstrap on the pipeline', () => {
     const report = analyzeDataset({ values }, { lsl: 6, usl: 14 }) as DatasetReport;
     expect(report.capability!.percentile).toBeNull();
     expect(plan.capabilityJobs).toEqual([]);
+  });
+
+  it('a Johnson interval carries the measured-coverage caveat for the fitted curve type (scripts/capability-coverage-variants.ts)', () => {
+    const r = analyzeDataset({ values: lognormal(45, 2) }, { usl: 14, transform: 'johnson', capabilityReplicates: 59 }) as DatasetReport;
+    const t = r.capability!.transform;
+    if (t.kind === 'none') throw new Error('expected a Johnson section');
+    expect(r.capability!.warnings).toContain(johnsonIntervalCaveat(t.type as string));
+    const b = analyzeDataset({ values: lognormal(45, 2) }, { usl: 14, transform: 'boxcox', capabilityReplicates: 59 }) as DatasetReport;
+    expect(b.capability!.warnings.some((w) => /Johnson curve fitted by percentiles/.test(w))).toBe(false);
   });
 });
