@@ -6,9 +6,10 @@
  * Which model the interval is for is only certain at the finish: with a transformation it is the
  * transformation fitted to the data (known now), without one it is the best-ranked non-normal
  * candidate that no test rejects, and some tests are decided by the Anderson–Darling bootstrap that
- * runs beside this one. So a job is planned for each non-normal candidate, in ranking order (AICc,
- * known now), until one that passes both tests on their table/asymptotic decisions (no bootstrap
- * pending); none when the normal model passes its table Anderson–Darling test (then there is no
+ * runs beside this one. So, walking the non-normal candidates in ranking order (AICc, known now),
+ * a job is planned for the first one and for every later one that may turn out to be the first to
+ * pass (its tests still pending, or passing on their table/asymptotic decisions, which ends the
+ * walk); none when the normal model passes its table Anderson–Darling test (then there is no
  * percentile method). The finish uses the job of the model it chose; a model with no job (a
  * decision this walk could not foresee) is computed inline as before, within INLINE_BOOTSTRAP_WORK.
  * Either way the numbers are those of analyzeDataset for the same seed.
@@ -74,12 +75,17 @@ export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
     .sort(compareCandidates);
   const normal = ranked.find((r) => r.family === 'normal');
   if (normal && normal.c.table !== null && !tableRejects(normal.c.table, alpha)) return [];
+  // The finish takes the first candidate that passes, else the first candidate: a job for the
+  // first one, and for each later one that may be the first to pass (pending, or settled passing).
   const jobs: CapabilityJob[] = [];
+  let first = true;
   for (const { c, family } of ranked) {
     if (family === 'normal') continue;
-    jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates, c.family.label));
     const settled = c.table !== null && c.chiSquareBootstrapReason === null;
-    if (settled && !tableRejects(c.table as AdPValue, alpha) && !(c.chiSquare.computable && c.chiSquare.rejected)) break;
+    const passes = settled && !tableRejects(c.table as AdPValue, alpha) && !(c.chiSquare.computable && c.chiSquare.rejected);
+    if (first || !settled || passes) jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates, c.family.label));
+    first = false;
+    if (passes) break;
   }
   return jobs;
 }

@@ -4,6 +4,7 @@
  * analyzeDataset, which runs the same interval inline (reference: the core's own in-process path;
  * replicate i draws from stream i, so any split gives the same replicate values in order).
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
   analyzeDataset,
@@ -12,6 +13,7 @@ import {
   finishDataset,
   getFamily,
   planDataset,
+  readColumn,
   runDatasetJob,
   splitDatasetJob,
   type DatasetInput,
@@ -94,5 +96,16 @@ describe('capability bootstrap on the pipeline', () => {
     expect(r.capability!.warnings).toContain(johnsonIntervalCaveat(t.type as string));
     const b = analyzeDataset({ values: lognormal(45, 2) }, { usl: 14, transform: 'boxcox', capabilityReplicates: 59 }) as DatasetReport;
     expect(b.capability!.warnings.some((w) => /Johnson curve fitted by percentiles/.test(w))).toBe(false);
+  });
+
+  it('every model rejected on its table tests (shaft-diameter demo): one job, for the first-ranked non-normal model, which the finish uses', () => {
+    const values = readColumn(readFileSync('datasets/shaft-diameter.csv', 'utf8'), { column: 'diameter_mm' }).values;
+    const options: DatasetOptions = { lsl: 24.99, usl: 25.01, capabilityReplicates: 59 };
+    const { plan, results } = pipelineParts({ values }, options);
+    expect(plan.plan.plan.bootstrapJobs).toEqual([]);
+    expect(plan.capabilityJobs).toHaveLength(1);
+    const viaPool = finishDataset(plan, results);
+    expect(viaPool.capability!.percentileFamily).toBe((plan.capabilityJobs[0]!.model as { family: string }).family);
+    expect(json(viaPool)).toEqual(json(analyzeDataset({ values }, options)));
   });
 });
