@@ -15,8 +15,9 @@ import { LARGE_BYTES, megabytes, Runner } from './runner.js';
 import { buildSettingsForm, controlFor, isRoleControl, readForm, settingControls, settingKeyOf, showProblems, syncForm } from './form.js';
 import type { Settings } from './settings.js';
 import { glossaryNode } from './views/glossary.js';
-import { $, doneLine, input, noteCensoring, noteSeries, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
+import { $, doneLine, input, renderAnswer, renderDecision, renderDemoList, renderEvidence, renderLabels, renderResult, renderSource, select, setProgress, setStatus, showError } from './render.js';
 import { exportCsv, exportHtml, exportJson } from './page-export.js';
+import { noteCensoring, noteSeries } from './source-notes.js';
 import { byId, el } from './dom.js';
 import { planCalculatorNode } from './views/life-plan.js';
 

@@ -9,8 +9,7 @@ import { blockNode, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { byId, clear, el } from './dom.js';
-import { seriesKeyColumn } from './columns.js';
-import { ROLE_FIELDS } from './page-options.js';
+import { noteCensoring, noteSeries, unusedStatusColumn } from './source-notes.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
 import { capital, modelLabel } from './families.js';
 import { sig } from './format.js';
@@ -114,56 +113,6 @@ export function renderLabels(st: PageState): void {
     input('units-input').value = l.units;
   }
   $('units-hint').textContent = l.suggested && (l.quantity || l.units) ? 'Suggested from the column name; correct them if wrong. Used on every chart axis and in the exported report.' : 'Used on every chart axis and in the exported report.';
-}
-
-const STATUS_NAME = /^(status|st|censor(ed|ing)?|cens|event|failed|failure|suspended|suspension|runout|run_out)$/i;
-
-/**
- * A file with a status-like column probably marks some values as censored. Fitting every value as
- * observed biases a life estimate low, so say so and offer the column.
- */
-/** A column named like a failed / still-running flag that is not used as the status column, or undefined. */
-function unusedStatusColumn(st: PageState): { index: number; label: string } | undefined {
-  const r = st.reading;
-  const flag = r.shape === 'values' ? r.columns.find((c) => c.index !== r.column && STATUS_NAME.test(c.label.trim())) : undefined;
-  return flag && st.settings.statusColumn !== flag.index ? flag : undefined;
-}
-
-export function noteCensoring(st: PageState): void {
-  const note = $('column-note');
-  const r = st.reading;
-  const flag = unusedStatusColumn(st);
-  clear(note);
-  note.hidden = !flag;
-  if (!flag) return;
-  note.append(
-    `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +
-      `Here every value of the chosen column is fitted as an observed value; if some are censored, the fitted life is biased low. ` +
-      `Do not base a maintenance interval on this fit without a censored-data analysis. `,
-    el('button', { type: 'button', className: 'btn small use-status', id: 'use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as failed (1) / still running (0)`),
-  );
-}
-
-/**
- * A text column that splits the rows into runs (a gauge, a part, a site) means several series in
- * one file, which fitted as one sample pools different populations: say so, and point to the
- * many-series page.
- */
-export function noteSeries(st: PageState): void {
-  const note = $('series-note');
-  const r = st.reading;
-  clear(note);
-  const roles = ROLE_FIELDS.map((f) => st.settings[f.name]).filter((i): i is number => typeof i === 'number' && i > 0);
-  const key = st.source && r.shape === 'values' ? seriesKeyColumn(st.source.csv, { header: r.header, decimal: r.decimal }, r.columns, [r.column, ...roles]) : null;
-  note.hidden = key === null;
-  if (!key) return;
-  const shown = key.labels.slice(0, 4).join(', ') + (key.labels.length > 4 ? ', …' : '');
-  note.append(
-    `Column “${key.label}” splits the rows into runs (${shown}): this looks like several series in one file, and here all their values are fitted as one sample. `,
-    'Analyse each series on its own on the ',
-    el('a', { href: './batch.html' }, 'many-series page'),
-    ', or load one series at a time.',
-  );
 }
 
 /** Everything drawn from the result: counts, model choices, numbers, answer, sections, evidence. */
@@ -304,7 +253,19 @@ export function renderEvidence(st: PageState): void {
     renderGroupedEvidence(st, resp, fam);
     return;
   }
-  if (!resp.evidence) return;
+  const views = document.querySelectorAll<HTMLElement>('.view-pick, .evidence-view');
+  if (!resp.evidence) {
+    // Interval rows (life data found at inspections) have no failure points: the Turnbull boxes of the life section are the evidence.
+    for (const v of views) v.hidden = true;
+    for (const id of Object.values(CHART_IDS)) clear($(id));
+    $('evidence-name').textContent = modelLabel(fam);
+    $('evidence-note').hidden = false;
+    $('evidence-note').textContent = resp.life?.recorded
+      ? 'Life data found at inspections: each failure time is known only to lie within its interval, so there are no failure points to plot against a model. Judge the fit on the Turnbull boxes (where the failures are known to lie) in the section above, and on the inspection-scheme Anderson–Darling test of each model.'
+      : 'No plot data came with this report.';
+    return;
+  }
+  for (const v of views) v.hidden = false;
   const ce = evidenceFor(resp.evidence, fam);
   // Censored samples have no bins: the views that need them are not offered (the reason is in the section notes).
   const offered: Record<EvidenceView, boolean> = { probability: true, cdf: true, histogram: ce?.histogram.source !== 'not-applicable', bins: ce?.bins.source !== 'not-applicable' };
@@ -390,7 +351,12 @@ export function doneLine(st: PageState): string {
   const resp = res.report;
   const n = resp.candidates.length;
   if (n === 0) return 'No model could be fitted to these values.';
-  return `Done: ${n} model${n === 1 ? '' : 's'} fitted to ${isGrouped(resp) ? `${resp.n} counted in ${resp.grouped.classes.length} classes` : `${resp.n} values of ${res.column}`} from ${res.source}.`;
+  const what = isGrouped(resp)
+    ? `${resp.n} counted in ${resp.grouped.classes.length} classes`
+    : resp.life?.recorded
+      ? `${resp.n} units found at inspections (columns ${res.column})`
+      : `${resp.n} values of ${res.column}`;
+  return `Done: ${n} model${n === 1 ? '' : 's'} fitted to ${what} from ${res.source}.`;
 }
 
 export function renderDemoList(list: readonly DemoEntry[]): void {

@@ -193,7 +193,8 @@ export function buildRequest(state: PageState): RequestOutcome {
     alpha: alpha ?? 0.05,
     ...(values ? { bins: bins ?? null } : {}),
     pMethod: s.pMethod,
-    evidence: true,
+    // Interval rows have no failure points to plot (the life section draws their Turnbull boxes).
+    evidence: values,
     ...(typeof seed === 'number' ? { seed } : {}),
     ...(typeof replicates === 'number' ? { replicates } : {}),
     ...Object.fromEntries(wf),

@@ -84,6 +84,17 @@ describe.skipIf(SKIP_BROWSER)('the settings form and the practitioner\'s traps',
     expect(problems).toEqual([]);
   });
 
+  it('the inspection demo opens as life data found at inspections: the interval columns, units, no empty plot', { timeout: 180_000 }, async () => {
+    await page.click('#demo-list button[data-name="valve-inspections"]');
+    await waitForStatus(page, /^Done: .*units found at inspections/, 120_000);
+    expect(await page.inputValue('#shape-select')).toBe('interval');
+    expect([await page.inputValue('#interval-start-select'), await page.inputValue('#interval-end-select'), await page.inputValue('#interval-count-select')]).toEqual(['1', '2', '3']);
+    expect(await page.locator('#value-cols').isVisible()).toBe(false);
+    await expect(page.locator('#evidence-note').textContent()).resolves.toMatch(/^Life data found at inspections: .*Turnbull/);
+    expect(await page.locator('.evidence-view:visible').count()).toBe(0);
+    await page.locator('#evidence').screenshot({ path: join(OUT, 'form-valve-evidence-1366.png') });
+  });
+
   it('reads well at 800 and 1366 px (screenshots) with no horizontal scroll', { timeout: 60_000 }, async () => {
     for (const width of [800, 1366]) {
       await page.setViewportSize({ width, height: width === 800 ? 900 : 768 });

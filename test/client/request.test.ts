@@ -142,6 +142,8 @@ describe('buildRequest', () => {
     expect(r).toMatchObject({ intervalColumns: [1, 2], countColumn: 3, bLifePercents: [1, 10], confidence: 0.9 });
     // No value column, no bins, and never a status column beside interval rows (the API refuses the pair).
     for (const k of ['column', 'bins', 'statusColumn']) expect(r).not.toHaveProperty(k);
+    // No failure points to plot: no evidence asked (the life section draws the Turnbull boxes).
+    expect(r.evidence).toBe(false);
     const same = buildRequest(update(st, { type: 'reading-changed', interval: { end: 1 } }));
     expect(!same.ok && same.problems.map((p) => p.field)).toEqual(['intervals']);
     const noCount = buildRequest(update(st, { type: 'reading-changed', interval: { count: 0 } }));
