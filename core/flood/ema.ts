@@ -73,6 +73,13 @@ export interface EmaFit {
 
 const MAX_ITERATIONS = 500;
 const TOLERANCE = 1e-12;
+/**
+ * Most known peaks one EMA fit takes. Annual-peak records run to a few hundred years; the multiple
+ * Grubbs–Beck p-values are simulated at the record's length (about 7 ms per peak at load 17 here,
+ * 1000 peaks ≈ 7 s), so a column of daily values sent by mistake (the server accepts 2·10⁶) is
+ * refused with a message instead of running for hours (common practice, no source).
+ */
+export const EMA_MAX_PEAKS = 1000;
 
 /** Build the log10 observations from a record, running the low-outlier test. */
 export function recordObservations(record: EmaRecord): {
@@ -82,6 +89,13 @@ export function recordObservations(record: EmaRecord): {
   lowThreshold: number | null;
 } {
   const known = [...record.peaks, ...(record.historicalPeaks ?? [])];
+  if (known.length > EMA_MAX_PEAKS) {
+    throw new InputError(
+      `EMA takes an annual-peak record of at most ${EMA_MAX_PEAKS} known peaks (got ${known.length}); a longer column is not a series of annual maxima — reduce it to one peak a year first.`,
+      {},
+      'bad-input',
+    );
+  }
   for (const q of known) {
     if (!Number.isFinite(q) || q < 0) throw new InputError(`a peak flow must be a finite number ≥ 0 (got ${String(q)})`);
   }

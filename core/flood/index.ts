@@ -7,7 +7,7 @@ export { exceedanceRisk, periodForRisk } from './risk.js';
 export { floodFrequency } from './analysis.js';
 export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } from './analysis.js';
 // Log-Pearson III by the expected moments algorithm (Bulletin 17C): EMA, low outliers, regional skew.
-export { emaCandidateFields, emaIterate, fitEma, recordObservations } from './ema.js';
+export { EMA_MAX_PEAKS, emaCandidateFields, emaIterate, fitEma, recordObservations } from './ema.js';
 export type { EmaCandidateFields, EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
 export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
 export type { EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';

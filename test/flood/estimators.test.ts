@@ -76,6 +76,13 @@ describe('log-Pearson III by EMA in the flood section (estimation ema)', () => {
     }
   });
 
+  it('a column far longer than any annual-peak record (1001 values) is not fitted by EMA, with the reason, before any simulation', () => {
+    const long = Array.from({ length: 1001 }, (_, i) => flows[i % flows.length]! + (i % 7));
+    const e = (analyzeDataset({ values: long }, { returnPeriods: [10], families: ['gumbel'], estimation: 'ema', seed: 1 }) as DatasetReport).flood!.estimators!;
+    expect(e.ema!.applicable).toBe(false);
+    expect(e.warnings.join(' ')).toMatch(/at most 1000 known peaks \(got 1001\)/);
+  });
+
   it('negative flows: EMA not applicable, said with the reason (the L-moment fits still run)', () => {
     const r2 = analyzeDataset({ values: flows.map((q, i) => (i === 3 ? -q : q)) }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema', seed: 1 }) as DatasetReport;
     const e = r2.flood!.estimators!;
