@@ -81,17 +81,18 @@ const WORDS: Readonly<Record<string, Words>> = {
   lsl: { label: 'Lower limit LSL', placeholder: 'none', hint: '' },
   usl: { label: 'Upper limit USL', placeholder: 'none', hint: '' },
   target: { label: 'Target', placeholder: 'none', hint: '' },
-  transform: { label: 'Transform to normal', choices: { none: 'none', boxcox: 'Box–Cox (λ by maximum likelihood)', johnson: 'Johnson (percentile fit)' } },
+  transform: { label: 'Transform to normal', hint: 'For a skewed characteristic: the indices on a scale where it is normal, Box–Cox (λ by maximum likelihood) or Johnson (Slifker–Shapiro percentile fit).', choices: { none: 'none', boxcox: 'Box–Cox (λ by maximum likelihood)', johnson: 'Johnson (percentile fit)' } },
   naturalLowerBound: { label: 'Natural lower bound', placeholder: 'none' },
   withinMethod: { label: 'Within-subgroup σ', secondary: true, choices: { pooled: 'pooled s / c4', range: 'mean range / d2' } },
   capabilityReplicates: { label: 'Replicates for percentile Pp, Ppk', secondary: true },
   trend: { label: 'Check the file order for a drift' },
-  regionalSkew: { label: 'Regional skew (log10 peaks)', placeholder: 'none' },
-  regionalSkewMse: { label: 'Mean square error of the regional skew', placeholder: 'none' },
-  perceptionThreshold: { label: 'Perception threshold', placeholder: 'none' },
-  historicalStart: { label: 'Historical period starts (year)', placeholder: 'none' },
-  threshold: { label: 'Peaks over a threshold of', placeholder: 'none' },
-  minSeparation: { label: 'Days between independent peaks' },
+  // Settings of the expected-moments (log-Pearson III) and peaks-over-threshold methods: folded, since they apply only with those methods.
+  regionalSkew: { label: 'Regional skew (log10 peaks)', placeholder: 'none', secondary: true },
+  regionalSkewMse: { label: 'Mean square error of the regional skew', placeholder: 'none', secondary: true },
+  perceptionThreshold: { label: 'Perception threshold', placeholder: 'none', secondary: true },
+  historicalStart: { label: 'Historical period starts (year)', placeholder: 'none', secondary: true },
+  threshold: { label: 'Peaks over a threshold of', placeholder: 'none', secondary: true },
+  minSeparation: { label: 'Days between independent peaks', secondary: true },
 };
 
 /** The data card reads the file itself; the page sets the plot-data settings; many series have their own page. */
