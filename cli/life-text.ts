@@ -101,8 +101,9 @@ export function lifeReportLines(r: RecordedLifeReport): string[] {
     const w = r.weibayes;
     out.push(`Weibayes (shape β = ${f(w.shape)} ASSUMED, not estimated)`);
     out.push(
-      `  ${w.failures} failures among ${w.units} units; Σ t^β = ${f(w.exposure, 6)}`,
-      `  scale: ${w.scale === null ? 'no estimate with zero failures' : f(w.scale, 5)}; lower bound (one-sided ${f(100 * w.confidence, 3)} %): ${f(w.scaleLower, 5)} (χ² with ${w.degreesOfFreedom} degrees of freedom)`,
+      // Exposure is absent (null/NaN) for inspection intervals: the bound is then the likelihood-ratio one (see method).
+      Number.isFinite(w.exposure ?? Number.NaN) ? `  ${w.failures} failures among ${w.units} units; Σ t^β = ${f(w.exposure, 6)}` : `  ${w.failures} failures among ${w.units} units, some known only to an inspection interval`,
+      `  scale: ${w.scale === null ? 'no estimate with zero failures' : f(w.scale, 5)}; lower bound (one-sided ${f(100 * w.confidence, 3)} %): ${f(w.scaleLower, 5)} (${Number.isFinite(w.exposure ?? Number.NaN) ? `χ² with ${w.degreesOfFreedom} degrees of freedom` : 'likelihood ratio'})`,
     );
     for (const b of w.bLives) out.push(`  B${f(b.percent, 3)}: estimate ${f(b.estimate)}, lower bound ${f(b.lower)}`);
     for (const x of w.reliability) out.push(`  R(${f(x.time)}): estimate ${f(x.estimate, 5)}, lower bound ${f(x.lower, 5)}`);

@@ -31,3 +31,4 @@ export { intervalAndersonDarling } from './interval-anderson-darling.js';
 export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, type IntervalGofOptions, type IntervalRangeOptions } from './interval-bootstrap.js';
 export type { IntervalFitOptions } from './interval-likelihood-fit.js';
 export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './interval-rows-csv.js';
+export { weibayesInterval } from './weibayes-interval.js';

@@ -22,6 +22,7 @@ import { LIFE_FAMILIES, lifeModel, type LifeFamilyName } from './models.js';
 import { fitRankRegression, RANK_REGRESSION_REASON } from './rank-regression.js';
 import { turnbull, type TurnbullEstimate } from './turnbull.js';
 import { weibayes, type WeibayesResult } from './weibayes.js';
+import { weibayesInterval } from './weibayes-interval.js';
 import type { CensoredGofResult } from './bootstrap.js';
 import { INTERVAL_AD_METHOD, intervalGofBootstrap } from './interval-bootstrap.js';
 
@@ -318,8 +319,9 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
   const np = turnbull(data);
   let wb: WeibayesResult | null = null;
   if (options.assumedShape !== undefined) {
-    if (!rc) throw new InputError('Weibayes (--assumed-shape) needs each unit’s running time: give exact failures and suspensions, not interval rows.', {}, 'bad-option');
-    wb = weibayes(rc, { shape: options.assumedShape, confidence, bLifePercents: percents, reliabilityTimes: relTimes });
+    // Exact failures and suspensions: the exact χ² form; with inspection intervals: ML given β and a likelihood-ratio bound.
+    const wo = { shape: options.assumedShape, confidence, bLifePercents: percents, reliabilityTimes: relTimes };
+    wb = rc ? weibayes(rc, wo) : weibayesInterval(data, wo);
     cautions.push(wb.statement);
   }
   let modes: CompetingModesReport | null = null;

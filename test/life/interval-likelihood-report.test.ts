@@ -54,14 +54,14 @@ describe('analyzeRecordedLife: the report for life data as recorded', () => {
     expect(() => analyzeRecordedLife({ interval: insp }, { estimation: 'rank-regression' })).toThrow(/Rank regression needs exact failure times/);
   });
 
-  it('an assumed shape adds Weibayes and says the shape is assumed; refused for interval rows', () => {
+  it('an assumed shape adds Weibayes and says the shape is assumed; on interval rows by likelihood (weibayes-interval.test.ts)', () => {
     const r = analyzeRecordedLife({ times: [500, 800, 1200, 1500], failed: [0, 0, 0, 0] }, { assumedShape: 2 });
     expect(r.weibayes).not.toBeNull();
     expect(r.weibayes!.scale).toBeNull();
     expect(r.candidates).toEqual([]);
     expect(r.notFitted.length).toBe(6);
     expect(r.cautions.join(' ')).toMatch(/ASSUMED/);
-    expect(() => analyzeRecordedLife({ interval: insp }, { assumedShape: 2 })).toThrow(/needs each unit’s running time/);
+    expect(analyzeRecordedLife({ interval: insp }, { assumedShape: 2, replicates: 0, mixture: false }).weibayes!.method).toMatch(/inspection intervals/);
   });
 
   it('a mode column adds the modes and the system; the mixture is ranked as a candidate beside the families', () => {
