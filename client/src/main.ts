@@ -100,7 +100,9 @@ async function run(): Promise<void> {
       renderResult(state);
       return;
     }
-    dispatch({ type: 'run-finished', generation, report: resp, column: built.column, requestedBins: built.requestedBins });
+    const { csv: _data, ...sent } = built.request as Record<string, unknown>;
+    void _data;
+    dispatch({ type: 'run-finished', generation, report: resp, column: built.column, requestedBins: built.requestedBins, sent });
     renderResult(state);
     setStatus(doneLine(state));
   } catch (err) {

@@ -2,6 +2,7 @@
  * The page's exports of the shown result: the printable HTML report (report-html.ts), the report
  * data as JSON, and the bins table as CSV. Each takes the state whose result it records.
  */
+import { PAGE_FIELDS } from './page-options.js';
 import type { AnalyzeResponse } from './api.js';
 import { blockHtml, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
@@ -42,8 +43,25 @@ export async function pageRecord(res: Result): Promise<{ data: DataRecord; setti
     settings: [
       ['Decimal mark', res.data.decimal === ',' ? 'comma (,)' : 'point (.)'],
       ['Header line', res.data.header ? 'first line is a header' : 'none: every line is data'],
+      ...sentSettings(res.sent),
     ],
   };
+}
+
+/** Settings the report's own sections do not restate (the report lists models, tests, confidence, B-lives, periods, limits). */
+const RESTATED = new Set(['families', 'alpha', 'bins', 'pMethod', 'replicates', 'seed', 'confidence', 'bLifePercents', 'reliabilityTimes', 'boundMethod', 'returnPeriods', 'designLife', 'plottingPosition', 'lsl', 'usl', 'target', 'trend']);
+
+/** Every other form setting the request carried, by its page label (a transform, an assumed shape, a test plan...). */
+export function sentSettings(sent: Readonly<Record<string, unknown>> | undefined): [string, string][] {
+  if (!sent) return [];
+  const out: [string, string][] = [];
+  for (const f of PAGE_FIELDS) {
+    if (RESTATED.has(f.name) || f.control === 'role' || !(f.name in sent)) continue;
+    const v = sent[f.name];
+    const text = Array.isArray(v) ? v.join(', ') : typeof v === 'string' ? (f.choiceWords[v] ?? v) : String(v);
+    out.push([f.label, text]);
+  }
+  return out;
 }
 
 export async function exportHtml(st: PageState): Promise<void> {
@@ -57,7 +75,11 @@ export async function exportHtml(st: PageState): Promise<void> {
     download(exportName(st, 'html'), buildReportHtml({ ...base, charts: svg ? [{ svg: svg.outerHTML, caption: $('cap-grouped').textContent ?? '' }] : [], binsTable: [], requestedBins: null }), 'text/html;charset=utf-8');
     return;
   }
-  if (!resp.evidence) return;
+  if (!resp.evidence) {
+    // Interval rows: no plot data; the report carries the sections (with the Turnbull chart) and the record.
+    download(exportName(st, 'html'), buildReportHtml({ ...base, charts: [], binsTable: [], requestedBins: res.requestedBins, decisionHtml: decisionReportHtml(st, resp) }), 'text/html;charset=utf-8');
+    return;
+  }
   const targets = { histogram: el('div'), probability: el('div'), bins: el('div'), cdf: el('div') };
   const svgs = drawEvidence(targets, resp.evidence, fam, { units: units(st), quantity: quantity(st), sizeOf: () => ({ width: 760, height: 440 }) });
   const captions = ['cap-histogram', 'cap-probability', 'cap-bins', 'cap-cdf'].map((id) => $(id).textContent ?? '');
@@ -85,6 +107,10 @@ export function exportCsv(st: PageState): void {
   const resp = needResult(st);
   if (resp && isGrouped(resp)) {
     showError('Class counts have no equal-probability bins table; the HTML report and the JSON hold the merged classes.');
+    return;
+  }
+  if (resp && !resp.evidence) {
+    showError('Life data found at inspections have no equal-probability bins; the HTML report and the JSON hold their numbers.');
     return;
   }
   if (!resp || !resp.evidence || !st.selected || !st.result) return;

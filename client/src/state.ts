@@ -60,6 +60,8 @@ export interface Result {
   readonly current: boolean;
   /** The text the analysis read and how it was read, for the report's record of the data. */
   readonly data: { readonly csv: string; readonly header: boolean; readonly decimal: '.' | ',' };
+  /** The request's options as sent (no data), for the report's record of the settings. */
+  readonly sent?: Readonly<Record<string, unknown>>;
 }
 
 export interface RunState {
@@ -122,7 +124,7 @@ export type Action =
   | { readonly type: 'settings-edited'; readonly patch: Partial<Settings> }
   | { readonly type: 'labels-edited'; readonly quantity?: string; readonly units?: string }
   | { readonly type: 'run-started' }
-  | { readonly type: 'run-finished'; readonly generation: number; readonly report: AnalyzeResponse; readonly column: string; readonly requestedBins: number | null }
+  | { readonly type: 'run-finished'; readonly generation: number; readonly report: AnalyzeResponse; readonly column: string; readonly requestedBins: number | null; readonly sent?: Readonly<Record<string, unknown>> }
   | { readonly type: 'run-failed'; readonly generation: number; readonly message: string }
   | { readonly type: 'run-stopped' }
   | { readonly type: 'select'; readonly family: string }
@@ -248,7 +250,7 @@ export function update(state: PageState, action: Action): PageState {
       return {
         ...state,
         run: { ...state.run, phase: 'idle' },
-        result: { report: action.report, source: state.source.name, column: action.column, requestedBins: action.requestedBins, current: true, data: { csv: state.source.csv, header: state.reading.header, decimal: state.reading.decimal } },
+        result: { report: action.report, source: state.source.name, column: action.column, requestedBins: action.requestedBins, current: true, data: { csv: state.source.csv, header: state.reading.header, decimal: state.reading.decimal }, ...(action.sent ? { sent: action.sent } : {}) },
         selected,
         error: null,
       };

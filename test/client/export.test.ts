@@ -343,3 +343,16 @@ describe('the page\'s report export records the data it analysed', () => {
     expect(doc.querySelector('pre.data')).toBeNull();
   });
 });
+
+describe('the report records every form setting the request carried', () => {
+  it('a transform, a natural bound and a Weibayes shape are listed by their page labels; settings the report restates and column roles are not', async () => {
+    const { sentSettings } = await import('../../client/src/page-export.js');
+    const rows = sentSettings({ families: ['normal'], alpha: 0.05, statusColumn: 2, transform: 'boxcox', naturalLowerBound: 0, assumedShape: 2.5, lsl: 1 });
+    expect(rows).toEqual([
+      ['Weibull shape known from experience', '2.5'],
+      ['Transform to normal', 'Box–Cox (λ by maximum likelihood)'],
+      ['Natural lower bound', '0'],
+    ]);
+    expect(sentSettings(undefined)).toEqual([]);
+  });
+});
