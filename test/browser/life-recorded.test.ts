@@ -27,7 +27,7 @@ describe.skipIf(SKIP_BROWSER)('life data as recorded on the page', () => {
   });
 
   it('the bearing demo shows the recorded-life section; the exported report carries it', { timeout: 240_000 }, async () => {
-    await waitForStatus(page, /^Done: .* 30 values/, 120_000);
+    await waitForStatus(page, /^Done: .* 30 (values|units)/, 120_000); // the bearing demo: 30 units (datasets/README.md)
     const block = page.locator('[data-block="life-recorded"]');
     await block.waitFor();
     const text = (await block.textContent()) ?? '';
@@ -70,6 +70,20 @@ describe.skipIf(SKIP_BROWSER)('life data as recorded on the page', () => {
     await expect(calc.locator('[role="alert"]').textContent()).resolves.toMatch(/assumed shape must be > 0/);
     await page.fill('#plan-shape', '2');
     await page.screenshot({ path: join(OUT, 'life-plan-1366x768.png') });
+    expect(problems).toEqual([]);
+  });
+
+  it('the valve inspection demo (interval rows through the API): the goodness-of-fit table by the inspection-scheme bootstrap and the Turnbull chart', { timeout: 240_000 }, async () => {
+    await page.click('#demo-list button[data-name="valve-inspections"]');
+    await waitForStatus(page, /^Done: .*units found at inspections/, 200_000);
+    const block = page.locator('[data-block="life-recorded"]');
+    await block.waitFor();
+    const text = (await block.textContent()) ?? '';
+    expect(text).toMatch(/Does each model fit\? Anderson–Darling on the nonparametric estimate/);
+    // datasets/README.md: the valve lives are Weibull; the exponential is rejected (p ≤ 0.05 in test/life/interval-gof.test.ts).
+    expect(text).toMatch(/exponential[^]*rejected: the data contradict it/);
+    expect(await block.locator('svg[role="img"] rect[data-kind="box"]').count()).toBeGreaterThan(5);
+    await page.screenshot({ path: join(OUT, 'life-recorded-valves-1366x768.png') });
     expect(problems).toEqual([]);
   });
 });
