@@ -93,6 +93,7 @@ const WORDS: Readonly<Record<string, Words>> = {
   historicalStart: { label: 'Historical period starts (year)', placeholder: 'none', secondary: true },
   threshold: { label: 'Peaks over a threshold of', placeholder: 'none', secondary: true },
   minSeparation: { label: 'Days between independent peaks', secondary: true },
+  dateColumn: { label: 'Date column (peaks over a threshold)', id: 'date-select', placeholder: 'none' },
 };
 
 /** The data card reads the file itself; the page sets the plot-data settings; many series have their own page. */
