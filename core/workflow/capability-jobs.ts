@@ -32,7 +32,7 @@ import { PlumblineError } from '../errors.js';
 import { compareCandidates, informationCriteria } from '../rank.js';
 import type { CompletePlan } from './complete.js';
 
-/** One capability bootstrap job [start, end); `family` names it in progress lines. */
+/** One capability bootstrap job [start, end); `family` names it in progress lines ('capability', one word as the families' names are). */
 export interface CapabilityJob extends CapabilityBootstrapJob {
   readonly kind: 'capability';
   readonly family: string;
@@ -46,8 +46,8 @@ function tableRejects(t: AdPValue, alpha: number): boolean {
   return t.pValueIs === 'upper-bound' ? t.pValue <= alpha : t.pValue < alpha;
 }
 
-function job(model: ModelSpec, n: number, limits: SpecLimits, seed: number, replicates: number, label: string): CapabilityJob {
-  return { ...capabilityBootstrapJob(model, n, limits, seed, replicates), kind: 'capability', family: `capability interval, ${label}` };
+function job(model: ModelSpec, n: number, limits: SpecLimits, seed: number, replicates: number): CapabilityJob {
+  return { ...capabilityBootstrapJob(model, n, limits, seed, replicates), kind: 'capability', family: 'capability' };
 }
 
 /** The capability bootstrap jobs of a complete-sample plan (full ranges [0, B)). */
@@ -64,7 +64,7 @@ export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
   if (transform !== 'none') {
     try {
       const t = transformTarget(sorted, transform, limits, alpha);
-      return [job(t.fitted.model, n, t.limits, seed, replicates, transform === 'boxcox' ? 'Box–Cox' : 'Johnson')];
+      return [job(t.fitted.model, n, t.limits, seed, replicates)];
     } catch (e) {
       if (e instanceof PlumblineError && e.code !== 'cancelled') return [];
       throw e;
@@ -83,7 +83,7 @@ export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
     if (family === 'normal') continue;
     const settled = c.table !== null && c.chiSquareBootstrapReason === null;
     const passes = settled && !tableRejects(c.table as AdPValue, alpha) && !(c.chiSquare.computable && c.chiSquare.rejected);
-    if (first || !settled || passes) jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates, c.family.label));
+    if (first || !settled || passes) jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates));
     first = false;
     if (passes) break;
   }
