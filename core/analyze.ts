@@ -30,6 +30,7 @@ export {
   CHI_SQUARE_BOOTSTRAP_BELOW_N,
   CHI_SQUARE_MONTE_CARLO_BAND,
   EXTREME_VALUE_TABLE_MIN_N,
+  GAMMA_TABLE_MIN_N,
   chiSquareNeedsBootstrap,
 } from './analyze-decisions.js';
 

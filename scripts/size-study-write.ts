@@ -32,3 +32,12 @@ export function replaceSection(doc: string, name: string, body: string): string 
 export function writeSection(name: string, body: string, path = SIZE_STUDY_DOC): void {
   writeFileSync(path, replaceSection(readFileSync(path, 'utf8'), name, body));
 }
+
+/** The body of section NAME as written (markers excluded); empty when it is missing. */
+export function readSection(name: string, path = SIZE_STUDY_DOC): string {
+  const doc = readFileSync(path, 'utf8');
+  const i = doc.indexOf(beginMarker(name));
+  const j = doc.indexOf(endMarker(name));
+  if (i < 0 || j < i) return '';
+  return doc.slice(i + beginMarker(name).length, j).trim();
+}

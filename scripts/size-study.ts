@@ -5,10 +5,10 @@
  * often the Anderson–Darling and chi-square tests reject at α = 0.05. A test with the right size
  * rejects 5 % of the time; the binomial standard error is √(0.05·0.95/R).
  *
- *   nice -n 10 npx tsx scripts/size-study.ts [R=2000] [B=99] [families=all] [--write]
+ *   nice -n 10 npx tsx scripts/size-study.ts [R=2000] [B=99] [families|labels=all] [ns=all] [--write]
  *
- * --write puts the table into docs/size-study.md (between its size-study:complete markers; only for
- * a run of every family). Sample i of a cell uses random stream createRng(SEED + 1000·cell + n, i);
+ * --write puts the table into docs/size-study.md (between its size-study:complete markers); a run of
+ * some cells only (e.g. 'gamma shape 2,gamma shape 8' 10) replaces their rows there and says so. Sample i of a cell uses random stream createRng(SEED + 1000·cell + n, i);
  * its bootstrap seed is 1000 + i. B = 99 is enough for the bootstrap decisions: a Monte Carlo test
  * that rejects at p ≤ α with α(B + 1) whole has exact size at any B (Davison & Hinkley 1997 §4.2.5;
  * Davidson & MacKinnon 2000, Econometric Reviews 19:55-68) — provided the bootstrap decides wherever
@@ -16,7 +16,7 @@
  */
 import { fileURLToPath } from 'node:url';
 import { analyze, createRng, getFamily, type FamilyName, type Parameters } from '../core/index.js';
-import { writeSection } from './size-study-write.js';
+import { readSection, writeSection } from './size-study-write.js';
 
 export const SIZE_STUDY_SEED = 20261204;
 export const SIZE_STUDY_NS = [10, 20, 50, 100, 200] as const;
@@ -88,33 +88,50 @@ const pct = (k: number, d: number): string => (d === 0 ? '—' : ((100 * k) / d)
 const se = (d: number): string => (d === 0 ? '—' : (100 * Math.sqrt((0.05 * 0.95) / d)).toFixed(2));
 const flag = (k: number, d: number): string => (d > 0 && Math.abs(k / d - 0.05) > 0.005 ? ' ⚠' : '');
 
+/**
+ * The written table with the rows of `rerun` (same model and n) replaced, and a line saying so; the
+ * other rows stay as the full run wrote them.
+ */
+export function mergeRows(section: string, rerun: readonly string[], note: string): string {
+  const key = (row: string): string => row.split('|').slice(1, 3).map((c) => c.trim()).join('|');
+  const fresh = new Map(rerun.map((r) => [key(r), r]));
+  const lines = section.split('\n').map((l) => (l.startsWith('| ') && fresh.has(key(l)) ? (fresh.get(key(l)) as string) : l));
+  return `${lines.join('\n').trimEnd()}\n${note}`;
+}
+
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   const args = process.argv.slice(2).filter((a) => a !== '--write');
   const write = process.argv.includes('--write');
   const samples = Number(args[0] ?? 2000);
   const replicates = Number(args[1] ?? 99);
-  const only = args[2] ? new Set(args[2].split(',')) : null;
-  if (write && only) throw new Error('--write needs a run of every family');
+  const only = args[2] && args[2] !== 'all' ? new Set(args[2].split(',')) : null;
+  const ns = args[3] ? args[3].split(',').map(Number) : [...SIZE_STUDY_NS];
   const started = Date.now();
   const lines = [
     '| model | n | samples | A² size % | A² by bootstrap | χ² size % | χ² by bootstrap | unrefitted replicates | SE % |',
     '|---|---|---|---|---|---|---|---|---|',
   ];
   console.log(lines.join('\n'));
+  const rows: string[] = [];
   SIZE_STUDY_CELLS.forEach((cell, ci) => {
-    if (only && !only.has(cell.family)) return;
-    for (const n of SIZE_STUDY_NS) {
+    if (only && !only.has(cell.label) && !only.has(cell.family)) return;
+    for (const n of ns) {
       const t0 = Date.now();
       const r = sizeCell(ci, n, samples, replicates);
       const used = r.samples - r.notFitted;
       const line = `| ${r.label} | ${n} | ${used}${r.notFitted ? ` (+${r.notFitted} not fitted)` : ''} | ${pct(r.ad, used)}${flag(r.ad, used)} | ${r.adBootstrap} | ${pct(r.chi, r.chiComputed)}${flag(r.chi, r.chiComputed)} | ${r.chiBootstrap} | ${r.unrefitted} | ${se(used)} |`;
-      lines.push(line);
+      rows.push(line);
       console.log(line);
       console.error(`${r.label} n = ${n}: ${((Date.now() - t0) / 1000).toFixed(0)} s`);
     }
   });
-  const tail = `\nR = ${samples} samples a cell, B = ${replicates} bootstrap replicates, α = 0.05, seed ${SIZE_STUDY_SEED}; ${((Date.now() - started) / 1000).toFixed(0)} s. ⚠ marks a size more than 0.5 points from 5 %.`;
-  lines.push(tail);
+  const seconds = ((Date.now() - started) / 1000).toFixed(0);
+  const tail = `\nR = ${samples} samples a cell, B = ${replicates} bootstrap replicates, α = 0.05, seed ${SIZE_STUDY_SEED}; ${seconds} s. ⚠ marks a size more than 0.5 points from 5 %.`;
   console.log(tail);
-  if (write) writeSection('complete', lines.join('\n'));
+  if (write && !only && ns.length === SIZE_STUDY_NS.length) writeSection('complete', [...lines, ...rows, tail].join('\n'));
+  else if (write) {
+    // A partial run replaces its own rows in the written table and says which (script arguments given).
+    const note = `Rows re-run by \`scripts/size-study.ts ${args.join(' ')}\` (${seconds} s): ${rows.map((r) => r.split('|').slice(1, 3).map((c) => c.trim()).join(' n = ')).join('; ')}.`;
+    writeSection('complete', mergeRows(readSection('complete'), rows, note));
+  }
 }

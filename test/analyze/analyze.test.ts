@@ -273,6 +273,13 @@ describe('A² tables whose size is off switch to the bootstrap automatically, an
     const w200 = analyze(getFamily('weibull').random({ shape: 1.5, scale: 4 }, createRng(5, 2), 200), { families: ['weibull'] });
     expect(w200.candidates[0]?.andersonDarling.method).toBe('table');
   });
+  it('gamma below n = 20: bootstrap, with a warning (the n = 200 table rejected 4.03 % at n = 10, shape 2; docs/size-study.md)', () => {
+    const g10 = analyze(getFamily('gamma').random({ shape: 2, scale: 3 }, createRng(5, 3), 10), { families: ['gamma'], bootstrapReplicates: 19 });
+    expect(g10.candidates[0]?.andersonDarling.method).toBe('bootstrap');
+    expect(g10.warnings.join('\n')).toMatch(/[Gg]amma: Anderson–Darling p-value by bootstrap, not the table: the simulated gamma table was built at n = 200/);
+    const g20 = analyze(getFamily('gamma').random({ shape: 2, scale: 3 }, createRng(5, 4), 20), { families: ['gamma'], bootstrapReplicates: 19 });
+    expect(g20.candidates[0]?.andersonDarling.method).toBe('table');
+  });
   it('gamma shape 0.1, n = 200: A² rejection rate within 4 binomial SE of 5 % (the table gave 9.6 %)', () => {
     // Seeded Monte Carlo, R = 600, B = 99: SE = √(0.05·0.95/R) = 0.89 %.
     const R = 600;
