@@ -181,7 +181,10 @@ export function renderAnswer(st: PageState): void {
   const a = resp && !isGrouped(resp) ? answerFor(resp, st.selected, units(st)) : null;
   head.hidden = a === null;
   $('answer-empty').hidden = a !== null;
-  if (resp && isGrouped(resp)) $('answer-empty').textContent = 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.';
+  // The hint says what to ask for; for class counts, why no decision number can be asked (and back to the hint for the next data).
+  const empty = $('answer-empty');
+  empty.dataset['hint'] ??= empty.textContent ?? '';
+  empty.textContent = resp && isGrouped(resp) ? 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.' : empty.dataset['hint'];
   $('answer').classList.toggle('is-undermined', a?.undermined === true);
   // A failed / still-running column left unused undermines every fit on screen: said where the answer is read, not only beside the column.
   const flag = st.result ? unusedStatusColumn(st) : undefined;

@@ -95,6 +95,15 @@ describe.skipIf(SKIP_BROWSER)('the settings form and the practitioner\'s traps',
     await page.locator('#evidence').screenshot({ path: join(OUT, 'form-valve-evidence-1366.png') });
   });
 
+  it('after class counts, the next data get the hint of what to ask for, not the class-counts note', { timeout: 180_000 }, async () => {
+    await page.click('#demo-list button[data-name="inspection-classes"]');
+    await waitForStatus(page, /^Done: .*inspection-classes/, 120_000);
+    await expect(page.locator('#answer-empty').textContent()).resolves.toMatch(/^Class counts: /);
+    await page.click('#demo-list button[data-name="pump-seal-wear"]');
+    await waitForStatus(page, /^Done: .*pump-seal-wear/, 120_000);
+    await expect(page.locator('#answer-empty').textContent()).resolves.toMatch(/^Mark a failed \/ still-running column/);
+  });
+
   it('reads well at 800 and 1366 px (screenshots) with no horizontal scroll', { timeout: 60_000 }, async () => {
     for (const width of [800, 1366]) {
       await page.setViewportSize({ width, height: width === 800 ? 900 : 768 });
