@@ -25,6 +25,7 @@ import {
   InputError,
   readColumn,
   readIntervalRows,
+  dayNumbers,
   columnSelector,
   SKIP_REASON_WORDS,
   type DatasetJobResult,
@@ -78,6 +79,7 @@ export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>;
  */
 export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; input: InputSummary } {
   if (req.intervalColumns) return intervalDataset(req, req.intervalColumns);
+  if (req.dateColumn !== undefined) return datedDataset(req, req.dateColumn);
   const wf = req.workflow;
   if (wf?.grouped) return { dataset: { grouped: wf.grouped }, input: { source: 'values', n: wf.grouped.reduce((a, c) => a + c.count, 0) } };
   if (req.values !== undefined || !wf || (wf.statusColumn === undefined && wf.subgroupColumn === undefined && wf.orderColumn === undefined)) {
@@ -176,6 +178,32 @@ function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, s
   };
 }
 
+/** A dated series (peaks over a threshold): the value column and the date column read in one pass (rows stay aligned). */
+function datedDataset(req: AnalyzeRequest, dateColumn: string | number): { dataset: DatasetInput; input: InputSummary } {
+  const t = readColumns(req.csv ?? '', [{ select: req.column ?? 1, kind: 'number' }, { select: dateColumn, kind: 'text' }], req.csvOptions);
+  const value = t.columns[0] as NumberColumn;
+  const date = t.columns[1] as TextColumn;
+  if (value.values.length === 0) throw new InputError(`Column ${JSON.stringify(value.column)} has no usable rows.`, { column: value.column }, 'too-few-values');
+  const { columns: _c, rowNumbers, ...summary } = t;
+  return {
+    dataset: { values: value.values, dates: dayNumbers(date.texts, rowNumbers, date.column) },
+    input: {
+      source: 'csv',
+      n: value.values.length,
+      column: value.column,
+      columnIndex: value.index,
+      rowsRead: summary.rowsRead,
+      skipped: summary.skipped.map((k) => ({ ...k, description: SKIP_REASON_WORDS[k.reason] })),
+      blankLines: summary.blankLines,
+      delimiter: summary.delimiter,
+      delimiterDetected: summary.delimiterDetected,
+      header: summary.header,
+      warnings: summary.warnings,
+      otherColumns: [{ role: 'date', column: date.column }],
+    },
+  };
+}
+
 /** A planned request: the core's plan with what the finish needs. */
 export interface PlannedRequest {
   readonly request: AnalyzeRequest;
@@ -203,7 +231,8 @@ export function planRequest(req: AnalyzeRequest): PlannedRequest {
 export function finishRequest(planned: PlannedRequest, counts: readonly DatasetJobResult[]): AnalyzeResponse {
   const { plan, request, input, dataset } = planned;
   const report = plan.kind === 'done' ? plan.report : finishDataset(plan, counts);
-  if (!request.evidence || report.dataKind === 'grouped' || !dataset.values) return { ...report, input };
+  // A dated series' report models the event peaks, not the values: no evidence is drawn from them.
+  if (!request.evidence || report.dataKind === 'grouped' || !dataset.values || dataset.dates) return { ...report, input };
   const sample: Sample = plan.kind === 'complete' ? plan.plan.plan.sample : prepareSample(dataset.values);
   const censoring = dataset.status ? { times: Float64Array.from(dataset.values), failed: Uint8Array.from(dataset.status) } : undefined;
   return { ...report, input, evidence: computeEvidence(sample, report, request.evidenceOptions, censoring) };

@@ -35,6 +35,8 @@ export interface AnalyzeRequest {
   /** Life data as recorded at inspections: the START and END columns of the CSV, and its count column (interval rows). */
   readonly intervalColumns?: readonly [string | number, string | number];
   readonly countColumn?: string | number;
+  /** A dated series (peaks over a threshold): the CSV's date column beside the value column. */
+  readonly dateColumn?: string | number;
 }
 
 /** The extra data of a request: the status, subgroup and order columns (or their arrays), grouped counts. */
@@ -210,6 +212,7 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
     if (body.csv.trim() === '') throw badRequest('"csv" is empty: the file has no rows.', 'csv', 'bad-input');
     out.csv = body.csv;
     if (given.has('column')) out.column = given.get('column');
+    if (given.has('dateColumn')) out.dateColumn = given.get('dateColumn');
     const interval = given.get('intervalColumns') as readonly (string | number)[] | undefined;
     if (interval !== undefined) {
       if (interval.length !== 2) throw badRequest(`"intervalColumns" takes two columns, START and END; got ${interval.length}.`, 'intervalColumns', 'bad-option');

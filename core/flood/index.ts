@@ -21,3 +21,4 @@ export type { SkewWeighting } from './regional-skew.js';
 export { EMA_CAUTIONS } from './ema-cautions.js';
 export { declusterRuns, fitGpdLMoments, fitGpdMl, gpdLogLikelihood, gpdReturnLevel, peaksOverThreshold, thresholdDiagnostics } from './pot.js';
 export type { Cluster, GpdFit, PotOptions, PotResult, PotReturnLevel, ThresholdDiagnostic } from './pot.js';
+export { dayNumbers, isoDayNumber } from './pot-dates.js';

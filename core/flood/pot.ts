@@ -90,7 +90,9 @@ export function fitGpdLMoments(y: ArrayLike<number>): GpdFit {
 /** Maximum likelihood over (σ, ξ), started from the L-moment fit. */
 export function fitGpdMl(y: ArrayLike<number>): GpdFit {
   const start = fitGpdLMoments(y);
-  const ymax = Math.max(...Array.from(y));
+  // A loop, not Math.max(...y): a spread of 10^5+ excesses overflows the call stack.
+  let ymax = 0;
+  for (let i = 0; i < y.length; i++) ymax = Math.max(ymax, y[i] as number);
   // A start inside the support: for ξ < 0 the upper end σ/|ξ| must exceed the largest excess.
   let s0 = start.scale;
   const x0 = Math.max(-0.45, Math.min(0.9, start.shape));

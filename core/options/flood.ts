@@ -93,7 +93,6 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     appliesTo: ['flood'],
     help: 'peaks over this threshold: a dated series (--date-column) is declustered and the excesses fitted by a generalized Pareto model',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'minSeparation',
@@ -106,7 +105,6 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     appliesTo: ['flood'],
     help: 'peaks over a threshold: exceedances closer than this many days form one event (runs declustering); only its peak is kept',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'dateColumn',
@@ -114,8 +112,7 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     kind: 'column',
     default: null,
     appliesTo: ['flood'],
-    help: 'peaks over a threshold: the column of dates (YYYY-MM-DD) of the series in --column',
+    help: 'peaks over a threshold: the column of dates (YYYY-MM-DD) of the series in --column; on the API with "csv" only',
     group: 'flood',
-    surfaces: ['cli'],
   },
 ];

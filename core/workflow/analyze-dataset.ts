@@ -14,6 +14,7 @@ import { finishComplete, planComplete, type CompleteInput } from './complete.js'
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
 import { intervalLifeReport } from './life-interval.js';
+import { potReport } from './flood-pot.js';
 import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
 
@@ -21,6 +22,7 @@ import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, Gro
 export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
   | { readonly kind: 'interval'; readonly run: () => DatasetReport }
+  | { readonly kind: 'pot'; readonly run: () => DatasetReport }
   | { readonly kind: 'life'; readonly run: (goodnessOfFit?: CensoredGofHook) => DatasetReport; readonly times: ArrayLike<number>; readonly status: ArrayLike<number> }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
@@ -31,6 +33,18 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
     }
     const rows = input.interval;
     return { kind: 'interval', run: () => intervalLifeReport(rows, options, settings) };
+  }
+  if (input.dates) {
+    if (input.status || input.grouped || input.subgroups || input.order || options.trend) {
+      throw new InputError('A dated series (peaks over a threshold) comes alone: no status, grouped, subgroup or order column with it, and no trend check.', {}, 'bad-option');
+    }
+    const days = input.dates;
+    const values = input.values;
+    if (!values) throw new InputError('No values to analyse.', {}, 'too-few-values');
+    return { kind: 'pot', run: () => potReport(days, values, options, settings) };
+  }
+  if (options.threshold !== undefined && options.threshold !== null) {
+    throw new InputError('Peaks over a threshold need the date of each value: give the date column.', {}, 'bad-option');
   }
   if (input.grouped) {
     if (input.values || input.status || input.subgroups || input.order) {

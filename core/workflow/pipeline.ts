@@ -89,7 +89,7 @@ export function jobSampleSize(job: DatasetJob): number {
 export function planDataset(input: DatasetInput, options: DatasetOptions = {}): DatasetPlan {
   const settings = workflowSettings(options);
   const r = route(input, options, settings);
-  if (r.kind === 'grouped' || r.kind === 'interval') return { kind: 'done', report: r.run() };
+  if (r.kind === 'grouped' || r.kind === 'interval' || r.kind === 'pot') return { kind: 'done', report: r.run() };
   if (r.kind === 'life') {
     const times = Array.from(r.times);
     const failed = Array.from(r.status);

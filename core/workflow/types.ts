@@ -16,6 +16,7 @@ import type { AnalyzeOptions } from '../analyze.js';
 import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
 import type { FloodEstimators } from './flood-estimators.js';
+import type { PotSection } from './flood-pot.js';
 
 /** What the data are: decides which candidates and sections the report carries. */
 export type DataKind = 'complete' | 'censored' | 'grouped';
@@ -33,6 +34,8 @@ export interface DatasetInput {
   readonly grouped?: readonly GroupedClass[] | null;
   /** Life data as recorded at inspections: interval rows (start, end, optional counts); they come alone (core/workflow/life-interval.ts). */
   readonly interval?: IntervalLifeInput | null;
+  /** A dated series (peaks over a threshold): the day of each value, days since 1970-01-01 (core/workflow/flood-pot.ts); values and dates come alone. */
+  readonly dates?: ArrayLike<number> | null;
   /**
    * The caller gives up `values` (a Float64Array whose order it does not need back): a complete
    * sample without order or subgroups is then sorted where it is instead of copied (8 bytes per
@@ -70,6 +73,9 @@ export interface DatasetOptions extends Omit<AnalyzeOptions, 'onProgress' | 'sig
   /** Log-Pearson III by EMA (`estimation: 'ema'`): a regional skew of log10 peaks and its mean square error, weighted with the station skew. */
   readonly regionalSkew?: number | null;
   readonly regionalSkewMse?: number | null;
+  /** Peaks over a threshold (a dated series): the threshold, and the minimum separation in days of independent events (default 3). */
+  readonly threshold?: number | null;
+  readonly minSeparation?: number | null;
   /** Specification limits (either may be absent); any one turns on capability. */
   readonly lsl?: number | null;
   readonly usl?: number | null;
@@ -225,6 +231,8 @@ export interface DatasetReport extends AnalysisReport {
   readonly flood?: FloodSection;
   readonly capability?: CapabilitySection;
   readonly trend?: TrendSection;
+  /** Peaks over a threshold of a dated series (core/workflow/flood-pot.ts); such a report has no ranked candidates. */
+  readonly pot?: PotSection;
   /** Present when any decision number was asked for (B-life, reliability, return level, ppm). */
   readonly sensitivity?: readonly SensitivityRow[];
 }
