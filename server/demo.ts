@@ -33,6 +33,11 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
     fields: {},
     description: 'class limits with counts: lower limit column lower, upper limit column upper, count column count (pit depths in mm); the five general models; the chi-square runs on the classes given',
   },
+  'river-daily-flows': {
+    column: 'flow_m3s',
+    fields: { dateColumn: 'date', threshold: 140, minSeparation: 5, returnPeriods: [2, 10, 50, 100], confidence: 0.9 },
+    description: 'column flow_m3s by date column date: peaks over a threshold of 140 m³/s, events at least 5 days apart; return periods 2, 10, 50, 100 years; 90 % intervals',
+  },
   'shaft-diameter': {
     column: 'diameter_mm',
     fields: { subgroupColumn: 'subgroup', lsl: 24.99, usl: 25.01, target: 25, confidence: 0.9 },

@@ -7,6 +7,8 @@ import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability
 import { lmomentDiagramChart } from '../charts/lmoment-diagram.js';
 import type { ChartOptions } from '../charts/options.js';
 import { returnPeriodChart } from '../charts/return-period.js';
+import { thresholdMeanExcessChart } from '../charts/threshold-mean-excess.js';
+import { thresholdStabilityChart } from '../charts/threshold-stability.js';
 import { turnbullChart } from '../charts/turnbull.js';
 import { capital, type ChartSlot } from './decision.js';
 
@@ -50,6 +52,11 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       const lm = r.flood?.estimators?.lmoments;
       return lm && lm.applicable ? lmomentDiagramChart(box, lm.diagram, options) : null;
     }
+    case 'threshold-mean-excess':
+      // Peaks over a threshold: the diagnostics users choose the threshold from (core/workflow/flood-pot.ts).
+      return r.pot && r.pot.diagnostics.length > 0 ? thresholdMeanExcessChart(box, { diagnostics: r.pot.diagnostics, chosen: r.pot.threshold }, options) : null;
+    case 'threshold-stability':
+      return r.pot && r.pot.diagnostics.some((d) => d.shape !== null) ? thresholdStabilityChart(box, { diagnostics: r.pot.diagnostics, chosen: r.pot.threshold }, options) : null;
     case 'capability-histogram': {
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);

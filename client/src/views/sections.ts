@@ -8,6 +8,7 @@ import type { SectionBlock, SectionInput, SectionView } from './block.js';
 import { capabilitySection } from './capability.js';
 import { floodSection } from './flood.js';
 import { floodEstimatorsSection } from './flood-estimators.js';
+import { floodPotSection } from './flood-pot.js';
 import { lifeSection } from './life.js';
 import { lifeRecordedSection } from './life-recorded.js';
 import { sensitivitySection } from './sensitivity.js';
@@ -18,6 +19,7 @@ export const SECTIONS: readonly { readonly key: string; readonly view: SectionVi
   { key: 'life-recorded', view: lifeRecordedSection },
   { key: 'flood', view: floodSection },
   { key: 'flood-estimators', view: floodEstimatorsSection },
+  { key: 'pot', view: floodPotSection },
   { key: 'capability', view: capabilitySection },
   { key: 'trend', view: trendSection },
   { key: 'sensitivity', view: sensitivitySection },
