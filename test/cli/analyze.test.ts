@@ -151,7 +151,10 @@ describe.concurrent('plumbline errors', () => {
     // Source: common practice, no source.
     const help = await cli('--help');
     expect(help.status).toBe(0);
-    expect(help.stdout).toContain('plumbline analyze FILE.csv');
+    // The usage lists each command (analyze, merge, plan) with its own line.
+    expect(help.stdout).toMatch(/^ {2}plumbline analyze FILE /m);
+    expect(help.stdout).toMatch(/^ {2}plumbline merge /m);
+    expect(help.stdout).toMatch(/^ {2}plumbline plan /m);
     const version = await cli('--version');
     expect(version.status).toBe(0);
     expect(version.stdout).toMatch(/^plumbline \d+\.\d+\.\d+\n$/);
