@@ -263,7 +263,7 @@ export function renderEvidence(st: PageState): void {
     for (const id of Object.values(CHART_IDS)) clear($(id));
     $('evidence-name').textContent = modelLabel(fam);
     $('evidence-note').hidden = false;
-    $('evidence-note').textContent = resp.life?.recorded
+    $('evidence-note').textContent = intervalRows(resp)
       ? 'Life data found at inspections: each failure time is known only to lie within its interval, so there are no failure points to plot against a model. Judge the fit on the Turnbull boxes (where the failures are known to lie) in the section above, and on the inspection-scheme Anderson–Darling test of each model.'
       : 'No plot data came with this report.';
     return;
@@ -348,6 +348,11 @@ export function renderGroupedEvidence(st: PageState, resp: GroupedResponse, fam:
 }
 
 
+/** Whether a report was made from interval rows (life data found at inspections): its input names an interval-end column. */
+function intervalRows(resp: AnalyzeResponse): boolean {
+  return resp.input?.otherColumns?.some((o) => o.role === 'interval end') === true;
+}
+
 export function doneLine(st: PageState): string {
   const res = st.result;
   if (!res) return '';
@@ -356,7 +361,7 @@ export function doneLine(st: PageState): string {
   if (n === 0) return 'No model could be fitted to these values.';
   const what = isGrouped(resp)
     ? `${resp.n} counted in ${resp.grouped.classes.length} classes`
-    : resp.life?.recorded
+    : intervalRows(resp)
       ? `${resp.n} units found at inspections (columns ${res.column})`
       : `${resp.n} values of ${res.column}`;
   return `Done: ${n} model${n === 1 ? '' : 's'} fitted to ${what} from ${res.source}.`;
