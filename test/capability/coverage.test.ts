@@ -88,6 +88,11 @@ describe('Johnson interval coverage by rule and by fitted type (committed diagno
     for (const rule of ['bca', 'bc', 'bc-plain']) expect(r50.coverage[rule]!.Pp).toBeGreaterThan(96.5);
     expect(r50.coverage.percentile!.Ppu).toBeLessThan(95);
   });
+  it('not fixed by resampling the data instead (nonparametric bootstrap): Ppk 3.4 points short at n = 125', () => {
+    const r125 = (vx.results as VariantRun[]).find((r) => r.n === 125)!;
+    expect(r125.coverage.nonparametric!.Ppk).toBe(91.6);
+    expect(Math.abs(r125.coverage.nonparametric!.Ppk! - 95)).toBeGreaterThan(1.5);
+  });
   it('the report\'s caveat quotes these numbers, and warns of the lower end for an SB fit', () => {
     const all = (vx.results as VariantRun[]).flatMap((r) => Object.values(r.coverage.report!));
     expect(Math.min(...all)).toBe(93.5);
