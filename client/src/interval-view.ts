@@ -32,6 +32,14 @@ function wholeCounts(csv: string, index: number, header: boolean, decimal: '.' |
   }
 }
 
+/** The start and end columns when the header names both (common practice, no source), else null. */
+export function namesIntervalColumns(columns: readonly ColumnChoice[]): { start: number; end: number } | null {
+  const find = (re: RegExp): number => columns.find((c) => re.test(c.label.trim()))?.index ?? 0;
+  const start = find(START);
+  const end = find(END);
+  return start === 0 || end === 0 || start === end ? null : { start, end };
+}
+
 /**
  * The start, end and count columns when the header names a start and an end column (common
  * practice, no source), else null. The count is a column named like one, or else the one other
@@ -39,10 +47,9 @@ function wholeCounts(csv: string, index: number, header: boolean, decimal: '.' |
  */
 export function guessIntervalColumns(columns: readonly ColumnChoice[], csv: string, options: { readonly header: boolean; readonly decimal: '.' | ',' }): IntervalColumns | null {
   if (!options.header) return null;
-  const find = (re: RegExp): number => columns.find((c) => re.test(c.label.trim()))?.index ?? 0;
-  const start = find(START);
-  const end = find(END);
-  if (start === 0 || end === 0 || start === end) return null;
+  const named = namesIntervalColumns(columns);
+  if (!named) return null;
+  const { start, end } = named;
   let count = columns.find((c) => c.index !== start && c.index !== end && COUNT.test(c.label.trim()))?.index ?? 0;
   if (count === 0 && columns.length === 3) {
     const other = columns.find((c) => c.index !== start && c.index !== end);

@@ -16,7 +16,8 @@ import { sig } from './format.js';
 import { skipLine } from './skip-words.js';
 import { guessFromColumn } from './units-guess.js';
 import { binCountsChart } from '../charts/bin-counts.js';
-import { cellRows, chartCells, classRows, groupedText, isGrouped, type GroupedResponse } from './grouped-view.js';
+import { cellRows, chartCells, classRows, groupedText, guessGroupedColumns, isGrouped, type GroupedResponse } from './grouped-view.js';
+import { namesIntervalColumns } from './interval-view.js';
 import { shownLabels, type EvidenceView, type PageState } from './state.js';
 import type { RunProgress } from './runner.js';
 import { showSettings } from './form.js';
@@ -372,6 +373,9 @@ export function renderDemoList(list: readonly DemoEntry[]): void {
   clear(ul);
   for (const d of list) {
     const title = d.name.replace(/[-_]+/g, ' ').replace(/^./, (c) => c.toUpperCase());
-    ul.append(el('li', {}, el('button', { type: 'button', 'data-name': d.name, 'aria-pressed': 'false' }, title, el('span', { className: 'demo-cols' }, `${d.file} · column ${d.defaultColumn}`))));
+    // Said as the page will read it: class counts and inspection intervals have no one value column.
+    const cols = d.columns.map((label, i) => ({ index: i + 1, label }));
+    const how = guessGroupedColumns(cols) ? 'class counts' : namesIntervalColumns(cols) ? 'found at inspections' : `column ${d.settings?.column ?? d.defaultColumn}`;
+    ul.append(el('li', {}, el('button', { type: 'button', 'data-name': d.name, 'aria-pressed': 'false' }, title, el('span', { className: 'demo-cols' }, `${d.file} · ${how}`))));
   }
 }

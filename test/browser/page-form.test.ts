@@ -42,6 +42,10 @@ describe.skipIf(SKIP_BROWSER)('the settings form and the practitioner\'s traps',
     expect(await page.locator('#transform-select option').evaluateAll((o) => o.map((x) => (x as HTMLOptionElement).value))).toEqual(['none', 'boxcox', 'johnson']);
     expect(await page.getAttribute('#replicates-input', 'min')).toBe('19');
     expect(await page.getAttribute('#natural-lower-bound-input', 'type')).toBe('number');
+    // The demo list says how each demo will be read: no "column valves" for inspection intervals.
+    await expect(page.locator('#demo-list button[data-name="valve-inspections"] .demo-cols').textContent()).resolves.toBe('valve-inspections.csv · found at inspections');
+    await expect(page.locator('#demo-list button[data-name="inspection-classes"] .demo-cols').textContent()).resolves.toBe('inspection-classes.csv · class counts');
+    await expect(page.locator('#demo-list button[data-name="bearing-life"] .demo-cols').textContent()).resolves.toBe('bearing-life.csv · column hours');
   });
 
   it('a status column left unused is said in the answer, and its button applies it', { timeout: 120_000 }, async () => {
