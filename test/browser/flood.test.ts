@@ -5,6 +5,8 @@
  * (the weighted skew, the low-outlier decision, flows with intervals), the L-moment fits and the
  * L-moment ratio diagram, with the design-flood cautions; then L-moments alone; at 1366 and
  * 800 px wide (nothing wider than the window); the exported report carries the section.
+ * Then peaks over a threshold on the invented daily-flows demo (date column role, threshold, the
+ * generalized Pareto levels per year, both threshold-diagnostics charts, cautions) at 1366 and 800 px.
  * Screenshots into test-output/ (git-ignored).
  */
 import { readFileSync } from 'node:fs';
@@ -118,6 +120,48 @@ describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
     expect(text).not.toMatch(/expected moments:/);
     await showBlock();
     await page.screenshot({ path: join(OUT, 'flood-lmoments-1366x768.png') });
+    expect(problems).toEqual([]);
+  });
+
+  it('peaks over a threshold on the daily-flows demo: date column, threshold, events, levels per year with intervals, both diagnostics charts, cautions (1366 and 800 px)', { timeout: 300_000 }, async () => {
+    const pot = page.locator('[data-block="pot"]');
+    // The opening demo must have finished first, or its late result replaces this one.
+    await waitForStatus(page, /^Done: /, 120_000);
+    await page.click('#demo-list button[data-name="river-daily-flows"]');
+    await page.waitForFunction(() => /Peaks over a threshold/.test(document.querySelector('[data-block="pot"]')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    const text = (await pot.textContent()) ?? '';
+    expect(text).toMatch(/100-year level from the events above 140 m³\/s: [\d.]+ m³\/s by maximum likelihood, 90 % interval [\d.]+ to [\d.]+/);
+    expect(text).toMatch(/event peaks in 25 years/);
+    expect(text).toMatch(/Generalized Pareto excesses by L-moments/);
+    expect(text).toMatch(/governing agency/);
+    expect(text).toMatch(/licensed engineer or hydrologist/);
+    const charts = pot.locator('svg[role="img"]');
+    await charts.nth(1).waitFor();
+    expect(await charts.count()).toBe(2);
+    expect(await charts.nth(0).locator('circle[data-kind="point"]').count()).toBe(15);
+    expect(await charts.nth(1).locator('line[data-kind="chosen"]').count()).toBe(1);
+    // The date column is a column role of the data card; a changed threshold re-runs.
+    expect(await page.locator('#date-select').inputValue()).not.toBe('0');
+    await setField('threshold-input', '160');
+    await page.waitForFunction(() => /events above 160 m³\/s/.test(document.querySelector('[data-block="pot"]')?.textContent ?? ''), undefined, { timeout: 120_000 });
+    await pot.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'flood-pot-1366x768.png') });
+    await page.screenshot({ path: join(OUT, 'flood-pot-full-1366.png'), fullPage: true });
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.waitForTimeout(600);
+    await page.waitForSelector('[data-block="pot"] svg');
+    await pot.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'flood-pot-800x900.png') });
+    await page.waitForSelector('[data-block="pot"] svg');
+    const wide = await page.evaluate(() => {
+      const b = document.querySelector('[data-block="pot"]') as HTMLElement;
+      const svg = b.querySelector('svg') as SVGSVGElement;
+      return { page: document.documentElement.scrollWidth, window: window.innerWidth, block: b.getBoundingClientRect().right, svg: svg.getBoundingClientRect().right };
+    });
+    expect(wide.page).toBeLessThanOrEqual(wide.window);
+    expect(wide.block).toBeLessThanOrEqual(wide.window);
+    expect(wide.svg).toBeLessThanOrEqual(wide.window);
+    await page.setViewportSize({ width: 1366, height: 768 });
     expect(problems).toEqual([]);
   });
 });
