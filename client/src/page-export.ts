@@ -67,15 +67,16 @@ export function sentSettings(sent: Readonly<Record<string, unknown>> | undefined
 export async function exportHtml(st: PageState): Promise<void> {
   const resp = needResult(st);
   const res = st.result;
-  const fam = st.selected;
-  if (!resp || !res || !fam) return;
+  // A report without whole-series models (peaks over a threshold) is written too, with its sections and no evidence charts.
+  const fam = st.selected ?? '';
+  if (!resp || !res) return;
   const base = { response: resp, selected: fam, sourceName: res.source, column: res.column, units: units(st), quantity: quantity(st), generatedAt: new Date(), ...(await pageRecord(res)) };
   if (isGrouped(resp)) {
     const svg = groupedChart(st, resp, fam, el('div'), { width: 760, height: 440 });
     download(exportName(st, 'html'), buildReportHtml({ ...base, charts: svg ? [{ svg: svg.outerHTML, caption: $('cap-grouped').textContent ?? '' }] : [], binsTable: [], requestedBins: null }), 'text/html;charset=utf-8');
     return;
   }
-  if (!resp.evidence) {
+  if (!resp.evidence || fam === '') {
     // Interval rows: no plot data; the report carries the sections (with the Turnbull chart) and the record.
     download(exportName(st, 'html'), buildReportHtml({ ...base, charts: [], binsTable: [], requestedBins: res.requestedBins, decisionHtml: decisionReportHtml(st, resp) }), 'text/html;charset=utf-8');
     return;

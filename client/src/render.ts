@@ -185,7 +185,12 @@ export function renderAnswer(st: PageState): void {
   // The hint says what to ask for; for class counts, why no decision number can be asked (and back to the hint for the next data).
   const empty = $('answer-empty');
   empty.dataset['hint'] ??= empty.textContent ?? '';
-  empty.textContent = resp && isGrouped(resp) ? 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.' : empty.dataset['hint'];
+  empty.textContent =
+    resp && isGrouped(resp)
+      ? 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.'
+      : resp?.pot
+        ? 'Peaks over a threshold: the return levels, with their intervals and cautions, are in the section “Peaks over a threshold” below, from the generalized Pareto fit of the event excesses; the models of the whole series are not fitted.'
+        : empty.dataset['hint'];
   $('answer').classList.toggle('is-undermined', a?.undermined === true);
   // A failed / still-running column left unused undermines every fit on screen: said where the answer is read, not only beside the column.
   const flag = st.result ? unusedStatusColumn(st) : undefined;
@@ -250,7 +255,13 @@ export function renderEvidence(st: PageState): void {
   $('grouped-evidence').hidden = !grouped;
   $('value-charts').hidden = grouped;
   if (!resp || !fam) {
+    // Nothing selected (no result, or a report without whole-series models, as peaks over a threshold): no stale name or note.
     for (const id of Object.values(CHART_IDS)) clear($(id));
+    for (const v of document.querySelectorAll<HTMLElement>('.view-pick, .evidence-view')) v.hidden = !resp ? v.hidden : true;
+    $('evidence-name').textContent = 'the selected model';
+    const pot = resp && !isGrouped(resp) ? resp.pot : undefined;
+    $('evidence-note').hidden = !pot;
+    $('evidence-note').textContent = pot ? 'Peaks over a threshold: the evidence is the section’s own — the event peaks against the generalized Pareto fit and the threshold diagnostics, above.' : '';
     return;
   }
   if (isGrouped(resp)) {
@@ -359,6 +370,9 @@ export function doneLine(st: PageState): string {
   if (!res) return '';
   const resp = res.report;
   const n = resp.candidates.length;
+  // Peaks over a threshold: the models are the section's own (generalized Pareto on the event excesses).
+  const pot = isGrouped(resp) ? undefined : resp.pot;
+  if (pot) return `Done: peaks over a threshold of ${sig(pot.threshold)}: ${pot.clusters} events in ${sig(pot.years, 3)} years of ${res.column} from ${res.source}.`;
   if (n === 0) return 'No model could be fitted to these values.';
   const what = isGrouped(resp)
     ? `${resp.n} counted in ${resp.grouped.classes.length} classes`
