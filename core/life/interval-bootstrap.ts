@@ -14,8 +14,11 @@
  * life is Ren's (2003, Scand. J. Statist. 30:211-226 [from memory]) for the NPMLE; Sun 2006, The
  * Statistical Analysis of Interval-censored Failure Time Data, ch. 2 [from memory], for the
  * scheme). When a fleet was inspected on a denser common schedule than its rows show, the
- * replicates carry less information than such a fleet had; the method text says so, and the size
- * measured under both kinds of scheme is in test/fixtures/life-interval-size.json.
+ * replicates carry less information than such a fleet had; the method text says so. Measured size
+ * (test/fixtures/life-interval-size.json, scripts/life-interval-size.ts): conservative in both designs,
+ * far below α: with case-2 data too, since a row records only the inspections around the failure (a
+ * suspension at V loses its earlier inspection at U), so replicates are coarser than the data. The
+ * p-value therefore errs toward not rejecting; its power is low.
  * Each replicate is refitted by the same interval maximum likelihood (warm start at the fitted
  * parameters) and its statistic computed on its own Turnbull estimate against its own fit, so the
  * p-value accounts for estimated parameters (as bootstrap.ts does for right-censored data).
@@ -39,7 +42,7 @@ import { turnbull, type TurnbullOptions } from './turnbull.js';
 export const INTERVAL_AD_TURNBULL: TurnbullOptions = { tolerance: 1e-9, maxIterations: 20000 };
 
 export const INTERVAL_AD_METHOD =
-  'Anderson–Darling A² on the Turnbull estimate (inside each innermost interval the estimate taken nearest the model; cf. Ren 2003), p-value by parametric bootstrap that refits every replicate and reproduces the inspection scheme unit by unit: each unit keeps the inspection times its row records (interval (L, R]: inspected at L and R; left (0, R]: at R; right (L, ∞): last seen at L; exact: watched to the last time in the data) and gets a lifetime from the fitted model; replicates that cannot be refitted count as exceeding (conservative). Assumes inspection times independent of the lives; a fleet inspected more often than its rows show is given less information in the replicates than it had';
+  'Anderson–Darling A² on the Turnbull estimate (inside each innermost interval the estimate taken nearest the model; cf. Ren 2003), p-value by parametric bootstrap that refits every replicate and reproduces the inspection scheme unit by unit: each unit keeps the inspection times its row records (interval (L, R]: inspected at L and R; left (0, R]: at R; right (L, ∞): last seen at L; exact: watched to the last time in the data) and gets a lifetime from the fitted model; replicates that cannot be refitted count as exceeding (conservative). Assumes inspection times independent of the lives; a fleet inspected more often than its rows show is given less information in the replicates than it had. Measured size: conservative (far below α), so a model that is not rejected is not thereby supported';
 
 /** The observed statistic of a fitted model. */
 export function intervalStatistic(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData): number {
