@@ -11,6 +11,8 @@ import { fileURLToPath } from 'node:url';
 import { createRng, type Rng } from '../core/index.js';
 // The life-data-as-recorded scenarios (valve inspections, seal failure modes) have their own generator, same OUT_DIR.
 import './make-life-datasets.js';
+// The peaks-over-a-threshold daily series (river-daily-flows.csv) has its own generator, same OUT_DIR.
+import './make-pot-dataset.js';
 
 export const SEED = 20261201;
 const here = dirname(fileURLToPath(import.meta.url));

@@ -1,7 +1,8 @@
 /**
  * Writes datasets/river-daily-flows.csv: an INVENTED river's daily mean flows for the
  * peaks-over-threshold demo (a date column and a value column). Seeded (createRng(20261204, 13));
- * rerun with `node --import tsx scripts/make-pot-dataset.ts` to rewrite it byte for byte.
+ * rerun with `node --import tsx scripts/make-pot-dataset.ts [OUT_DIR]` (default datasets/) to rewrite it
+ * byte for byte; scripts/make-datasets.ts imports it, so test/cli/datasets.test.ts compares its bytes.
  *
  * Model (m³/s), 1999-01-01 to 2023-12-31: a seasonal base flow, exp(ln 45 + 0.35 sin(2π(d − 60)/365.25)
  * + e_d) with e_d an AR(1) (coefficient 0.9, innovation sd 0.12); storms start on a day with
@@ -10,7 +11,11 @@
  * flow is the larger of base and storm, rounded to 0.1 m³/s.
  */
 import { writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { createRng } from '../core/random/index.js';
+
+const outDir = process.argv[2] ?? join(dirname(fileURLToPath(import.meta.url)), '..', 'datasets');
 
 const rng = createRng(20261204, 13);
 const start = Date.UTC(1999, 0, 1);
@@ -31,4 +36,5 @@ for (let d = 0; d < days; d++) {
 }
 const lines = ['date,flow_m3s'];
 for (let d = 0; d < days; d++) lines.push(`${new Date(start + d * 86_400_000).toISOString().slice(0, 10)},${(Math.round((flows[d] as number) * 10) / 10).toFixed(1)}`);
-writeFileSync(new URL('../datasets/river-daily-flows.csv', import.meta.url), `${lines.join('\n')}\n`);
+writeFileSync(join(outDir, 'river-daily-flows.csv'), `${lines.join('\n')}\n`);
+console.log(`wrote ${join(outDir, 'river-daily-flows.csv')}: ${days} rows`);
