@@ -8,6 +8,7 @@ import type { Family, FamilyName, FitSuccess } from './families/index.js';
 import {
   bootstrapPValue,
   chiSquareBootstrapPValue,
+  EXTREME_VALUE_SIMULATED_MIN_N,
   formatNumber,
   GAMMA_AD_TABLE,
   type AdPValue,
@@ -15,6 +16,8 @@ import {
 } from './gof/index.js';
 import type { ResolvedOptions } from './analyze-options.js';
 import type { AndersonDarlingReport, ChiSquareReport } from './report.js';
+
+export { EXTREME_VALUE_TABLE_MIN_N } from './gof/index.js';
 
 /** A fitted family with its statistics and the reasons its tests go to the bootstrap (if they do). */
 export interface FittedCandidate {
@@ -59,9 +62,6 @@ export function chooseDeciders(
   return { table, bootstrapReason, chiSquareBootstrapReason: chiSquareNeedsBootstrap(chiSquare, n, opts.bootstrapReplicates) };
 }
 
-/** Below this n the Weibull/Gumbel A² table (Stephens 1977) is replaced by the bootstrap. */
-export const EXTREME_VALUE_TABLE_MIN_N = 100;
-
 /**
  * Below this n the simulated gamma A² table (built at n = 200 and used without an n-correction) is
  * replaced by the bootstrap: at n = 10 it rejected 4.03 % (shape 2) and 4.55 % (shape 8) for a
@@ -77,8 +77,8 @@ export const AUTO_SWITCH = 'the table p-value has the wrong size here, so the bo
  * docs/size-study.md), the reason to switch to the bootstrap; else null.
  */
 function tableSizeOff(family: FamilyName, parameters: Readonly<Record<string, number>>, n: number): string | null {
-  if ((family === 'weibull' || family === 'gumbel') && n < EXTREME_VALUE_TABLE_MIN_N) {
-    return `${AUTO_SWITCH}the Stephens (1977) A*(1 + 0.2/√n) approximation rejects about 5.6 % at n = 20 for a nominal 5 % (below n = ${EXTREME_VALUE_TABLE_MIN_N} the bootstrap is used)`;
+  if ((family === 'weibull' || family === 'gumbel') && n < EXTREME_VALUE_SIMULATED_MIN_N) {
+    return `${AUTO_SWITCH}n = ${n} is below the smallest size (${EXTREME_VALUE_SIMULATED_MIN_N}) of the simulated extreme-value A² table, and the Stephens (1977) A*(1 + 0.2/√n) approximation is off there (about 5.6 % at n = 20 for a nominal 5 %)`;
   }
   if (family === 'gamma' && n < GAMMA_TABLE_MIN_N) {
     return `${AUTO_SWITCH}the simulated gamma table was built at n = ${GAMMA_AD_TABLE.n} and rejects about 4.0 % at n = 10 for a nominal 5 % (below n = ${GAMMA_TABLE_MIN_N} the bootstrap is used)`;

@@ -19,8 +19,7 @@
  */
 import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { getFamily, type FamilyName, type Parameters } from '../core/index.js';
-import { replicateStatistic } from '../core/gof/index.js';
+import { criticalRow } from './ad-critical-row.js';
 
 const SEED = 20261201;
 const REPLICATES = 100_000;
@@ -34,25 +33,10 @@ const PUBLISHED: Record<string, readonly number[]> = {
   '5': [0.471, 0.632, 0.755, 0.874, 1.034], // same
 };
 
-function criticalRow(family: FamilyName, parameters: Parameters, seed: number): { values: number[]; failed: number } {
-  const fam = getFamily(family);
-  const a2 = new Float64Array(REPLICATES);
-  let m = 0;
-  let failed = 0;
-  for (let i = 0; i < REPLICATES; i++) {
-    const v = replicateStatistic(fam, { parameters, n: N, seed }, i);
-    if (Number.isNaN(v)) failed++;
-    else a2[m++] = v;
-  }
-  const s = a2.subarray(0, m).sort();
-  const values = ALPHAS.map((alpha) => s[Math.min(m - 1, Math.ceil((1 - alpha) * m) - 1)] as number);
-  return { values, failed };
-}
-
 const rows: { shape: number; values: number[] }[] = [];
 const t0 = Date.now();
 SHAPES.forEach((shape, r) => {
-  const { values, failed } = criticalRow('gamma', { shape, scale: 1 }, SEED + r);
+  const { values, failed } = criticalRow('gamma', { shape, scale: 1 }, N, REPLICATES, ALPHAS, SEED + r);
   rows.push({ shape, values });
   const pub = PUBLISHED[String(shape)];
   process.stderr.write(
@@ -63,7 +47,7 @@ SHAPES.forEach((shape, r) => {
   );
 });
 {
-  const { values } = criticalRow('normal', { mean: 0, sd: 1 }, SEED + SHAPES.length);
+  const { values } = criticalRow('normal', { mean: 0, sd: 1 }, N, REPLICATES, ALPHAS, SEED + SHAPES.length);
   rows.push({ shape: Infinity, values });
   process.stderr.write(`normal limit (A² at the MLE, no modification): ${values.map((v) => v.toFixed(3)).join(' ')}\n`);
 }

@@ -21,6 +21,7 @@ import { prepareSample } from '../sample.js';
 import { andersonDarlingStatistic } from './anderson-darling.js';
 import { equiprobableBins } from './binning.js';
 import { pearsonStatistic } from './chi-square.js';
+import { parameterFreeKey, recallReplicates, rememberReplicates, type ReplicateStatistics } from './bootstrap-memo.js';
 
 /** Default number of bootstrap replicates B. */
 export const DEFAULT_BOOTSTRAP_REPLICATES = 999;
@@ -90,36 +91,63 @@ export interface BootstrapRunOptions {
 
 /** Run replicates [job.start, job.end). Pure: same job, same counts. */
 export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions = {}): BootstrapCounts {
-  const family = getFamily(job.family);
-  const total = job.end - job.start;
+  const chi = job.chiSquare;
+  const replicates = replicateRange(job, chi?.k ?? 0, opts);
   let exceed = 0;
   let failed = 0;
   let valid = 0;
-  let completed = 0;
-  let cancelled = false;
   let chiExceed = 0;
   let chiTies = 0;
-  const chi = job.chiSquare;
-  for (let i = job.start; i < job.end; i++) {
-    if (opts.signal?.aborted) {
-      cancelled = true;
-      break;
-    }
-    const r = replicateStatistics(family, job, i, chi?.k ?? 0);
-    const a2 = r.a2;
-    completed++;
+  for (let j = 0; j < replicates.completed; j++) {
+    const a2 = replicates.a2[j] as number;
     if (Number.isNaN(a2)) failed++;
     else {
       valid++;
       if (a2 >= job.observed) exceed++;
     }
-    if (chi && !(r.x2 < chi.observed)) {
-      chiExceed++; // NaN (unrefittable) counts as exceeding
-      if (Math.abs(r.x2 - chi.observed) <= 1e-9 * chi.observed) chiTies++;
+    if (chi) {
+      const x2 = replicates.x2[j] as number;
+      if (!(x2 < chi.observed)) {
+        chiExceed++; // NaN (unrefittable) counts as exceeding
+        if (Math.abs(x2 - chi.observed) <= 1e-9 * chi.observed) chiTies++;
+      }
     }
+  }
+  const { completed, cancelled } = replicates;
+  return { start: job.start, end: job.end, completed, valid, exceed, failed, cancelled, ...(chi ? { chiSquareExceed: chiExceed, chiSquareTies: chiTies } : {}) };
+}
+
+/**
+ * The replicate statistics A²* and X²* (k bins; NaN when k = 0 or unrefittable) of replicates
+ * [job.start, job.end), from the memo when the family's are parameter-free (bootstrap-memo.ts).
+ */
+function replicateRange(job: BootstrapJob, k: number, opts: BootstrapRunOptions): ReplicateStatistics {
+  const memoKey = parameterFreeKey(job, k);
+  const hit = memoKey === null ? undefined : recallReplicates(memoKey);
+  const total = job.end - job.start;
+  if (hit !== undefined) {
+    opts.onProgress?.(total, total);
+    return hit;
+  }
+  const family = getFamily(job.family);
+  const a2 = new Float64Array(total);
+  const x2 = new Float64Array(total);
+  let completed = 0;
+  let cancelled = false;
+  for (let i = job.start; i < job.end; i++) {
+    if (opts.signal?.aborted) {
+      cancelled = true;
+      break;
+    }
+    const r = replicateStatistics(family, job, i, k);
+    a2[completed] = r.a2;
+    x2[completed] = r.x2;
+    completed++;
     opts.onProgress?.(completed, total);
   }
-  return { start: job.start, end: job.end, completed, valid, exceed, failed, cancelled, ...(chi ? { chiSquareExceed: chiExceed, chiSquareTies: chiTies } : {}) };
+  const out: ReplicateStatistics = { a2, x2, completed, cancelled };
+  if (memoKey !== null && !cancelled) rememberReplicates(memoKey, out);
+  return out;
 }
 
 /**

@@ -11,7 +11,16 @@ export { interpolateCriticalTable } from './ad-pvalue-interpolate.js';
 export type { CriticalPoint } from './ad-pvalue-interpolate.js';
 export { NORMAL_CASE_CRITICAL, NORMAL_TURNING_POINT, normalCaseModified, normalCasePValue, normalCaseResult } from './ad-pvalue-normal.js';
 export { EXPONENTIAL_CASE_CRITICAL, EXPONENTIAL_TURNING_POINT, exponentialCaseModified, exponentialCasePValue, exponentialCaseResult } from './ad-pvalue-exponential.js';
-export { WEIBULL_CASE_CRITICAL, weibullCaseModified, weibullCasePValue } from './ad-pvalue-weibull.js';
+export {
+  EXTREME_VALUE_SIMULATED_MIN_N,
+  EXTREME_VALUE_TABLE_MIN_N,
+  WEIBULL_CASE_CRITICAL,
+  extremeValueSimulatedCritical,
+  extremeValueSimulatedPValue,
+  weibullCaseModified,
+  weibullCasePValue,
+} from './ad-pvalue-weibull.js';
+export { EXTREME_VALUE_AD_TABLE } from './ad-extreme-value-table.js';
 export { gammaCasePValue, gammaCriticalValues } from './ad-pvalue-gamma.js';
 export { GAMMA_AD_TABLE } from './ad-gamma-table.js';
 export {

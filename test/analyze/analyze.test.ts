@@ -187,13 +187,13 @@ describe('plan / execute split', () => {
     expect(analyze(prepareSample(D1))).toEqual(analyze(D1));
   });
 
-  it('at n = 20 every job carries the chi-square decision; A² by table except Weibull (switched below n = 100)', () => {
+  it('at n = 20 every job carries the chi-square decision; A² by table (Weibull: the simulated table by n)', () => {
     const jobs = planAnalysis(D1).bootstrapJobs;
     expect(jobs.length).toBe(5);
     for (const j of jobs) expect(j.chiSquare?.k).toBe(4);
     const r = finishAnalysis(planAnalysis(D1), jobs.map((j) => runBootstrapRange(j)));
     for (const c of r.candidates) {
-      expect(c.andersonDarling.method).toBe(c.family === 'weibull' ? 'bootstrap' : 'table');
+      expect(c.andersonDarling.method).toBe('table');
       if (!c.chiSquare.computable) throw new Error('chi-square');
       expect(c.chiSquare.decidedBy).toBe('bootstrap');
     }
@@ -263,8 +263,8 @@ describe('the chi-square decision at small n has the right size (parametric boot
 });
 
 describe('A² tables whose size is off switch to the bootstrap automatically, and say so', () => {
-  it('Weibull below n = 100 and gamma with a fitted shape below 0.5: bootstrap, with a warning', () => {
-    const w = analyze(getFamily('weibull').random({ shape: 1.5, scale: 4 }, createRng(5, 0), 60), { families: ['weibull'], bootstrapReplicates: 19 });
+  it('Weibull below the simulated table (n < 5) and gamma with a fitted shape below 0.5: bootstrap, with a warning', () => {
+    const w = analyze(getFamily('weibull').random({ shape: 1.5, scale: 4 }, createRng(5, 0), 4), { families: ['weibull'], bootstrapReplicates: 19 });
     expect(w.candidates[0]?.andersonDarling.method).toBe('bootstrap');
     expect(w.warnings.join('\n')).toMatch(/Weibull: Anderson–Darling p-value by bootstrap, not the table/);
     const g = analyze(getFamily('gamma').random({ shape: 0.1, scale: 3 }, createRng(5, 1), 200), { families: ['gamma'], bootstrapReplicates: 19 });

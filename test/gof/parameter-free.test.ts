@@ -19,7 +19,7 @@ describe('Weibull A² bootstrap: the same decision for every true shape on the s
     for (let i = 0; i < 300; i++) {
       const run = (shape: number) => {
         const xs = getFamily('weibull').random({ shape, scale: 4 }, createRng(20261204, i), 10);
-        const ad = analyze(xs, { families: ['weibull'], bootstrapReplicates: 99, seed: 1000 + i }).candidates[0]?.andersonDarling;
+        const ad = analyze(xs, { families: ['weibull'], pMethod: 'bootstrap', bootstrapReplicates: 99, seed: 1000 + i }).candidates[0]?.andersonDarling;
         if (!ad) throw new Error('no Weibull fit');
         return ad;
       };
