@@ -11,8 +11,8 @@
  * computed with B refitted replicates, and rejected at p ≤ α = 0.05 (α(B + 1) whole for B = 39 or 99).
  * The share rejected estimates the size; its binomial SE is √(0.05·0.95/R).
  *
- *   npx tsx scripts/life-interval-size.ts 200 39 case2 > a.json; npx tsx scripts/life-interval-size.ts 200 39 periodic > b.json
- *   npx tsx scripts/life-interval-size.ts --merge a.json b.json > test/fixtures/life-interval-size.json
+ *   nice -n 10 npx tsx scripts/life-interval-size.ts 0 500 39 case2 > c0.json   (samples 0-499; and so on)
+ *   npx tsx scripts/life-interval-size.ts --merge c*.json p*.json > test/fixtures/life-interval-size.json
  *
  * test/life/interval-gof.test.ts reads the committed JSON and reproduces the first sample of each cell.
  */
@@ -65,51 +65,85 @@ export interface SizeCell {
   readonly size: number;
   readonly standardError: number;
   readonly firstPValues: readonly number[];
+  /** Every sample's p-value in sample order (null: the Weibull fit failed), so the uniformity can be checked too. */
+  readonly pValues: readonly (number | null)[];
 }
 
-function runCell(scheme: SizeScheme, R: number, B: number, alpha: number): SizeCell {
-  let rejected = 0;
-  let skipped = 0;
-  const first: number[] = [];
-  for (let i = 0; i < R; i++) {
-    const p = sizePValue(scheme, i, B);
-    if (p === null) {
-      skipped++;
-      continue;
-    }
-    if (i < 3) first.push(p);
-    if (p <= alpha) rejected++;
-    if ((i + 1) % 25 === 0) process.stderr.write(`${scheme}: ${i + 1}/${R}, rejected ${rejected}\n`);
+/** A cell from the p-values of samples 0, 1, ... (in order). */
+export function cellOf(scheme: SizeScheme, pValues: readonly (number | null)[], alpha: number): SizeCell {
+  const ok = pValues.filter((p): p is number => p !== null);
+  const rejected = ok.filter((p) => p <= alpha).length;
+  const m = ok.length;
+  return {
+    scheme,
+    samples: m,
+    skipped: pValues.length - m,
+    rejected,
+    size: rejected / m,
+    standardError: Math.sqrt((alpha * (1 - alpha)) / m),
+    firstPValues: pValues.slice(0, 3).map((p) => p ?? Number.NaN),
+    pValues,
+  };
+}
+
+/** Samples [from, to) of a cell. */
+function runRange(scheme: SizeScheme, from: number, to: number, B: number): (number | null)[] {
+  const ps: (number | null)[] = [];
+  for (let i = from; i < to; i++) {
+    ps.push(sizePValue(scheme, i, B));
+    if ((i + 1) % 25 === 0) process.stderr.write(`${scheme}: ${i + 1}/${to}\n`);
   }
-  const m = R - skipped;
-  return { scheme, samples: m, skipped, rejected, size: rejected / m, standardError: Math.sqrt((alpha * (1 - alpha)) / m), firstPValues: first };
+  return ps;
+}
+
+interface Part {
+  readonly scheme: SizeScheme;
+  readonly replicates: number;
+  readonly from: number;
+  readonly pValues: (number | null)[];
 }
 
 /**
- * npx tsx scripts/life-interval-size.ts R B [case2|periodic] — one cell (or both) as JSON;
- * npx tsx scripts/life-interval-size.ts --merge a.json b.json — the cells of separate runs in one file
- * (so the two cells can run side by side on two cores).
+ * npx tsx scripts/life-interval-size.ts FROM TO B case2|periodic > part.json — samples [FROM, TO) of
+ * one cell (so a long run goes in resumable pieces, two at a time on two cores);
+ * npx tsx scripts/life-interval-size.ts --merge part*.json — the cells from contiguous pieces.
  */
 function main(): void {
   const alpha = 0.05;
   if (process.argv[2] === '--merge') {
-    const parts = process.argv.slice(3).map((f) => JSON.parse(readFileSync(f, 'utf8')) as { replicates: number; cells: SizeCell[] });
+    const parts = process.argv.slice(3).map((f) => JSON.parse(readFileSync(f, 'utf8')) as Part);
     if (new Set(parts.map((x) => x.replicates)).size !== 1) throw new Error('the runs to merge used different replicates');
-    process.stdout.write(`${JSON.stringify({ ...parts[0], cells: parts.flatMap((x) => x.cells) }, null, 2)}\n`);
+    const cells: SizeCell[] = [];
+    for (const scheme of ['case2', 'periodic'] as const) {
+      const mine = parts.filter((x) => x.scheme === scheme).sort((a, b) => a.from - b.from);
+      if (mine.length === 0) continue;
+      const ps: (number | null)[] = [];
+      for (const x of mine) {
+        if (x.from !== ps.length) throw new Error(`${scheme}: pieces are not contiguous (a piece starts at ${x.from}, expected ${ps.length})`);
+        ps.push(...x.pValues);
+      }
+      cells.push(cellOf(scheme, ps, alpha));
+    }
+    const out = {
+      generator: 'scripts/life-interval-size.ts',
+      model: { family: 'weibull', shape: SIZE_SHAPE, scale: SIZE_SCALE, n: SIZE_N, seed: SIZE_SEED },
+      alpha,
+      replicates: parts[0]!.replicates,
+      rule: 'reject at p <= alpha (alpha(B + 1) whole); SE = sqrt(0.05*0.95/samples)',
+      cells,
+    };
+    process.stdout.write(`${JSON.stringify(out, null, 1)}\n`);
     return;
   }
-  const R = Number(process.argv[2] ?? 400);
-  const B = Number(process.argv[3] ?? 99);
-  const schemes: SizeScheme[] = process.argv[4] ? [process.argv[4] as SizeScheme] : ['case2', 'periodic'];
-  const out = {
-    generator: 'scripts/life-interval-size.ts',
-    model: { family: 'weibull', shape: SIZE_SHAPE, scale: SIZE_SCALE, n: SIZE_N, seed: SIZE_SEED },
-    alpha,
-    replicates: B,
-    rule: 'reject at p <= alpha (alpha(B + 1) whole); SE = sqrt(0.05*0.95/samples)',
-    cells: schemes.map((x) => runCell(x, R, B, alpha)),
-  };
-  process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
+  const from = Number(process.argv[2]);
+  const to = Number(process.argv[3]);
+  const B = Number(process.argv[4] ?? 39);
+  const scheme = process.argv[5] as SizeScheme;
+  if (!(Number.isInteger(from) && Number.isInteger(to) && to > from && (scheme === 'case2' || scheme === 'periodic'))) {
+    throw new Error('usage: life-interval-size.ts FROM TO B case2|periodic  |  --merge part.json ...');
+  }
+  const part: Part = { scheme, replicates: B, from, pValues: runRange(scheme, from, to, B) };
+  process.stdout.write(`${JSON.stringify(part)}\n`);
 }
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) main();
