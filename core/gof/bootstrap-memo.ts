@@ -36,9 +36,9 @@ export const MEMO_CAPACITY = 64;
 const memo = new Map<string, ReplicateStatistics>();
 
 /** The memo key of a job whose replicate statistics are parameter-free, else null. */
-export function parameterFreeKey(job: Pick<BootstrapJob, 'family' | 'n' | 'seed' | 'start' | 'end'>, k: number): string | null {
+export function parameterFreeKey(job: Pick<BootstrapJob, 'family' | 'n' | 'seed' | 'start' | 'end'>, k: number, withA2 = true): string | null {
   if (!PARAMETER_FREE.has(job.family)) return null;
-  return `${job.family}|${job.n}|${job.seed}|${job.start}|${job.end}|${k}`;
+  return `${job.family}|${job.n}|${job.seed}|${job.start}|${job.end}|${k}|${withA2 ? 'a2' : 'x2'}`;
 }
 
 export function recallReplicates(key: string): ReplicateStatistics | undefined {

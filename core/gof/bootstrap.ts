@@ -51,6 +51,11 @@ export interface BootstrapJob {
   readonly end: number;
   /** Also count X²* ≥ observed X² (absent: A² only). */
   readonly chiSquare?: ChiSquareBootstrapSpec;
+  /**
+   * The A² decision is by its table, so replicates compute X²* only (with `chiSquare`): `exceed`
+   * is then 0, while `valid` and `failed` still count the refits.
+   */
+  readonly chiSquareOnly?: true;
 }
 
 /** Counts over a range of replicates. */
@@ -92,7 +97,8 @@ export interface BootstrapRunOptions {
 /** Run replicates [job.start, job.end). Pure: same job, same counts. */
 export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions = {}): BootstrapCounts {
   const chi = job.chiSquare;
-  const replicates = replicateRange(job, chi?.k ?? 0, opts);
+  const withA2 = !(job.chiSquareOnly === true && chi !== undefined);
+  const replicates = replicateRange(job, chi?.k ?? 0, withA2, opts);
   let exceed = 0;
   let failed = 0;
   let valid = 0;
@@ -103,7 +109,7 @@ export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions =
     if (Number.isNaN(a2)) failed++;
     else {
       valid++;
-      if (a2 >= job.observed) exceed++;
+      if (withA2 && a2 >= job.observed) exceed++;
     }
     if (chi) {
       const x2 = replicates.x2[j] as number;
@@ -121,8 +127,8 @@ export function runBootstrapRange(job: BootstrapJob, opts: BootstrapRunOptions =
  * The replicate statistics A²* and X²* (k bins; NaN when k = 0 or unrefittable) of replicates
  * [job.start, job.end), from the memo when the family's are parameter-free (bootstrap-memo.ts).
  */
-function replicateRange(job: BootstrapJob, k: number, opts: BootstrapRunOptions): ReplicateStatistics {
-  const memoKey = parameterFreeKey(job, k);
+function replicateRange(job: BootstrapJob, k: number, withA2: boolean, opts: BootstrapRunOptions): ReplicateStatistics {
+  const memoKey = parameterFreeKey(job, k, withA2);
   const hit = memoKey === null ? undefined : recallReplicates(memoKey);
   const total = job.end - job.start;
   if (hit !== undefined) {
@@ -139,7 +145,7 @@ function replicateRange(job: BootstrapJob, k: number, opts: BootstrapRunOptions)
       cancelled = true;
       break;
     }
-    const r = replicateStatistics(family, job, i, k);
+    const r = replicateStatistics(family, job, i, k, withA2);
     a2[completed] = r.a2;
     x2[completed] = r.x2;
     completed++;
@@ -152,9 +158,16 @@ function replicateRange(job: BootstrapJob, k: number, opts: BootstrapRunOptions)
 
 /**
  * A² (and X² on k equiprobable bins when k > 0) of replicate i at its refitted parameters; NaN for
- * a replicate that cannot be refitted (see replicateStatistic).
+ * a replicate that cannot be refitted (see replicateStatistic). With `withA2` false (k > 0) A² is
+ * not computed: a2 is 0 for a refitted replicate, NaN for one that could not be refitted.
  */
-export function replicateStatistics(family: Family, job: Pick<BootstrapJob, 'parameters' | 'n' | 'seed'>, i: number, k: number): { a2: number; x2: number } {
+export function replicateStatistics(
+  family: Family,
+  job: Pick<BootstrapJob, 'parameters' | 'n' | 'seed'>,
+  i: number,
+  k: number,
+  withA2 = true,
+): { a2: number; x2: number } {
   const none = { a2: Number.NaN, x2: Number.NaN };
   try {
     const x = family.random(job.parameters, createRng(job.seed, i), job.n);
@@ -164,7 +177,7 @@ export function replicateStatistics(family: Family, job: Pick<BootstrapJob, 'par
     const fit = family.fit(sample);
     if (!fit.ok) return none;
     const dist = family.make(fit.parameters);
-    const a2 = andersonDarlingStatistic(dist, sample.sorted);
+    const a2 = withA2 || k === 0 ? andersonDarlingStatistic(dist, sample.sorted) : 0;
     const x2 = k > 0 ? pearsonStatistic(equiprobableBins(dist, sample.sorted, k)) : Number.NaN;
     return { a2: Number.isFinite(a2) ? a2 : Number.NaN, x2: Number.isFinite(x2) ? x2 : Number.NaN };
   } catch (e) {

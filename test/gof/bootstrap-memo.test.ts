@@ -57,3 +57,21 @@ describe('replicate statistics of parameter-free families do not depend on the p
     expect(whole.cancelled).toBe(false);
   });
 });
+
+describe('a chi-square-only job (A² decided by its table) skips A²* and counts the same X²*', () => {
+  it('gamma n = 50, k = 8, B = 199: chi-square counts, refits and failures equal the full job; exceed is 0', () => {
+    // Same replicate streams, same refits (core/gof/bootstrap.ts replicateStatistics); no outside source needed: an identity of the code path.
+    const fam = getFamily('gamma');
+    const parameters = { shape: 0.7, scale: 12 };
+    const x2 = replicateStatistics(fam, { parameters, n: 50, seed: 11 }, 3, 8).x2;
+    const base: BootstrapJob = { family: 'gamma', parameters, n: 50, observed: 0.4, seed: 11, start: 0, end: 199, chiSquare: { observed: x2, k: 8 } };
+    const full = runBootstrapRange(base);
+    const only = runBootstrapRange({ ...base, chiSquareOnly: true });
+    expect(only.chiSquareExceed).toBe(full.chiSquareExceed);
+    expect(only.chiSquareTies).toBe(full.chiSquareTies);
+    expect(only.valid).toBe(full.valid);
+    expect(only.failed).toBe(full.failed);
+    expect(full.exceed).toBeGreaterThan(0);
+    expect(only.exceed).toBe(0);
+  });
+});
