@@ -55,18 +55,39 @@ function xDensity(alpha: number, x: number): number {
  * Returns probability 0 and NaN moments for an interval of no mass.
  */
 export function intervalMoments(mean: number, sd: number, skew: number, lower: number, upper: number): IntervalMoments {
+  const r = intervalRawMoments(mean, sd, skew, lower, upper, 3);
+  return { probability: r.probability, m1: r.moments[1] as number, m2: r.moments[2] as number, m3: r.moments[3] as number };
+}
+
+export interface IntervalRawMoments {
+  /** P(lower < Y ≤ upper). */
+  readonly probability: number;
+  /** E[W^k | interval] for k = 0 … order (moments[0] = 1); NaN for an interval of no mass. */
+  readonly moments: readonly number[];
+}
+
+/**
+ * E[W^k | lower < Y ≤ upper], k = 0 … order, by the recursions that extend the ones above to any
+ * order (the same integration by parts, one power at a time):
+ *   gamma:  I₀ = ΔP, I₁ = −[h], I_{k+1} = −[D^k h] + k I_k + kα I_{k−1}   (I_k = ∫ D^k g over the interval),
+ *   normal: J₀ = ΔΦ, J₁ = −[φ], J_{k+1} = −[w^k φ] + k J_{k−1}            (J_k = ∫ w^k φ).
+ * For k ≤ 3 they give the closed forms of the header. The untruncated values are the gamma's and
+ * the normal's central moments (I₄ = 3α² + 6α, J₄ = 3), which the tests check.
+ */
+export function intervalRawMoments(mean: number, sd: number, skew: number, lower: number, upper: number, order: number): IntervalRawMoments {
+  const none = { probability: 0, moments: Array.from({ length: order + 1 }, (_, k) => (k === 0 ? 1 : Number.NaN)) };
   const wa = (lower - mean) / sd;
   const wb = (upper - mean) / sd;
   if (Math.abs(skew) < NORMAL_SKEW) {
     const mass = normalMass(wa, wb);
-    if (!(mass > 0)) return { probability: 0, m1: Number.NaN, m2: Number.NaN, m3: Number.NaN };
+    if (!(mass > 0)) return none;
     const pa = Number.isFinite(wa) ? normalPdf(wa) : 0;
     const pb = Number.isFinite(wb) ? normalPdf(wb) : 0;
-    const wpa = Number.isFinite(wa) ? wa * pa : 0;
-    const wpb = Number.isFinite(wb) ? wb * pb : 0;
-    const w2pa = Number.isFinite(wa) ? (wa * wa + 2) * pa : 0;
-    const w2pb = Number.isFinite(wb) ? (wb * wb + 2) * pb : 0;
-    return { probability: mass, m1: -(pb - pa) / mass, m2: 1 - (wpb - wpa) / mass, m3: -(w2pb - w2pa) / mass };
+    // [w^k φ] with the products vanishing where φ does.
+    const bracket = (k: number): number => (pb === 0 ? 0 : Math.pow(wb, k) * pb) - (pa === 0 ? 0 : Math.pow(wa, k) * pa);
+    const J: number[] = [mass, -bracket(0)];
+    for (let k = 1; k < order; k++) J.push(-bracket(k) + k * (J[k - 1] as number));
+    return { probability: mass, moments: J.slice(0, order + 1).map((j, k) => (k === 0 ? 1 : j / mass)) };
   }
   const alpha = 4 / (skew * skew);
   // D = 2w/γ; x = α + D clamped to the support.
@@ -77,19 +98,15 @@ export function intervalMoments(mean: number, sd: number, skew: number, lower: n
   d2 = Math.max(d2, -alpha);
   const x1 = d1 === -alpha ? 0 : alpha + d1;
   const x2 = d2 === Number.POSITIVE_INFINITY ? Number.POSITIVE_INFINITY : d2 === -alpha ? 0 : alpha + d2;
-  if (!(x2 > x1)) return { probability: 0, m1: Number.NaN, m2: Number.NaN, m3: Number.NaN };
+  if (!(x2 > x1)) return none;
   const mass = gammaMass(alpha, x1, x2);
-  if (!(mass > 0)) return { probability: 0, m1: Number.NaN, m2: Number.NaN, m3: Number.NaN };
+  if (!(mass > 0)) return none;
   const h1 = xDensity(alpha, x1);
   const h2 = xDensity(alpha, x2);
-  // Products with h vanish where h does (at 0 and at ∞), whatever D is there.
-  const at = (h: number, f: number) => (h === 0 ? 0 : h * f);
-  const bh = h2 - h1;
-  const bdh = at(h2, d2 + 1) - at(h1, d1 + 1);
-  const bd2h = at(h2, d2 * d2) - at(h1, d1 * d1);
-  const i1 = -bh;
-  const i2 = alpha * mass - bdh;
-  const i3 = 2 * alpha * mass - bd2h - 2 * bdh - 2 * alpha * bh;
+  // [D^k h]: products with h vanish where h does (at 0 and at ∞), whatever D is there.
+  const bracket = (k: number): number => (h2 === 0 ? 0 : Math.pow(d2, k) * h2) - (h1 === 0 ? 0 : Math.pow(d1, k) * h1);
+  const I: number[] = [mass, -bracket(0)];
+  for (let k = 1; k < order; k++) I.push(-bracket(k) + k * (I[k] as number) + k * alpha * (I[k - 1] as number));
   const g = skew / 2;
-  return { probability: mass, m1: (g * i1) / mass, m2: (g * g * i2) / mass, m3: (g * g * g * i3) / mass };
+  return { probability: mass, moments: I.slice(0, order + 1).map((v, k) => (k === 0 ? 1 : (Math.pow(g, k) * v) / mass)) };
 }

@@ -4,29 +4,45 @@
  * Estimate: Q_T = 10^(M + K_T S), K_T the Pearson III frequency factor at the weighted skew,
  * i.e. the inverse survival function of the fitted Pearson III of log10 Q at 1/T.
  *
- * Intervals: a parametric bootstrap of the whole estimator (common practice, no source for this
- * particular scheme): each replicate draws a record of the same shape from the fitted
- * distribution (the systematic years censored below the same low-outlier threshold; the historical
- * period's years above its perception threshold kept as peaks, the others as "below the
+ * Intervals (the reported lower/upper): ema-intervals.ts — the EMA's first-order variance after
+ * Cohn, Lane & Stedinger (2001), with censored and historical years, the skew's and the regional
+ * skew's uncertainty, and noncentral-t limits at the equivalent record length (exact for a normal
+ * population with the skew held and no censoring). Measured coverage of the nominal 90 % interval
+ * (scripts/flood-ema-ci-coverage.ts, seeded, test/fixtures/flood-ema-ci-coverage.json) is in that script's
+ * output and in docs/report-fields.md.
+ *
+ * Beside it, when an rng is given, a parametric bootstrap of the whole estimator (common practice,
+ * no source for this particular scheme): each replicate draws a record of the same shape from the
+ * fitted distribution (the systematic years censored below the same low-outlier threshold; the
+ * historical period's years above its perception threshold kept as peaks, the others as "below the
  * threshold"; user intervals kept as given), refits by EMA with the same regional skew, and the
- * interval is the percentile range of the replicates' log10 Q_T. Bulletin 17C's own intervals
- * (Cohn, Lane & Stedinger 2001, WRR 37(6):1695-1706, from the EMA's asymptotic covariance) are
- * not implemented here; the report names the method used. Measured coverage of the nominal 90 %
- * interval of the 100-year quantile on systematic records (scripts/flood-ema-coverage.py, seeded,
- * 1000 records per case, Monte Carlo s.e. 0.9 points): 87.4 % (skew +0.3, n = 60), 90.4 % (skew −0.3,
- * n = 60), 85.0 % (skew +0.3, n = 30): somewhat short in short records; the first-order
- * (delta-method) alternative of ema-variance.ts covered 98–100 % there.
+ * interval is the percentile range of the replicates' log10 Q_T. Its coverage on systematic records
+ * (scripts/flood-ema-coverage.py, seeded, 1000 records per case, Monte Carlo s.e. 0.9 points) was
+ * 87.4 % (skew +0.3, n = 60), 90.4 % (skew −0.3, n = 60), 85.0 % (skew +0.3, n = 30).
  */
 import type { Rng } from '../random/index.js';
 import { Pearson3Distribution } from '../families/index.js';
 import { emaIterate, type EmaFit, type EmaRecord, type LogObservation } from './ema.js';
+import { emaDesign } from './ema-covariance.js';
+import { emaIntervals } from './ema-intervals.js';
+
+export interface EmaBootstrapInterval {
+  readonly lower: number | null;
+  readonly upper: number | null;
+  readonly method: string;
+}
 
 export interface EmaReturnLevel {
   readonly period: number;
   readonly estimate: number;
+  /** Interval of ema-intervals.ts (null when the equivalent record length is under 2 years). */
   readonly lower: number | null;
   readonly upper: number | null;
   readonly method: string;
+  /** Years of a normal record with the same quantile variance (ema-intervals.ts). */
+  readonly equivalentYears: number;
+  /** The parametric-bootstrap percentile interval beside it (null without an rng). */
+  readonly bootstrap: EmaBootstrapInterval | null;
 }
 
 export interface EmaIntervalOptions {
@@ -72,18 +88,30 @@ function percentile(sorted: Float64Array, p: number): number {
   return f === 0 ? a : a + f * ((sorted[Math.min(i + 1, sorted.length - 1)] as number) - a);
 }
 
-/** Return levels for the periods (years > 1), with bootstrap intervals when an rng is given. */
+/** Return levels for the periods (years > 1) with their intervals; the bootstrap beside them when an rng is given. */
 export function emaReturnLevels(record: EmaRecord, fit: EmaFit, periods: readonly number[], opts: EmaIntervalOptions = {}): EmaReturnLevel[] {
+  const confidence = opts.confidence ?? 0.9;
+  const main = emaIntervals(fit, emaDesign(record, fit), periods, confidence);
+  const boot = opts.rng ? bootstrapIntervals(record, fit, periods, confidence, opts.replicates ?? DEFAULT_EMA_REPLICATES, opts.rng) : null;
+  return main.levels.map((l, i) => ({
+    period: l.period,
+    estimate: l.estimate,
+    lower: l.lower,
+    upper: l.upper,
+    method: main.method,
+    equivalentYears: l.equivalentYears,
+    bootstrap: boot ? (boot[i] as EmaBootstrapInterval) : null,
+  }));
+}
+
+/** Parametric-bootstrap percentile intervals of log10 Q_T (B replicates). */
+function bootstrapIntervals(record: EmaRecord, fit: EmaFit, periods: readonly number[], confidence: number, B: number, rng: Rng): EmaBootstrapInterval[] {
   const { mean, sd, skew } = fit.parameters;
   const d = new Pearson3Distribution(mean, sd, skew);
-  const estimates = periods.map((t) => Math.pow(10, d.isf(1 / t)));
-  if (!opts.rng) return periods.map((period, i) => ({ period, estimate: estimates[i] as number, lower: null, upper: null, method: 'none' }));
-  const confidence = opts.confidence ?? 0.9;
-  const B = opts.replicates ?? DEFAULT_EMA_REPLICATES;
   const samples = periods.map(() => new Float64Array(B));
   let kept = 0;
   for (let b = 0; b < B; b++) {
-    const obs = syntheticRecord(record, fit, d, opts.rng);
+    const obs = syntheticRecord(record, fit, d, rng);
     if (obs.filter((o) => o.kind === 'peak').length < 3) continue;
     const r = emaIterate(obs, record.regionalSkew);
     if (!r.converged) continue;
@@ -94,12 +122,10 @@ export function emaReturnLevels(record: EmaRecord, fit: EmaFit, periods: readonl
     kept++;
   }
   const method = `parametric bootstrap of the EMA, percentile interval (${kept} replicates)`;
-  return periods.map((period, i) => {
+  return periods.map((_, i) => {
     const s = (samples[i] as Float64Array).slice(0, kept).sort();
     const ok = kept >= 20;
     return {
-      period,
-      estimate: estimates[i] as number,
       lower: ok ? Math.pow(10, percentile(s, (1 - confidence) / 2)) : null,
       upper: ok ? Math.pow(10, percentile(s, (1 + confidence) / 2)) : null,
       method,

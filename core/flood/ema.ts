@@ -26,6 +26,7 @@ import { Pearson3Distribution } from '../families/index.js';
 import { intervalMoments } from './ema-moments.js';
 import { multipleGrubbsBeck, type MgbResult } from './grubbs-beck.js';
 import { weightSkew, type SkewWeighting } from './regional-skew.js';
+import { effectiveRecordLength, emaDesign } from './ema-covariance.js';
 
 /** One year of the record in log10 flow: a known peak, or an interval lower < Y ≤ upper. */
 export type LogObservation = { readonly kind: 'peak'; readonly y: number } | { readonly kind: 'interval'; readonly lower: number; readonly upper: number };
@@ -68,6 +69,12 @@ export interface EmaFit {
   readonly lowOutlierThreshold: number | null;
   /** The observations as the EMA used them (log10). */
   readonly observations: readonly LogObservation[];
+  /**
+   * Effective record length of the station skew (ema-covariance.ts): the years of a record with no
+   * censoring whose skew has the same asymptotic variance; equals the years when none is censored.
+   * null when the covariance cannot be computed.
+   */
+  readonly effectiveRecordLength: number | null;
   readonly method: string;
 }
 
@@ -236,7 +243,15 @@ export function emaIterate(
 export function fitEma(record: EmaRecord): EmaFit {
   const { observations, counts, mgb, lowThreshold } = recordObservations(record);
   const r = emaIterate(observations, record.regionalSkew);
+  let erl: number | null = null;
+  try {
+    erl = effectiveRecordLength(emaDesign(record, { lowOutlierThreshold: lowThreshold, counts }), { mean: r.mean, sd: r.sd, skew: r.skew.weightedSkew });
+    if (!Number.isFinite(erl)) erl = null;
+  } catch {
+    erl = null;
+  }
   return {
+    effectiveRecordLength: erl,
     parameters: Object.freeze({ mean: r.mean, sd: r.sd, skew: r.skew.weightedSkew }),
     skew: r.skew,
     iterations: r.iterations,
@@ -263,6 +278,7 @@ export interface EmaCandidateFields {
   readonly lowOutliers: { readonly count: number; readonly threshold: number | null; readonly method: string | null };
   readonly iterations: number;
   readonly converged: boolean;
+  readonly effectiveRecordLength: number | null;
   readonly method: string;
 }
 
@@ -277,6 +293,7 @@ export function emaCandidateFields(fit: EmaFit): EmaCandidateFields {
     lowOutliers: { count: fit.counts.lowOutliers, threshold: fit.lowOutlierThreshold, method: fit.lowOutlierTest?.method ?? null },
     iterations: fit.iterations,
     converged: fit.converged,
+    effectiveRecordLength: fit.effectiveRecordLength,
     method: fit.method,
   };
 }

@@ -10,8 +10,14 @@ export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } fro
 export { EMA_MAX_PEAKS, emaCandidateFields, emaIterate, fitEma, recordObservations } from './ema.js';
 export type { EmaCandidateFields, EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
 export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
-export type { EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
-export { intervalMoments } from './ema-moments.js';
+export type { EmaBootstrapInterval, EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
+export { effectiveRecordLength, emaCovariance, emaDesign, emaQuantileVariance } from './ema-covariance.js';
+export type { EmaCovariance, EmaDesign, ThresholdYears } from './ema-covariance.js';
+export { EMA_INTERVAL_METHOD, emaIntervals } from './ema-intervals.js';
+export type { EmaIntervals, EmaQuantileInterval } from './ema-intervals.js';
+export { noncentralTCdf, noncentralTQuantile } from './noncentral-t.js';
+export { intervalMoments, intervalRawMoments } from './ema-moments.js';
+export type { IntervalRawMoments } from './ema-moments.js';
 export { lp3QuantileInterval, lp3QuantileVariance, standardizedRawMoments } from './ema-variance.js';
 export type { QuantileVariance } from './ema-variance.js';
 export { MGB_INWARD_ALPHA, MGB_OUTWARD_ALPHA, mgbPValues, mgbStatistics, multipleGrubbsBeck } from './grubbs-beck.js';

@@ -6,7 +6,8 @@
  *    1997; USGS Bulletin 17C, England et al. 2018) on the annual maxima as a systematic record,
  *    low outliers by the multiple Grubbs–Beck test treated as censored, the station skew weighted
  *    with a regional skew when one is given with its mean square error; return levels with the
- *    intervals of core/flood emaReturnLevels;
+ *    intervals of core/flood emaReturnLevels (the EMA's first-order variance after Cohn, Lane &
+ *    Stedinger 2001 with noncentral-t limits; the parametric bootstrap beside them);
  *  - fits by L-moments (Hosking 1990; Hosking & Wallis 1997, App. A) of the Gumbel, GEV,
  *    generalized logistic, generalized Pareto and Pearson III with their return levels (point
  *    estimates: no interval is computed for them, and the report says so), the sample L-moment
@@ -36,12 +37,22 @@ export interface EstimatorReturnLevel {
   readonly upper: number | null;
 }
 
+export interface EmaLevelRow extends EstimatorReturnLevel {
+  /** Years of a normal record with the same quantile variance (core/flood ema-intervals.ts). */
+  readonly equivalentYears: number;
+  /** The parametric-bootstrap percentile interval beside the reported one. */
+  readonly bootstrapLower: number | null;
+  readonly bootstrapUpper: number | null;
+}
+
 export interface FloodEmaBlock extends EmaCandidateFields {
   readonly applicable: true;
   readonly confidence: number;
-  /** How the intervals were found, in words. */
+  /** How the reported intervals (lower, upper) were found, in words. */
   readonly intervalMethod: string;
-  readonly returnLevels: readonly EstimatorReturnLevel[];
+  /** How the intervals beside them (bootstrapLower, bootstrapUpper) were found. */
+  readonly bootstrapMethod: string;
+  readonly returnLevels: readonly EmaLevelRow[];
   readonly cautions: readonly string[];
 }
 
@@ -112,7 +123,16 @@ function emaBlock(values: ArrayLike<number>, s: FloodEstimatorSettings, warnings
     ...emaCandidateFields(fit),
     confidence: s.confidence,
     intervalMethod: levels[0]?.method ?? 'none',
-    returnLevels: levels.map((l) => ({ period: l.period, estimate: l.estimate, lower: l.lower, upper: l.upper })),
+    bootstrapMethod: levels[0]?.bootstrap?.method ?? 'none',
+    returnLevels: levels.map((l) => ({
+      period: l.period,
+      estimate: l.estimate,
+      lower: l.lower,
+      upper: l.upper,
+      equivalentYears: l.equivalentYears,
+      bootstrapLower: l.bootstrap?.lower ?? null,
+      bootstrapUpper: l.bootstrap?.upper ?? null,
+    })),
     cautions: EMA_CAUTIONS,
   };
 }

@@ -29,8 +29,10 @@ describe('plumbline analyze GAUGE --estimation ema', () => {
     expect(c.parameters.skew).toBe(c.skew.weightedSkew);
     expect(c.returnLevels.map((r) => r.period)).toEqual([10, 100]);
     for (const r of c.returnLevels) {
-      expect(Object.keys(r).sort()).toEqual(['estimate', 'lower', 'method', 'period', 'upper']);
+      expect(Object.keys(r).sort()).toEqual(['bootstrap', 'equivalentYears', 'estimate', 'lower', 'method', 'period', 'upper']);
       expect(r.lower).not.toBeNull();
+      expect(r.method).toMatch(/Cohn, Lane & Stedinger 2001/);
+      expect(r.bootstrap!.method).toMatch(/parametric bootstrap/);
     }
     expect(c.lowOutliers.count).toBeGreaterThanOrEqual(2);
     expect(j.input.codes.map((x) => x.code)).toEqual(['2', '4', '6', '7', '8']);

@@ -179,7 +179,7 @@ describe('EMA return levels', () => {
     expect(fit.counts.years).toBe(22 + 2 + 60);
     expect(fit.converged).toBe(true);
   });
-  it('estimate = 10^(Pearson III isf(1/T)) of log10 flows; seeded bootstrap interval brackets it', async () => {
+  it('estimate = 10^(Pearson III isf(1/T)) of log10 flows; the EMA-variance interval and the seeded bootstrap beside it bracket it', async () => {
     const { emaReturnLevels } = await import('../../core/flood/ema-return-levels.js');
     const { createRng } = await import('../../core/random/index.js');
     const { getFamily } = await import('../../core/families/index.js');
@@ -190,8 +190,18 @@ describe('EMA return levels', () => {
     for (const r of rl) {
       expect(r.lower!).toBeLessThan(r.estimate);
       expect(r.upper!).toBeGreaterThan(r.estimate);
-      expect(r.method).toMatch(/parametric bootstrap/);
+      expect(r.method).toMatch(/Cohn, Lane & Stedinger 2001/);
+      expect(r.bootstrap!.lower!).toBeLessThan(r.estimate);
+      expect(r.bootstrap!.upper!).toBeGreaterThan(r.estimate);
+      expect(r.bootstrap!.method).toMatch(/parametric bootstrap/);
+      // 84 years of which 60 historical below a threshold: fewer equivalent years than years, more than the 20 known systematic peaks.
+      expect(r.equivalentYears).toBeGreaterThan(20);
+      expect(r.equivalentYears).toBeLessThan(84);
     }
+    // The skew's effective record length: 19.5 years here (the two low outliers censored, the historical
+    // years telling little about the skew); a positive length below the 84 years.
+    expect(fit.effectiveRecordLength!).toBeGreaterThan(10);
+    expect(fit.effectiveRecordLength!).toBeLessThan(84);
     expect(rl[1]!.estimate).toBeGreaterThan(rl[0]!.estimate);
   });
 });

@@ -42,7 +42,16 @@ describe('log-Pearson III by EMA in the flood section (estimation ema)', () => {
       expect(l.lower!).toBeLessThan(l.estimate);
       expect(l.upper!).toBeGreaterThan(l.estimate);
     }
-    expect(ema.intervalMethod).toMatch(/parametric bootstrap/);
+    expect(ema.intervalMethod).toMatch(/Cohn, Lane & Stedinger 2001/);
+    expect(ema.bootstrapMethod).toMatch(/parametric bootstrap/);
+    for (const l of ema.returnLevels) {
+      expect(l.bootstrapLower!).toBeLessThan(l.estimate);
+      expect(l.bootstrapUpper!).toBeGreaterThan(l.estimate);
+      // A systematic record with no low outliers: the equivalent length of the quantile is at most the record's
+      // (the skew's uncertainty adds variance), and the skew's effective record length is the record's.
+      expect(l.equivalentYears).toBeLessThanOrEqual(ema.counts.years);
+    }
+    expect(ema.effectiveRecordLength!).toBeCloseTo(ema.counts.years, 6);
     expect(ema.cautions.join(' ')).toMatch(/licensed engineer/);
     expect(r.methods.map((m) => m.topic)).toContain('log-Pearson III by EMA');
     expect(r.flood!.estimators!.requested).toBe('ema');

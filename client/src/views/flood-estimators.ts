@@ -45,10 +45,28 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
           : `Low outliers: none found (${ema.lowOutliers.method ?? 'no test'}).`,
     });
     lines.push({ kind: 'note', text: `Station-skew MSE: ${s.mseMethod}.` });
+    if (ema.effectiveRecordLength !== null) {
+      lines.push({
+        kind: 'fact',
+        text: `Effective record length of the skew: ${sig(ema.effectiveRecordLength, 3)} years of the ${ema.counts.years} (the years of a record with no censored years whose skew would be as precise).`,
+      });
+    }
+    lines.push({
+      kind: 'note',
+      text: `Intervals: ${ema.intervalMethod}; exact for a normal record with the skew held and no censored years, otherwise an approximation (its measured coverage is in docs/report-fields.md). The variance is derived here after Cohn, Lane & Stedinger (2001); the Bulletin's own text was not at hand, so agreement with its tables is not claimed. Beside them: ${ema.bootstrapMethod}.`,
+    });
     tables.push({
-      caption: `Log-Pearson III by expected moments: flows by return period, two-sided ${pct(ema.confidence)} intervals (${ema.intervalMethod}).`,
-      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, 'Lower', 'Upper'],
-      rows: ema.returnLevels.map((x) => [sig(x.period), sig(1 / x.period, 3), sig(x.estimate), end(x.lower, 'not computed'), end(x.upper, 'not computed')]),
+      caption: `Log-Pearson III by expected moments: flows by return period, two-sided ${pct(ema.confidence)} intervals from the EMA variance, the bootstrap interval beside them.`,
+      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, 'Lower', 'Upper', 'Equivalent years', 'Bootstrap interval'],
+      rows: ema.returnLevels.map((x) => [
+        sig(x.period),
+        sig(1 / x.period, 3),
+        sig(x.estimate),
+        end(x.lower, 'not computed'),
+        end(x.upper, 'not computed'),
+        sig(x.equivalentYears, 3),
+        x.bootstrapLower !== null && x.bootstrapUpper !== null ? `${sig(x.bootstrapLower)} to ${sig(x.bootstrapUpper)}` : 'not computed',
+      ]),
     });
   } else if (ema && !ema.applicable) {
     lines.push({ kind: 'warning', text: `Log-Pearson III by expected moments was not fitted: ${ema.reason}.` });
