@@ -9,10 +9,12 @@ import {
   DEFAULT_EMA_REPLICATES,
   EMA_CAUTIONS,
   InputError,
+  EMA_INTERVAL_STREAM,
   createRng,
   emaCandidateFields,
   emaReturnLevels,
   fitEma,
+  optionNamed,
   readColumns,
   readPeakFile,
   type CodeSummary,
@@ -91,8 +93,9 @@ export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
   const periods = (o.get('returnPeriods') as readonly number[] | undefined) ?? DEFAULT_PERIODS;
   const confidence = num('confidence') ?? 0.9;
   const replicates = num('replicates') ?? DEFAULT_EMA_REPLICATES;
-  const seed = num('seed') ?? 20261204;
-  const returnLevels = emaReturnLevels(record, fit, periods, { confidence, replicates, rng: createRng(seed, 12) });
+  // One default seed and one stream with the page and the API (the option table's seed; core/workflow EMA_INTERVAL_STREAM).
+  const seed = num('seed') ?? (optionNamed('seed')?.default as number);
+  const returnLevels = emaReturnLevels(record, fit, periods, { confidence, replicates, rng: createRng(seed, EMA_INTERVAL_STREAM) });
   return {
     dataKind: 'flood-ema',
     input: { file, format, codes, historicalPeriod },
@@ -140,11 +143,15 @@ export function floodEmaText(j: FloodEmaJson): string {
   } else L.push(`Skew: station skew ${fmt(s.stationSkew)} (MSE ${fmt(s.stationSkewMse, 3)}); no regional skew given.`);
   L.push(`Station-skew MSE: ${s.mseMethod}.`);
   L.push('');
+  if (c.effectiveRecordLength !== null) L.push(`Effective record length of the skew: ${fmt(c.effectiveRecordLength, 3)} of ${k.years} years.`);
   const m = c.returnLevels[0]?.method ?? '';
-  L.push(`Return levels (${m}):`);
-  L.push('  period (years)   AEP        flow        lower       upper');
+  const bm = c.returnLevels[0]?.bootstrap?.method;
+  L.push(`Return levels (intervals: ${m}${bm ? `; beside them ${bm}` : ''}):`);
+  L.push('  period (years)   AEP        flow        lower       upper       equiv. years  bootstrap lower  bootstrap upper');
   for (const r of c.returnLevels) {
-    L.push(`  ${String(r.period).padEnd(16)} ${fmt(1 / r.period, 3).padEnd(10)} ${fmt(r.estimate).padEnd(11)} ${fmt(r.lower).padEnd(11)} ${fmt(r.upper)}`);
+    L.push(
+      `  ${String(r.period).padEnd(16)} ${fmt(1 / r.period, 3).padEnd(10)} ${fmt(r.estimate).padEnd(11)} ${fmt(r.lower).padEnd(11)} ${fmt(r.upper).padEnd(11)} ${fmt(r.equivalentYears, 3).padEnd(13)} ${fmt(r.bootstrap?.lower ?? null).padEnd(16)} ${fmt(r.bootstrap?.upper ?? null)}`.trimEnd(),
+    );
   }
   if (j.warnings.length > 0) {
     L.push('');

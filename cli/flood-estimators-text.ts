@@ -32,8 +32,14 @@ export function floodEstimatorLines(r: DatasetReport): string[] {
         : `  Skew: station ${formatNumber(s.stationSkew)} (MSE ${formatNumber(s.stationSkewMse)}), no regional skew.`,
     );
     out.push(`  Low outliers: ${ema.lowOutliers.count > 0 ? `${ema.lowOutliers.count} below ${cell(ema.lowOutliers.threshold)}, treated as censored` : 'none'}.`);
-    out.push(`  Intervals: ${ema.intervalMethod}, two-sided ${formatNumber(100 * ema.confidence)} %.`);
-    out.push(...grid(['period (years)', 'flow (expected moments)', 'lower', 'upper'], ema.returnLevels.map((l) => [formatNumber(l.period), cell(l.estimate), cell(l.lower), cell(l.upper)])));
+    if (ema.effectiveRecordLength !== null) out.push(`  Effective record length of the skew: ${formatNumber(ema.effectiveRecordLength)} of ${ema.counts.years} years.`);
+    out.push(`  Intervals: ${ema.intervalMethod}, two-sided ${formatNumber(100 * ema.confidence)} %; beside them ${ema.bootstrapMethod}.`);
+    out.push(
+      ...grid(
+        ['period (years)', 'flow (expected moments)', 'lower', 'upper', 'equiv. years', 'bootstrap lower', 'bootstrap upper'],
+        ema.returnLevels.map((l) => [formatNumber(l.period), cell(l.estimate), cell(l.lower), cell(l.upper), cell(l.equivalentYears), cell(l.bootstrapLower), cell(l.bootstrapUpper)]),
+      ),
+    );
   } else if (ema && !ema.applicable) out.push(`  Log-Pearson III by expected moments: not fitted (${ema.reason}).`);
   const lm = est.lmoments;
   if (lm.applicable) {

@@ -48,6 +48,7 @@ export type * from './workflow/index.js';
 export type * from './api-types.js';
 export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync, planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, combineDatasetJobResults, jobSampleSize, splitDatasetJob, POOL_CAPABILITY_WORK } from './workflow/index.js';
 export { POT_CAUTIONS, POT_DEFAULT_PERIODS, POT_DEFAULT_SEPARATION, POT_DIAGNOSTICS_RULE, diagnosticThresholds, potSection } from './workflow/index.js';
+export { readFailureModes } from './workflow/index.js';
 export * from './batch/index.js';
 export * from './options/index.js';
 export { formatPValue, pValueText } from './format/index.js';
@@ -74,7 +75,7 @@ export type {
 } from './life/index.js';
 export * from './regional/index.js';
 export type { ChartPanel, ChartPoint, ComparisonRow, ModelComparison, PercentileIntervals, BootstrapIndexInterval, StabilityChart, TransformSection, TransformedCapability } from './capability/index.js';
-export { EMA_CAUTIONS, DEFAULT_EMA_REPLICATES, emaCandidateFields, emaReturnLevels, fitEma, multipleGrubbsBeck, stationSkewMse, weightSkew } from './flood/index.js';
+export { EMA_CAUTIONS, DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaCandidateFields, emaReturnLevels, fitEma, multipleGrubbsBeck, stationSkewMse, weightSkew } from './flood/index.js';
 export type { EmaCandidateFields, EmaFit, EmaRecord, EmaReturnLevel, MgbResult, SkewWeighting } from './flood/index.js';
 export { readPeakFile } from './gauge/peak-file.js';
 export type { CodeSummary, PeakFile, PeakFileOptions, PeakRow } from './gauge/peak-file.js';

@@ -53,6 +53,9 @@ export interface EmaIntervalOptions {
 
 export const DEFAULT_EMA_REPLICATES = 300;
 
+/** Stream of createRng(seed, stream) for the EMA bootstrap: the CLI, the API and the page draw the same numbers from one seed. */
+export const EMA_INTERVAL_STREAM = 12;
+
 /** Draw one synthetic record shaped like the fitted one. */
 function syntheticRecord(record: EmaRecord, fit: EmaFit, d: Pearson3Distribution, rng: Rng): LogObservation[] {
   const draw = (): number => d.quantile(rng.uniform());

@@ -9,7 +9,7 @@ export type { FloodAnalysis, FloodCandidate, FloodOptions, GumbelVersusGev } fro
 // Log-Pearson III by the expected moments algorithm (Bulletin 17C): EMA, low outliers, regional skew.
 export { EMA_MAX_PEAKS, emaCandidateFields, emaIterate, fitEma, recordObservations } from './ema.js';
 export type { EmaCandidateFields, EmaCounts, EmaFit, EmaRecord, LogObservation } from './ema.js';
-export { DEFAULT_EMA_REPLICATES, emaReturnLevels } from './ema-return-levels.js';
+export { DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaReturnLevels } from './ema-return-levels.js';
 export type { EmaBootstrapInterval, EmaIntervalOptions, EmaReturnLevel } from './ema-return-levels.js';
 export { effectiveRecordLength, emaCovariance, emaDesign, emaQuantileVariance } from './ema-covariance.js';
 export type { EmaCovariance, EmaDesign, ThresholdYears } from './ema-covariance.js';

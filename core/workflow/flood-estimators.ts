@@ -21,13 +21,12 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName } from '../families/index.js';
-import { DEFAULT_EMA_REPLICATES, EMA_CAUTIONS, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
+import { DEFAULT_EMA_REPLICATES, EMA_CAUTIONS, EMA_INTERVAL_STREAM, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
 import { fitByLMoments, LMOMENT_FAMILIES, ratioDiagram, sampleLMoments, type LMomentFamily, type RatioDiagram } from '../lmoments/index.js';
 import { createRng } from '../random/index.js';
 import type { MethodNote } from '../report.js';
 
-/** Stream of createRng(seed, stream) used by the EMA interval simulation (the CLI's EMA route uses the same). */
-export const EMA_INTERVAL_STREAM = 12;
+export { EMA_INTERVAL_STREAM };
 
 export interface EstimatorReturnLevel {
   readonly period: number;

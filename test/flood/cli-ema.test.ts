@@ -48,3 +48,25 @@ describe('plumbline analyze GAUGE --estimation ema', () => {
     expect(() => runFloodEmaJson(args(['--regional-skew', '-0.1']))).toThrow(/go together/);
   });
 });
+
+describe('one default seed for the EMA bootstrap on the CLI and through the API/page pipeline', () => {
+  it('a CSV column of annual peaks gives the same bootstrap interval both ways with no --seed (the option table default, stream 12)', async () => {
+    const { writeFileSync, mkdtempSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const { analyzeDataset } = await import('../../core/index.js');
+    const peaks = [412, 655, 1020, 388, 790, 2140, 560, 933, 1210, 475, 690, 1580, 820, 505, 1340, 720, 980, 610, 1750, 845, 530, 1100];
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-ema-seed-'));
+    const file = join(dir, 'peaks.csv');
+    writeFileSync(file, `peak\n${peaks.join('\n')}\n`);
+    const cli = runFloodEmaJson(parseArgs(['analyze', file, '--estimation', 'ema', '--column', 'peak', '--return-periods', '10,100']) as AnalyzeArgs);
+    const api = analyzeDataset({ values: peaks }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema' }) as { flood: { estimators: { ema: { returnLevels: { bootstrapLower: number; bootstrapUpper: number; lower: number }[] } } } };
+    const a = cli.candidates[0]!.returnLevels;
+    const b = api.flood.estimators.ema.returnLevels;
+    a.forEach((r, i) => {
+      expect(r.bootstrap!.lower).toBe(b[i]!.bootstrapLower);
+      expect(r.bootstrap!.upper).toBe(b[i]!.bootstrapUpper);
+      expect(r.lower).toBe(b[i]!.lower);
+    });
+  });
+});
