@@ -35,7 +35,9 @@
  *  - resampling the data instead (nonparametric bootstrap, same BCa ends) is no fix either: n = 50
  *    96.1/94.5/96.9/95.3, n = 125 93.9/91.6/94.8/92.2 (Ppk 3.4 points short at the larger n).
  * The estimator itself is close to median-unbiased (51-53 % of 4000 samples above the true index).
- * Not fixed here; the report states the caveat (JOHNSON_INTERVAL_CAVEAT, core/capability/bootstrap.ts).
+ * Not fixed here, nor by the rules of scripts/capability-coverage-calibration.ts (smoothed resampling,
+ * a double bootstrap, a bootstrap-t): the report withholds the Johnson interval and says why
+ * (JOHNSON_INTERVAL_WITHHELD, core/capability/bootstrap.ts).
  */
 import { capabilityBootstrapIntervals, fitModelSpec, jackknifeIndices, makeModel, percentileCapability, runCapabilityBootstrapRange, type ModelSpec, type PercentileIndexName } from '../core/capability/index.js';
 import { PlumblineError } from '../core/errors.js';

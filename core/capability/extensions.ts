@@ -13,7 +13,7 @@
  */
 import type { FamilyName, Parameters } from '../families/index.js';
 import { PlumblineError } from '../errors.js';
-import { capabilityBootstrapJob, johnsonIntervalCaveat, percentileIntervals, type CapabilityBootstrapJob, type CapabilityBootstrapValues, type PercentileIntervals } from './bootstrap.js';
+import { capabilityBootstrapJob, percentileIntervals, type CapabilityBootstrapJob, type CapabilityBootstrapValues, type PercentileIntervals } from './bootstrap.js';
 import { compareModels, type ComparisonCandidate, type ModelComparison } from './comparison.js';
 import { individualsChart, subgroupChart, subgroupRangeChart, type StabilityChart } from './control-chart.js';
 import type { SpecLimits } from './indices.js';
@@ -128,7 +128,6 @@ export function capabilityExtensions(input: CapabilityExtensionsInput): Capabili
       transform = { ...t, intervals };
       const name = t.kind === 'boxcox' ? `Box–Cox normal (λ = ${fmt(t.lambda as number)})` : `Johnson ${t.type as string}`;
       extraRows.push({ model: name, dist: makeModel(t.model), rejectedBy: t.normality.passes ? [] : ['Anderson–Darling on the transformed values'] });
-      if (t.kind === 'johnson' && intervals.intervals !== null) warnings.push(johnsonIntervalCaveat(t.type as string));
       if (!t.normality.passes) warnings.push(`The ${name} transformation does not make the data normal (Anderson–Darling p = ${fmt(t.normality.pValue)} at α = ${t.normality.alpha}); its indices do not describe the process.`);
       warnings.push(...t.notes);
     } catch (e) {

@@ -20,6 +20,7 @@ import {
   POOL_BOOTSTRAP_WORK,
   capabilityBootstrapJob,
   combineCapabilityBootstrap,
+  intervalWithheld,
   runCapabilityBootstrapRange,
   sameCapabilityJob,
   transformTarget,
@@ -64,7 +65,8 @@ export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
   if (transform !== 'none') {
     try {
       const t = transformTarget(sorted, transform, limits, alpha);
-      return [job(t.fitted.model, n, t.limits, seed, replicates)];
+      // no job for a model whose interval is withheld (a Johnson curve: bootstrap.ts intervalWithheld)
+      return intervalWithheld(t.fitted.model) !== null ? [] : [job(t.fitted.model, n, t.limits, seed, replicates)];
     } catch (e) {
       if (e instanceof PlumblineError && e.code !== 'cancelled') return [];
       throw e;

@@ -27,6 +27,10 @@ describe('plumbline analyze: capability transformations', () => {
     const txt = await cli('analyze', DATA, '--usl', '200', '--transform', 'johnson', '--capability-replicates', '49');
     expect(txt.stdout).toMatch(/Transformation: Johnson S[UBL] by Slifker & Shapiro percentiles/);
     expect(txt.stdout).toMatch(/Models that pass the tests:/);
+    // no interval under a Johnson curve (its coverage could not be calibrated: scripts/capability-coverage-calibration.ts), and the report says so
+    expect(t.intervals.intervals).toBeNull();
+    expect(t.intervals.note).toMatch(/^No bootstrap interval under a Johnson curve: its coverage could not be calibrated/);
+    expect(txt.stdout.replace(/\s+/g, ' ')).toMatch(/No bootstrap interval under a Johnson curve: its coverage could not be calibrated/);
   });
   it('when no model passes: no empty table, the rejected models apart (shaft-diameter demo, every model rejected)', async () => {
     const r = await cli('analyze', 'datasets/shaft-diameter.csv', '--column', 'diameter_mm', '--lsl', '24.99', '--usl', '25.01', '--capability-replicates', '19');

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { COVERAGE_SETUP, JOHNSON_SETUP, simulateOne } from '../../scripts/capability-coverage.js';
-import { johnsonIntervalCaveat } from '../../core/capability/index.js';
+import { JOHNSON_INTERVAL_WITHHELD, fitModelSpec, intervalWithheld, makeModel, percentileIntervals } from '../../core/capability/index.js';
+import { createRng } from '../../core/random/index.js';
 import { readFixture } from '../helpers/fixtures.js';
 
 // The committed seeded simulation (scripts/capability-coverage.ts → test/fixtures/capability-coverage.json):
@@ -33,9 +34,10 @@ describe('coverage of the capability bootstrap interval (committed simulation)',
 });
 
 // The Johnson setup (scripts/capability-coverage.ts --johnson → test/fixtures/capability-coverage-johnson.json):
-// reported as measured. At n = 125 it is within 1.5 points; at n = 50 it over-covers by up to 2.8
-// points. The two-sided rate is a mixture (see the variants below): samples fitted as SU over-cover,
-// samples fitted as SB have a lower end that is too high.
+// what the report's interval would be under a Johnson curve (the report withholds it: see below).
+// At n = 125 it is within 1.5 points; at n = 50 it over-covers by up to 2.8 points. The two-sided
+// rate is a mixture (see the variants below): samples fitted as SU over-cover, samples fitted as SB
+// have a lower end that is too high.
 const jx = readFixture('capability-coverage-johnson.json');
 
 describe('coverage with the Johnson curve (committed simulation, reported)', () => {
@@ -44,13 +46,11 @@ describe('coverage with the Johnson curve (committed simulation, reported)', () 
     const r125 = jx.results.find((r: { n: number }) => r.n === 125);
     expect(simulateOne(125, 0, JOHNSON_SETUP)).toEqual(r125.firstSamples[0]);
   });
-  it('n = 125 within 1.5 points of 95 %; n = 50 never more than 1.5 points short (over-coverage allowed and stated)', () => {
+  it('n = 125 within 1.5 points of 95 %; at n = 50 three of the four indices are more than 1.5 points off (why the interval is withheld)', () => {
     for (const r of jx.results as { n: number; coverage: Record<string, { coverage: number; simulations: number }> }[]) {
-      for (const c of Object.values(r.coverage)) {
-        expect(c.simulations).toBe(1000);
-        expect(c.coverage).toBeGreaterThanOrEqual(0.935);
-        if (r.n === 125) expect(c.coverage).toBeLessThanOrEqual(0.965);
-      }
+      const off = Object.values(r.coverage).filter((c) => Math.abs(c.coverage - 0.95) > 0.015);
+      for (const c of Object.values(r.coverage)) expect(c.simulations).toBe(1000);
+      expect(off).toHaveLength(r.n === 50 ? 3 : 0);
     }
   });
 });
@@ -93,11 +93,73 @@ describe('Johnson interval coverage by rule and by fitted type (committed diagno
     expect(r125.coverage.nonparametric!.Ppk).toBe(91.6);
     expect(Math.abs(r125.coverage.nonparametric!.Ppk! - 95)).toBeGreaterThan(1.5);
   });
-  it('the report\'s caveat quotes these numbers, and warns of the lower end for an SB fit', () => {
+  it('the report\'s note quotes these numbers: SB fitted to 30-37 % of the samples, the truth below the lower end in 5.8-18.8 % of them', () => {
     const all = (vx.results as VariantRun[]).flatMap((r) => Object.values(r.coverage.report!));
     expect(Math.min(...all)).toBe(93.5);
     expect(Math.max(...all)).toBe(97.8);
-    expect(johnsonIntervalCaveat('SB')).toMatch(/93\.5-97\.8 %.*5\.8-18\.8 %.*lower end can overstate capability/);
-    expect(johnsonIntervalCaveat('SU')).toMatch(/conservative \(98\.5-100 %\)/);
+    const sbShare = (vx.results as VariantRun[]).map((r) => r.reportBySampleType.SB!.Pp!.samples / r.samples);
+    expect(Math.min(...sbShare)).toBeGreaterThanOrEqual(0.3);
+    expect(Math.max(...sbShare)).toBeLessThanOrEqual(0.37);
+    expect(JOHNSON_INTERVAL_WITHHELD).toMatch(/SB curve for 30-37 % of the samples.*5\.8-18\.8 % of cases instead of 2\.5 %/);
+  });
+});
+
+// The calibration attempts (scripts/capability-coverage-calibration.ts → test/fixtures/capability-coverage-johnson-calibration.json),
+// on the same seeded samples: smoothed resampling (1000 samples × 999 replicates per n) and a double
+// bootstrap (500 samples × 299 outer × 99 inner per n, run as samples 0-199 and 200-499 and summed here).
+const cx = readFixture('capability-coverage-johnson-calibration.json');
+type CalibrationCell = { samples: number; coverage: number };
+type CalibrationRun = { n: number; samples: number; setup: { firstSample: number }; rules: Record<string, Record<string, CalibrationCell>> };
+
+/** Coverage per n, rule and index, parts of the same n and rule summed (counts from the printed shares, exact at 0.1 % of 200 or more samples). */
+function calibrationCoverage(): Map<string, { covered: number; samples: number }> {
+  const out = new Map<string, { covered: number; samples: number }>();
+  for (const run of cx.runs as CalibrationRun[]) {
+    for (const [rule, cells] of Object.entries(run.rules)) {
+      for (const [k, c] of Object.entries(cells)) {
+        const key = `${run.n} ${rule} ${k}`;
+        const was = out.get(key) ?? { covered: 0, samples: 0 };
+        out.set(key, { covered: was.covered + Math.round((c.coverage / 100) * c.samples), samples: was.samples + c.samples });
+      }
+    }
+  }
+  return out;
+}
+
+describe('no tried rule calibrates the Johnson interval (committed runs)', () => {
+  const cov = calibrationCoverage();
+  const rules = [...new Set([...cov.keys()].map((k) => k.split(' ')[1] as string))];
+  it('the runs are of the committed Johnson setup, at n = 50 and 125, with the sample counts stated', () => {
+    for (const run of cx.runs as (CalibrationRun & { setup: Record<string, unknown> })[]) {
+      const { simulations, replicates: _b, firstSample: _first, ...rest } = run.setup;
+      const { simulations: _m, replicates: _r, ...johnson } = JSON.parse(JSON.stringify(JOHNSON_SETUP));
+      expect(rest).toEqual(johnson);
+      expect(run.samples).toBe(simulations);
+    }
+    expect(rules.sort()).toEqual(['double-boot-t', 'double-calibrated', 'double-percentile', 'smoothed-0-bc', 'smoothed-0-bca', 'smoothed-0-percentile', 'smoothed-0.5-bc', 'smoothed-0.5-bca', 'smoothed-0.5-percentile', 'smoothed-1-bc', 'smoothed-1-bca', 'smoothed-1-percentile']);
+    for (const [key, c] of cov) expect(c.samples, key).toBe(key.split(' ')[1]!.startsWith('double') ? 200 : 1000);
+  });
+  for (const rule of rules) {
+    it(`${rule}: some index at n = 50 or 125 is more than 1.5 points from 95 %`, () => {
+      const worst = Math.max(...[...cov].filter(([k]) => k.split(' ')[1] === rule).map(([, c]) => Math.abs(c.covered / c.samples - 0.95)));
+      expect(worst).toBeGreaterThan(0.015);
+    });
+  }
+});
+
+describe('the report withholds the Johnson interval', () => {
+  const x = makeModel(JOHNSON_SETUP.truth).draw(createRng(JOHNSON_SETUP.dataSeed, 0), 50).sort();
+  const spec = fitModelSpec({ kind: 'johnson' }, x);
+  it('percentileIntervals gives no interval under a Johnson curve, only the note, without running replicates', () => {
+    expect(intervalWithheld(spec)).toBe(JOHNSON_INTERVAL_WITHHELD);
+    // a replicate count far beyond the inline work bound would otherwise give the work note instead
+    const r = percentileIntervals(spec, x, JOHNSON_SETUP.limits, 0.05, 1, 1e9);
+    expect(r.intervals).toBeNull();
+    expect(r.note).toBe(JOHNSON_INTERVAL_WITHHELD);
+  });
+  it('a Box–Cox model of the same sample keeps its interval', () => {
+    const b = fitModelSpec({ kind: 'boxcox' }, x);
+    expect(intervalWithheld(b)).toBeNull();
+    expect(percentileIntervals(b, x, JOHNSON_SETUP.limits, 0.05, 1, 59).intervals?.length ?? 0).toBeGreaterThan(0);
   });
 });

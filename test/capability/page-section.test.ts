@@ -13,6 +13,14 @@ const order = skewed.map((_, i) => i + 1);
 describe('capability page section', () => {
   const r = analyzeDataset({ values: skewed, order }, { usl: 12, naturalLowerBound: 0, transform: 'boxcox', families: ['normal', 'lognormal', 'gamma', 'exponential'], capabilityReplicates: 199, seed: 3 });
   const b = capabilitySection({ report: r, selected: undefined, units: 'µm' })!;
+  it('with a Johnson curve: the indices without an interval, and a warning line saying why (the Box–Cox section above has none)', () => {
+    const j = analyzeDataset({ values: skewed }, { usl: 12, transform: 'johnson', families: ['normal', 'lognormal'], capabilityReplicates: 49, seed: 3 });
+    const jb = capabilitySection({ report: j, selected: undefined, units: 'µm' })!;
+    expect(j.capability!.transform.kind).toBe('johnson');
+    expect(jb.answer).not.toMatch(/bootstrap interval/);
+    expect(jb.lines.filter((l) => l.kind === 'warning' && /^No bootstrap interval under a Johnson curve/.test(l.text))).toHaveLength(1);
+    expect(b.lines.some((l) => /^No bootstrap interval/.test(l.text))).toBe(false);
+  });
   it('answers under the transformation when it passes, with its bootstrap interval; one-sided statement; no lower side', () => {
     const t = r.capability!.transform;
     expect(t.kind).toBe('boxcox');

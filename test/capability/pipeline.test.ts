@@ -21,7 +21,7 @@ import {
   type DatasetOptions,
   type DatasetReport,
 } from '../../core/index.js';
-import { johnsonIntervalCaveat } from '../../core/capability/index.js';
+import { JOHNSON_INTERVAL_WITHHELD } from '../../core/capability/index.js';
 
 const lognormal = (n: number, seed: number): number[] => Array.from(getFamily('lognormal').random({ meanlog: 1, sdlog: 0.5 }, createRng(seed), n));
 
@@ -37,7 +37,6 @@ const json = (x: unknown): unknown => JSON.parse(JSON.stringify(x));
 describe('capability bootstrap on the pipeline', () => {
   const cases: [string, DatasetInput, DatasetOptions, number][] = [
     ['Box–Cox transform', { values: lognormal(40, 1) }, { usl: 12, lsl: 0.8, transform: 'boxcox', capabilityReplicates: 99 }, 1],
-    ['Johnson transform, upper limit only', { values: lognormal(45, 2) }, { usl: 14, transform: 'johnson', capabilityReplicates: 59 }, 1],
     ['no transform: percentile method on the best non-normal family', { values: lognormal(60, 3) }, { usl: 12, lsl: 0.5, capabilityReplicates: 59 }, 1],
   ];
   for (const [name, input, options, atLeast] of cases) {
@@ -89,13 +88,23 @@ describe('capability bootstrap on the pipeline', () => {
     expect(plan.capabilityJobs).toEqual([]);
   });
 
-  it('a Johnson interval carries the measured-coverage caveat for the fitted curve type (scripts/capability-coverage-variants.ts)', () => {
-    const r = analyzeDataset({ values: lognormal(45, 2) }, { usl: 14, transform: 'johnson', capabilityReplicates: 59 }) as DatasetReport;
-    const t = r.capability!.transform;
+  it('a Johnson curve gets no interval and no capability job; the report says why (its coverage could not be calibrated: scripts/capability-coverage-calibration.ts)', () => {
+    const input = { values: lognormal(45, 2) };
+    const options: DatasetOptions = { usl: 14, transform: 'johnson', capabilityReplicates: 59 };
+    const { plan, results } = pipelineParts(input, options);
+    expect(plan.capabilityJobs).toEqual([]);
+    const viaPool = finishDataset(plan, results);
+    expect(json(viaPool)).toEqual(json(analyzeDataset(input, options)));
+    const t = viaPool.capability!.transform;
     if (t.kind === 'none') throw new Error('expected a Johnson section');
-    expect(r.capability!.warnings).toContain(johnsonIntervalCaveat(t.type as string));
-    const b = analyzeDataset({ values: lognormal(45, 2) }, { usl: 14, transform: 'boxcox', capabilityReplicates: 59 }) as DatasetReport;
-    expect(b.capability!.warnings.some((w) => /Johnson curve fitted by percentiles/.test(w))).toBe(false);
+    expect(t.percentile.indices.length).toBeGreaterThan(0);
+    expect(t.intervals.intervals).toBeNull();
+    expect(t.intervals.note).toBe(JOHNSON_INTERVAL_WITHHELD);
+    // the Box–Cox transformation of the same data keeps its interval
+    const b = analyzeDataset(input, { ...options, transform: 'boxcox' }) as DatasetReport;
+    const bt = b.capability!.transform;
+    if (bt.kind === 'none') throw new Error('expected a Box–Cox section');
+    expect(bt.intervals.intervals?.length ?? 0).toBeGreaterThan(0);
   });
 
   it('every model rejected on its table tests (shaft-diameter demo): one job, for the first-ranked non-normal model, which the finish uses', () => {

@@ -85,6 +85,9 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
     { kind: 'fact', text: `Tolerance: ${limits.join(', ')}${u ? ` (${u})` : ''}. n = ${cap.n}, mean ${sig(cap.mean, 6)}, overall sd ${sig(cap.sdOverall, 4)} (n − 1).` },
   ];
   if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
+  // Why an index has no interval (a Johnson curve's interval is withheld, too much work, ...): said once, beside the answer.
+  const noInterval = [chosenIntervals, t && t.kind !== 'none' ? t.intervals : null].find((iv) => iv && !iv.intervals && iv.note);
+  if (noInterval?.note) lines.push({ kind: 'warning', text: noInterval.note });
   // By how much
   lines.push(...headroom(cap, row, u));
   // What would change it
