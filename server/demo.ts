@@ -38,6 +38,11 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
     fields: { dateColumn: 'date', threshold: 140, minSeparation: 5, returnPeriods: [2, 10, 50, 100], confidence: 0.9 },
     description: 'column flow_m3s by date column date: peaks over a threshold of 140 m³/s, events at least 5 days apart; return periods 2, 10, 50, 100 years; 90 % intervals',
   },
+  'pump-seal-wear': {
+    column: 'wear_um',
+    fields: { usl: 120, naturalLowerBound: 0, confidence: 0.9 },
+    description: 'column wear_um; invented wear limit 120 µm, an upper limit only, and a natural lower bound of 0 µm (wear cannot be negative); 90 % intervals',
+  },
   'shaft-diameter': {
     column: 'diameter_mm',
     fields: { subgroupColumn: 'subgroup', lsl: 24.99, usl: 25.01, target: 25, confidence: 0.9 },

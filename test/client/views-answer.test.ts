@@ -69,6 +69,25 @@ describe('the answer', () => {
     expect(a.cautions.join(' ')).not.toMatch(/another model|Every candidate/);
   });
 
+  it('capability: the Ppk and the ppm in the sentence belong to the same model (the normal-theory Ppk named as such)', () => {
+    // The pump-seal-wear demo with its demo settings (server/demo.ts): an upper limit of 120 µm and a
+    // natural lower bound of 0. The Ppk under a fitted model is its comparison row's (ISO 22514-2
+    // percentile method, core/capability/comparison.ts); the check is that the answer quotes that row.
+    const wear = read('pump-seal-wear.csv', ['wear_um']);
+    const cap = analyzeDataset({ values: (wear.columns[0] as NumberColumn).values }, { families: ['weibull', 'normal', 'gamma'], usl: 120, naturalLowerBound: 0, seed: 1 }) as DatasetReport;
+    const rows = [...(cap.capability?.comparison?.passing ?? []), ...(cap.capability?.comparison?.rejected ?? [])];
+    const weibullPpk = rows.find((x) => x.model === 'Weibull')?.indices.find((x) => x.name === 'Ppk')?.estimate;
+    const normalPpk = cap.capability?.overall.find((x) => x.name === 'Ppk')?.estimate;
+    expect(weibullPpk).toBeDefined();
+    expect(Math.abs(weibullPpk! - normalPpk!)).toBeGreaterThan(0.05); // the two differ enough to tell apart at 3 digits
+    const w = answerFor(cap, 'weibull', 'µm')!;
+    expect(w.sentence.startsWith(`Ppk ${Number(weibullPpk!.toPrecision(3))} under Weibull by its percentiles (ISO 22514-2); `)).toBe(true);
+    expect(w.sentence).toMatch(/ppm out of tolerance under Weibull\. Normal theory gives Ppk /);
+    const n = answerFor(cap, 'normal', 'µm')!;
+    expect(n.sentence.startsWith(`Ppk ${Number(normalPpk!.toPrecision(3))} (lower bound `)).toBe(true);
+    expect(n.sentence).toMatch(/under the normal model; .* ppm out of tolerance under Normal\.$/);
+  });
+
   it('no decision number asked for: no answer', () => {
     const plain = analyzeDataset({ values: (rv.columns[0] as NumberColumn).values }, { families: ['gumbel'], seed: 1 }) as DatasetReport;
     expect(answerFor(plain, 'gumbel', '')).toBeNull();

@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../../server/app.js';
+import { DEMO_SETTINGS } from '../../server/demo.js';
 import { testApp } from './helpers.js';
 
 const { app, logged } = testApp({ demo: undefined });
@@ -36,6 +37,19 @@ describe('demo datasets', () => {
       expect(res.body.error.message).toMatch(/No demo dataset|No API route|Not found/);
     }
   });
+
+  it('every demo\'s own settings are accepted by the API with its file (a demo never opens on a refused option)', async () => {
+    // The settings are sent as the page sends them: the file, its value column, and the fields.
+    // Demos without fields (the class counts) are read by the page's data card alone.
+    const withFields = Object.entries(DEMO_SETTINGS).filter(([, settings]) => Object.keys(settings.fields).length > 0);
+    expect(withFields.length).toBeGreaterThanOrEqual(5);
+    for (const [name, settings] of withFields) {
+      const csv = readFileSync(join(REPO_ROOT, 'datasets', `${name}.csv`), 'utf8');
+      const body = { csv, column: settings.column, ...settings.fields };
+      const res = await request(app).post('/api/analyze').send(body);
+      expect(res.status, `${name}: ${JSON.stringify(res.body.error ?? null)}`).toBe(200);
+    }
+  }, 120_000);
 
   it('the pre-analysed demo opens with a complete result and evidence', async () => {
     const res = await request(app).get('/api/demo-analysis');

@@ -52,13 +52,30 @@ function sentenceFor(r: DatasetReport, c: DatasetCandidate, u: string): { text: 
   }
   const cap = r.capability;
   const ppk = cap?.overall.find((x) => x.name === 'Ppk');
-  if (cap && ppk) {
-    return {
-      text: `Ppk ${sig(ppk.estimate, 3)} (lower bound ${sig(ppk.lower, 3)})${cap.normality && !cap.normality.passes ? '; the normal model fails its test, see the percentile method' : ''}; ${sig(c.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}.`,
-      quantity: 'ppm out of spec',
-    };
-  }
+  if (cap && ppk) return { text: capabilitySentence(cap, ppk, c, label), quantity: 'ppm out of spec' };
   return null;
+}
+
+type Capability = NonNullable<DatasetReport['capability']>;
+
+/**
+ * Ppk and ppm under one and the same model: the selected model's percentile-method Ppk (ISO 22514-2,
+ * the comparison row of that model, with its bootstrap interval when the report ran one for it) next
+ * to its ppm; the normal-theory Ppk is named as such. Under the normal model, the normal-theory Ppk
+ * with its lower bound.
+ */
+function capabilitySentence(cap: Capability, ppk: Capability['overall'][number], c: DatasetCandidate, label: string): string {
+  const ppm = `${sig(c.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}`;
+  const normalPpk = `Ppk ${sig(ppk.estimate, 3)} (lower bound ${sig(ppk.lower, 3)})`;
+  const gate = cap.normality && !cap.normality.passes ? ', but the normal model fails its test' : '';
+  if (c.family === 'normal') return `${normalPpk} under the normal model${gate}; ${ppm}.`;
+  const rows = cap.comparison ? [...cap.comparison.passing, ...cap.comparison.rejected] : [];
+  const row = rows.find((x) => x.kind === 'fitted model' && x.model.toLowerCase() === c.label.toLowerCase());
+  const own = row?.indices.find((x) => x.name === 'Ppk');
+  if (!own) return `${ppm}; normal-theory ${normalPpk}${gate}.`;
+  const interval = cap.percentileFamily === c.family ? cap.percentileIntervals?.intervals?.find((x) => x.name === 'Ppk') : undefined;
+  const bound = interval ? ` (${pct(interval.confidence)} interval ${sig(interval.lower, 3)} to ${sig(interval.upper, 3)})` : '';
+  return `Ppk ${sig(own.estimate, 3)}${bound} under ${label} by its percentiles (ISO 22514-2); ${ppm}. Normal theory gives ${normalPpk}${gate}.`;
 }
 
 export function answerFor(r: DatasetReport, selected: string | null, units: string): Answer | null {
