@@ -8,6 +8,7 @@ import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import type { ThresholdDiagnostic } from '../../core/index.js';
 import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, pathThrough } from './frame.js';
 import type { ChartOptions } from './options.js';
+import { sig } from '../src/format.js';
 import { INK } from './palette.js';
 import { round } from './text.js';
 
@@ -22,7 +23,7 @@ export function thresholdMeanExcessChart(container: Element, data: ThresholdChar
     container,
     options,
     'Is the mean excess close to a straight line above the threshold?',
-    `Mean excess of the event peaks above each candidate threshold (${pts.length} thresholds); the chosen threshold ${data.chosen} is marked. Points with few events scatter.`,
+    `Mean excess of the event peaks above each candidate threshold (${pts.length} thresholds); the chosen threshold ${sig(data.chosen)} is marked. Points with few events scatter.`,
     { legend: [{ key: 'data', label: 'mean excess (number of events in the tooltip)', kind: 'point' }, { key: 'ref', label: 'chosen threshold', kind: 'reference' }] },
   );
   const xs = [...pts.map((d) => d.threshold), data.chosen];

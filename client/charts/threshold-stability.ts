@@ -7,6 +7,7 @@
 import { axisBottom, axisLeft, scaleLinear } from 'd3';
 import { createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, pathThrough } from './frame.js';
 import type { ChartOptions } from './options.js';
+import { sig } from '../src/format.js';
 import { INK } from './palette.js';
 import { round } from './text.js';
 import type { ThresholdChartData } from './threshold-mean-excess.js';
@@ -17,7 +18,7 @@ export function thresholdStabilityChart(container: Element, data: ThresholdChart
     container,
     options,
     'Does the fitted shape stay steady as the threshold rises?',
-    `Maximum-likelihood generalized Pareto shape at each candidate threshold with at least 10 events (${pts.length} thresholds); the chosen threshold ${data.chosen} is marked.`,
+    `Maximum-likelihood generalized Pareto shape at each candidate threshold with at least 10 events (${pts.length} thresholds); the chosen threshold ${sig(data.chosen)} is marked.`,
     { legend: [{ key: 'data', label: 'fitted shape ξ', kind: 'point' }, { key: 'ref', label: 'chosen threshold', kind: 'reference' }] },
   );
   const xs = [...data.diagnostics.map((d) => d.threshold), data.chosen];

@@ -39,4 +39,14 @@ describe('threshold diagnostic charts', () => {
     expect(diagnostics.some((d) => d.shape === null)).toBe(true);
     writeFileSync('test-output/threshold-stability.svg', svg.outerHTML);
   });
+  it('the chart descriptions print the chosen threshold through core/format (no float noise: 0.1 + 0.2 shows as 0.3)', () => {
+    for (const draw of [thresholdMeanExcessChart, thresholdStabilityChart]) {
+      const host = document.createElement('div');
+      document.body.append(host);
+      const svg = draw(host, { diagnostics, chosen: 0.1 + 0.2 }, OPTS);
+      const desc = svg.querySelector('desc')!.textContent!;
+      expect(desc).toMatch(/the chosen threshold 0\.3 is marked/);
+      expect(desc).not.toMatch(/0\.30000000000000004/);
+    }
+  });
 });
