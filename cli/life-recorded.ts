@@ -48,9 +48,13 @@ export function readRecordedLife(text: string, args: AnalyzeArgs, file: string):
   const mode = columnArg(args, 'modeColumn');
   if (interval) {
     if (interval.length !== 2) throw new InputError('--interval-columns takes two columns: START,END', {}, 'bad-option');
-    if (mode !== undefined) throw new InputError('--mode-column works with times and --censor-column, not with --interval-columns', {}, 'bad-option');
-    const r = readIntervalRows(text, { start: columnSelector(interval[0]!), end: columnSelector(interval[1]!), ...(count !== undefined ? { count: columnSelector(count) } : {}) }, csv, file);
-    return { input: { interval: r.interval }, columns: r.columns.map((c) => ({ role: c.role, column: c.column })), rows: r.interval.start.length };
+    const r = readIntervalRows(
+      text,
+      { start: columnSelector(interval[0]!), end: columnSelector(interval[1]!), ...(count !== undefined ? { count: columnSelector(count) } : {}), ...(mode !== undefined ? { mode: columnSelector(mode) } : {}) },
+      csv,
+      file,
+    );
+    return { input: { interval: r.interval, ...(r.modes ? { modes: r.modes } : {}) }, columns: r.columns.map((c) => ({ role: c.role, column: c.column })), rows: r.interval.start.length };
   }
   const requests: ColumnRequest[] = [];
   const roles: string[] = [];

@@ -9,14 +9,27 @@
  * Per mode the candidate families are ranked by AICc (n = all units) and the best is used for the
  * system, unless a family is fixed. Mode B-lives carry likelihood-ratio (or Fisher) bounds
  * (bounds.ts); the system B-life is a point estimate here (no bound is claimed).
+ * Interval rows with a mode (analyzeIntervalModes): a unit found failed by mode m in (L, R] is, for
+ * every other mode, known to have been free of it at L and nothing more; so for the other modes it
+ * is a suspension at L (an exact failure: at its time; one failed before the first inspection: at 0,
+ * no information). Censoring at L is independent of the other mode's life when the modes and the
+ * inspection times are independent, so each mode's fit is the interval likelihood of
+ * interval-likelihood.ts on its own rows (exact) with the other modes' failures suspended there; it
+ * drops the information that the unit outlived the other mode between L and its failure, so the
+ * other modes' estimates lose a little precision but not their consistency (the exact joint
+ * likelihood, ∫_L^R f_m(t) Π_{k≠m} S_k(t) dt, does not factorise; Meeker & Escobar 1998, §15.5,
+ * and Lawless 2003, §9.2 [from memory], for the interval-censored competing-risks likelihood).
  */
 import { InputError } from '../errors.js';
 import { getFamily, type Distribution } from '../families/index.js';
 import { informationCriteria, rankCandidates } from '../rank.js';
 import { findRoot } from '../special/index.js';
-import { bLife, reliabilityAt, type BLife, type BoundMethod, type ReliabilityAt } from './bounds.js';
-import { prepareLifeData, type LifeData } from './data.js';
-import { fitCensored, type CensoredFitSuccess } from './fit.js';
+import { bLife, reliabilityAt, type BLife, type BoundMethod, type LikelihoodSource, type ReliabilityAt } from './bounds.js';
+import { prepareLifeData } from './data.js';
+import { fitCensored, type CensoredFitOutcome, type CensoredFitSuccess } from './fit.js';
+import { censoringKind, prepareIntervalLifeData, type IntervalLifeInput } from './interval-likelihood-data.js';
+import { fitInterval } from './interval-likelihood-fit.js';
+import { intervalLogLikelihoodOf } from './interval-likelihood.js';
 import { LIFE_FAMILIES, lifeModel, type LifeFamilyName } from './models.js';
 
 export interface ModeInput {
@@ -100,26 +113,94 @@ export function systemQuantile(dists: readonly Distribution[], p: number): numbe
   return Math.exp(findRoot(g, lo, hi, { relTol: 1e-13 }).root);
 }
 
-function modeData(input: ModeInput, mode: string): LifeData {
-  const failed = new Uint8Array(input.times.length);
-  for (let i = 0; i < failed.length; i++) failed[i] = input.failed[i] && input.modes[i] === mode ? 1 : 0;
-  return prepareLifeData({ times: input.times, failed });
+/** One mode's data as the fits and bounds need it. */
+interface ModeData {
+  readonly n: number;
+  readonly failures: number;
+  readonly suspensions: number;
+  readonly fit: (family: LifeFamilyName) => CensoredFitOutcome;
+  readonly source: LikelihoodSource;
+}
+
+/** The sorted distinct modes of the failed rows; every failed row must name one. */
+function modeLabels(modes: readonly (string | null)[], failed: (i: number) => boolean, what: (i: number) => string, row: (i: number) => number): string[] {
+  const labels: string[] = [];
+  for (let i = 0; i < modes.length; i++) {
+    if (!failed(i)) continue;
+    const m = modes[i];
+    if (m === null || m === undefined || m.trim() === '') {
+      throw new InputError(`${what(i)} failed but has no failure mode: give every failed unit a mode.`, { row: row(i) }, 'bad-input');
+    }
+    if (!labels.includes(m)) labels.push(m);
+  }
+  if (labels.length === 0) throw new InputError('No failed unit has a mode: there is nothing to separate.', {}, 'too-few-values');
+  return labels.sort();
 }
 
 export function analyzeModes(input: ModeInput, opts: ModeOptions = {}): CompetingModesReport {
   const n = input.times.length;
   if (input.modes.length !== n) throw new InputError(`The mode column has ${input.modes.length} entries but there are ${n} units.`, {}, 'bad-input');
-  const labels: string[] = [];
+  const labels = modeLabels(input.modes, (i) => !!input.failed[i], (i) => `Unit #${i + 1}`, (i) => i + 1);
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = 0;
   for (let i = 0; i < n; i++) {
-    if (!input.failed[i]) continue;
-    const m = input.modes[i];
-    if (m === null || m === undefined || m.trim() === '') {
-      throw new InputError(`Unit #${i + 1} failed but has no failure mode: give every failed unit a mode.`, { row: i + 1 }, 'bad-input');
-    }
-    if (!labels.includes(m)) labels.push(m);
+    lo = Math.min(lo, input.times[i] as number);
+    hi = Math.max(hi, input.times[i] as number);
   }
-  if (labels.length === 0) throw new InputError('No failed unit has a mode: there is nothing to separate.', {}, 'too-few-values');
-  labels.sort();
+  const modeData = (mode: string): ModeData => {
+    const failed = new Uint8Array(n);
+    for (let i = 0; i < n; i++) failed[i] = input.failed[i] && input.modes[i] === mode ? 1 : 0;
+    const data = prepareLifeData({ times: input.times, failed });
+    return { n: data.n, failures: data.failures, suspensions: data.suspensions, fit: (f) => fitCensored(f, data), source: data };
+  };
+  return modesReport(n, labels, modeData, [lo, hi], opts, 'each mode fitted by censored maximum likelihood with the other modes\' failures as suspensions; system reliability = product of the mode reliabilities');
+}
+
+export interface IntervalModeInput {
+  readonly interval: IntervalLifeInput;
+  /** The failure mode of each row (ignored for suspensions, end = ∞). */
+  readonly modes: readonly (string | null)[];
+}
+
+/** Modes on interval rows: each mode's rows exact, the other modes' failures suspended at their start (see above). */
+export function analyzeIntervalModes(input: IntervalModeInput, opts: ModeOptions = {}): CompetingModesReport {
+  const rows = input.interval;
+  const m = rows.start.length;
+  if (input.modes.length !== m) throw new InputError(`The mode column has ${input.modes.length} entries but there are ${m} rows.`, {}, 'bad-input');
+  const all = prepareIntervalLifeData(rows); // validates every row once, naming its line
+  const lower = (i: number) => (Number.isNaN(rows.start[i] as number) ? 0 : (rows.start[i] as number));
+  const upper = (i: number) => (Number.isNaN(rows.end[i] as number) ? Number.POSITIVE_INFINITY : (rows.end[i] as number));
+  const count = (i: number) => (rows.counts ? (rows.counts[i] as number) : 1);
+  const failedRow = (i: number) => count(i) > 0 && censoringKind(lower(i), upper(i)) !== 'right';
+  const labels = modeLabels(input.modes, failedRow, (i) => `Row ${rows.lines?.[i] ?? i + 1}`, (i) => rows.lines?.[i] ?? i + 1);
+  const modeData = (mode: string): ModeData => {
+    const start: number[] = [];
+    const end: number[] = [];
+    const counts: number[] = [];
+    let failures = 0;
+    for (let i = 0; i < m; i++) {
+      const own = !failedRow(i) || input.modes[i] === mode;
+      if (own && failedRow(i)) failures += count(i);
+      // Another mode's failure before the first inspection: suspended at 0, no information (left out, still counted in n).
+      if ((!own && lower(i) === 0) || count(i) === 0) continue;
+      start.push(lower(i));
+      end.push(own ? upper(i) : Number.POSITIVE_INFINITY);
+      counts.push(count(i));
+    }
+    const data = prepareIntervalLifeData({ start, end, counts }, { trusted: true });
+    return { n: all.n, failures, suspensions: all.n - failures, fit: (f) => fitInterval(f, data), source: { logLikelihoodOf: (f) => intervalLogLikelihoodOf(f, data) } };
+  };
+  return modesReport(
+    all.n,
+    labels,
+    modeData,
+    [all.minTime, all.maxTime],
+    opts,
+    "each mode fitted by maximum likelihood on the interval rows (exact, left-, interval- and right-censored), a unit failed by another mode suspended at the last inspection it was seen running (its start); system reliability = product of the mode reliabilities",
+  );
+}
+
+function modesReport(n: number, labels: readonly string[], modeData: (mode: string) => ModeData, range: readonly [number, number], opts: ModeOptions, method: string): CompetingModesReport {
   const confidence = opts.confidence ?? 0.9;
   const percents = opts.bLifePercents ?? [10];
   const times = opts.reliabilityTimes ?? [];
@@ -127,11 +208,11 @@ export function analyzeModes(input: ModeInput, opts: ModeOptions = {}): Competin
   const cautions: string[] = [];
   const chosen: CensoredFitSuccess[] = [];
   const modes: ModeResult[] = labels.map((mode) => {
-    const data = modeData(input, mode);
+    const data = modeData(mode);
     const fits: CensoredFitSuccess[] = [];
     const notFitted: { family: LifeFamilyName; reason: string }[] = [];
     for (const f of families) {
-      const r = fitCensored(f, data);
+      const r = data.fit(f);
       if (r.ok && r.converged) fits.push(r);
       else notFitted.push({ family: f, reason: r.ok ? 'the fit did not converge (no maximum found; not ranked)' : r.reason });
     }
@@ -153,19 +234,14 @@ export function analyzeModes(input: ModeInput, opts: ModeOptions = {}): Competin
       parameters: best?.parameters ?? null,
       candidates: ranked.map(({ fit: _f, ...c }) => c),
       notFitted,
-      bLives: best ? percents.map((p) => bLife(best, data, p, confidence, opts.boundMethod)) : [],
-      reliability: best ? times.map((t) => reliabilityAt(best, data, t, confidence, opts.boundMethod)) : [],
+      bLives: best ? percents.map((p) => bLife(best, data.source, p, confidence, opts.boundMethod)) : [],
+      reliability: best ? times.map((t) => reliabilityAt(best, data.source, t, confidence, opts.boundMethod)) : [],
     };
   });
   let system: SystemResult | null = null;
   if (chosen.length === labels.length) {
     const dists = chosen.map((f) => getFamily(f.family).make(f.parameters));
-    let lo = Number.POSITIVE_INFINITY;
-    let hi = 0;
-    for (let i = 0; i < n; i++) {
-      lo = Math.min(lo, input.times[i] as number);
-      hi = Math.max(hi, input.times[i] as number);
-    }
+    const [lo, hi] = range;
     const grid: number[] = [];
     for (let k = 0; k < 60; k++) grid.push(Math.exp(Math.log(lo / 2) + ((Math.log(hi * 1.5) - Math.log(lo / 2)) * k) / 59));
     system = {
@@ -186,7 +262,7 @@ export function analyzeModes(input: ModeInput, opts: ModeOptions = {}): Competin
     modes,
     system,
     cautions,
-    method: "each mode fitted by censored maximum likelihood with the other modes' failures as suspensions; system reliability = product of the mode reliabilities",
+    method,
     source: 'Meeker & Escobar 1998, Statistical Methods for Reliability Data, §15.2-15.4; Lawless 2003, §9.1',
   };
 }

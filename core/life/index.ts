@@ -22,7 +22,7 @@ export { fitInterval } from './interval-likelihood-fit.js';
 export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval, type TurnbullOptions } from './turnbull.js';
 export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
 export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
-export { analyzeModes, systemQuantile, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
+export { analyzeModes, analyzeIntervalModes, systemQuantile, type IntervalModeInput, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
 export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
 export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, type RankRegressionFit, type RankRegressionOutcome, type RankRegressionFamily } from './rank-regression.js';
 export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, INTERVAL_GOF_REPLICATES, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';

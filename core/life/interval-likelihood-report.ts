@@ -11,7 +11,7 @@ import { InputError } from '../errors.js';
 import { getFamily } from '../families/index.js';
 import { informationCriteria } from '../rank.js';
 import { bLife, reliabilityAt, type BLife, type BoundMethod, type LikelihoodSource, type ReliabilityAt } from './bounds.js';
-import { analyzeModes, type CompetingModesReport } from './competing-modes.js';
+import { analyzeIntervalModes, analyzeModes, type CompetingModesReport } from './competing-modes.js';
 import { lifeCurves, logGrid, type LifeCurves } from './curves.js';
 import { buildLifeData, type LifeData, type LifeInput } from './data.js';
 import { intervalInputFromTimes, prepareIntervalLifeData, type IntervalLifeData, type IntervalLifeInput } from './interval-likelihood-data.js';
@@ -37,7 +37,7 @@ export interface RecordedLifeInput {
   readonly interval?: IntervalLifeInput;
   readonly times?: LifeInput['times'];
   readonly failed?: LifeInput['failed'];
-  /** Failure mode per unit (with times + failed only). */
+  /** Failure mode per unit (times + failed) or per row (interval rows; blank for a suspension). */
   readonly modes?: readonly (string | null)[];
 }
 
@@ -327,8 +327,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
   }
   let modes: CompetingModesReport | null = null;
   if (input.modes) {
-    if (!input.times || !input.failed) throw new InputError('A failure-mode column needs times with a status column (not interval rows).', {}, 'bad-option');
-    modes = analyzeModes({ times: input.times, failed: input.failed, modes: input.modes }, { families, bLifePercents: percents, reliabilityTimes: relTimes, confidence, boundMethod });
+    const mo = { families, bLifePercents: percents, reliabilityTimes: relTimes, confidence, boundMethod };
+    modes = input.interval ? analyzeIntervalModes({ interval: input.interval, modes: input.modes }, mo) : analyzeModes({ times: input.times!, failed: input.failed!, modes: input.modes }, mo);
     cautions.push(...modes.cautions.filter((c) => !c.startsWith('Where')));
   }
   if (data.failures < 10) {

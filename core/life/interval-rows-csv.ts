@@ -16,12 +16,16 @@ export interface IntervalColumns {
   readonly start: ColumnSelector;
   readonly end: ColumnSelector;
   readonly count?: ColumnSelector;
+  /** The failure-mode column (blank for a suspension): competing-modes.ts analyzeIntervalModes. */
+  readonly mode?: ColumnSelector;
 }
 
 export interface IntervalRowsRead {
   readonly interval: IntervalLifeInput;
+  /** Each row's failure mode (null where blank), when a mode column was given. */
+  readonly modes?: readonly (string | null)[];
   /** The columns read, by role, with their labels and 1-based indexes. */
-  readonly columns: readonly { readonly role: 'interval start' | 'interval end' | 'count'; readonly column: string; readonly index: number }[];
+  readonly columns: readonly { readonly role: 'interval start' | 'interval end' | 'count' | 'failure mode'; readonly column: string; readonly index: number }[];
   readonly summary: ReadSummary;
 }
 
@@ -37,6 +41,7 @@ export function readIntervalRows(text: string, cols: IntervalColumns, options: C
     { select: cols.end, kind: 'text', keepBlank: true },
   ];
   if (cols.count !== undefined) requests.push({ select: cols.count, kind: 'number' });
+  if (cols.mode !== undefined) requests.push({ select: cols.mode, kind: 'text', keepBlank: true });
   const t = readColumns(text, requests, options);
   const decimal = options.decimal ?? '.';
   const [s, e] = t.columns as [TextColumn, TextColumn];
@@ -52,13 +57,16 @@ export function readIntervalRows(text: string, cols: IntervalColumns, options: C
       return v;
     });
   const counts = cols.count !== undefined ? (t.columns[2] as NumberColumn) : undefined;
+  const mode = cols.mode !== undefined ? (t.columns[cols.count !== undefined ? 3 : 2] as TextColumn) : undefined;
   const { columns: _c, rowNumbers, ...summary } = t;
   return {
     interval: { start: cell(s, 0), end: cell(e, Number.POSITIVE_INFINITY), ...(counts ? { counts: counts.values } : {}), lines: Array.from(rowNumbers) },
+    ...(mode ? { modes: mode.texts.map((x) => (x.trim() === '' ? null : x.trim())) } : {}),
     columns: [
       { role: 'interval start', column: s.column, index: s.index },
       { role: 'interval end', column: e.column, index: e.index },
       ...(counts ? [{ role: 'count' as const, column: counts.column, index: counts.index }] : []),
+      ...(mode ? [{ role: 'failure mode' as const, column: mode.column, index: mode.index }] : []),
     ],
     summary,
   };
