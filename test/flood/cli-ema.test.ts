@@ -8,6 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { fileURLToPath } from 'node:url';
 import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
 import { floodEmaText, isFloodEma, runFloodEmaJson } from '../../cli/flood-ema.js';
+import type { DatasetReport } from '../../core/index.js';
+import type { FloodEmaBlock } from '../../core/workflow/flood-estimators.js';
 
 const FILE = fileURLToPath(new URL('../../datasets/invented-gauge-peaks.txt', import.meta.url));
 
@@ -60,9 +62,10 @@ describe('one default seed for the EMA bootstrap on the CLI and through the API/
     const file = join(dir, 'peaks.csv');
     writeFileSync(file, `peak\n${peaks.join('\n')}\n`);
     const cli = runFloodEmaJson(parseArgs(['analyze', file, '--estimation', 'ema', '--column', 'peak', '--return-periods', '10,100']) as AnalyzeArgs);
-    const api = analyzeDataset({ values: peaks }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema' }) as { flood: { estimators: { ema: { returnLevels: { bootstrapLower: number; bootstrapUpper: number; lower: number }[] } } } };
+    const api = analyzeDataset({ values: peaks }, { returnPeriods: [10, 100], families: ['gumbel'], estimation: 'ema' }) as DatasetReport;
+    const ema = api.flood!.estimators!.ema as FloodEmaBlock;
     const a = cli.candidates[0]!.returnLevels;
-    const b = api.flood.estimators.ema.returnLevels;
+    const b = ema.returnLevels;
     a.forEach((r, i) => {
       expect(r.bootstrap!.lower).toBe(b[i]!.bootstrapLower);
       expect(r.bootstrap!.upper).toBe(b[i]!.bootstrapUpper);
