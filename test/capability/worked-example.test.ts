@@ -11,7 +11,9 @@ import { capability, d2, subgroupRangeChart } from '../../core/capability/index.
  *    https://askfilo.com/user-question-answers-smart-solutions/v-draw-a-a-ask-copilot-flow-width-measurements-microns-for-3335303530323731
  *  - the specification 1.50 ± 0.50 microns: the same askfilo page and
  *    https://quesba.com/questions/1-a-hard-bake-process-is-used-in-conjunction-with-photolithography-in-semic-162792
- * The printed x̄ᵢ and Rᵢ of every row check the transcription below.
+ * The printed x̄ᵢ and Rᵢ of every row check the transcription below: a change of 0.001 in any value
+ * moves its row mean by 0.0002 and fails; a change in the 4th decimal of a value that is neither the
+ * row's largest nor smallest is below the printed precision and is not caught.
  * From memory (not read from a source): the book's σ̂ = R̄/d2 = 0.32521/2.326 = 0.1398 and
  * Ĉp = (2.00 - 1.00)/(6 · 0.1398) = 1.192 ("1.19").
  */
