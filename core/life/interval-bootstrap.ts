@@ -4,7 +4,7 @@
  * lifetime drawn from the fitted model and is observed through the inspection times the scheme of
  * interval-inspection-scheme.ts gives it — every time of a common schedule up to its end of
  * follow-up when the rows fit one, else its own recorded times with the inspection a left row or a
- * suspension does not record drawn from the interval rows' widths (case-2 interval censoring; Ren
+ * suspension does not record imputed once from the interval rows' widths (case-2 interval censoring; Ren
  * 2003, Scand. J. Statist. 30:211-226 [from memory], keeps each unit's inspection times and redraws
  * its life); exact rows are watched continuously up to the last time in the data.
  * Earlier, replicates used only each row's own times, which a row records only around its failure:
@@ -14,8 +14,8 @@
  * parameters) and its statistic computed on its own Turnbull estimate against its own fit, so the
  * p-value accounts for estimated parameters (as bootstrap.ts does for right-censored data).
  * By replicate range: replicate b always draws from `createRng(seed, b)` (one uniform per unit for
- * its life in row order, then one more where a missing inspection is drawn), so counts over any split
- * add up to the one-piece run. A replicate that cannot be refitted counts as exceeding
+ * its life, in row order) and the imputed inspections from one stream of their own, so counts over
+ * any split add up to the one-piece run. A replicate that cannot be refitted counts as exceeding
  * (conservative): p = (1 + #{A²_b ≥ A²_obs} + #{unrefittable}) / (1 + B), reject at p ≤ α.
  */
 import { getFamily, type Parameters } from '../families/index.js';
@@ -25,17 +25,20 @@ import type { CensoredGofResult } from './bootstrap.js';
 import { censoredGofFromCounts } from './bootstrap-range.js';
 import { countReplicates, type ReplicateRangeOptions } from './replicate-counts.js';
 import { intervalAndersonDarling } from './interval-anderson-darling.js';
-import { inspectionScheme, observeUnit } from './interval-inspection-scheme.js';
+import { imputeInspections, inspectionScheme, observeUnit } from './interval-inspection-scheme.js';
 import { prepareIntervalLifeData, type IntervalLifeData } from './interval-likelihood-data.js';
 import { fitInterval } from './interval-likelihood-fit.js';
 import type { LifeFamilyName } from './models.js';
 import { turnbull, type TurnbullOptions } from './turnbull.js';
 
+/** The random stream of the imputed inspections (replicate b uses stream b; B never comes near 2^40). */
+const IMPUTATION_STREAM = 2 ** 40;
+
 /** The Turnbull settings of the statistic, the same for the data and every replicate. */
 export const INTERVAL_AD_TURNBULL: TurnbullOptions = { tolerance: 1e-9, maxIterations: 20000 };
 
 export const INTERVAL_AD_METHOD =
-  'Anderson–Darling A² on the Turnbull estimate (inside each innermost interval the estimate taken nearest the model; cf. Ren 2003), p-value by parametric bootstrap that refits every replicate and reproduces the inspection scheme unit by unit: each unit gets a lifetime from the fitted model and is seen at the inspections the scheme gives it (a common schedule when the rows fit one, every time up to its end of follow-up; else its own recorded times, the inspection a left row or suspension does not record drawn from the interval rows’ widths; exact rows watched to the last time in the data); replicates that cannot be refitted count as exceeding (conservative). Assumes inspection times independent of the lives';
+  'Anderson–Darling A² on the Turnbull estimate (inside each innermost interval the estimate taken nearest the model; cf. Ren 2003), p-value by parametric bootstrap that refits every replicate and reproduces the inspection scheme unit by unit: each unit gets a lifetime from the fitted model and is seen at the inspections the scheme gives it (a common schedule when the rows fit one, every time up to its end of follow-up; else its own recorded times, the inspection a left row or suspension does not record imputed once from the interval rows’ widths; exact rows watched to the last time in the data); replicates that cannot be refitted count as exceeding (conservative). Assumes inspection times independent of the lives';
 
 /** The observed statistic of a fitted model. */
 export function intervalStatistic(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData): number {
@@ -58,6 +61,9 @@ export function runIntervalReplicates(
   const fam = getFamily(family);
   const dist = fam.make(parameters);
   const scheme = inspectionScheme(data, dist);
+  // The missing inspections, imputed once from a stream no replicate uses, so every range sees one scheme.
+  const imputer = createRng(seed, IMPUTATION_STREAM);
+  const extra = imputeInspections(scheme, data, () => imputer.uniform());
   const tau = data.maxTime;
   const rows = data.lower.length;
   const n = data.n;
@@ -65,7 +71,6 @@ export function runIntervalReplicates(
   const hi = new Float64Array(n);
   return countReplicates(start, end, observed, (b) => {
     const rng = createRng(seed, b);
-    const uniform = () => rng.uniform();
     let k = 0;
     for (let r = 0; r < rows; r++) {
       const L = data.lower[r] as number;
@@ -75,7 +80,7 @@ export function runIntervalReplicates(
         // Inversion of the model's own quantile (tails by isf): one uniform per unit, in row order.
         const u = rng.uniform();
         const T = u < 0.5 ? dist.quantile(u) : dist.isf(1 - u);
-        const [a, z] = observeUnit(scheme, kind, L, R, T, tau, uniform);
+        const [a, z] = observeUnit(scheme, kind, L, R, T, tau, extra[k] as number);
         lo[k] = a;
         hi[k++] = z;
       }

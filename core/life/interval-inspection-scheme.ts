@@ -17,12 +17,17 @@
  * 2. Each unit at its own times (case-2 interval censoring: two inspections U < V per unit,
  *    independent of its life; Sun 2006, The Statistical Analysis of Interval-censored Failure Time
  *    Data, §2.3 [from memory]). An interval row (U, V] keeps both; a left row (0, U] lost the later
- *    inspection V and a suspension at V lost the earlier U, so the missing one is drawn, per replicate,
- *    at a gap V − U taken from the interval rows' widths, each weighted by 1/(F̂(V) − F̂(U)) under the
- *    fitted model (an interval row is recorded with probability F(V) − F(U), so wider gaps are
- *    over-represented among them; the weights undo that — inverse-probability weighting, Horvitz &
- *    Thompson 1952, J. Amer. Statist. Assoc. 47:663-685). With no interval rows (current-status data:
- *    one inspection per unit) every row already records its unit's only inspection and is kept.
+ *    inspection V and a suspension at V lost the earlier U, so the missing one is imputed once for
+ *    the whole bootstrap (imputeInspections), at a gap V − U drawn from the interval rows' widths,
+ *    each weighted by 1/(F̂(V) − F̂(U)) under the fitted model (an interval row is recorded with
+ *    probability F(V) − F(U), so wider gaps are over-represented among them; the weights undo that
+ *    — inverse-probability weighting, Horvitz & Thompson 1952, J. Amer. Statist. Assoc.
+ *    47:663-685); every replicate then sees the units through that one completed scheme, as the
+ *    data were seen through theirs. (Drawing the missing times afresh in every replicate was
+ *    measured too, commit 4ff4bef: 16 of 750 samples rejected, 2.1 %, still conservative — the
+ *    replicates then vary in their scheme as the data do not.) With no interval rows
+ *    (current-status data: one inspection per unit) every row already records its unit's only
+ *    inspection and is kept.
  * Exact rows: watched continuously up to the last time in the data, τ (T exact when T ≤ τ).
  * Inspection times are assumed independent of the lives in both.
  */
@@ -46,7 +51,7 @@ export interface InspectionScheme {
 export const COMMON_SCHEDULE_TEXT =
   'the rows fit one common inspection schedule (each interval between consecutive inspection times), so every unit is taken as inspected at every one of those times up to its end of follow-up (a suspension: its last inspection; a failed unit: the last inspection in the data)';
 export const OWN_TIMES_TEXT =
-  'each unit at its own inspection times (case-2 interval censoring): an interval row keeps both times; the inspection a left row or a suspension does not record is drawn at a gap taken from the interval rows’ widths, weighted by 1/(F̂(R) − F̂(L)) under the fitted model';
+  'each unit at its own inspection times (case-2 interval censoring): an interval row keeps both times; the inspection a left row or a suspension does not record is imputed once, at a gap drawn from the interval rows’ widths weighted by 1/(F̂(R) − F̂(L)) under the fitted model';
 export const CURRENT_STATUS_TEXT = 'each unit at its one recorded inspection (no interval rows: current-status data)';
 
 /** The sorted distinct finite end points > 0 of the censored rows (exact rows excluded). */
@@ -160,9 +165,30 @@ function seenAt(T: number, times: Float64Array, m: number): [number, number] {
 }
 
 /**
- * How a unit recorded as the row (L, R] of `kind` would have seen the lifetime T. `uniform` gives
- * the one extra uniform a case-2 left row or suspension needs for its missing inspection (called
- * only when that inspection decides what is seen). τ: the last time in the data.
+ * The missing inspection of each unit (units in row order, each row's count expanded), imputed once
+ * from `uniform`: a left row's later inspection R + gap, a suspension's earlier one L − gap (NaN when
+ * that is ≤ 0: no earlier inspection); NaN for every other unit and for current-status data.
+ */
+export function imputeInspections(scheme: InspectionScheme, data: IntervalLifeData, uniform: () => number): Float64Array {
+  const out = new Float64Array(data.n).fill(Number.NaN);
+  if (scheme.kind !== 'own-times' || scheme.gaps.length === 0) return out;
+  let k = 0;
+  for (let r = 0; r < data.lower.length; r++) {
+    const kind = data.kinds[r];
+    for (let c = 0; c < (data.counts[r] as number); c++, k++) {
+      if (kind === 'left') out[k] = (data.upper[r] as number) + drawGap(scheme, uniform());
+      else if (kind === 'right') {
+        const u = (data.lower[r] as number) - drawGap(scheme, uniform());
+        if (u > 0) out[k] = u;
+      }
+    }
+  }
+  return out;
+}
+
+/**
+ * How a unit recorded as the row (L, R] of `kind` would have seen the lifetime T. `extra`: its
+ * imputed inspection (imputeInspections; NaN for none). τ: the last time in the data.
  */
 export function observeUnit(
   scheme: InspectionScheme,
@@ -171,7 +197,7 @@ export function observeUnit(
   R: number,
   T: number,
   tau: number,
-  uniform: () => number,
+  extra: number,
 ): [number, number] {
   if (kind === 'exact') return T <= tau ? [T, T] : [tau, Number.POSITIVE_INFINITY];
   if (scheme.kind === 'common-schedule') {
@@ -179,17 +205,14 @@ export function observeUnit(
     const end = kind === 'right' ? indexOf(s, L) + 1 : s.length;
     return seenAt(T, s, end);
   }
-  const imputed = scheme.gaps.length > 0;
   if (kind === 'interval') return T <= L ? [0, L] : T <= R ? [L, R] : [R, Number.POSITIVE_INFINITY];
   if (kind === 'left') {
     if (T <= R) return [0, R];
-    if (!imputed) return [R, Number.POSITIVE_INFINITY];
-    const V = R + drawGap(scheme, uniform());
-    return T <= V ? [R, V] : [V, Number.POSITIVE_INFINITY];
+    if (Number.isNaN(extra)) return [R, Number.POSITIVE_INFINITY];
+    return T <= extra ? [R, extra] : [extra, Number.POSITIVE_INFINITY];
   }
-  // A suspension at L: its earlier inspection U = L − gap (none when ≤ 0).
+  // A suspension at L, with its earlier inspection `extra` when there was one.
   if (T > L) return [L, Number.POSITIVE_INFINITY];
-  if (!imputed) return [0, L];
-  const U = L - drawGap(scheme, uniform());
-  return U <= 0 || T <= U ? [0, U > 0 ? U : L] : [U, L];
+  if (Number.isNaN(extra)) return [0, L];
+  return T <= extra ? [0, extra] : [extra, L];
 }

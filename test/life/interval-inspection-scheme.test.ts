@@ -8,14 +8,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../../core/families/index.js';
-import { analyzeRecordedLife, fitsCommonSchedule, inspectionScheme, observeUnit, prepareIntervalLifeData } from '../../core/life/index.js';
+import { analyzeRecordedLife, fitsCommonSchedule, imputeInspections, inspectionScheme, observeUnit, prepareIntervalLifeData } from '../../core/life/index.js';
 import { sizeSample } from '../../scripts/life-interval-size.js';
 
 const INF = Number.POSITIVE_INFINITY;
 const weibull = getFamily('weibull').make({ shape: 2, scale: 100 });
-const never = () => {
-  throw new Error('no extra uniform expected here');
-};
+const none = Number.NaN;
 
 describe('common schedule', () => {
   // A fleet inspected every 25 h to 150 h: left (0, 25], consecutive intervals, suspensions at inspection times.
@@ -35,18 +33,18 @@ describe('common schedule', () => {
   it('a unit is seen at every schedule time up to its end of follow-up', () => {
     const s = inspectionScheme(fleet, weibull);
     // A failed unit (row (25, 50]) is followed to the last inspection, 150.
-    expect(observeUnit(s, 'interval', 25, 50, 60, 150, never)).toEqual([50, 75]);
-    expect(observeUnit(s, 'interval', 25, 50, 10, 150, never)).toEqual([0, 25]);
-    expect(observeUnit(s, 'left', 0, 25, 149, 150, never)).toEqual([125, 150]);
-    expect(observeUnit(s, 'interval', 25, 50, 151, 150, never)).toEqual([150, INF]);
+    expect(observeUnit(s, 'interval', 25, 50, 60, 150, none)).toEqual([50, 75]);
+    expect(observeUnit(s, 'interval', 25, 50, 10, 150, none)).toEqual([0, 25]);
+    expect(observeUnit(s, 'left', 0, 25, 149, 150, none)).toEqual([125, 150]);
+    expect(observeUnit(s, 'interval', 25, 50, 151, 150, none)).toEqual([150, INF]);
     // An inspection at exactly T finds it failed: (50, 75] for T = 75.
-    expect(observeUnit(s, 'interval', 25, 50, 75, 150, never)).toEqual([50, 75]);
+    expect(observeUnit(s, 'interval', 25, 50, 75, 150, none)).toEqual([50, 75]);
     // A suspension at 75 is inspected at 25, 50, 75 only.
-    expect(observeUnit(s, 'right', 75, INF, 60, 150, never)).toEqual([50, 75]);
-    expect(observeUnit(s, 'right', 75, INF, 80, 150, never)).toEqual([75, INF]);
+    expect(observeUnit(s, 'right', 75, INF, 60, 150, none)).toEqual([50, 75]);
+    expect(observeUnit(s, 'right', 75, INF, 80, 150, none)).toEqual([75, INF]);
     // Exact rows are watched continuously to τ.
-    expect(observeUnit(s, 'exact', 40, 40, 33, 150, never)).toEqual([33, 33]);
-    expect(observeUnit(s, 'exact', 40, 40, 160, 150, never)).toEqual([150, INF]);
+    expect(observeUnit(s, 'exact', 40, 40, 33, 150, none)).toEqual([33, 33]);
+    expect(observeUnit(s, 'exact', 40, 40, 160, 150, none)).toEqual([150, INF]);
   });
 
   it('the report names the scheme it used (goodness-of-fit method line)', () => {
@@ -77,27 +75,33 @@ describe('each unit at its own times (case 2)', () => {
   });
 
   it('an interval row keeps both times; a left row gets a later inspection and a suspension an earlier one', () => {
-    expect(observeUnit(s, 'interval', 20, 30, 25, 200, never)).toEqual([20, 30]);
-    expect(observeUnit(s, 'interval', 20, 30, 31, 200, never)).toEqual([30, INF]);
-    expect(observeUnit(s, 'left', 0, 50, 45, 200, never)).toEqual([0, 50]);
-    // T past the left row's end: the missing later inspection at 50 + gap; u = 0.999 draws the last gap, 40.
-    expect(observeUnit(s, 'left', 0, 50, 85, 200, () => 0.999)).toEqual([50, 90]);
-    expect(observeUnit(s, 'left', 0, 50, 95, 200, () => 0.999)).toEqual([90, INF]);
-    // u = 1e-9 draws the first gap, 10: the suspension at 70 was inspected at 60 too.
-    expect(observeUnit(s, 'right', 70, INF, 65, 200, () => 1e-9)).toEqual([60, 70]);
-    expect(observeUnit(s, 'right', 70, INF, 50, 200, () => 1e-9)).toEqual([0, 60]);
-    expect(observeUnit(s, 'right', 70, INF, 75, 200, never)).toEqual([70, INF]);
-    // A gap reaching back past 0: no earlier inspection (u = 1e-9 draws the first gap, 40, from a suspension at 30).
+    expect(observeUnit(s, 'interval', 20, 30, 25, 200, none)).toEqual([20, 30]);
+    expect(observeUnit(s, 'interval', 20, 30, 31, 200, none)).toEqual([30, INF]);
+    expect(observeUnit(s, 'left', 0, 50, 45, 200, none)).toEqual([0, 50]);
+    // Imputed once, in row order (left (0, 50], (20, 30], (40, 80], suspension at 70): u = 0.999 draws the
+    // last gap, 40, for the left row (later inspection 90); u = 1e-9 the first, 10, for the suspension (60).
+    const us = [0.999, 1e-9];
+    const extra = imputeInspections(s, data, () => us.shift()!);
+    expect(Array.from(extra)).toEqual([90, none, none, 60]);
+    expect(observeUnit(s, 'left', 0, 50, 85, 200, 90)).toEqual([50, 90]);
+    expect(observeUnit(s, 'left', 0, 50, 95, 200, 90)).toEqual([90, INF]);
+    expect(observeUnit(s, 'right', 70, INF, 65, 200, 60)).toEqual([60, 70]);
+    expect(observeUnit(s, 'right', 70, INF, 50, 200, 60)).toEqual([0, 60]);
+    expect(observeUnit(s, 'right', 70, INF, 75, 200, 60)).toEqual([70, INF]);
+    // A gap reaching back past 0: no earlier inspection (u = 1e-9 draws the first gap, 40, for a suspension at 30).
     const early = prepareIntervalLifeData({ start: [40, 50, 30], end: [80, 60, INF] });
-    expect(inspectionScheme(early, weibull).kind).toBe('own-times');
-    expect(observeUnit(inspectionScheme(early, weibull), 'right', 30, INF, 20, 200, () => 1e-9)).toEqual([0, 30]);
+    const se = inspectionScheme(early, weibull);
+    expect(se.kind).toBe('own-times');
+    expect(Array.from(imputeInspections(se, early, () => 1e-9))).toEqual([none, none, none]);
+    expect(observeUnit(se, 'right', 30, INF, 20, 200, none)).toEqual([0, 30]);
   });
 
   it('with no interval rows (current status) every row keeps its one inspection', () => {
     const cs = inspectionScheme(prepareIntervalLifeData({ start: [0, 60, 0], end: [40, INF, 90] }), weibull);
     expect(cs.kind).toBe('own-times');
     expect(cs.gaps.length).toBe(0);
-    expect(observeUnit(cs, 'left', 0, 90, 95, 200, never)).toEqual([90, INF]);
-    expect(observeUnit(cs, 'right', 60, INF, 10, 200, never)).toEqual([0, 60]);
+    expect(Array.from(imputeInspections(cs, prepareIntervalLifeData({ start: [0, 60, 0], end: [40, INF, 90] }), () => 0.5))).toEqual([none, none, none]);
+    expect(observeUnit(cs, 'left', 0, 90, 95, 200, none)).toEqual([90, INF]);
+    expect(observeUnit(cs, 'right', 60, INF, 10, 200, none)).toEqual([0, 60]);
   });
 });
