@@ -22,8 +22,9 @@ export interface RequestData {
   readonly status?: readonly (0 | 1)[];
   readonly subgroups?: readonly (string | number)[];
   readonly order?: readonly number[];
-  /** With `csv`: the status, subgroup and order columns. */
+  /** With `csv`: the status, subgroup and order columns, and the failure-mode column (with the status column). */
   readonly statusColumn?: string | number;
+  readonly modeColumn?: string | number;
   readonly subgroupColumn?: string | number;
   readonly orderColumn?: string | number;
   /** Class limits with counts instead of values (`null` = open class). */
@@ -52,7 +53,7 @@ export interface InputSummary {
   readonly header?: readonly string[];
   readonly warnings?: readonly string[];
   /** Workflow columns read from the CSV besides the value column. */
-  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order' | 'interval end' | 'count' | 'date'; readonly column: string }[];
+  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order' | 'interval end' | 'count' | 'date' | 'failure mode'; readonly column: string }[];
 }
 
 /** `POST /api/analyze` 200, and a done job's `result`: the report as `plumbline analyze --json` prints it. */

@@ -15,6 +15,7 @@ import {
   planDataset,
   prepareSample,
   readColumns,
+  readFailureModes,
   type AnalyzeResponse,
   type InputSummary,
   type ColumnRequest,
@@ -95,7 +96,7 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
     };
   }
   const requests: ColumnRequest[] = [{ select: req.column ?? 1, kind: 'number' }];
-  const roles: ('status' | 'subgroups' | 'order')[] = [];
+  const roles: ('status' | 'subgroups' | 'order' | 'failure mode')[] = [];
   if (wf.statusColumn !== undefined) {
     requests.push({ select: wf.statusColumn, kind: 'text' });
     roles.push('status');
@@ -108,11 +109,17 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
     requests.push({ select: wf.orderColumn, kind: 'number' });
     roles.push('order');
   }
+  if (req.modeColumn !== undefined) {
+    // Blank cells are kept: a unit that did not fail has no mode.
+    requests.push({ select: req.modeColumn, kind: 'text', keepBlank: true });
+    roles.push('failure mode');
+  }
   const t = readColumns(req.csv ?? '', requests, req.csvOptions);
   const value = t.columns[0] as NumberColumn;
   if (value.values.length === 0) throw new InputError(`Column ${JSON.stringify(value.column)} has no usable rows.`, { column: value.column }, 'too-few-values');
   const dataset: { -readonly [K in keyof DatasetInput]: DatasetInput[K] } = { values: value.values };
-  const otherColumns: { role: 'status' | 'subgroups' | 'order'; column: string }[] = [];
+  const otherColumns: { role: 'status' | 'subgroups' | 'order' | 'failure mode'; column: string }[] = [];
+  let modeTexts: TextColumn | null = null;
   roles.forEach((role, j) => {
     const col = t.columns[j + 1] as NumberColumn | TextColumn;
     if (col.index === value.index) throw new InputError(`The ${role} column ${JSON.stringify(col.column)} is the value column itself.`, { column: col.column }, 'bad-option');
@@ -129,9 +136,17 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
         st[i] = v;
       });
       dataset.status = st;
-    } else if (role === 'subgroups') dataset.subgroups = (col as TextColumn).texts;
+    } else if (role === 'failure mode') modeTexts = col as TextColumn;
+    else if (role === 'subgroups') dataset.subgroups = (col as TextColumn).texts;
     else dataset.order = (col as NumberColumn).values;
   });
+  const notes: string[] = [];
+  if (modeTexts !== null && dataset.status) {
+    const mc: TextColumn = modeTexts;
+    const read = readFailureModes(mc.texts, dataset.status, { row: (i) => t.rowNumbers[i] as number, cell: (i) => `Row ${t.rowNumbers[i] as number}`, column: mc.column });
+    dataset.modes = read.modes;
+    notes.push(...read.notes);
+  }
   const { columns: _c, rowNumbers: _r, ...summary } = t;
   return {
     dataset,
@@ -146,7 +161,7 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
       delimiter: summary.delimiter,
       delimiterDetected: summary.delimiterDetected,
       header: summary.header,
-      warnings: summary.warnings,
+      warnings: [...summary.warnings, ...notes],
       otherColumns,
     },
   };

@@ -37,6 +37,8 @@ export interface AnalyzeRequest {
   readonly countColumn?: string | number;
   /** A dated series (peaks over a threshold): the CSV's date column beside the value column. */
   readonly dateColumn?: string | number;
+  /** Several failure modes: the CSV's failure-mode column beside the times and the status column. */
+  readonly modeColumn?: string | number;
 }
 
 /** The extra data of a request: the status, subgroup and order columns (or their arrays), grouped counts. */
@@ -213,6 +215,7 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
     out.csv = body.csv;
     if (given.has('column')) out.column = given.get('column');
     if (given.has('dateColumn')) out.dateColumn = given.get('dateColumn');
+    if (given.has('modeColumn')) out.modeColumn = given.get('modeColumn');
     const interval = given.get('intervalColumns') as readonly (string | number)[] | undefined;
     if (interval !== undefined) {
       if (interval.length !== 2) throw badRequest(`"intervalColumns" takes two columns, START and END; got ${interval.length}.`, 'intervalColumns', 'bad-option');

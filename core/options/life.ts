@@ -75,10 +75,9 @@ export const LIFE_OPTIONS: readonly OptionSpec[] = [
     name: 'modeColumn',
     cli: '--mode-column',
     kind: 'column',
-    surfaces: ['cli'],
     default: null,
     appliesTo: ['life'],
-    help: "the failure-mode column: each mode is fitted with the other modes' failures as suspensions, and the system reliability is the product of the modes'",
+    help: "the failure-mode column (with the status column: every failed unit names its mode): each mode is fitted with the other modes' failures as suspensions, and the system reliability is the product of the modes'; on the API with \"csv\" only",
     group: 'life',
   },
   {

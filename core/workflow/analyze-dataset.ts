@@ -27,6 +27,9 @@ export type Route =
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
 export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
+  if (input.modes && !input.status) {
+    throw new InputError('A failure-mode column needs times with a status column (1 = failed, 0 = still running or removed unfailed).', {}, 'bad-option');
+  }
   if (input.interval) {
     if (input.values || input.status || input.grouped || input.subgroups || input.order) {
       throw new InputError('Interval rows come alone: no value, status, grouped, subgroup or order column with them.', {}, 'bad-option');
@@ -63,7 +66,8 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
     if (input.subgroups || input.order || options.trend) {
       throw new InputError('Subgroups and the trend check apply to a complete sample, not to life data with a status column.', {}, 'bad-option');
     }
-    return { kind: 'life', run: (gof) => lifeReport(values, status, options, settings, gof), times: values, status };
+    const modes = input.modes ?? null;
+    return { kind: 'life', run: (gof) => lifeReport(values, status, options, settings, gof, modes), times: values, status };
   }
   if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
     throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');

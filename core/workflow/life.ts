@@ -12,6 +12,7 @@ import { analyzeLife, recordedLifeExtras, CHI_SQUARE_NOT_APPLICABLE, LIFE_FAMILI
 import { RANKING_RULE, verdict } from '../rank.js';
 import type { AndersonDarlingReport, MethodNote, NotApplicableReport } from '../report.js';
 import { prepareSample } from '../sample.js';
+import { lifeModes } from './life-modes.js';
 import type { WorkflowSettings } from './options.js';
 import { quantityNumber, sensitivityRows } from './sensitivity.js';
 import type { DatasetCandidate, DatasetOptions, DatasetReport, LifeSection } from './types.js';
@@ -30,7 +31,14 @@ function summaryOf(times: ArrayLike<number>): DatasetReport['summary'] {
 }
 
 /** `goodnessOfFit`: where the censored bootstrap runs (default in-process; see core/workflow/pipeline.ts). */
-export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, options: DatasetOptions, settings: WorkflowSettings, goodnessOfFit?: CensoredGofHook): DatasetReport {
+export function lifeReport(
+  times: ArrayLike<number>,
+  status: ArrayLike<number>,
+  options: DatasetOptions,
+  settings: WorkflowSettings,
+  goodnessOfFit?: CensoredGofHook,
+  modes?: readonly (string | null)[] | null,
+): DatasetReport {
   if (settings.returnPeriods !== null) throw new InputError('Return periods need a complete sample of annual maxima, not life data with a status column.', {}, 'bad-option');
   if (settings.capability) throw new InputError('Capability needs a complete sample of measurements, not life data with a status column.', {}, 'bad-option');
   const families = (options.families ?? LIFE_FAMILIES) as readonly string[];
@@ -97,6 +105,7 @@ export function lifeReport(times: ArrayLike<number>, status: ArrayLike<number>, 
     chiSquare: life.chiSquare,
     warnings: life.warnings,
     cautions: life.cautions,
+    ...(modes ? { modes: lifeModes(times, status, modes, { families, bLifePercents, reliabilityTimes: settings.reliabilityTimes, confidence: settings.confidence, boundMethod }) } : {}),
     ...withRecorded(recordedLifeExtras({ times: Array.from(times), failed: Array.from(status) }, { ...options, bLifePercents, reliabilityTimes: settings.reliabilityTimes, confidence: settings.confidence })),
   };
   const sensitivity = sensitivityRows(candidates, [

@@ -11,7 +11,7 @@ import type { CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../ca
 import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
-import type { BoundMethod, IntervalLifeInput, LifeCurves, LifeSampleSummary, PlotPositionMethod, RecordedLifeExtras } from '../life/index.js';
+import type { BoundMethod, CompetingModesReport, IntervalLifeInput, LifeCurves, LifeSampleSummary, PlotPositionMethod, RecordedLifeExtras } from '../life/index.js';
 import type { AnalyzeOptions } from '../analyze.js';
 import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNote, NotApplicableReport } from '../report.js';
 import type { TrendResult } from '../trend/index.js';
@@ -32,6 +32,11 @@ export interface DatasetInput {
   readonly order?: ArrayLike<number> | null;
   /** Grouped counts: contiguous ascending classes (first lower may be -Infinity, last upper +Infinity). */
   readonly grouped?: readonly GroupedClass[] | null;
+  /**
+   * The failure mode of each unit (with values + status only; read by core/workflow/life-modes.ts
+   * readFailureModes): every failed unit names its mode, the others' cells are ignored.
+   */
+  readonly modes?: readonly (string | null)[] | null;
   /** Life data as recorded at inspections: interval rows (start, end, optional counts); they come alone (core/workflow/life-interval.ts). */
   readonly interval?: IntervalLifeInput | null;
   /** A dated series (peaks over a threshold): the day of each value, days since 1970-01-01 (core/workflow/flood-pot.ts); values and dates come alone. */
@@ -154,6 +159,12 @@ export interface LifeSection extends LifeSampleSummary {
   readonly reliabilityTimes: readonly number[];
   /** Fitted curves per candidate on one log-spaced time grid (cdf, reliability, hazard, plot scales). */
   readonly curves: readonly ({ readonly family: FamilyName } & LifeCurves)[];
+  /**
+   * Several failure modes (a failure-mode column): each mode fitted with the other modes' failures
+   * as suspensions, the system reliability the product of the modes' (core/life analyzeModes, as
+   * the CLI's --mode-column gives it in `life.modes`).
+   */
+  readonly modes?: CompetingModesReport;
   /** The recorded-life methods (mixture, Turnbull, Weibayes, rank regression, test plan; core/life recordedLifeExtras), when run. */
   readonly recorded?: RecordedLifeExtras;
 }
