@@ -26,11 +26,12 @@ import { NORMAL_SKEW, Pearson3Distribution } from '../core/families/index.js';
 import { createRng, type Rng } from '../core/random/index.js';
 import { normalIsf } from '../core/special/index.js';
 
-const SEED = 20261205;
-const R = Number(process.argv[2] ?? 2000);
+import { pathToFileURL } from 'node:url';
+
+export const SEED = 20261205;
 const CONFIDENCE = 0.9;
 
-interface Case {
+export interface Case {
   readonly label: string;
   readonly skew: number;
   readonly systematic: number;
@@ -41,7 +42,7 @@ interface Case {
   readonly lowCensor?: number;
 }
 
-const CASES: Case[] = [
+export const CASES: Case[] = [
   { label: 'normal, zero skew held, n = 20, T = 100 (exact case)', skew: 0, systematic: 20, period: 100, regional: 'held' },
   { label: 'systematic n = 20, skew 0, T = 100', skew: 0, systematic: 20, period: 100 },
   { label: 'systematic n = 30, skew 0.3, T = 100', skew: 0.3, systematic: 30, period: 100 },
@@ -60,7 +61,7 @@ function draw(rng: Rng, skew: number): number {
   return (skew / 2) * (rng.gamma(alpha) - alpha);
 }
 
-function runCase(c: Case, index: number): Record<string, unknown> {
+export function runCase(c: Case, index: number, R: number): Record<string, number | string> {
   const rng = createRng(SEED, index);
   const pop = new Pearson3Distribution(0, 1, c.skew);
   const truth = pop.isf(1 / c.period);
@@ -134,11 +135,16 @@ function runCase(c: Case, index: number): Record<string, unknown> {
     meanEquivalentYears: nqSum / used,
     monteCarloSe: Math.sqrt((CONFIDENCE * (1 - CONFIDENCE)) / used),
   };
-  process.stderr.write(`${c.label}: ${(100 * row.coverage).toFixed(1)} % (below ${(100 * row.truthBelowLower).toFixed(1)}, above ${(100 * row.truthAboveUpper).toFixed(1)}), Wald ${(100 * row.waldCoverage).toFixed(1)} %\n`);
+  if (!quiet) process.stderr.write(`${c.label}: ${(100 * row.coverage).toFixed(1)} % (below ${(100 * row.truthBelowLower).toFixed(1)}, above ${(100 * row.truthAboveUpper).toFixed(1)}), Wald ${(100 * row.waldCoverage).toFixed(1)} %\n`);
   return row;
 }
 
-const rows = CASES.map(runCase);
-process.stdout.write(
-  `${JSON.stringify({ generator: 'scripts/flood-ema-ci-coverage.ts', seed: SEED, recordsPerCase: R, confidence: CONFIDENCE, cases: rows }, null, 1)}\n`,
-);
+let quiet = true;
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  quiet = false;
+  const R = Number(process.argv[2] ?? 2000);
+  const rows = CASES.map((c, i) => runCase(c, i, R));
+  process.stdout.write(
+    `${JSON.stringify({ generator: 'scripts/flood-ema-ci-coverage.ts', seed: SEED, recordsPerCase: R, confidence: CONFIDENCE, cases: rows }, null, 1)}\n`,
+  );
+}

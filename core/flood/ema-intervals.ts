@@ -17,7 +17,15 @@
  * With zero skew held (regional skew of negligible MSE) and no censoring, v = (1 + K²/2)/n, n_q = n
  * and the limits are the exact noncentral-t ones (test/flood/ema-intervals.test.ts against SciPy's
  * `nct`). Elsewhere it is an approximation whose coverage was measured in a seeded simulation
- * (scripts/flood-ema-ci-coverage.ts; numbers in docs and in that script's header).
+ * (scripts/flood-ema-ci-coverage.ts → test/fixtures/flood-ema-ci-coverage.json; 2000 records a
+ * case, Monte Carlo s.e. 0.67 points; nominal 90 %, T = 100 unless said):
+ *   exact case (zero skew held, n = 20) 89.3 %; systematic n = 20 skew 0: 96.2 % (the asymptotic
+ *   skew variance overstates a 20-year record's); n = 30 skew 0.3: 92.2 %; n = 60 skew 0.3: 90.5 %,
+ *   skew −0.3: 94.4 %, skew 0.6: 90.5 %; n = 60 skew 0 T = 10: 89.1 %; regional skew drawn with
+ *   MSE 0.12, n = 30: 89.8 %; 40 systematic + 100 historical years (threshold at the 0.95
+ *   quantile): 90.1 %; n = 50 censored below the 0.10 quantile, skew −0.2: 86.4 % (11.7 % of true
+ *   quantiles above the upper limit). The plain normal interval on the same variance covered
+ *   83.2–92.8 % in the same cases.
  */
 import { Pearson3Distribution } from '../families/index.js';
 import { emaCovariance, emaQuantileVariance, effectiveRecordLength, type EmaDesign } from './ema-covariance.js';

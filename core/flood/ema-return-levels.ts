@@ -8,8 +8,8 @@
  * Cohn, Lane & Stedinger (2001), with censored and historical years, the skew's and the regional
  * skew's uncertainty, and noncentral-t limits at the equivalent record length (exact for a normal
  * population with the skew held and no censoring). Measured coverage of the nominal 90 % interval
- * (scripts/flood-ema-ci-coverage.ts, seeded, test/fixtures/flood-ema-ci-coverage.json) is in that script's
- * output and in docs/report-fields.md.
+ * (scripts/flood-ema-ci-coverage.ts, seeded, test/fixtures/flood-ema-ci-coverage.json): 86.4–96.2 %
+ * over ten cases, 89.3 % in the exact case; the figures are in ema-intervals.ts.
  *
  * Beside it, when an rng is given, a parametric bootstrap of the whole estimator (common practice,
  * no source for this particular scheme): each replicate draws a record of the same shape from the

@@ -17,16 +17,16 @@
  * small-sample bias factors of s and g do not enter at first order. (Kendall & Stuart's
  * large-sample covariances of moments [from memory]; the same first-order approach underlies
  * the variance of EMA quantiles of Cohn, Lane & Stedinger 2001, WRR 37(6):1695-1706, which also
- * covers censored years — not implemented here.)
+ * covers censored years — derived for censored records in ema-covariance.ts.)
  *
  * The interval is ŷ_p ± z_{(1+c)/2} √Var on log10 Q, then 10^(·): a normal approximation, not
- * Bulletin 17C's interval construction. It is NOT used for the report's EMA intervals: in the seeded
- * coverage check scripts/flood-ema-coverage.py (1000 records per case) its nominal 90 % interval of
- * the 100-year quantile covered 98.1 % (skew +0.3, n = 60), 99.9 % (skew −0.3, n = 60) and 98.2 %
- * (skew +0.3, n = 30) — the first-order variance of the skew overstates its spread in short records —
- * against 87.4 %, 90.4 % and 85.0 % for the parametric-bootstrap percentile interval that the
- * report uses (ema-return-levels.ts); at T = 10, skew 0, n = 60 both were near nominal (90.4 %,
- * 86.8 %). Kept as the checked first-order variance, the starting point of an interval method. test/flood/ema-variance.test.ts checks the variance
+ * the report's EMA interval (ema-intervals.ts, which uses this variance — through the general
+ * censored-record covariance of ema-covariance.ts, equal to this one without censoring — with
+ * noncentral-t limits). Measured coverage of this normal interval at nominal 90 %, T = 100
+ * (scripts/flood-ema-ci-coverage.ts, 2000 records a case): 87.5 % (skew +0.3, n = 30), 89.2 %
+ * (+0.3, n = 60), 92.8 % (−0.3, n = 60), 90.5 % (0, n = 20). (Earlier figures of 98–100 % from
+ * scripts/flood-ema-coverage.py came from a wrong Richardson factor there, 8 for 4, which made
+ * ∂K/∂γ 2.3 times too large; fixed.) test/flood/ema-variance.test.ts checks the variance
  * against an independent SciPy computation (raw moments from `pearson3.moment`) and against a
  * seeded SciPy simulation of the estimator (scripts/fixtures/flood-ema-variance.py).
  */
