@@ -15,7 +15,8 @@ export type { DemoEntry, DemoSettings };
  * B10 (the usual bearing rating life), reliability at 1000 h; the river's years, common design
  * return periods including one far beyond the 60-year record; the shaft's drawing tolerance
  * 25 ± 0.010 mm (an invented tolerance) with its subgroups of five; the inspection tally is read as
- * class limits with counts (the page recognises the lower, upper and count columns; no request fields).
+ * class limits with counts (the page recognises the lower, upper and count columns; no request fields);
+ * the seal test opens with its status and failure-mode columns, so it is read as two competing modes.
  */
 export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
   'bearing-life': {
@@ -37,6 +38,11 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
     column: 'flow_m3s',
     fields: { dateColumn: 'date', threshold: 140, minSeparation: 5, returnPeriods: [2, 10, 50, 100], confidence: 0.9 },
     description: 'column flow_m3s by date column date: peaks over a threshold of 140 m³/s, events at least 5 days apart; return periods 2, 10, 50, 100 years; 90 % intervals',
+  },
+  'seal-failure-modes': {
+    column: 'hours',
+    fields: { statusColumn: 'status', modeColumn: 'mode', bLifePercents: [10, 50], confidence: 0.9 },
+    description: 'column hours; status column status (1 = failed, 0 = removed unfailed); failure-mode column mode (leak or crack): each mode fitted with the other as suspensions, the seal as the earlier of the two; B10 and B50 lives per mode and for the seal; two-sided 90 % bounds',
   },
   'pump-seal-wear': {
     column: 'wear_um',

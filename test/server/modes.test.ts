@@ -10,6 +10,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
 import { runRecordedLife } from '../../cli/life-recorded.js';
 import { readFailureModes } from '../../core/index.js';
+import { DEMO_SETTINGS } from '../../server/demo.js';
 import { readFixture } from '../helpers/fixtures.js';
 import { testApp } from './helpers.js';
 
@@ -61,6 +62,15 @@ describe('failure modes through the API', () => {
       ['crack', 17, 103],
       ['leak', 32, 88],
     ]);
+  });
+
+  it('the demo opens analysed by modes: its settings (server/demo.ts) give life.modes with both modes and the system', async () => {
+    const d = DEMO_SETTINGS['seal-failure-modes']!;
+    expect(d.fields).toEqual({ statusColumn: 'status', modeColumn: 'mode', bLifePercents: [10, 50], confidence: 0.9 });
+    const res = await request(app).post('/api/analyze').send({ csv: seal, column: d.column, ...d.fields, replicates: 19 });
+    expect(res.status).toBe(200);
+    expect(res.body.life.modes.modes.map((m: ModeJson) => m.mode)).toEqual(['crack', 'leak']);
+    expect(rel(res.body.life.modes.system.bLives[0].estimate, fx.systemBest.b10)).toBeLessThan(1e-7);
   });
 
   it('per-mode fits with the other modes as suspensions equal SciPy CensoredData refined tightly (parameters 1e-8, ln L 1e-9 relative), and so do the B-lives and the system (1e-7)', async () => {
