@@ -17,6 +17,7 @@
  */
 import { CompensatedSum } from '../compensated.js';
 import { InputError } from '../errors.js';
+import { formatNumber } from '../format/index.js';
 import { LOG, IDENTITY, maximize, profileInterval } from '../optimize/index.js';
 import { sampleLMoments } from '../lmoments/sample-lmoments.js';
 
@@ -139,7 +140,7 @@ export interface PotOptions {
 
 export function peaksOverThreshold(times: ArrayLike<number>, values: ArrayLike<number>, opts: PotOptions): PotResult {
   const clusters = declusterRuns(times, values, opts.threshold, opts.minSeparation);
-  if (clusters.length < 5) throw new InputError(`only ${clusters.length} cluster peaks above the threshold ${opts.threshold}; a GPD fit needs at least 5 (lower the threshold)`, {}, 'too-few-values');
+  if (clusters.length < 5) throw new InputError(`only ${clusters.length} cluster peaks above the threshold ${formatNumber(opts.threshold)}; a GPD fit needs at least 5 (lower the threshold)`, { value: String(opts.threshold) }, 'too-few-values');
   let tmin = Infinity;
   let tmax = -Infinity;
   for (let i = 0; i < times.length; i++) {

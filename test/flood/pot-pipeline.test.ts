@@ -122,3 +122,17 @@ describe('peaks over a threshold through the API', () => {
     expect(() => analyzeDataset({ values: FIX.values }, { threshold: 25 })).toThrow(/date column/);
   });
 });
+
+describe('work limit of a dated series', () => {
+  it(`more than POT_MAX_VALUES values (200 000, ~550 years of daily values) are refused before any work, with a message asking for daily maxima`, async () => {
+    const { POT_MAX_VALUES, potSection } = await import('../../core/workflow/flood-pot.js');
+    expect(POT_MAX_VALUES).toBe(200_000);
+    const n = POT_MAX_VALUES + 1;
+    const days = Float64Array.from({ length: n }, (_, i) => i);
+    const values = Float64Array.from({ length: n }, (_, i) => 50 + (i % 97));
+    const t0 = process.cpuUsage();
+    expect(() => potSection(days, values, { threshold: 120, confidence: 0.9 })).toThrow(/at most 200000 values .*this one has 200001\. Reduce it to one value a day/);
+    const used = process.cpuUsage(t0);
+    expect((used.user + used.system) / 1e6).toBeLessThan(0.2);
+  });
+});
