@@ -5,6 +5,8 @@ standardized Pearson III samples: (a) the normal interval with the first-order v
 (core/flood/ema-variance.ts), (b) the parametric-bootstrap percentile interval
 (core/flood/ema-return-levels.ts: B records drawn from the fitted model, refitted by moments).
 Run: python3 scripts/flood-ema-coverage.py  (prints one line per case; takes about a minute)
+Output (2026-12-05, after the Richardson fix): delta 0.886 / 0.934 / 0.874 / 0.877, bootstrap 0.874 / 0.904 /
+0.850 / 0.868 for the four cases below in order.
 """
 import math
 import numpy as np
