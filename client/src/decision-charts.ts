@@ -5,6 +5,7 @@ import { controlChart } from '../charts/control-chart.js';
 import { hazardChart } from '../charts/hazard.js';
 import { lifeProbabilityChart, type LifeScale } from '../charts/life-probability.js';
 import { lmomentDiagramChart } from '../charts/lmoment-diagram.js';
+import { modesReliabilityChart } from '../charts/modes-reliability.js';
 import type { ChartOptions } from '../charts/options.js';
 import { returnPeriodChart } from '../charts/return-period.js';
 import { thresholdMeanExcessChart } from '../charts/threshold-mean-excess.js';
@@ -57,6 +58,9 @@ export function drawSlot(slot: ChartSlot, box: Element, ctx: SlotContext, option
       return r.pot && r.pot.diagnostics.length > 0 ? thresholdMeanExcessChart(box, { diagnostics: r.pot.diagnostics, chosen: r.pot.threshold }, options) : null;
     case 'threshold-stability':
       return r.pot && r.pot.diagnostics.some((d) => d.shape !== null) ? thresholdStabilityChart(box, { diagnostics: r.pot.diagnostics, chosen: r.pot.threshold }, options) : null;
+    case 'modes-reliability':
+      // Several failure modes: each mode's reliability and the whole unit's (core/life analyzeModes system.curve).
+      return r.life?.modes ? modesReliabilityChart(box, { modes: r.life.modes }, options) : null;
     case 'capability-histogram': {
       const ev = r.evidence;
       const ce = ev?.candidates.find((c) => c.family === selected);

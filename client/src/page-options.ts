@@ -94,6 +94,7 @@ const WORDS: Readonly<Record<string, Words>> = {
   threshold: { label: 'Peaks over a threshold of', placeholder: 'none', secondary: true },
   minSeparation: { label: 'Days between independent peaks', secondary: true },
   dateColumn: { label: 'Date column (peaks over a threshold)', id: 'date-select', placeholder: 'none' },
+  modeColumn: { label: 'Failure-mode column', id: 'mode-select', placeholder: 'none (one failure mode)', hint: 'With the failed / still-running column: the mode of each failed unit (e.g. leak, crack). Each mode is fitted on its own and the whole unit’s life is the earlier of its modes.' },
 };
 
 /** The data card reads the file itself; the page sets the plot-data settings; many series have their own page. */

@@ -9,6 +9,7 @@ import { chiSquareDecidingP } from '../candidate-cells.js';
 import { capital } from '../families.js';
 import { pValue, sig } from '../format.js';
 import { end, pct, withU } from './numbers.js';
+import { modesAnswer } from './answer-modes.js';
 import { testWords } from './test-words.js';
 
 export interface Answer {
@@ -79,6 +80,9 @@ function capabilitySentence(cap: Capability, ppk: Capability['overall'][number],
 }
 
 export function answerFor(r: DatasetReport, selected: string | null, units: string): Answer | null {
+  // With a failure-mode column the answer is the whole unit's life from the modes (answer-modes.ts), not a fit that mixes them.
+  const byModes = modesAnswer(r, units);
+  if (byModes) return byModes;
   const c = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
   if (!c) return null;
   const s = sentenceFor(r, c, units.trim());

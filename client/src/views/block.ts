@@ -9,7 +9,7 @@ import { escapeHtml as e } from '../escape.js';
 import { el } from '../dom.js';
 import { GLOSSARY } from './glossary.js';
 
-export type ChartSlot = 'life-probability' | 'hazard' | 'return-period' | 'capability-histogram' | 'control-chart' | 'range-chart' | 'turnbull' | 'lmoment-diagram' | 'ema-return-period' | 'threshold-mean-excess' | 'threshold-stability';
+export type ChartSlot = 'life-probability' | 'hazard' | 'return-period' | 'capability-histogram' | 'control-chart' | 'range-chart' | 'turnbull' | 'lmoment-diagram' | 'ema-return-period' | 'threshold-mean-excess' | 'threshold-stability' | 'modes-reliability';
 
 export interface BlockTable {
   readonly caption: string;

@@ -11,11 +11,13 @@ import { floodEstimatorsSection } from './flood-estimators.js';
 import { floodPotSection } from './flood-pot.js';
 import { lifeSection } from './life.js';
 import { lifeRecordedSection } from './life-recorded.js';
+import { modesSection } from './modes.js';
 import { sensitivitySection } from './sensitivity.js';
 import { trendSection } from './trend.js';
 
 export const SECTIONS: readonly { readonly key: string; readonly view: SectionView }[] = [
   { key: 'life', view: lifeSection },
+  { key: 'modes', view: modesSection },
   { key: 'life-recorded', view: lifeRecordedSection },
   { key: 'flood', view: floodSection },
   { key: 'flood-estimators', view: floodEstimatorsSection },

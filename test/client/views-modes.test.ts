@@ -1,0 +1,112 @@
+/**
+ * The failure-modes section (client/src/views/modes.ts), its answer (views/answer-modes.ts through
+ * answerFor) and its block in the exported report, from the core's real report on the invented seal
+ * demo (datasets/README.md: 32 leaks, 17 cracks, 71 removed). The numbers shown must be the report's
+ * (checked against SciPy in test/server/modes.test.ts with test/fixtures/life-modes.json), printed
+ * by the one formatter; the answer must never quote a candidate fitted to all failures alike.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { analyzeDataset, readColumns, readFailureModes, type DatasetReport, type NumberColumn, type TextColumn } from '../../core/index.js';
+import { blockHtml } from '../../client/src/views/block.js';
+import { answerFor } from '../../client/src/views/answer.js';
+import { firstToReach, modesSection } from '../../client/src/views/modes.js';
+import { sectionBlocks } from '../../client/src/views/sections.js';
+import { sig } from '../../client/src/format.js';
+import { readFixture } from '../helpers/fixtures.js';
+
+// Fixture: scripts/fixtures/life-modes.py (SciPy per-mode fits; system quantiles by brentq).
+const fx = readFixture('life-modes.json');
+const t = readColumns(readFileSync(join(process.cwd(), 'datasets', 'seal-failure-modes.csv'), 'utf8'), [
+  { select: 'hours', kind: 'number' },
+  { select: 'status', kind: 'text' },
+  { select: 'mode', kind: 'text', keepBlank: true },
+]);
+const status = (t.columns[1] as TextColumn).texts.map(Number);
+const modes = readFailureModes((t.columns[2] as TextColumn).texts, status, { row: (i) => i + 2, cell: (i) => `Row ${i + 2}`, column: 'mode' }).modes;
+const input = { values: (t.columns[0] as NumberColumn).values, status, modes };
+const REPORT = analyzeDataset(input, { bLifePercents: [10, 50], reliabilityTimes: [3000], bootstrapReplicates: 19, seed: 1 }) as DatasetReport;
+const PLAIN = analyzeDataset({ values: input.values, status }, { bLifePercents: [10, 50], bootstrapReplicates: 19, seed: 1 }) as DatasetReport;
+const block = modesSection({ report: REPORT, selected: undefined, units: 'h' })!;
+const m = REPORT.life!.modes!;
+
+describe('the failure-modes section', () => {
+  it('is in the registry right after the life section, and absent without a mode column', () => {
+    const ids = sectionBlocks({ report: REPORT, selected: undefined, units: 'h' }).map((b) => b.id);
+    expect(ids.indexOf('modes')).toBe(ids.indexOf('life') + 1);
+    expect(modesSection({ report: PLAIN, selected: undefined, units: 'h' })).toBeNull();
+  });
+
+  it('says which mode comes first at each percent: crack at 10 % (3930 vs 4219 h), leak at 50 % (9002 vs 25855 h) — the SciPy fixture orders them the same way', () => {
+    const crack = fx.modes.find((x: { mode: string }) => x.mode === 'crack').families;
+    const leak = fx.modes.find((x: { mode: string }) => x.mode === 'leak').families;
+    expect(crack.exponential.b10).toBeLessThan(leak.lognormal.b10);
+    expect(leak.lognormal.b50).toBeLessThan(crack.exponential.b50);
+    expect(firstToReach(m, 0)!.first.mode).toBe('crack');
+    expect(firstToReach(m, 1)!.first.mode).toBe('leak');
+    const text = block.lines.map((l) => l.text).join('\n');
+    expect(text).toContain(`At 10 % failed the crack mode comes first: B10 ${sig(m.modes[0]!.bLives[0]!.estimate)} h, against ${sig(m.modes[1]!.bLives[0]!.estimate)} h for leak.`);
+    expect(text).toContain('At 50 % failed the leak mode comes first');
+  });
+
+  it('tables each mode’s B-lives with their bounds and the whole unit’s as point values, naming the bound method and level', () => {
+    const table = block.tables[0]!;
+    expect(table.caption).toMatch(/90 % two-sided likelihood-ratio \(profile likelihood\) bounds per mode; the whole unit's B-lives are point estimates/);
+    const crack10 = m.modes[0]!.bLives[0]!;
+    expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper)]);
+    const unit = table.rows.find((r) => r[0] === 'whole unit: B10')!;
+    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), 'no bound', 'no bound']);
+    // The whole unit's B10 is the fixture's (SciPy brentq on the product of the mode reliabilities), to the digits shown.
+    expect(unit[3]).toBe(sig(fx.systemBest.b10));
+    const rel = block.tables.find((x) => x.caption.startsWith('Reliability at the times'))!;
+    expect(rel.rows[0]![0]).toBe('R(3000)');
+    expect(rel.rows[0]!.at(-1)).toBe(sig(fx.systemBest.reliabilityAt3000, 4));
+  });
+
+  it('carries the modes’ cautions and defers a maintenance or safety decision to its governing practice; draws the reliability chart', () => {
+    const cautions = block.lines.filter((l) => l.kind === 'caution').map((l) => l.text);
+    expect(cautions).toEqual(expect.arrayContaining([...m.cautions]));
+    expect(cautions.some((c) => /governing maintenance and safety practice/.test(c) && /licensed review/.test(c))).toBe(true);
+    expect(block.charts).toEqual(['modes-reliability']);
+  });
+
+  it('is printed in the exported report (escaped HTML with the same rows)', () => {
+    const html = blockHtml(block, () => '<svg></svg>');
+    expect(html).toContain('data-block="modes"');
+    expect(html).toContain('Failure modes: which one limits life');
+    expect(html).toContain(`<th>whole unit: B10</th><td class="num">product of the modes</td>`);
+    expect(html).toContain('<figure><svg></svg></figure>');
+  });
+});
+
+describe('the answer with a failure-mode column', () => {
+  it('states the whole unit’s B10 with each mode’s B10 under its own model and bounds, and the limiting mode', () => {
+    const a = answerFor(REPORT, null, 'h')!;
+    const [crack, leak] = m.modes;
+    const b = (x: typeof crack) => x!.bLives[0]!;
+    expect(a.sentence).toBe(
+      `B10 life of the whole unit: ${sig(m.system!.bLives[0]!.estimate)} h (point estimate, the 2 failure modes together), from crack ${sig(b(crack).estimate)} h (Exponential; 90 % bounds ${sig(b(crack).lower)} to ${sig(b(crack).upper)}); leak ${sig(b(leak).estimate)} h (Lognormal; 90 % bounds ${sig(b(leak).lower)} to ${sig(b(leak).upper)}). The crack mode limits life at 10 % failed.`,
+    );
+    expect(a.cautions).toEqual(expect.arrayContaining([...m.cautions]));
+  });
+
+  it('never quotes a number of the models fitted to all failures alike, whichever is selected', () => {
+    for (const c of REPORT.candidates) {
+      const a = answerFor(REPORT, c.family, 'h')!;
+      for (const b of c.bLives ?? []) expect(a.sentence).not.toContain(sig(b.estimate));
+    }
+    // Without the mode column the same data get the pooled answer.
+    expect(answerFor(PLAIN, 'weibull', 'h')!.sentence).toMatch(/^B10 life under Weibull/);
+  });
+
+  it('when a mode could not be fitted there is no whole-unit number, and it says which mode', () => {
+    const broken = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: null, modes: m.modes.map((x, i) => (i === 0 ? { ...x, family: null, parameters: null, bLives: [], reliability: [] } : x)) } } } as DatasetReport;
+    const a = answerFor(broken, null, 'h')!;
+    expect(a.sentence).toBe('No life for the whole unit: a failure mode could not be fitted (crack); see “Failure modes”.');
+    expect(a.undermined).toBe(true);
+    const blk = modesSection({ report: broken, selected: undefined, units: 'h' })!;
+    expect(blk.charts).toEqual([]);
+    expect(blk.tables[0]!.rows.some((r) => r[0] === 'crack' && r[1] === 'not fitted')).toBe(true);
+  });
+});
