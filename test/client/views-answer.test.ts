@@ -88,6 +88,27 @@ describe('the answer', () => {
     expect(n.sentence).toMatch(/under the normal model; .* ppm out of tolerance under Normal\.$/);
   });
 
+  it('every model rejected (shaft-diameter demo): no spread is drawn from rejected models, in the answer or in "what would change it"; the capability table names models and tests in words', () => {
+    // Issue 14 item 4: rejected models never enter the spread (the 999,700 ppm exponential gave "463×").
+    const shaft = read('shaft-diameter.csv', ['diameter_mm', 'subgroup']);
+    const r = analyzeDataset(
+      { values: (shaft.columns[0] as NumberColumn).values, subgroups: [...(shaft.columns[1] as NumberColumn).values] },
+      { lsl: 24.99, usl: 25.01, target: 25, confidence: 0.9, seed: 1 },
+    ) as DatasetReport;
+    expect(r.candidates.every((c) => c.rejectedBy.length > 0), 'the demo rejects every model').toBe(true);
+    for (const c of r.candidates) expect(answerFor(r, c.family, 'mm')!.cautions.join(' ')).not.toMatch(/runs from|factor of/);
+    const c = r.candidates[0]!;
+    const blocks = sectionBlocks({ report: r, selected: { ...c, label: modelLabel(c.family) }, units: 'mm' });
+    const sens = blocks.find((b) => b.id === 'sensitivity')!;
+    expect(sens.lines.map((l) => l.text).join(' ')).not.toMatch(/factor of|across \d+ models/);
+    expect(sens.lines[0]!.text).toMatch(/^No model passes every test, so no spread is drawn/);
+    const capBlock = blocks.find((b) => b.id === 'capability')!;
+    const cells = capBlock.tables.flatMap((t) => t.rows.flat()).join(' | ');
+    expect(cells).not.toMatch(/anderson-darling|chi-square, /);
+    expect(cells).toMatch(/Anderson–Darling/);
+    expect(cells).not.toMatch(/(^| \| )(normal|lognormal|gamma|exponential) \|/);
+  });
+
   it('no decision number asked for: no answer', () => {
     const plain = analyzeDataset({ values: (rv.columns[0] as NumberColumn).values }, { families: ['gumbel'], seed: 1 }) as DatasetReport;
     expect(answerFor(plain, 'gumbel', '')).toBeNull();

@@ -111,9 +111,10 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   const own = (section?.warnings ?? []).filter((w) => !others.some((l) => w.startsWith(`${l}:`)) && !w.startsWith(`${c.label}:`) && !w.startsWith(`${label}:`) && !/^Every candidate is rejected/.test(w));
   const rl = c.returnLevels?.[c.returnLevels.length - 1];
   if (r.flood && rl?.beyondRecord && !own.some((w) => /record/.test(w))) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
-  const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity) : undefined;
+  // A spread is drawn only across models no test rejects: across rejected ones it says nothing (the rejection is said above).
+  const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity && x.basis === 'passing') : undefined;
   let change = '';
-  const which = row?.basis === 'passing' ? 'models no test rejects' : 'models tried';
+  const which = 'models no test rejects';
   if (row && row.values.length > 1 && row.min > 0 && row.max / row.min >= 1.25) {
     cautions.push(`Across the ${which} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see “What would change the answer”.`);
   } else if (row && row.values.length > 1) {

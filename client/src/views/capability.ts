@@ -6,7 +6,9 @@
  * Every number names its model and the spread it uses. Pure: report in, block out.
  */
 import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
+import { capital, modelLabel } from '../families.js';
 import { sig } from '../format.js';
+import { testNames } from './test-words.js';
 import type { BlockLine, BlockTable, SectionView } from './block.js';
 import { pct } from './numbers.js';
 
@@ -40,11 +42,11 @@ function headroom(cap: Cap, row: ComparisonRow | null, u: string): BlockLine[] {
   if (row?.kind === 'transformation' && t && t.kind !== 'none') {
     lo = t.percentile.lowerQuantile;
     hi = t.percentile.upperQuantile;
-    basis = `under ${row.model}`;
+    basis = `under ${modelName(row)}`;
   } else if (row?.kind !== 'normal' && cap.percentile) {
     lo = cap.percentile.lowerQuantile;
     hi = cap.percentile.upperQuantile;
-    basis = `under ${cap.percentile.family}${row ? '' : ' (rejected by a test, as every model is here)'}`;
+    basis = `under ${capital(modelLabel(cap.percentile.family))}${row ? '' : ' (rejected by a test, as every model is here)'}`;
   } else if (!row) basis += ' (rejected by a test, as every model is here)';
   const lines: BlockLine[] = [];
   const unit = u ? ` ${u}` : '';
@@ -59,11 +61,16 @@ function headroom(cap: Cap, row: ComparisonRow | null, u: string): BlockLine[] {
   return lines;
 }
 
+/** A model's one label with its one case (as everywhere on the page); a transformation row keeps its own words. */
+function modelName(row: ComparisonRow): string {
+  return row.kind === 'transformation' ? row.model : capital(row.model);
+}
+
 function comparisonRows(rows: readonly ComparisonRow[]): string[][] {
   return rows.map((r) => {
     const ppk = r.indices.find((i) => i.name === 'Ppk');
     const sides = `${sig(r.ppmBelow, 3)} below, ${sig(r.ppmAbove, 3)} above`;
-    return [r.model, r.kind === 'normal' ? 'overall sd (n − 1)' : 'its 0.135 %, 50 %, 99.865 % points', ppk ? sig(ppk.estimate, 3) : '—', `${shareWords(r.ppmTotal)} (${sides})`, r.support, ...(r.passes ? [] : [r.rejectedBy.join(', ')])];
+    return [modelName(r), r.kind === 'normal' ? 'overall sd (n − 1)' : 'its 0.135 %, 50 %, 99.865 % points', ppk ? sig(ppk.estimate, 3) : '—', `${shareWords(r.ppmTotal)} (${sides})`, r.support, ...(r.passes ? [] : [testNames(r.rejectedBy)])];
   });
 }
 
@@ -78,7 +85,7 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   const unstable = cap.stability ? !cap.stability.stable : false;
   const first = unstable ? 'Not yet answerable with confidence — the process is not shown to be stable. ' : '';
   const answer = row
-    ? `${first}${unstable ? 'As measured: a' : 'A'}bout ${shareWords(row.ppmTotal)} outside the tolerance under ${row.model}${ppk ? `; Ppk ${sig(ppk.estimate, 3)}${intervalOf('Ppk', chosenIntervals)}` : ''}.`
+    ? `${first}${unstable ? 'As measured: a' : 'A'}bout ${shareWords(row.ppmTotal)} outside the tolerance under ${modelName(row)}${ppk ? `; Ppk ${sig(ppk.estimate, 3)}${intervalOf('Ppk', chosenIntervals)}` : ''}.`
     : `${first}No model passes the tests, so no share outside the tolerance can be stated with a model behind it; the rejected models below show what each would say.`;
 
   const lines: BlockLine[] = [

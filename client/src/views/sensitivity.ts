@@ -15,9 +15,15 @@ export const sensitivitySection: SectionView = ({ report: r }) => {
   for (const row of rows) for (const v of row.values) if (!labels.has(v.family)) { labels.set(v.family, capital(v.label)); families.push(v.family); }
   const none = rows.some((x) => x.basis !== 'passing');
   const lines: BlockLine[] = [
-    { kind: none ? 'warning' : 'note', text: none ? 'No model passes every test: the numbers are shown under all of them, none of which describes the data well.' : 'Only models that no test rejects are compared. A wide spread means the choice of model, not the data, decides the number.' },
+    {
+      kind: none ? 'warning' : 'note',
+      text: none
+        ? 'No model passes every test, so no spread is drawn: a range across rejected models (one of them can be absurd) says nothing about the choice of model. The numbers under each are in the table, for comparison only.'
+        : 'Only models that no test rejects are compared. A wide spread means the choice of model, not the data, decides the number.',
+    },
   ];
   for (const row of rows) {
+    if (row.basis !== 'passing') continue; // rejected models never enter a spread (said above)
     if (row.values.length < 2) {
       lines.push({ kind: 'fact', text: `${row.quantity}: only ${capital(row.values[0]?.label ?? '')} gives it; there is no other acceptable model to compare with.` });
       continue;
@@ -43,7 +49,7 @@ export const sensitivitySection: SectionView = ({ report: r }) => {
           const iv = v.lower !== undefined || v.upper !== undefined ? ` (${end(v.lower, '…')} to ${end(v.upper, '…')})` : '';
           return `${sig(v.estimate)}${iv}${v.passes ? '' : ' ✗'}`;
         }),
-        row.min > 0 ? `${sig(row.max / row.min, 3)}×` : `${sig(row.min)} to ${sig(row.max)}`,
+        row.basis !== 'passing' ? '— (every model rejected)' : row.min > 0 ? `${sig(row.max / row.min, 3)}×` : `${sig(row.min)} to ${sig(row.max)}`,
       ]),
       folded: true,
     }],
