@@ -30,6 +30,20 @@ const REPORT = analyzeDataset(input, { bLifePercents: [10, 50], reliabilityTimes
 const PLAIN = analyzeDataset({ values: input.values, status }, { bLifePercents: [10, 50], bootstrapReplicates: 19, seed: 1 }) as DatasetReport;
 const block = modesSection({ report: REPORT, selected: undefined, units: 'h' })!;
 const m = REPORT.life!.modes!;
+/** The whole unit's B-life bounds when the core gives them (a BLife), else none (a point value). */
+const ends = (b: { estimate: number }): { lower: number; upper: number } | null => {
+  const x = b as { lower?: number; upper?: number };
+  return Number.isFinite(x.lower) && Number.isFinite(x.upper) ? { lower: x.lower!, upper: x.upper! } : null;
+};
+const unitWords = (b: { estimate: number }): string => {
+  const e = ends(b);
+  return `${sig(b.estimate)} h (${e ? `90 % bounds ${sig(e.lower)} to ${sig(e.upper)}` : 'point estimate'})`;
+};
+/** The report with the whole unit's B-lives given bounds (as a core that bounds them reports them). */
+const WITH_BOUNDS = {
+  ...REPORT,
+  life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ ...b, lower: b.estimate * 0.8, upper: b.estimate * 1.2, confidence: 0.9, method: 'test', boundsFound: true })) } } },
+} as DatasetReport;
 
 describe('the failure-modes section', () => {
   it('is in the registry right after the life section, and absent without a mode column', () => {
@@ -52,16 +66,30 @@ describe('the failure-modes section', () => {
 
   it('tables each mode’s B-lives with their bounds and the whole unit’s as point values, naming the bound method and level', () => {
     const table = block.tables[0]!;
-    expect(table.caption).toMatch(/90 % two-sided likelihood-ratio \(profile likelihood\) bounds per mode; the whole unit's B-lives are point estimates/);
+    expect(table.caption).toMatch(/90 % two-sided likelihood-ratio \(profile likelihood\) bounds per mode; /);
     const crack10 = m.modes[0]!.bLives[0]!;
     expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper)]);
     const unit = table.rows.find((r) => r[0] === 'whole unit: B10')!;
-    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), 'no bound', 'no bound']);
+    const e = ends(m.system!.bLives[0]!);
+    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), e ? sig(e.lower) : 'no bound', e ? sig(e.upper) : 'no bound']);
     // The whole unit's B10 is the fixture's (SciPy brentq on the product of the mode reliabilities), to the digits shown.
     expect(unit[3]).toBe(sig(fx.systemBest.b10));
     const rel = block.tables.find((x) => x.caption.startsWith('Reliability at the times'))!;
     expect(rel.rows[0]![0]).toBe('R(3000)');
     expect(rel.rows[0]!.at(-1)).toBe(sig(fx.systemBest.reliabilityAt3000, 4));
+  });
+
+  it('prints the whole unit’s bounds when the report carries them, and "no bound" with "point estimates" when it does not', () => {
+    const withB = modesSection({ report: WITH_BOUNDS, selected: undefined, units: 'h' })!;
+    const b10 = WITH_BOUNDS.life!.modes!.system!.bLives[0]!;
+    expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate)]);
+    expect(withB.tables[0]!.caption).toMatch(/the whole unit's bounds as the method note says$/);
+    expect(withB.answer).toContain(`Whole unit B10: ${sig(b10.estimate)} h (90 % bounds ${sig(0.8 * b10.estimate)} to ${sig(1.2 * b10.estimate)}) from 2 modes`);
+    const none = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate })) } } } } as DatasetReport;
+    const noB = modesSection({ report: none, selected: undefined, units: 'h' })!;
+    expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound']);
+    expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates$/);
+    expect(noB.answer).toMatch(/^Whole unit B10: [\d.]+ h \(point estimate\) from 2 modes/);
   });
 
   it('carries the modes’ cautions and defers a maintenance or safety decision to its governing practice; draws the reliability chart', () => {
@@ -86,9 +114,14 @@ describe('the answer with a failure-mode column', () => {
     const [crack, leak] = m.modes;
     const b = (x: typeof crack) => x!.bLives[0]!;
     expect(a.sentence).toBe(
-      `B10 life of the whole unit: ${sig(m.system!.bLives[0]!.estimate)} h (point estimate, the 2 failure modes together), from crack ${sig(b(crack).estimate)} h (Exponential; 90 % bounds ${sig(b(crack).lower)} to ${sig(b(crack).upper)}); leak ${sig(b(leak).estimate)} h (Lognormal; 90 % bounds ${sig(b(leak).lower)} to ${sig(b(leak).upper)}). The crack mode limits life at 10 % failed.`,
+      `B10 life of the whole unit, the 2 failure modes together: ${unitWords(m.system!.bLives[0]!)}, from crack ${sig(b(crack).estimate)} h (Exponential; 90 % bounds ${sig(b(crack).lower)} to ${sig(b(crack).upper)}); leak ${sig(b(leak).estimate)} h (Lognormal; 90 % bounds ${sig(b(leak).lower)} to ${sig(b(leak).upper)}). The crack mode limits life at 10 % failed.`,
     );
     expect(a.cautions).toEqual(expect.arrayContaining([...m.cautions]));
+  });
+
+  it('with the whole unit’s bounds in the report, the answer quotes them', () => {
+    const b10 = WITH_BOUNDS.life!.modes!.system!.bLives[0]!;
+    expect(answerFor(WITH_BOUNDS, null, 'h')!.sentence).toMatch(new RegExp(`^B10 life of the whole unit, the 2 failure modes together: ${sig(b10.estimate)} h \\(90 % bounds ${sig(0.8 * b10.estimate)} to ${sig(1.2 * b10.estimate)}\\), from crack `));
   });
 
   it('never quotes a number of the models fitted to all failures alike, whichever is selected', () => {

@@ -8,8 +8,7 @@
 import type { DatasetReport } from '../../../core/index.js';
 import { sig } from '../format.js';
 import type { Answer } from './answer.js';
-import { bName, firstToReach, modeBLifeWords } from './modes.js';
-import { withU } from './numbers.js';
+import { bName, firstToReach, modeBLifeWords, unitBLifeWords } from './modes.js';
 
 export function modesAnswer(r: DatasetReport, units: string): Answer | null {
   const m = r.life?.modes;
@@ -25,7 +24,7 @@ export function modesAnswer(r: DatasetReport, units: string): Answer | null {
     };
   }
   const first = firstToReach(m, 0);
-  const sentence = `${bName(sb.percent)} life of the whole unit: ${withU(sig(sb.estimate), u)} (point estimate, the ${m.modes.length} failure modes together), from ${m.modes.map((x) => modeBLifeWords(x, 0, u)).join('; ')}.${first ? ` The ${first.first.mode} mode limits life at ${sig(sb.percent, 3)} % failed.` : ''}`;
+  const sentence = `${bName(sb.percent)} life of the whole unit, the ${m.modes.length} failure modes together: ${unitBLifeWords(sb, r.life!.confidence, u)}, from ${m.modes.map((x) => modeBLifeWords(x, 0, u)).join('; ')}.${first ? ` The ${first.first.mode} mode limits life at ${sig(sb.percent, 3)} % failed.` : ''}`;
   return {
     sentence,
     cautions: [

@@ -35,6 +35,21 @@ export function modeBLifeWords(x: ModeResult, j: number, u: string): string {
   return `${x.mode} ${withU(sig(b.estimate), u)} (${familyWords(x.family)}; ${pct(b.confidence)} bounds ${end(b.lower, 'open')} to ${end(b.upper, 'open')})`;
 }
 
+/**
+ * The whole unit's B-life bounds when the report carries them (a core BLife with finite ends), else
+ * null: the report then gives a point value only, and the page says "no bound".
+ */
+export function unitBounds(b: { readonly percent: number; readonly estimate: number }): { readonly lower: number; readonly upper: number } | null {
+  const x = b as { readonly lower?: unknown; readonly upper?: unknown };
+  return typeof x.lower === 'number' && Number.isFinite(x.lower) && typeof x.upper === 'number' && Number.isFinite(x.upper) ? { lower: x.lower, upper: x.upper } : null;
+}
+
+/** The whole unit's B-life in words: '2893 h (90 % bounds 2400 to 3300)' or '2893 h (point estimate)'. */
+export function unitBLifeWords(b: { readonly percent: number; readonly estimate: number }, confidence: number, u: string): string {
+  const bd = unitBounds(b);
+  return `${withU(sig(b.estimate), u)} (${bd ? `${pct(confidence)} bounds ${sig(bd.lower)} to ${sig(bd.upper)}` : 'point estimate'})`;
+}
+
 export const modesSection: SectionView = ({ report, units: u }) => {
   const m = report.life?.modes;
   if (!m) return null;
@@ -63,9 +78,15 @@ export const modesSection: SectionView = ({ report, units: u }) => {
     x.bLives.forEach((b) => rows.push([`${x.mode}: ${bName(b.percent)}`, `${familyWords(x.family)}`, String(x.failures), sig(b.estimate), end(b.lower, 'not closed'), end(b.upper, 'not closed')]));
     if (x.bLives.length === 0) rows.push([`${x.mode}`, 'not fitted', String(x.failures), '—', '—', '—']);
   }
-  if (sys) for (const b of sys.bLives) rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), 'no bound', 'no bound']);
+  const unitHasBounds = sys !== null && sys.bLives.some((b) => unitBounds(b) !== null);
+  if (sys) {
+    for (const b of sys.bLives) {
+      const bd = unitBounds(b);
+      rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), bd ? sig(bd.lower) : 'no bound', bd ? sig(bd.upper) : 'no bound']);
+    }
+  }
   tables.push({
-    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided ${bound} bounds per mode; the whole unit's B-lives are point estimates`,
+    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided ${bound} bounds per mode; ${unitHasBounds ? 'the whole unit\'s bounds as the method note says' : 'the whole unit\'s B-lives are point estimates'}`,
     head: ['Life', 'Model', 'Failures', 'Estimate', 'Lower', 'Upper'],
     rows,
   });
@@ -110,7 +131,7 @@ export const modesSection: SectionView = ({ report, units: u }) => {
   const first = percents.length > 0 ? firstToReach(m, 0) : null;
   const sb = sys?.bLives[0];
   const answer = sb
-    ? `Whole unit ${bName(sb.percent)}: ${withU(sig(sb.estimate), u)} (point estimate) from ${m.modes.length} modes: ${m.modes.map((x) => modeBLifeWords(x, 0, u)).join('; ')}.${first ? ` The ${first.first.mode} mode limits life at ${sig(sb.percent, 3)} % failed.` : ''}`
+    ? `Whole unit ${bName(sb.percent)}: ${unitBLifeWords(sb, life.confidence, u)} from ${m.modes.length} modes: ${m.modes.map((x) => modeBLifeWords(x, 0, u)).join('; ')}.${first ? ` The ${first.first.mode} mode limits life at ${sig(sb.percent, 3)} % failed.` : ''}`
     : 'No life for the whole unit: some mode could not be fitted (see the notes).';
   return {
     id: 'modes',
