@@ -69,6 +69,13 @@ describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
     expect(text).toMatch(/200-year flow by log-Pearson III \(expected moments\): [\d.]+ m³\/s, 90 % interval [\d.]+ to [\d.]+/);
     expect(text).toMatch(/Skew weighted by mean square errors: station 0\.548/);
     expect(text).toMatch(/Low outliers: none found/);
+    // The EMA interval (after Cohn, Lane & Stedinger 2001) with its equivalent years and the bootstrap beside it;
+    // the skew's effective record length is the record's 60 years (no censored year).
+    expect(text).toMatch(/Cohn, Lane & Stedinger \(2001\)/);
+    expect(text).toMatch(/Equivalent years/);
+    expect(text).toMatch(/Bootstrap interval/);
+    expect(text).toMatch(/Effective record length of the skew: 60 years of the 60/);
+    expect(text).toMatch(/parametric bootstrap of the EMA, percentile interval \(\d+ replicates\)/);
     expect(text).toMatch(/Fits by L-moments/);
     expect(text).toMatch(/generalized logistic/);
     expect(text).toMatch(/governing agency/);
@@ -86,10 +93,15 @@ describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
     await showBlock();
     await page.screenshot({ path: join(OUT, 'flood-estimators-1366x768.png') });
 
+    await block().locator('table').first().scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'flood-estimators-ema-table-1366x768.png') });
+
     await page.setViewportSize({ width: 800, height: 900 });
     await page.waitForTimeout(600);
     await showBlock();
     await page.screenshot({ path: join(OUT, 'flood-estimators-800x900.png') });
+    await block().locator('table').first().scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'flood-estimators-ema-table-800x900.png') });
     const wide = await page.evaluate(() => {
       const b = document.querySelector('[data-block="flood-estimators"]') as HTMLElement;
       const svg = b.querySelector('svg') as SVGSVGElement;
@@ -108,6 +120,8 @@ describe.skipIf(SKIP_BROWSER)('flood estimators on the page', () => {
     expect(html).toContain('data-block="flood-estimators"');
     expect(html).toContain('L-moment ratios');
     expect(html).toMatch(/licensed engineer or hydrologist/);
+    expect(html).toMatch(/Cohn, Lane &amp; Stedinger \(2001\)|Cohn, Lane & Stedinger \(2001\)/);
+    expect(html).toContain('Equivalent years');
   });
 
   it('L-moments alone: the five fits as point estimates, no EMA table', { timeout: 200_000 }, async () => {

@@ -53,17 +53,16 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
     }
     lines.push({
       kind: 'note',
-      text: `Intervals: ${ema.intervalMethod}; exact for a normal record with the skew held and no censored years, otherwise an approximation (its measured coverage is in docs/report-fields.md). The variance is derived here after Cohn, Lane & Stedinger (2001); the Bulletin's own text was not at hand, so agreement with its tables is not claimed. Beside them: ${ema.bootstrapMethod}.`,
+      text: `Intervals: ${ema.intervalMethod}; exact for a normal record with the skew held and no censored years, otherwise an approximation (in a seeded simulation a nominal 90 % interval covered 86–96 % over ten record designs, short and censored records furthest off). The variance is derived here after Cohn, Lane & Stedinger (2001); the Bulletin's own text was not at hand, so agreement with its tables is not claimed. Beside them: ${ema.bootstrapMethod}.`,
     });
     tables.push({
-      caption: `Log-Pearson III by expected moments: flows by return period, two-sided ${pct(ema.confidence)} intervals from the EMA variance, the bootstrap interval beside them.`,
-      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, 'Lower', 'Upper', 'Equivalent years', 'Bootstrap interval'],
+      caption: `Log-Pearson III by expected moments: flows by return period with two-sided ${pct(ema.confidence)} intervals (EMA variance; bootstrap beside).`,
+      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, `${pct(ema.confidence)} interval`, 'Equivalent years', 'Bootstrap interval'],
       rows: ema.returnLevels.map((x) => [
         sig(x.period),
         sig(1 / x.period, 3),
         sig(x.estimate),
-        end(x.lower, 'not computed'),
-        end(x.upper, 'not computed'),
+        x.lower !== null && x.upper !== null ? `${sig(x.lower)} to ${sig(x.upper)}` : 'not computed',
         sig(x.equivalentYears, 3),
         x.bootstrapLower !== null && x.bootstrapUpper !== null ? `${sig(x.bootstrapLower)} to ${sig(x.bootstrapUpper)}` : 'not computed',
       ]),
