@@ -4,7 +4,7 @@
  * honest model comparison (passing models, rejected ones apart, the spread over passing models only,
  * each row naming its sigma), the natural-bound statement and the stability chart's verdict.
  */
-import { formatNumber, formatPValue, type CapabilitySection, type ComparisonRow, type PercentileIntervals } from '../core/index.js';
+import { formatNumber, formatPValue, testNames, type CapabilitySection, type ComparisonRow, type PercentileIntervals } from '../core/index.js';
 import { wrap } from './text-report.js';
 
 const f4 = (x: number): string => formatNumber(x, 4);
@@ -77,7 +77,7 @@ export function capabilityExtensionLines(c: CapabilitySection): string[] {
   } else out.push('  No model passes the tests.');
   if (cmp.rejected.length > 0) {
     out.push('  Rejected by a test (shown apart, not in the spread):');
-    out.push(...table([...head.slice(0, 6), 'rejected by'], cmp.rejected.map((r) => [...rowCells(r).slice(0, 6), r.rejectedBy.join(', ')])));
+    out.push(...table([...head.slice(0, 6), 'rejected by'], cmp.rejected.map((r) => [...rowCells(r).slice(0, 6), testNames(r.rejectedBy)])));
   }
   if (cmp.spread) out.push(wrap(`${f4(cmp.spread.lowest)} ppm (${cmp.spread.lowestModel}) to ${f4(cmp.spread.highest)} ppm (${cmp.spread.highestModel}).`, '  Spread over passing models: ', '  '));
   out.push(wrap(cmp.note, '  ', '  '));

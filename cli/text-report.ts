@@ -3,7 +3,7 @@
  * block on the input, a ranking table, one block per candidate, then the families that could not
  * be fitted, warnings, the ranking rule, the methods with their sources, and the caution.
  */
-import { formatNumber, formatPValue, pValueText, type AnalysisReport, type CandidateReport, type ChiSquareReport, type DatasetReport } from '../core/index.js';
+import { formatNumber, formatPValue, pValueText, testNames, type AnalysisReport, type CandidateReport, type ChiSquareReport, type DatasetReport } from '../core/index.js';
 import type { CliInput } from './input-summary.js';
 import { describeSkipped } from './input-summary.js';
 import { workflowSections } from './workflow-text.js';
@@ -58,7 +58,7 @@ function rankingTable(r: AnalysisReport): string[] {
     formatNumber(c.logLikelihood, 7),
     chiShort(c.chiSquare),
     pValueText(c.andersonDarling.pValue, c.andersonDarling.pValueIs),
-    c.rejectedBy.length === 0 ? 'not rejected' : `rejected by ${c.rejectedBy.join(' and ')}`,
+    c.rejectedBy.length === 0 ? 'not rejected' : `rejected by ${testNames(c.rejectedBy)}`,
   ]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((row) => (row[j] as string).length)));
   const right = new Set([2, 3, 4]);
@@ -143,7 +143,7 @@ export function textReport(report: AnalysisReport | DatasetReport, input: CliInp
   lines.push(
     wrap(
       `models ${r.options.families.join(', ')}; α = ${formatNumber(r.options.alpha)}; bins ${r.options.bins === null ? 'by rule' : String(r.options.bins)}; ` +
-        `Anderson–Darling p-values by ${r.options.pMethod === 'table' ? 'published tables (bootstrap where none exists)' : 'parametric bootstrap'}` +
+        `Anderson–Darling p-values by ${r.options.pMethod === 'table' ? 'tables (published, or simulated by this project where none is published; bootstrap where no table applies)' : 'parametric bootstrap'}` +
         (r.options.pMethod === 'bootstrap' || r.candidates.some((c) => c.andersonDarling.method === 'bootstrap')
           ? `, ${r.options.bootstrapReplicates} replicates, seed ${r.options.seed}`
           : ''),

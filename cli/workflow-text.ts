@@ -144,7 +144,9 @@ export function sensitivityLines(rows: readonly SensitivityRow[] | undefined): s
       const iv = v.lower !== undefined || v.upper !== undefined ? ` (${bound(v.lower)} … ${bound(v.upper)})` : '';
       return `${v.label} ${formatNumber(v.estimate)}${iv}${v.passes ? '' : ' [rejected]'}`;
     });
-    out.push(wrap(`${vals.join('; ')}. Range ${formatNumber(row.min)} to ${formatNumber(row.max)}.`, `  ${row.quantity}: `, '    '));
+    // A range is read only across models no test rejects: across rejected ones it says nothing.
+    const range = row.basis === 'passing' ? ` Range ${formatNumber(row.min)} to ${formatNumber(row.max)}.` : ' No range: every model is rejected.';
+    out.push(wrap(`${vals.join('; ')}.${range}`, `  ${row.quantity}: `, '    '));
   }
   out.push('');
   return out;

@@ -51,7 +51,7 @@ export { POT_CAUTIONS, POT_DEFAULT_PERIODS, POT_DEFAULT_SEPARATION, POT_DIAGNOST
 export { readFailureModes } from './workflow/index.js';
 export * from './batch/index.js';
 export * from './options/index.js';
-export { formatPValue, pValueText } from './format/index.js';
+export { formatPValue, pValueText, testNames } from './format/index.js';
 export type { PValueKind, PValueResult } from './format/index.js';
 export { analyzeRecordedLife, planTest, weibayes, prepareIntervalLifeData, turnbull, SAFETY_CAUTION, RANK_REGRESSION_REASON } from './life/index.js';
 export { readIntervalRows, columnSelector, INTERVAL_GOF_REPLICATES, type IntervalColumns, type IntervalRowsRead } from './life/index.js';

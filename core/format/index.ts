@@ -2,3 +2,4 @@
 export { formatNumber } from './number.js';
 export { formatPValue, pValueText } from './p-value.js';
 export type { PValueKind, PValueResult } from './p-value.js';
+export { testNames } from './test-names.js';

@@ -58,7 +58,7 @@ export const FITTING_OPTIONS: readonly OptionSpec[] = [
     choices: ['table', 'bootstrap'],
     default: 'table',
     appliesTo: ['complete', 'censored'],
-    help: 'Anderson–Darling p-values: table (published tables; bootstrap only where no table exists) or bootstrap (parametric, refitting every replicate)',
+    help: 'Anderson–Darling p-values: table (published tables, or tables simulated by this project; bootstrap where no table applies) or bootstrap (parametric, refitting every replicate)',
     group: 'tests',
   },
   {

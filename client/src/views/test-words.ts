@@ -6,8 +6,5 @@ export function testWords(tests: readonly string[]): string {
   return tests.map((t) => WORDS[t] ?? t).join(' and ');
 }
 
-/** The tests' short names for a table cell: "chi-square and Anderson–Darling". */
-const NAMES: Readonly<Record<string, string>> = { 'chi-square': 'chi-square', 'anderson-darling': 'Anderson–Darling' };
-export function testNames(tests: readonly string[]): string {
-  return tests.map((t) => NAMES[t] ?? t).join(' and ');
-}
+/** The tests' short names for a table cell ("chi-square and Anderson–Darling"): the core's words. */
+export { testNames } from '../../../core/format/index.js';
