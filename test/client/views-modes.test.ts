@@ -43,7 +43,7 @@ const unitWords = (b: { estimate: number }): string => {
 const WITH_BOUNDS = {
   ...REPORT,
   life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ ...b, lower: b.estimate * 0.8, upper: b.estimate * 1.2, confidence: 0.9, method: 'test', boundsFound: true })) } } },
-} as DatasetReport;
+} as unknown as DatasetReport;
 
 describe('the failure-modes section', () => {
   it('is in the registry right after the life section, and absent without a mode column', () => {
@@ -85,7 +85,7 @@ describe('the failure-modes section', () => {
     expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate)]);
     expect(withB.tables[0]!.caption).toMatch(/the whole unit's bounds as the method note says$/);
     expect(withB.answer).toContain(`Whole unit B10: ${sig(b10.estimate)} h (90 % bounds ${sig(0.8 * b10.estimate)} to ${sig(1.2 * b10.estimate)}) from 2 modes`);
-    const none = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate })) } } } } as DatasetReport;
+    const none = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate })) } } } } as unknown as DatasetReport;
     const noB = modesSection({ report: none, selected: undefined, units: 'h' })!;
     expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound']);
     expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates$/);
@@ -134,7 +134,7 @@ describe('the answer with a failure-mode column', () => {
   });
 
   it('when a mode could not be fitted there is no whole-unit number, and it says which mode', () => {
-    const broken = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: null, modes: m.modes.map((x, i) => (i === 0 ? { ...x, family: null, parameters: null, bLives: [], reliability: [] } : x)) } } } as DatasetReport;
+    const broken = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: null, modes: m.modes.map((x, i) => (i === 0 ? { ...x, family: null, parameters: null, bLives: [], reliability: [] } : x)) } } } as unknown as DatasetReport;
     const a = answerFor(broken, null, 'h')!;
     expect(a.sentence).toBe('No life for the whole unit: a failure mode could not be fitted (crack); see “Failure modes”.');
     expect(a.undermined).toBe(true);
