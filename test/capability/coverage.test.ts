@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { COVERAGE_SETUP, JOHNSON_SETUP, simulateOne } from '../../scripts/capability-coverage.js';
+import { COVERAGE_SETUP, JOHNSON_SETUP, WEIBULL_SETUP, simulateOne } from '../../scripts/capability-coverage.js';
 import { JOHNSON_INTERVAL_WITHHELD, fitModelSpec, intervalWithheld, makeModel, percentileIntervals } from '../../core/capability/index.js';
 import { createRng } from '../../core/random/index.js';
 import { readFixture } from '../helpers/fixtures.js';
@@ -31,6 +31,31 @@ describe('coverage of the capability bootstrap interval (committed simulation)',
     const again = simulateOne(50, 0);
     expect(again).toEqual(r50.firstSamples[0]);
   });
+});
+
+// The percentile method on a fitted family, as the report gives it without a transformation
+// (scripts/capability-coverage.ts --weibull → test/fixtures/capability-coverage-weibull.json): a Weibull
+// process (shape 2, scale 1), each sample and replicate refitted as a Weibull by maximum likelihood.
+// Committed: n = 50 94.9/95.2/95.0/95.1 %, n = 125 95.7/95.8/95.8/95.2 % (Pp/Ppk/Ppu/Ppl; se about 0.7 point).
+const wx = readFixture('capability-coverage-weibull.json');
+
+describe('coverage of the interval under a fitted family (committed simulation, Weibull)', () => {
+  it('the committed setup is the script\'s and the first sample at n = 50 is reproduced exactly', () => {
+    expect(wx.setup).toEqual(JSON.parse(JSON.stringify(WEIBULL_SETUP)));
+    expect(wx.results.map((r: { n: number }) => r.n)).toEqual([50, 125]);
+    const r50 = wx.results.find((r: { n: number }) => r.n === 50);
+    expect(simulateOne(50, 0, WEIBULL_SETUP)).toEqual(r50.firstSamples[0]);
+  });
+  for (const r of wx.results as { n: number; coverage: Record<string, { covered: number; simulations: number; coverage: number }> }[]) {
+    it(`n = ${r.n}: Pp, Ppk, Ppu, Ppl each within 1.5 points of 95 %`, () => {
+      expect(Object.keys(r.coverage).sort()).toEqual(['Pp', 'Ppk', 'Ppl', 'Ppu']);
+      for (const c of Object.values(r.coverage)) {
+        expect(c.simulations).toBe(1000);
+        expect(c.coverage).toBeCloseTo(c.covered / c.simulations, 12);
+        expect(Math.abs(c.coverage - 0.95)).toBeLessThanOrEqual(0.015);
+      }
+    });
+  }
 });
 
 // The Johnson setup (scripts/capability-coverage.ts --johnson → test/fixtures/capability-coverage-johnson.json):
