@@ -117,10 +117,12 @@ export function lifeReportLines(r: RecordedLifeReport): string[] {
       for (const b of x.bLives) rows.push([x.mode, String(x.failures), x.family ?? '—', `B${f(b.percent, 3)}`, f(b.estimate), ...bound(b)]);
       if (x.bLives.length === 0) rows.push([x.mode, String(x.failures), x.family ?? 'not fitted', '', '', '', '']);
     }
+    // The system: the product of the modes' reliabilities; its B-lives bounded as the modes' are (m.system.method).
+    if (m.system) for (const b of m.system.bLives) rows.push(['system', String(m.modes.reduce((a, x) => a + x.failures, 0)), 'product', `B${f(b.percent, 3)}`, f(b.estimate), ...bound(b)]);
     out.push(...table(['mode', 'failures', 'model', 'life', 'estimate', 'lower', 'upper'], rows));
     if (m.system) {
-      for (const b of m.system.bLives) out.push(`  system B${f(b.percent, 3)}: ${f(b.estimate)} (point estimate, no bound)`);
       for (const x of m.system.reliability) out.push(`  system R(${f(x.time)}): ${f(x.estimate, 5)} (point estimate, no bound)`);
+      out.push(`  system: ${m.system.method}`);
     }
     out.push('');
   }

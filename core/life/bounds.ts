@@ -22,7 +22,7 @@ export type BoundMethod = 'likelihood-ratio' | 'fisher-matrix';
  */
 export type LikelihoodSource = LifeData | { readonly logLikelihoodOf: (family: LifeFamilyName) => (v: Float64Array) => number };
 
-function likelihoodOf(family: LifeFamilyName, data: LikelihoodSource): (v: Float64Array) => number {
+export function likelihoodOf(family: LifeFamilyName, data: LikelihoodSource): (v: Float64Array) => number {
   return 'logLikelihoodOf' in data ? data.logLikelihoodOf(family) : logLikelihoodOf(family, data);
 }
 
@@ -52,7 +52,7 @@ const FM_TEXT = 'Fisher matrix (observed information, delta method on ln x_p; on
  * The log-likelihood `ll` at the parameters whose p-quantile is x_p and whose other parameters are
  * `others` (models.ts `fromQuantile`); -∞ where those parameters are not finite or not valid.
  */
-function logLikelihoodAtQuantile(family: LifeFamilyName, ll: (v: Float64Array) => number, others: Float64Array, p: number, xp: number): number {
+export function logLikelihoodAtQuantile(family: LifeFamilyName, ll: (v: Float64Array) => number, others: Float64Array, p: number, xp: number): number {
   const model = lifeModel(family);
   try {
     const params = model.fromQuantile(Array.from(others), p, xp);
@@ -75,7 +75,7 @@ function quantileParametrised(fit: CensoredFitSuccess, data: LikelihoodSource, p
   };
 }
 
-function othersOf(fit: CensoredFitSuccess): { values: number[]; transforms: ReturnType<typeof lifeModel>['transforms'][number][] } {
+export function othersOf(fit: CensoredFitSuccess): { values: number[]; transforms: ReturnType<typeof lifeModel>['transforms'][number][] } {
   const model = lifeModel(fit.family);
   const v = toVector(model, fit.parameters);
   const values: number[] = [];

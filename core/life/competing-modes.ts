@@ -8,7 +8,8 @@
  *   R_sys(t) = Π_m R_m(t),   system B-life: the t with ln R_sys(t) = ln(1 - p) (Brent on ln t).
  * Per mode the candidate families are ranked by AICc (n = all units) and the best is used for the
  * system, unless a family is fixed. Mode B-lives carry likelihood-ratio (or Fisher) bounds
- * (bounds.ts); the system B-life is a point estimate here (no bound is claimed).
+ * (bounds.ts); the system B-life carries likelihood-ratio (or Fisher) bounds over every mode's
+ * parameters (competing-modes-bounds.ts); the system reliability at a time is a point estimate.
  * Interval rows with a mode (analyzeIntervalModes): a unit found failed by mode m in (L, R] is, for
  * every other mode, known to have been free of it at L and nothing more; so for the other modes it
  * is a suspension at L (an exact failure: at its time; one failed before the first inspection: at 0,
@@ -24,6 +25,7 @@ import { InputError } from '../errors.js';
 import { getFamily, type Distribution } from '../families/index.js';
 import { informationCriteria, rankCandidates } from '../rank.js';
 import { findRoot } from '../special/index.js';
+import { systemBLife, type FittedMode } from './competing-modes-bounds.js';
 import { bLife, reliabilityAt, type BLife, type BoundMethod, type LikelihoodSource, type ReliabilityAt } from './bounds.js';
 import { prepareLifeData } from './data.js';
 import { fitCensored, type CensoredFitOutcome, type CensoredFitSuccess } from './fit.js';
@@ -74,7 +76,8 @@ export interface ModeResult {
 }
 
 export interface SystemResult {
-  readonly bLives: readonly { readonly percent: number; readonly estimate: number }[];
+  /** System B-lives with two-sided bounds (competing-modes-bounds.ts: likelihood ratio or Fisher matrix, as the modes'). */
+  readonly bLives: readonly BLife[];
   readonly reliability: readonly { readonly time: number; readonly estimate: number }[];
   /** Curve for the page: time grid with each mode's and the system's reliability. */
   readonly curve: { readonly time: readonly number[]; readonly modes: readonly (readonly number[])[]; readonly system: readonly number[] };
@@ -206,7 +209,7 @@ function modesReport(n: number, labels: readonly string[], modeData: (mode: stri
   const times = opts.reliabilityTimes ?? [];
   const families = opts.family ? [opts.family] : (opts.families ?? LIFE_FAMILIES);
   const cautions: string[] = [];
-  const chosen: CensoredFitSuccess[] = [];
+  const chosen: FittedMode[] = [];
   const modes: ModeResult[] = labels.map((mode) => {
     const data = modeData(mode);
     const fits: CensoredFitSuccess[] = [];
@@ -224,7 +227,7 @@ function modesReport(n: number, labels: readonly string[], modeData: (mode: stri
       }),
     );
     const best = ranked[0]?.fit ?? null;
-    if (best) chosen.push(best);
+    if (best) chosen.push({ fit: best, source: data.source });
     if (data.failures < 10) cautions.push(`Mode ${mode} has only ${data.failures} failure${data.failures === 1 ? '' : 's'}: its model and B-lives are uncertain (fewer than 10 failures; common practice, no source).`);
     return {
       mode,
@@ -240,22 +243,22 @@ function modesReport(n: number, labels: readonly string[], modeData: (mode: stri
   });
   let system: SystemResult | null = null;
   if (chosen.length === labels.length) {
-    const dists = chosen.map((f) => getFamily(f.family).make(f.parameters));
+    const dists = chosen.map((m) => getFamily(m.fit.family).make(m.fit.parameters));
     const [lo, hi] = range;
     const grid: number[] = [];
     for (let k = 0; k < 60; k++) grid.push(Math.exp(Math.log(lo / 2) + ((Math.log(hi * 1.5) - Math.log(lo / 2)) * k) / 59));
     system = {
-      bLives: percents.map((percent) => ({ percent, estimate: systemQuantile(dists, percent / 100) })),
+      bLives: percents.map((percent) => systemBLife(chosen, percent, confidence, opts.boundMethod)),
       reliability: times.map((time) => ({ time, estimate: Math.exp(logSystemSf(dists, time)) })),
       curve: { time: grid, modes: dists.map((d) => grid.map((t) => d.sf(t))), system: grid.map((t) => Math.exp(logSystemSf(dists, t))) },
-      method: 'product of the mode reliabilities (independent modes in series); system B-life by Brent root of ln R_sys(t) = ln(1 - p) on ln t; point estimates, no bound',
+      method: `product of the mode reliabilities (independent modes in series); system B-life by Brent root of ln R_sys(t) = ln(1 - p) on ln t, its bounds ${opts.boundMethod === 'fisher-matrix' ? 'by the Fisher matrix (each mode’s observed information, delta method on ln t_p)' : 'by the likelihood ratio (profile likelihood over every mode’s parameters)'}; system reliability at a time a point estimate`,
     };
   } else {
     cautions.push('Some mode could not be fitted, so no system reliability is given.');
   }
   cautions.push(
     'The modes are treated as independent and every failure as correctly assigned to its mode; a wrongly classified failure, or modes that share a cause, bias every number here.',
-    'The system B-lives are point estimates without bounds; where a safety or maintenance decision rests on them, use the lower bounds of the governing modes, follow the governing codes and standards, and have the analysis reviewed under licensed practice.',
+    'The system B-life bounds rest on large-sample likelihood theory and on every mode’s model being right; the system reliability at a time is a point estimate. Where a safety or maintenance decision rests on them, use the lower bounds, follow the governing codes and standards, and have the analysis reviewed under licensed practice.',
   );
   return {
     n,

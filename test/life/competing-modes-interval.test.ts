@@ -13,7 +13,7 @@ import { analyzeIntervalModes, analyzeModes, analyzeRecordedLife } from '../../c
 interface Fx {
   rows: { start: number; end: number | null; mode: string | null; count: number }[];
   modes: Record<string, { parameters: { shape: number; scale: number }; logLikelihood: number; failures: number; b10: number }>;
-  system: { b10: number; reliabilityAt50: number; reliabilityAt100: number };
+  system: { b10: number; reliabilityAt50: number; reliabilityAt100: number; b10LikelihoodRatio90: [number, number]; b10Fisher90: [number, number] };
 }
 const fx = JSON.parse(readFileSync(join(process.cwd(), 'test', 'fixtures', 'life-modes-interval.json'), 'utf8')) as Fx;
 const INF = Number.POSITIVE_INFINITY;
@@ -47,6 +47,18 @@ describe('failure modes on interval rows', () => {
     expect(rel(rep.system!.reliability[0]!.estimate, fx.system.reliabilityAt50)).toBeLessThan(1e-6);
     expect(rel(rep.system!.reliability[1]!.estimate, fx.system.reliabilityAt100)).toBeLessThan(1e-6);
     expect(rep.method).toMatch(/suspended at the last inspection/);
+  });
+
+  it('system B10 bounds: likelihood ratio as an independent SciPy profile over (hazard split, both shapes) with brentq, Fisher as mpmath derivatives (1e-5)', () => {
+    const b = rep.system!.bLives[0]!;
+    expect(b.boundsFound).toBe(true);
+    expect(b.method).toMatch(/likelihood ratio/);
+    expect(rel(b.lower, fx.system.b10LikelihoodRatio90[0])).toBeLessThan(1e-5);
+    expect(rel(b.upper, fx.system.b10LikelihoodRatio90[1])).toBeLessThan(1e-5);
+    const fm = analyzeIntervalModes(input, { family: 'weibull', bLifePercents: [10], boundMethod: 'fisher-matrix' }).system!.bLives[0]!;
+    expect(fm.method).toMatch(/Fisher/);
+    expect(rel(fm.lower, fx.system.b10Fisher90[0])).toBeLessThan(1e-5);
+    expect(rel(fm.upper, fx.system.b10Fisher90[1])).toBeLessThan(1e-5);
   });
 
   it('with exact and right rows only it is the times-and-status analysis (two codings of one likelihood)', () => {
