@@ -169,12 +169,27 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
 
 /** Interval rows of life data (START, END and optional count columns of the CSV), read by the core's readIntervalRows as the CLI reads them. */
 function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, string | number]): { dataset: DatasetInput; input: InputSummary } {
-  const r = readIntervalRows(req.csv ?? '', { start: columnSelector(cols[0]), end: columnSelector(cols[1]), ...(req.countColumn !== undefined ? { count: columnSelector(req.countColumn) } : {}) }, req.csvOptions, 'the CSV');
+  const r = readIntervalRows(
+    req.csv ?? '',
+    { start: columnSelector(cols[0]), end: columnSelector(cols[1]), ...(req.countColumn !== undefined ? { count: columnSelector(req.countColumn) } : {}), ...(req.modeColumn !== undefined ? { mode: columnSelector(req.modeColumn) } : {}) },
+    req.csvOptions,
+    'the CSV',
+  );
   const rows = r.interval.start.length;
   if (rows === 0) throw new InputError('The interval columns have no usable rows.', {}, 'too-few-values');
   const [start, ...others] = r.columns;
+  // A row failed unless it is still running (no end); its mode cell is read as for a status column (the faults named by row).
+  const modeColumn = r.columns.find((c) => c.role === 'failure mode');
+  const modes =
+    r.modes && modeColumn
+      ? readFailureModes(r.modes, r.interval.end.map((e, i) => (Number.isNaN(e) || e === Number.POSITIVE_INFINITY || r.interval.counts?.[i] === 0 ? 0 : 1)), {
+          row: (i) => r.interval.lines?.[i] ?? i + 1,
+          cell: (i) => `Row ${r.interval.lines?.[i] ?? i + 1}`,
+          column: modeColumn.column,
+        })
+      : null;
   return {
-    dataset: { interval: r.interval },
+    dataset: { interval: r.interval, ...(modes ? { modes: modes.modes } : {}) },
     input: {
       source: 'csv',
       n: r.interval.counts ? Array.from(r.interval.counts).reduce((a, c) => a + c, 0) : rows,
@@ -186,9 +201,9 @@ function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, s
       delimiter: r.summary.delimiter,
       delimiterDetected: r.summary.delimiterDetected,
       header: r.summary.header,
-      warnings: r.summary.warnings,
-      // The interval start is `column`; the end and the count are the other columns.
-      otherColumns: others.map((c) => ({ role: c.role as 'interval end' | 'count', column: c.column })),
+      warnings: [...r.summary.warnings, ...(modes?.notes ?? [])],
+      // The interval start is `column`; the end, the count and the failure mode are the other columns.
+      otherColumns: others.map((c) => ({ role: c.role as 'interval end' | 'count' | 'failure mode', column: c.column })),
     },
   };
 }

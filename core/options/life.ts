@@ -77,7 +77,7 @@ export const LIFE_OPTIONS: readonly OptionSpec[] = [
     kind: 'column',
     default: null,
     appliesTo: ['life'],
-    help: "the failure-mode column (with the status column: every failed unit names its mode): each mode is fitted with the other modes' failures as suspensions, and the system reliability is the product of the modes'; on the API with \"csv\" only",
+    help: "the failure-mode column (with the status column or the interval columns: every failed unit names its mode): each mode is fitted with the other modes' failures as suspensions, and the system reliability is the product of the modes'; on the API with \"csv\" only",
     group: 'life',
   },
   {

@@ -14,6 +14,7 @@ import { finishComplete, planComplete, type CompleteInput } from './complete.js'
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
 import { intervalLifeReport } from './life-interval.js';
+import { withIntervalModes } from './life-modes.js';
 import { potReport } from './flood-pot.js';
 import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
@@ -27,15 +28,16 @@ export type Route =
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
 export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
-  if (input.modes && !input.status) {
-    throw new InputError('A failure-mode column needs times with a status column (1 = failed, 0 = still running or removed unfailed).', {}, 'bad-option');
+  if (input.modes && !input.status && !input.interval) {
+    throw new InputError('A failure-mode column needs times with a status column (1 = failed, 0 = still running or removed unfailed), or interval rows.', {}, 'bad-option');
   }
   if (input.interval) {
     if (input.values || input.status || input.grouped || input.subgroups || input.order) {
       throw new InputError('Interval rows come alone: no value, status, grouped, subgroup or order column with them.', {}, 'bad-option');
     }
     const rows = input.interval;
-    return { kind: 'interval', run: () => intervalLifeReport(rows, options, settings) };
+    const modes = input.modes ?? null;
+    return { kind: 'interval', run: () => (modes ? withIntervalModes(intervalLifeReport(rows, options, settings), rows, modes, options, settings) : intervalLifeReport(rows, options, settings)) };
   }
   if (input.dates) {
     if (input.status || input.grouped || input.subgroups || input.order || options.trend) {

@@ -6,7 +6,9 @@
  * §15.2-15.4), with the same options, so the API's numbers are the CLI's.
  */
 import { InputError } from '../errors.js';
-import { analyzeModes, LIFE_FAMILIES, type BoundMethod, type CompetingModesReport, type LifeFamilyName } from '../life/index.js';
+import { analyzeIntervalModes, analyzeModes, LIFE_FAMILIES, type BoundMethod, type CompetingModesReport, type IntervalLifeInput, type LifeFamilyName } from '../life/index.js';
+import type { WorkflowSettings } from './options.js';
+import type { DatasetOptions, DatasetReport } from './types.js';
 
 /** Where a unit's mode cell is, for messages: its file row (or array index) and the column's name. */
 export interface ModeCellPlace {
@@ -76,12 +78,35 @@ export interface LifeModesOptions {
   readonly boundMethod: BoundMethod;
 }
 
+const lifeFamilies = (families: readonly string[] | undefined): LifeFamilyName[] => (families ?? LIFE_FAMILIES).filter((f): f is LifeFamilyName => (LIFE_FAMILIES as readonly string[]).includes(f));
+
 /** The modes report of the life section: analyzeModes with the options the CLI's --mode-column run passes (cli/life-recorded.ts → analyzeRecordedLife). */
 export function lifeModes(times: ArrayLike<number>, status: ArrayLike<number>, modes: readonly (string | null)[], o: LifeModesOptions): CompetingModesReport {
   if (modes.length !== times.length) throw new InputError(`The failure-mode column has ${modes.length} entries but there are ${times.length} times.`, {}, 'bad-input');
-  const families = (o.families ?? LIFE_FAMILIES).filter((f): f is LifeFamilyName => (LIFE_FAMILIES as readonly string[]).includes(f));
   return analyzeModes(
     { times: Array.from(times), failed: Array.from(status), modes },
-    { families, bLifePercents: o.bLifePercents, reliabilityTimes: o.reliabilityTimes, confidence: o.confidence, boundMethod: o.boundMethod },
+    { families: lifeFamilies(o.families), bLifePercents: o.bLifePercents, reliabilityTimes: o.reliabilityTimes, confidence: o.confidence, boundMethod: o.boundMethod },
   );
+}
+
+/**
+ * Interval rows with a failure-mode column: the interval-row report (core/workflow/life-interval.ts)
+ * with `life.modes` added, core/life analyzeIntervalModes with the options the CLI's
+ * --interval-columns --mode-column run passes to analyzeRecordedLife (same numbers as its
+ * life.modes). Each row's mode names the failure of a failed row (left, interval or exact); a
+ * suspension's is ignored.
+ */
+export function withIntervalModes(report: DatasetReport, rows: IntervalLifeInput, modes: readonly (string | null)[], options: DatasetOptions, settings: WorkflowSettings): DatasetReport {
+  if (!report.life) return report;
+  const m = analyzeIntervalModes(
+    { interval: rows, modes },
+    {
+      families: lifeFamilies(options.families as readonly string[] | undefined),
+      bLifePercents: settings.bLifePercents ?? [10],
+      reliabilityTimes: settings.reliabilityTimes,
+      confidence: settings.confidence,
+      boundMethod: options.boundMethod ?? 'likelihood-ratio',
+    },
+  );
+  return { ...report, life: { ...report.life, modes: m } };
 }

@@ -4,7 +4,9 @@
  * fits agree with SciPy (test/fixtures/life-modes.json, scripts/fixtures/life-modes.py), and bad
  * mode cells are refused or noted naming the row, the column and the cell.
  */
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
@@ -146,6 +148,56 @@ describe('failure modes through the API', () => {
     const missing = await request(app).post('/api/analyze').send({ ...body, modeColumn: 'nope' });
     expect(missing.status).toBe(400);
     expect(missing.body.error.message).toMatch(/nope/);
+  });
+});
+
+describe('failure modes on interval rows through the API', () => {
+  // Fixture: scripts/fixtures/life-modes-interval.py (another engineer's: invented seeded inspection rows with modes A and B, SciPy fits per mode refined by mpmath).
+  const fi = readFixture('life-modes-interval.json');
+  const rows: { start: number; end: number | null; mode: string | null; count: number }[] = fi.rows;
+  const lines = ['start,end,units,mode', ...rows.map((r) => `${r.start === 0 ? '' : r.start},${r.end === null ? '' : r.end},${r.count},${r.mode ?? ''}`)];
+  const csvText = `${lines.join('\n')}\n`;
+  const ivBody = { csv: csvText, intervalColumns: ['start', 'end'], countColumn: 'units', modeColumn: 'mode', families: ['weibull'], bLifePercents: [10], reliabilityTimes: [50, 100], replicates: 19 };
+
+  it('life.modes equals the CLI --interval-columns --mode-column JSON key for key, and the SciPy reference (1e-6)', async () => {
+    const res = await request(app).post('/api/analyze').send(ivBody);
+    expect(res.status, JSON.stringify(res.body.error ?? null)).toBe(200);
+    expect(res.body.input.otherColumns).toEqual([
+      { role: 'interval end', column: 'end' },
+      { role: 'count', column: 'units' },
+      { role: 'failure mode', column: 'mode' },
+    ]);
+    const dir = mkdtempSync(join(tmpdir(), 'plumbline-modes-'));
+    const file = join(dir, 'inspections.csv');
+    writeFileSync(file, csvText);
+    const args = parseArgs(['analyze', file, '--interval-columns', 'start,end', '--count-column', 'units', '--mode-column', 'mode', '--families', 'weibull', '--b-life', '10', '--reliability-at', '50,100', '--json']) as AnalyzeArgs;
+    let out = '';
+    expect(runRecordedLife(args, { out: (x) => (out += x) })).toBe(0);
+    expect(res.body.life.modes).toEqual(JSON.parse(out).life.modes);
+    const m = res.body.life.modes;
+    for (const name of ['A', 'B']) {
+      const got = m.modes.find((x: ModeJson) => x.mode === name) as ModeJson;
+      const ref = fi.modes[name];
+      expect(got.failures).toBe(ref.failures);
+      expect(rel(got.parameters.shape!, ref.parameters.shape)).toBeLessThan(1e-6);
+      expect(rel(got.parameters.scale!, ref.parameters.scale)).toBeLessThan(1e-6);
+      expect(rel(got.bLives[0]!.estimate, ref.b10)).toBeLessThan(1e-6);
+    }
+    expect(rel(m.system.bLives[0].estimate, fi.system.b10)).toBeLessThan(1e-6);
+    expect(rel(m.system.reliability[1].estimate, fi.system.reliabilityAt100)).toBeLessThan(1e-6);
+  });
+
+  it('a failed interval row without a mode is a 400 naming its row; a mode on a running row is a note', async () => {
+    const bad = csvText.replace(/\n25,50,3,A\n/, '\n25,50,3,\n');
+    expect(bad).not.toBe(csvText);
+    const res = await request(app).post('/api/analyze').send({ ...ivBody, csv: bad });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/^Row 5, column "mode": the unit failed \(status 1\) but its failure mode is empty/);
+    const noted = csvText.replace(/\n150,,4,\n/, '\n150,,4,A\n');
+    expect(noted).not.toBe(csvText);
+    const ok = await request(app).post('/api/analyze').send({ ...ivBody, csv: noted });
+    expect(ok.status).toBe(200);
+    expect(ok.body.input.warnings.join(' ')).toMatch(/1 unit that did not fail \(status 0\) carries a mode: Row 27 \("A"\)/);
   });
 });
 
