@@ -12,6 +12,8 @@ import {
   readIntervalRows,
   parseStrictNumber,
   readColumns,
+  readFailureModes,
+  readIntervalModes,
   type ColumnRequest,
   type NumberColumn,
   type OptionValue,
@@ -39,6 +41,8 @@ export interface RecordedLifeRead {
   readonly input: RecordedLifeInput;
   readonly columns: readonly { readonly role: string; readonly column: string }[];
   readonly rows: number;
+  /** What the reading noticed in the failure-mode column (core readFailureModes), naming the rows. */
+  readonly warnings: readonly string[];
 }
 
 export function readRecordedLife(text: string, args: AnalyzeArgs, file: string): RecordedLifeRead {
@@ -54,7 +58,13 @@ export function readRecordedLife(text: string, args: AnalyzeArgs, file: string):
       csv,
       file,
     );
-    return { input: { interval: r.interval, ...(r.modes ? { modes: r.modes } : {}) }, columns: r.columns.map((c) => ({ role: c.role, column: c.column })), rows: r.interval.start.length };
+    const read = readIntervalModes(r, (line) => `${file}: row ${line}`);
+    return {
+      input: { interval: r.interval, ...(read ? { modes: read.modes } : {}) },
+      columns: r.columns.map((c) => ({ role: c.role, column: c.column })),
+      rows: r.interval.start.length,
+      warnings: read?.notes ?? [],
+    };
   }
   const requests: ColumnRequest[] = [];
   const roles: string[] = [];
@@ -81,8 +91,9 @@ export function readRecordedLife(text: string, args: AnalyzeArgs, file: string):
     }
     return v;
   });
-  const modes = mode !== undefined ? (t.columns[2] as TextColumn).texts.map((x) => (x.trim() === '' ? null : x.trim())) : undefined;
-  return { input: { times, failed, ...(modes ? { modes } : {}) }, columns: labels, rows: rows.length };
+  const mc = mode !== undefined ? (t.columns[2] as TextColumn) : undefined;
+  const read = mc ? readFailureModes(mc.texts, failed, { row: (i) => rows[i] as number, cell: (i) => `${file}: row ${rows[i] as number}`, column: mc.column }) : null;
+  return { input: { times, failed, ...(read ? { modes: read.modes } : {}) }, columns: labels, rows: rows.length, warnings: read?.notes ?? [] };
 }
 
 export function recordedLifeOptions(o: ReadonlyMap<string, OptionValue>): RecordedLifeOptions {
@@ -108,7 +119,7 @@ export function recordedLifeOptions(o: ReadonlyMap<string, OptionValue>): Record
 
 export interface RecordedLifeJson {
   readonly dataKind: 'recorded-life';
-  readonly input: { readonly file: string; readonly rows: number; readonly columns: RecordedLifeRead['columns'] };
+  readonly input: { readonly file: string; readonly rows: number; readonly columns: RecordedLifeRead['columns']; readonly warnings: readonly string[] };
   readonly life: RecordedLifeReport | null;
   readonly plan: PlanOutcome | null;
 }
@@ -126,7 +137,7 @@ export function runRecordedLife(args: AnalyzeArgs, io: LifeCliIo): number {
   } else if (!plan) {
     throw new InputError('give the life data (--interval-columns START,END, or --column with --censor-column) or a test plan (--plan-reliability with --plan-time and --assumed-shape)', {}, 'bad-option');
   }
-  const json: RecordedLifeJson = { dataKind: 'recorded-life', input: { file, rows: read?.rows ?? 0, columns: read?.columns ?? [] }, life, plan };
+  const json: RecordedLifeJson = { dataKind: 'recorded-life', input: { file, rows: read?.rows ?? 0, columns: read?.columns ?? [], warnings: read?.warnings ?? [] }, life, plan };
   if (flagArg(args, 'json')) io.out(`${JSON.stringify(json, null, 2)}\n`);
   else io.out(recordedLifeText(json));
   return 0;

@@ -155,6 +155,7 @@ export function recordedLifeText(j: RecordedLifeJson): string {
   const out: string[] = [];
   if (j.life) {
     out.push(`Life data as recorded: ${j.input.file} (${j.input.rows} rows; ${j.input.columns.map((c) => `${c.role}: ${c.column}`).join(', ')})`, '');
+    for (const w of j.input.warnings ?? []) out.push(`note: ${w}`, '');
     out.push(...lifeReportLines(j.life));
   }
   let text = out.length > 0 ? `${out.join('\n')}\n` : '';

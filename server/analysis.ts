@@ -16,6 +16,7 @@ import {
   prepareSample,
   readColumns,
   readFailureModes,
+  readIntervalModes,
   type AnalyzeResponse,
   type InputSummary,
   type ColumnRequest,
@@ -178,16 +179,7 @@ function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, s
   const rows = r.interval.start.length;
   if (rows === 0) throw new InputError('The interval columns have no usable rows.', {}, 'too-few-values');
   const [start, ...others] = r.columns;
-  // A row failed unless it is still running (no end); its mode cell is read as for a status column (the faults named by row).
-  const modeColumn = r.columns.find((c) => c.role === 'failure mode');
-  const modes =
-    r.modes && modeColumn
-      ? readFailureModes(r.modes, r.interval.end.map((e, i) => (Number.isNaN(e) || e === Number.POSITIVE_INFINITY || r.interval.counts?.[i] === 0 ? 0 : 1)), {
-          row: (i) => r.interval.lines?.[i] ?? i + 1,
-          cell: (i) => `Row ${r.interval.lines?.[i] ?? i + 1}`,
-          column: modeColumn.column,
-        })
-      : null;
+  const modes = readIntervalModes(r, (line) => `Row ${line}`);
   return {
     dataset: { interval: r.interval, ...(modes ? { modes: modes.modes } : {}) },
     input: {

@@ -6,7 +6,7 @@
  * §15.2-15.4), with the same options, so the API's numbers are the CLI's.
  */
 import { InputError } from '../errors.js';
-import { analyzeIntervalModes, analyzeModes, LIFE_FAMILIES, type BoundMethod, type CompetingModesReport, type IntervalLifeInput, type LifeFamilyName } from '../life/index.js';
+import { analyzeIntervalModes, analyzeModes, LIFE_FAMILIES, type BoundMethod, type CompetingModesReport, type IntervalLifeInput, type IntervalRowsRead, type LifeFamilyName } from '../life/index.js';
 import type { WorkflowSettings } from './options.js';
 import type { DatasetOptions, DatasetReport } from './types.js';
 
@@ -68,6 +68,21 @@ export function readFailureModes(texts: readonly (string | null)[], failed: Arra
     if (!withFailure.has(m)) notes.push(`Mode ${JSON.stringify(m)} (column ${JSON.stringify(place.column)}) has no failed unit, only ${units.length} that did not fail: it has nothing to fit and is left out of the modes.`);
   }
   return { modes, notes };
+}
+
+/**
+ * The failure modes of interval rows read with a mode column (core/life readIntervalRows), checked
+ * as readFailureModes checks a status column's: a row failed unless it is still running (no end)
+ * or counts no units. `cell` names a row in messages ('Row 12', or 'FILE: row 12'). Null without a
+ * mode column.
+ */
+export function readIntervalModes(r: IntervalRowsRead, cell: (line: number) => string): FailureModesRead | null {
+  const column = r.columns.find((c) => c.role === 'failure mode');
+  if (!r.modes || !column) return null;
+  const iv = r.interval;
+  const line = (i: number): number => iv.lines?.[i] ?? i + 1;
+  const failed = iv.end.map((e, i) => (Number.isNaN(e) || e === Number.POSITIVE_INFINITY || iv.counts?.[i] === 0 ? 0 : 1));
+  return readFailureModes(r.modes, failed, { row: line, cell: (i) => cell(line(i)), column: column.column });
 }
 
 export interface LifeModesOptions {
