@@ -69,7 +69,6 @@ export function runCase(c: Case, index: number, R: number): Record<string, numbe
   const high = c.historical ? pop.quantile(c.historical.quantile) : Number.NaN;
   const design: EmaDesign = {
     thresholds: [{ years: c.systematic, threshold: low }, ...(c.historical ? [{ years: c.historical.years, threshold: high }] : [])],
-    fixedIntervals: [],
   };
   const z = normalIsf((1 - CONFIDENCE) / 2);
   let hits = 0;

@@ -7,12 +7,15 @@
  * e.g. Huber 1967 / Stefanski & Boos 2002, The American Statistician 56(1):29-38 [from memory]);
  * that it is the paper's own construction is from memory and not checked.
  *
- * The record as a design. Each year is one of
- *  - a year with a perception threshold τ (−∞ for a year with no censoring): the peak is known when
- *    Y > τ, else only Y ≤ τ is known (systematic years below the low-outlier threshold; historical
- *    years below the perception threshold);
- *  - a year fixed as an interval lower < Y ≤ upper (user intervals): taken as given, no sampling
- *    variance of its own (an approximation: the interval's ends are not drawn from the model).
+ * The record as a design. Each year has a perception threshold τ (−∞ for a year with no
+ * censoring): the peak is known when Y > τ, else only Y ≤ τ is known (systematic years below the
+ * low-outlier threshold; historical years below the perception threshold). A year the record gives
+ * only as an interval ("less than", "greater than", between two flows) has no threshold of its own
+ * to be drawn again from: it is counted as a systematic year (an approximation that credits it with
+ * a known peak above the low-outlier threshold). Holding such years fixed instead (their conditional
+ * moments in A, no variance in B) was tried and is wrong: on the invented gauge file one year
+ * "greater than 6000" in the upper tail of a negatively skewed fit made the skew's variance 11
+ * times that of the 73 systematic years alone.
  * The EMA's fixed point θ = (M, S, G) (G the station skew; the conditional moments use the skew
  * G_w = wG + (1 − w)G_R) solves Σ_t ψ_t(θ) = 0 with, for a known peak y,
  *   ψ(y) = (y − M, (y − M)² − S², (y − M)³ − G S³)
@@ -51,8 +54,6 @@ export interface ThresholdYears {
 /** The record's design: which years could have been censored where. */
 export interface EmaDesign {
   readonly thresholds: readonly ThresholdYears[];
-  /** Years fixed as intervals (log10), no sampling variance of their own. */
-  readonly fixedIntervals: readonly { readonly lower: number; readonly upper: number }[];
 }
 
 type Vec3 = [number, number, number];
@@ -66,11 +67,12 @@ const zeros = (): Mat3 => [0, 0, 0, 0, 0, 0, 0, 0, 0];
  * The design of an EMA record: the systematic years with the low-outlier threshold (or, with zero
  * flows and no low outliers, the smallest positive peak, below which the zeros were censored),
  * the historical period's years with its perception threshold (its known peaks are the years that
- * rose above it), historical peaks with no stated period as uncensored years, user intervals fixed.
+ * rose above it), historical peaks with no stated period as uncensored years, user intervals as
+ * systematic years.
  */
 export function emaDesign(record: EmaRecord, fit: Pick<EmaFit, 'lowOutlierThreshold' | 'counts'>): EmaDesign {
   const thresholds: ThresholdYears[] = [];
-  const systematic = record.peaks.length;
+  const systematic = record.peaks.length + (record.intervals?.length ?? 0);
   let low = fit.lowOutlierThreshold;
   if (low === null && fit.counts.zeros > 0) {
     const positive = [...record.peaks, ...(record.historicalPeaks ?? [])].filter((q) => q > 0);
@@ -81,11 +83,7 @@ export function emaDesign(record: EmaRecord, fit: Pick<EmaFit, 'lowOutlierThresh
   const hp = record.historicalPeaks?.length ?? 0;
   if (hb && hb.years > 0) thresholds.push({ years: hb.years + hp, threshold: Math.log10(hb.threshold) });
   else if (hp > 0) thresholds.push({ years: hp, threshold: Number.NEGATIVE_INFINITY });
-  const fixedIntervals = (record.intervals ?? []).map((iv) => ({
-    lower: iv.lower > 0 ? Math.log10(iv.lower) : Number.NEGATIVE_INFINITY,
-    upper: Math.log10(iv.upper),
-  }));
-  return { thresholds: thresholds.filter((t) => t.years > 0), fixedIntervals };
+  return { thresholds: thresholds.filter((t) => t.years > 0) };
 }
 
 /** E[(W − m)^j], j = 1, 2, 3, from raw moments r[k] = E[W^k] (same conditioning). */
@@ -138,7 +136,6 @@ function expectedPsi(design: EmaDesign, pop: Standardized, m: number, s: number,
     for (let j = 0; j < 3; j++) v[j] = pAbove * el(obs, j) + (1 - pAbove) * el(cen, j);
     add(t.years, v);
   }
-  for (const iv of design.fixedIntervals) add(1, censored(iv.lower, iv.upper));
   return out;
 }
 
@@ -198,7 +195,6 @@ function standardize(design: EmaDesign, mean: number, sd: number): EmaDesign {
   const z = (y: number): number => (Number.isFinite(y) ? (y - mean) / sd : y);
   return {
     thresholds: design.thresholds.map((t) => ({ years: t.years, threshold: z(t.threshold) })),
-    fixedIntervals: design.fixedIntervals.map((iv) => ({ lower: z(iv.lower), upper: z(iv.upper) })),
   };
 }
 
@@ -268,7 +264,7 @@ export function emaQuantileVariance(cov: EmaCovariance, skew: number, exceedance
  * uncensored year at the same skew (no regional skew in either).
  */
 export function effectiveRecordLength(design: EmaDesign, fitted: { readonly mean: number; readonly sd: number; readonly skew: number }): number {
-  const one = emaCovariance({ thresholds: [{ years: 1, threshold: Number.NEGATIVE_INFINITY }], fixedIntervals: [] }, fitted, null);
+  const one = emaCovariance({ thresholds: [{ years: 1, threshold: Number.NEGATIVE_INFINITY }] }, fitted, null);
   const rec = emaCovariance(design, fitted, null);
   return at(one.parameters, 2, 2) / at(rec.parameters, 2, 2);
 }

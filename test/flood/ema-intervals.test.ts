@@ -56,7 +56,7 @@ describe('conditional moments of any order', () => {
 });
 
 describe('EMA asymptotic covariance', () => {
-  const systematic = (n: number): EmaDesign => ({ thresholds: [{ years: n, threshold: Number.NEGATIVE_INFINITY }], fixedIntervals: [] });
+  const systematic = (n: number): EmaDesign => ({ thresholds: [{ years: n, threshold: Number.NEGATIVE_INFINITY }] });
   it.each([
     [0.3, 60, 0.01, null],
     [-0.5, 40, 0.02, null],
@@ -69,7 +69,7 @@ describe('EMA asymptotic covariance', () => {
   });
   it('the effective record length of a record without censoring is its length; censored years count for less', () => {
     expect(effectiveRecordLength(systematic(57), { mean: 0, sd: 1, skew: 0.25 })).toBeCloseTo(57, 8);
-    const hist: EmaDesign = { thresholds: [{ years: 40, threshold: Number.NEGATIVE_INFINITY }, { years: 100, threshold: 1.28 }], fixedIntervals: [] };
+    const hist: EmaDesign = { thresholds: [{ years: 40, threshold: Number.NEGATIVE_INFINITY }, { years: 100, threshold: 1.28 }] };
     const ne = effectiveRecordLength(hist, { mean: 0, sd: 1, skew: 0 });
     expect(ne).toBeGreaterThan(40);
     expect(ne).toBeLessThan(140);
@@ -110,7 +110,6 @@ describe('EMA asymptotic covariance', () => {
     };
     const design: EmaDesign = {
       thresholds: [{ years: nsys, threshold: low }, ...(hist > 0 ? [{ years: hist, threshold: high }] : [])],
-      fixedIntervals: [],
     };
     const cov = emaCovariance(design, { mean: 0, sd: 1, skew: g }, null);
     const asym = emaQuantileVariance(cov, g, 0.01).variance;
@@ -120,7 +119,7 @@ describe('EMA asymptotic covariance', () => {
     expect(Math.abs(variance(ys) / asym - 1)).toBeLessThan(tol);
     expect(Math.abs(variance(gs) / asymSkew - 1)).toBeLessThan(tol);
     // Censoring matters: the skew variance of the same years without censoring is far off.
-    const free = emaCovariance({ thresholds: [{ years: nsys + hist, threshold: Number.NEGATIVE_INFINITY }], fixedIntervals: [] }, { mean: 0, sd: 1, skew: g }, null).parameters[8] as number;
+    const free = emaCovariance({ thresholds: [{ years: nsys + hist, threshold: Number.NEGATIVE_INFINITY }] }, { mean: 0, sd: 1, skew: g }, null).parameters[8] as number;
     expect(Math.abs(variance(gs) / free - 1)).toBeGreaterThan(tol);
   }, 60_000);
 });
