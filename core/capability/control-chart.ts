@@ -15,12 +15,14 @@
  *   are integrated here, constants.ts, and checked against that table and SciPy in
  *   test/capability/control-constants.test.ts). The range uses only two values of each subgroup, so
  *   Montgomery advises the S chart beyond about 10 per subgroup.
- * A point beyond a limit (the first Western Electric rule) marks the process as not shown to be in
- * control; indices of an unstable process do not predict its future output.
+ * A point beyond a limit (the first Western Electric rule), or a run on the location panel completing
+ * Western Electric rules 2-4 (run-rules.ts), marks the process as not shown to be in control; indices
+ * of an unstable process do not predict its future output.
  */
 import { CompensatedSum } from '../compensated.js';
 import { InputError } from '../errors.js';
 import { c4, d2, d3 } from './constants.js';
+import { RUN_RULE_WORDS, RUN_RULES_SOURCE, runRuleSignals, type RunRule } from './run-rules.js';
 
 export interface ChartPoint {
   /** Time/order value or subgroup label. */
@@ -29,6 +31,8 @@ export interface ChartPoint {
   readonly lower: number;
   readonly upper: number;
   readonly beyond: 'above' | 'below' | null;
+  /** Location panel: the Western Electric run rules (2-4) this point completes; absent when none. */
+  readonly runRules?: readonly RunRule[];
 }
 
 export interface ChartPanel {
@@ -45,6 +49,9 @@ export interface StabilityChart {
   readonly sigma: number;
   readonly sigmaMethod: string;
   readonly pointsBeyond: number;
+  /** Location points that complete a run-rule signal (Western Electric rules 2-4). */
+  readonly runSignals: number;
+  /** No point beyond a limit and no run signal. */
   readonly stable: boolean;
   readonly orderFrom: 'order column' | 'row order' | 'subgroup column';
   /** The scale charted: 'original' or the transformation's name (set by the caller). */
@@ -75,16 +82,39 @@ export function rangeChartFactors(n: number): RangeChartFactors {
 export const D3_PAIR = Math.sqrt(2 * (1 - 2 / Math.PI));
 export const D4_PAIR = 1 + (3 * D3_PAIR) / d2(2);
 
-export const STABILITY_SOURCE = 'Montgomery, Introduction to Statistical Quality Control, ch. 6 (Shewhart charts, 3-sigma limits; constants c4, d2 computed exactly)';
+export const STABILITY_SOURCE = 'Montgomery, Introduction to Statistical Quality Control, ch. 6 (Shewhart charts, 3-sigma limits; constants c4, d2 computed exactly); run rules: Western Electric Statistical Quality Control Handbook (1956)';
 export const UNSTABLE_WARNING =
   'The chart shows points beyond its 3-sigma limits: the process is not shown to be stable, and capability indices of an unstable process do not predict its future output. Find and remove the special causes first.';
 
 const beyond = (v: number, lo: number, hi: number): ChartPoint['beyond'] => (v > hi ? 'above' : v < lo ? 'below' : null);
 
-function statement(n: number): string {
-  return n === 0
-    ? 'No point lies beyond the 3-sigma limits (the first Western Electric rule); the other run rules are not checked.'
-    : `${n} point(s) lie beyond the 3-sigma limits. ${UNSTABLE_WARNING}`;
+export const UNSTABLE_RUNS_WARNING =
+  'Runs of points signal a shift or trend (Western Electric rules 2-4): the process is not shown to be stable, and capability indices of an unstable process do not predict its future output. With all four rules an in-control chart gives a false signal about once in 92 points, so check the signalled stretch for a cause.';
+
+/** Attach the run rules (2-4) to the location points; the number of points that complete one. */
+function withRunRules(points: ChartPoint[], center: number, sigmas: readonly number[]): { points: ChartPoint[]; signals: number; rules: Set<RunRule> } {
+  const sig = runRuleSignals(points.map((p) => p.value), center, sigmas);
+  const rules = new Set<RunRule>();
+  let signals = 0;
+  const out = points.map((p, i) => {
+    const r = sig[i] as RunRule[];
+    if (r.length === 0) return p;
+    signals++;
+    for (const k of r) rules.add(k);
+    return { ...p, runRules: r };
+  });
+  return { points: out, signals, rules };
+}
+
+function statement(n: number, runs: { signals: number; rules: Set<RunRule> }, what: string): string {
+  if (n === 0 && runs.signals === 0) return `No point lies beyond the 3-sigma limits, and no run of ${what} signals (${RUN_RULES_SOURCE}).`;
+  const parts: string[] = [];
+  if (n > 0) parts.push(`${n} point(s) lie beyond the 3-sigma limits. ${UNSTABLE_WARNING}`);
+  if (runs.signals > 0) {
+    const words = [...runs.rules].sort().map((k) => `rule ${k}: ${RUN_RULE_WORDS[k]}`).join('; ');
+    parts.push(`${runs.signals} ${what} complete a run signal (${words}). ${n > 0 ? 'With all four rules an in-control chart gives a false signal about once in 92 points.' : UNSTABLE_RUNS_WARNING}`);
+  }
+  return parts.join(' ');
 }
 
 /** Individuals and moving-range chart of values in time order (sorted by `order` when given). */
@@ -112,16 +142,18 @@ export function individualsChart(values: ArrayLike<number>, order: ArrayLike<num
     dispersion.push({ label: labels[i] as number, value: v, lower: 0, upper: mrHi, beyond: beyond(v, 0, mrHi) });
   }
   const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  const runs = withRunRules(location, mean, location.map(() => sigma));
   return {
     kind: 'individuals and moving range',
-    location: { statistic: 'individual value', center: mean, points: location },
+    location: { statistic: 'individual value', center: mean, points: runs.points },
     dispersion: { statistic: 'moving range', center: mrBar, points: dispersion },
     sigma,
     sigmaMethod: `mean moving range / d2(2) = ${String(Number(mrBar.toPrecision(6)))} / ${d2(2).toFixed(6)}`,
     pointsBeyond: count,
-    stable: count === 0,
+    runSignals: runs.signals,
+    stable: count === 0 && runs.signals === 0,
     orderFrom: order ? 'order column' : 'row order',
-    statement: statement(count),
+    statement: statement(count, runs, 'values'),
     source: STABILITY_SOURCE,
   };
 }
@@ -161,16 +193,18 @@ export function subgroupChart(groups: readonly { readonly label: string | number
     return { label: g.label, value: g.s, lower: lo, upper: hi, beyond: beyond(g.s, lo, hi) };
   });
   const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  const runs = withRunRules(location, xbarbar, stats.map((g) => sigma / Math.sqrt(g.n)));
   return {
     kind: 'subgroup means and standard deviations',
-    location: { statistic: 'subgroup mean', center: xbarbar, points: location },
+    location: { statistic: 'subgroup mean', center: xbarbar, points: runs.points },
     dispersion: { statistic: 'subgroup standard deviation', center: sBar.value / stats.length, points: dispersion },
     sigma,
     sigmaMethod: 'mean of sᵢ / c4(nᵢ) over the subgroups',
     pointsBeyond: count,
-    stable: count === 0,
+    runSignals: runs.signals,
+    stable: count === 0 && runs.signals === 0,
     orderFrom: 'subgroup column',
-    statement: statement(count),
+    statement: statement(count, runs, 'subgroup means'),
     source: STABILITY_SOURCE,
   };
 }
@@ -220,19 +254,21 @@ export function subgroupRangeChart(groups: readonly { readonly label: string | n
     return { label: g.label, value: g.range, lower: lo, upper: hi, beyond: beyond(g.range, lo, hi) };
   });
   const count = [...location, ...dispersion].filter((p) => p.beyond !== null).length;
+  const runs = withRunRules(location, xbarbar, stats.map((g) => sigma / Math.sqrt(g.n)));
   const sizes = new Set(stats.map((g) => g.n));
   const equal = sizes.size === 1 ? (stats[0] as { n: number }).n : null;
   const large = Math.max(...sizes) > 10 ? ' Subgroups of more than 10: the S chart is the better one here (the range uses two values of each).' : '';
   return {
     kind: 'subgroup means and ranges',
-    location: { statistic: 'subgroup mean', center: xbarbar, points: location },
+    location: { statistic: 'subgroup mean', center: xbarbar, points: runs.points },
     dispersion: { statistic: 'subgroup range', center: rBar, points: dispersion },
     sigma,
     sigmaMethod: equal !== null ? `mean range / d2(${equal}) = ${String(Number(rBar.toPrecision(6)))} / ${d2(equal).toFixed(6)}` : 'mean of Rᵢ / d2(nᵢ) over the subgroups',
     pointsBeyond: count,
-    stable: count === 0,
+    runSignals: runs.signals,
+    stable: count === 0 && runs.signals === 0,
     orderFrom: 'subgroup column',
-    statement: statement(count) + large,
+    statement: statement(count, runs, 'subgroup means') + large,
     source: STABILITY_SOURCE.replace('constants c4, d2 computed exactly', 'constants c4, d2, d3 computed exactly; A2, D3, D4 from them'),
     ...(equal !== null ? { factors: rangeChartFactors(equal) } : {}),
   };
