@@ -24,7 +24,8 @@ import type { Rng } from '../random/index.js';
 import { Pearson3Distribution } from '../families/index.js';
 import { emaIterate, type EmaFit, type EmaRecord, type LogObservation } from './ema.js';
 import { emaDesign } from './ema-covariance.js';
-import { emaIntervals } from './ema-intervals.js';
+import { EMA_INTERVAL_METHOD, emaIntervals, type EmaIntervals } from './ema-intervals.js';
+import { isPlumblineError } from '../errors.js';
 
 export interface EmaBootstrapInterval {
   readonly lower: number | null;
@@ -94,7 +95,7 @@ function percentile(sorted: Float64Array, p: number): number {
 /** Return levels for the periods (years > 1) with their intervals; the bootstrap beside them when an rng is given. */
 export function emaReturnLevels(record: EmaRecord, fit: EmaFit, periods: readonly number[], opts: EmaIntervalOptions = {}): EmaReturnLevel[] {
   const confidence = opts.confidence ?? 0.9;
-  const main = emaIntervals(fit, emaDesign(record, fit), periods, confidence);
+  const main = intervalsOrNone(record, fit, periods, confidence);
   const boot = opts.rng ? bootstrapIntervals(record, fit, periods, confidence, opts.replicates ?? DEFAULT_EMA_REPLICATES, opts.rng) : null;
   return main.levels.map((l, i) => ({
     period: l.period,
@@ -105,6 +106,21 @@ export function emaReturnLevels(record: EmaRecord, fit: EmaFit, periods: readonl
     equivalentYears: l.equivalentYears,
     bootstrap: boot ? (boot[i] as EmaBootstrapInterval) : null,
   }));
+}
+
+/** The EMA-variance intervals; where the covariance cannot be computed (a singular design), none, saying why. */
+function intervalsOrNone(record: EmaRecord, fit: EmaFit, periods: readonly number[], confidence: number): EmaIntervals {
+  try {
+    return emaIntervals(fit, emaDesign(record, fit), periods, confidence);
+  } catch (e) {
+    if (!isPlumblineError(e)) throw e;
+    const d = new Pearson3Distribution(fit.parameters.mean, fit.parameters.sd, fit.parameters.skew);
+    return {
+      levels: periods.map((period) => ({ period, estimate: Math.pow(10, d.isf(1 / period)), lower: null, upper: null, varianceLog10: Number.NaN, equivalentYears: Number.NaN })),
+      effectiveRecordLength: Number.NaN,
+      method: `${EMA_INTERVAL_METHOD}: not computed for this record (${e.message.replace(/\.$/, '')})`,
+    };
+  }
 }
 
 /** Parametric-bootstrap percentile intervals of log10 Q_T (B replicates). */

@@ -168,3 +168,16 @@ describe('measured coverage of the EMA intervals (test/fixtures/flood-ema-ci-cov
     }
   }, 120_000);
 });
+
+describe('EMA intervals where the covariance cannot be computed', () => {
+  it('a design with no years (a record and fit that do not belong together) gives the estimates with no interval and says why, instead of failing the run', () => {
+    const fit = fitEma({ peaks: [412, 655, 1020, 388, 790, 2140, 560, 933], lowOutliers: 'none' });
+    const rl = emaReturnLevels({ peaks: [] }, fit, [10, 100], { confidence: 0.9 });
+    for (const r of rl) {
+      expect(r.estimate).toBeGreaterThan(0);
+      expect(r.lower).toBeNull();
+      expect(r.upper).toBeNull();
+      expect(r.method).toMatch(/not computed for this record \(the EMA covariance is singular/);
+    }
+  });
+});
