@@ -120,7 +120,7 @@ export function runCase(c: Case, index: number, R: number): Record<string, numbe
     const se = Math.sqrt(iv.varianceLog10);
     if (Math.abs(y - truth) <= z * se) wald++;
     widthSum += hi - lo;
-    nqSum += iv.equivalentYears;
+    nqSum += iv.equivalentYears ?? Number.NaN;
   }
   const row = {
     label: c.label,

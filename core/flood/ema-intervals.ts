@@ -43,8 +43,8 @@ export interface EmaQuantileInterval {
   readonly upper: number | null;
   /** First-order variance of the log10 quantile. */
   readonly varianceLog10: number;
-  /** n_q = (1 + K²/2) S²/Var: the years of a normal record giving the same variance. */
-  readonly equivalentYears: number;
+  /** n_q = (1 + K²/2) S²/Var: the years of a normal record giving the same variance (null where not computed). */
+  readonly equivalentYears: number | null;
 }
 
 export interface EmaIntervals {

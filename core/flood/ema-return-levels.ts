@@ -40,8 +40,8 @@ export interface EmaReturnLevel {
   readonly lower: number | null;
   readonly upper: number | null;
   readonly method: string;
-  /** Years of a normal record with the same quantile variance (ema-intervals.ts). */
-  readonly equivalentYears: number;
+  /** Years of a normal record with the same quantile variance (ema-intervals.ts; null where not computed). */
+  readonly equivalentYears: number | null;
   /** The parametric-bootstrap percentile interval beside it (null without an rng). */
   readonly bootstrap: EmaBootstrapInterval | null;
 }
@@ -116,7 +116,7 @@ function intervalsOrNone(record: EmaRecord, fit: EmaFit, periods: readonly numbe
     if (!isPlumblineError(e)) throw e;
     const d = new Pearson3Distribution(fit.parameters.mean, fit.parameters.sd, fit.parameters.skew);
     return {
-      levels: periods.map((period) => ({ period, estimate: Math.pow(10, d.isf(1 / period)), lower: null, upper: null, varianceLog10: Number.NaN, equivalentYears: Number.NaN })),
+      levels: periods.map((period) => ({ period, estimate: Math.pow(10, d.isf(1 / period)), lower: null, upper: null, varianceLog10: Number.NaN, equivalentYears: null })),
       effectiveRecordLength: Number.NaN,
       method: `${EMA_INTERVAL_METHOD}: not computed for this record (${e.message.replace(/\.$/, '')})`,
     };

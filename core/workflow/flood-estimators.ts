@@ -37,8 +37,8 @@ export interface EstimatorReturnLevel {
 }
 
 export interface EmaLevelRow extends EstimatorReturnLevel {
-  /** Years of a normal record with the same quantile variance (core/flood ema-intervals.ts). */
-  readonly equivalentYears: number;
+  /** Years of a normal record with the same quantile variance (core/flood ema-intervals.ts; null where not computed). */
+  readonly equivalentYears: number | null;
   /** The parametric-bootstrap percentile interval beside the reported one. */
   readonly bootstrapLower: number | null;
   readonly bootstrapUpper: number | null;
