@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { getFamily } from '../../core/families/index.js';
 import { buildLifeData, censoredAndersonDarling, censoredGofBootstrap, fitCensored, prepareLifeData } from '../../core/life/index.js';
 import { censoringDistribution } from '../../core/life/bootstrap.js';
+import { censoredReplicateDrawer } from '../../core/life/bootstrap-range.js';
+import { createRng } from '../../core/random/index.js';
 import { readFixture } from '../helpers/fixtures.js';
 
 const fx = readFixture('life.json');
@@ -34,6 +36,36 @@ describe('censored Anderson–Darling', () => {
     for (let i = 1; i <= n; i++) sum += (2 * i - 1) * (dist.logCdf(s[i - 1]!) + dist.logSf(s[n - i]!));
     expect(censoredAndersonDarling(dist, d)).toBeCloseTo(-n - sum / n, 11);
     expect(censoredAndersonDarling(dist, d)).toBeCloseTo(0.28443, 4); // references.md D1 gamma A²
+  });
+
+  it('censored data ending in a failure: the integral stops at the last observed time (brute-force quadrature of the definition)', () => {
+    // A² = n ∫₀^{F(τ)} (K(u) - u)²/(u(1 - u)) du with K the Kaplan–Meier estimate (Kaplan & Meier 1958)
+    // and τ the largest observed time; integrated here by the midpoint rule on t, independently of the closed form.
+    const times = [12.4, 15.1, 9.8, 22.7, 18.3, 11.6, 14.9, 27.5, 10.2, 13.7, 19.8, 8.9];
+    const failed = [1, 0, 1, 1, 0, 1, 1, 1, 0, 1, 1, 1]; // the largest time (27.5) is a failure
+    const d = prepareLifeData({ times, failed });
+    const dist = getFamily('weibull').make({ shape: 2.9, scale: 18.4 });
+    const K = (x: number): number => {
+      let S = 1;
+      for (let i = 0; i < d.n; i++) {
+        const ti = d.times[i] as number;
+        if (ti > x) break;
+        if (d.failed[i]) S *= 1 - 1 / (d.n - i);
+      }
+      return 1 - S;
+    };
+    let q = 0;
+    const steps = 400000;
+    const h = 27.5 / steps;
+    for (let j = 0; j < steps; j++) {
+      const x = (j + 0.5) * h;
+      const u = dist.cdf(x);
+      q += ((K(x) - u) ** 2 / (u * (1 - u))) * Math.exp(dist.logPdf(x)) * h;
+    }
+    expect(censoredAndersonDarling(dist, d)).toBeCloseTo(d.n * q, 3);
+    // So it does not matter whether the last unit failed or was suspended at τ (Pettitt & Stephens 1976 integrate the Type I A² to F(T) the same way).
+    const d2 = prepareLifeData({ times, failed: failed.map((x, i) => (i === 7 ? 0 : x)) });
+    expect(censoredAndersonDarling(dist, d2)).toBeCloseTo(censoredAndersonDarling(dist, d), 12);
   });
 
   it('the censoring distribution reproduces Type I censoring on the NIST set (all mass at 500 h)', () => {
@@ -71,19 +103,69 @@ describe('censored Anderson–Darling', () => {
 });
 
 describe('censored bootstrap: unrefittable replicates are counted, censoring by random censorship', () => {
-  it('2 failures among 15 units: every replicate counts (unrefittable ones as exceeding), so B stays 99', () => {
-    // Design from the issue: with only 2 failures many replicates have too few failures to refit;
-    // leaving them out made the p-value describe another design.
+  it('2 failures among 15 units, Type I at 500: every replicate keeps the 2 failures, so none is lost or unrefittable', () => {
+    // Design from the issue: drawn unconditionally, 15-39 of 99 replicates had fewer than 2 failures
+    // and could not be refitted. Conditional on r (Type I failures are an independent sample from the
+    // model truncated at the end of test; Lawless 2003 §2.2.2 [from memory]) each replicate has r = 2.
     const times = [120, 340, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500, 500];
     const failed = [1, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0];
     const data = prepareLifeData({ times, failed });
     const fit = fitCensored('weibull', data);
     if (!fit.ok) throw new Error('fit');
     const r = censoredGofBootstrap(fit, data, { replicates: 99, seed: 3 });
-    expect(r.failedReplicates).toBeGreaterThan(0);
+    expect(r.failedReplicates).toBe(0);
     expect(r.replicates).toBe(99);
-    expect(r.pValue).toBeGreaterThanOrEqual((1 + r.failedReplicates) / 100);
+    expect(r.pValue).toBeGreaterThanOrEqual(0.01);
     expect(r.method).toMatch(/counted as exceeding/);
+    expect(r.method).toMatch(/number of failures/);
+  });
+  it('Type I replicates: r failures from the model truncated at the end of test, the rest suspended there', () => {
+    // NIST e-Handbook §8.4.1.3 design (10 of 20 units running at 500 h); the truncated model's
+    // distribution function is F(t)/F(500) (Lawless 2003 §2.2.2 [from memory]).
+    const d = prepareLifeData({ times: fx.nist.times, failed: fx.nist.failed });
+    const params = { shape: 1.5, scale: 600 };
+    const dist = getFamily('weibull').make(params);
+    const draw = censoredReplicateDrawer('weibull', params, d);
+    const t = new Float64Array(d.n);
+    const f = new Uint8Array(d.n);
+    const probe = [100, 250, 400];
+    const below = probe.map(() => 0);
+    let total = 0;
+    for (let b = 0; b < 2000; b++) {
+      draw(createRng(11, b), t, f);
+      let r = 0;
+      for (let i = 0; i < d.n; i++) {
+        if (f[i]) {
+          r++;
+          total++;
+          expect(t[i]).toBeLessThanOrEqual(500);
+          probe.forEach((x, k) => {
+            if ((t[i] as number) <= x) below[k]!++;
+          });
+        } else expect(t[i]).toBe(500);
+      }
+      expect(r).toBe(d.failures);
+    }
+    const F500 = dist.cdf(500);
+    probe.forEach((x, k) => {
+      const expected = dist.cdf(x) / F500;
+      // 20,000 failure times: binomial SE below 0.0036; 5 SE allowed.
+      expect(Math.abs(below[k]! / total - expected)).toBeLessThan(0.018);
+    });
+  });
+  it('a complete sample gets complete replicates (nothing is censored at the largest value)', () => {
+    const d = prepareLifeData({ times: D1, failed: D1.map(() => 1) });
+    const draw = censoredReplicateDrawer('weibull', { shape: 2.92, scale: 18.42 }, d);
+    const t = new Float64Array(d.n);
+    const f = new Uint8Array(d.n);
+    let beyond = 0;
+    for (let b = 0; b < 200; b++) {
+      draw(createRng(5, b), t, f);
+      expect(Array.from(f).every((x) => x === 1)).toBe(true);
+      for (const x of t) if (x > d.maxTime) beyond++;
+    }
+    // P(X > 31.3) = exp(-(31.3/18.42)^2.92) ≈ 0.008 per value: about 32 of 4000 lie beyond the sample's largest value.
+    expect(beyond).toBeGreaterThan(5);
   });
   it('the Kaplan–Meier censoring distribution every replicate unit draws from has mass 1/8 at the first of staggered withdrawals', () => {
     // Efron (1981) random censorship: C ~ Ĝ independently of the lifetime; Ĝ here has atoms at the withdrawals.
