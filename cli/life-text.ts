@@ -61,7 +61,7 @@ export function lifeReportLines(r: RecordedLifeReport): string[] {
           ['model', 'A²', 'p', '± MC SE', 'B', 'unrefitted', 'decision'],
           tested.map((c) => {
             const g = c.goodnessOfFit!;
-            return [c.label, f(g.statistic, 4), f(g.pValue, 3), f(g.monteCarloError, 2), String(g.replicates), String(g.failedReplicates), c.rejected ? 'rejected' : 'not rejected'];
+            return [c.label, f(g.statistic, 4), f(g.pValue, 3), f(g.monteCarloError, 2), String(g.replicates), String(g.failedReplicates), c.rejected === null ? 'no decision (not size-calibrated)' : c.rejected ? 'rejected' : 'not rejected'];
           }),
         ),
         '',

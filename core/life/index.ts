@@ -28,8 +28,8 @@ export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, ty
 export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, INTERVAL_GOF_REPLICATES, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';
 export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type RecordedLifeExtrasOptions } from './interval-likelihood-extras.js';
 export { intervalAndersonDarling } from './interval-anderson-darling.js';
-export { fitsCommonSchedule, imputeInspections, inspectionScheme, inspectionSchemeText, observeUnit, type InspectionScheme, type InspectionSchemeKind } from './interval-inspection-scheme.js';
-export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, type IntervalGofOptions, type IntervalRangeOptions } from './interval-bootstrap.js';
+export { fitsCommonSchedule, imputeInspections, inspectionScheme, inspectionSchemeKind, inspectionSchemeText, observeUnit, type InspectionScheme, type InspectionSchemeKind } from './interval-inspection-scheme.js';
+export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, INTERVAL_GOF_SIZE, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
 export type { IntervalFitOptions } from './interval-likelihood-fit.js';
 export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './interval-rows-csv.js';
 export { weibayesInterval } from './weibayes-interval.js';

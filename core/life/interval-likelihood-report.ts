@@ -23,8 +23,7 @@ import { fitRankRegression, RANK_REGRESSION_REASON } from './rank-regression.js'
 import { turnbull, type TurnbullEstimate } from './turnbull.js';
 import { weibayes, type WeibayesResult } from './weibayes.js';
 import { weibayesInterval } from './weibayes-interval.js';
-import type { CensoredGofResult } from './bootstrap.js';
-import { INTERVAL_AD_METHOD, intervalGofBootstrap } from './interval-bootstrap.js';
+import { INTERVAL_AD_METHOD, intervalGofBootstrap, type IntervalGofResult } from './interval-bootstrap.js';
 import { inspectionSchemeText } from './interval-inspection-scheme.js';
 
 /** Default replicates of the inspection-scheme bootstrap: α(B + 1) whole at α = 0.05 and 0.01 (Monte Carlo SE of p near 0.05: 0.015). */
@@ -91,7 +90,7 @@ export interface RecordedLifeCandidate {
    * Anderson–Darling on the Turnbull estimate with its inspection-scheme bootstrap p-value (interval
    * rows, maximum likelihood only); null when not run (see `goodnessOfFitNote` of the report).
    */
-  readonly goodnessOfFit: CensoredGofResult | null;
+  readonly goodnessOfFit: IntervalGofResult | null;
   /** p ≤ α of the bootstrap (Monte Carlo exact size when α(B + 1) is whole); null when not run. */
   readonly rejected: boolean | null;
   readonly flags: readonly string[];
@@ -255,7 +254,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
       return b;
     });
     const gof = gofReplicates > 0 ? intervalGofBootstrap(name, f.parameters, data, { replicates: gofReplicates, seed: gofSeed(name) }) : null;
-    const rejected = gof ? gof.pValue <= alpha : null;
+    // Only a size-calibrated p-value decides (INTERVAL_GOF_SIZE); otherwise no verdict either way.
+    const rejected = gof && gof.sizeCalibrated ? gof.pValue <= alpha : null;
     if (gof && gof.failedReplicates > 0) w.push(`${gof.failedReplicates} of ${gof.replicates} bootstrap replicates could not be refitted and count as exceeding the observed A² (conservative).`);
     raw.push({
       family: name,
@@ -316,6 +316,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
   for (const c of tested) {
     if (c.rejected) warnings.push(`${c.label}: rejected at α = ${fmt(alpha)} by the inspection-scheme Anderson–Darling bootstrap (A² = ${fmt(c.goodnessOfFit!.statistic)}, p = ${fmt(c.goodnessOfFit!.pValue)}): its B-lives describe a model these data contradict.`);
   }
+  const uncalibrated = candidates.find((c) => c.goodnessOfFit && !c.goodnessOfFit.sizeCalibrated);
+  if (uncalibrated) warnings.push(`The inspection-scheme Anderson–Darling test is ${uncalibrated.goodnessOfFit!.sizeNote}; no model is rejected or supported by it here.`);
   if (tested.length > 0 && tested.every((c) => c.rejected)) warnings.push(`Every tested model is rejected at α = ${fmt(alpha)}: none describes these data well; the ranking only says which is least bad.`);
   const np = turnbull(data);
   let wb: WeibayesResult | null = null;

@@ -159,7 +159,8 @@ export interface LifeCandidateLike {
   readonly method: string;
   readonly iterations?: number;
   readonly converged: boolean;
-  readonly goodnessOfFit: CensoredGofResult | null;
+  /** The inspection-scheme test adds whether its size is calibrated (core/life IntervalGofResult). */
+  readonly goodnessOfFit: (CensoredGofResult & { readonly sizeCalibrated?: boolean; readonly sizeNote?: string }) | null;
   readonly bLives: readonly BLife[];
   readonly reliability: readonly ReliabilityAt[];
   readonly meanLife: number;
@@ -180,7 +181,9 @@ export function lifeCandidate(
   const { alpha } = ctx;
   const g = c.goodnessOfFit;
   const pValue = g?.pValue ?? Number.NaN;
-  const rejected = pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
+  // The inspection-scheme test decides only where its size was measured near α (core/life INTERVAL_GOF_SIZE).
+  const uncalibrated = g?.sizeCalibrated === false ? (g.sizeNote ?? 'not size-calibrated here') : null;
+  const rejected = uncalibrated === null && pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
   const p = `p = ${formatNumber(pValue)}`;
   const ad: AndersonDarlingReport = {
     statistic: g?.statistic ?? Number.NaN,
@@ -194,7 +197,10 @@ export function lifeCandidate(
     seed: ctx.seed,
     alpha,
     rejected,
-    decision: `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`,
+    decision:
+      uncalibrated !== null
+        ? `No decision: the test is ${uncalibrated}. Censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`
+        : `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`,
   };
   const rejectedBy = rejected ? (['anderson-darling'] as const) : ([] as const);
   return {

@@ -1,36 +1,58 @@
 /**
  * Size of the inspection-scheme Anderson–Darling bootstrap (core/life/interval-bootstrap.ts) from the
  * committed seeded simulation (scripts/life-interval-size.ts -> test/fixtures/life-interval-size.json):
- * the committed rates, and the first sample of each cell reproduced here.
+ * each cell's rate recomputed from its stored p-values; the cell whose scheme may decide (a common
+ * schedule) within 5 ± 1 points at α = 5 % (the issue's target; SE = √(0.05·0.95/samples)); the
+ * report's words (INTERVAL_GOF_SIZE) quoting these very counts, and a scheme marked as deciding only
+ * when its measured size is within 5 ± 1; the first sample of each cell reproduced here, so a change
+ * to the replicate scheme, the statistic or the refit shows as a changed p-value. Before the scheme
+ * was rebuilt (commit 818cb0e) the same cells gave 0.5 % and 0 % in 200 samples.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { INTERVAL_GOF_SIZE } from '../../core/life/index.js';
 import { sizePValue } from '../../scripts/life-interval-size.js';
 
+interface Cell {
+  scheme: 'case2' | 'periodic';
+  samples: number;
+  rejected: number;
+  size: number;
+  standardError: number;
+  firstPValues: number[];
+  pValues: (number | null)[];
+}
+
+/** The size study's designs and the scheme the bootstrap rebuilds for each (test/life/interval-inspection-scheme.test.ts). */
+const KIND = { periodic: 'common-schedule', case2: 'own-times' } as const;
+
 describe('size of the inspection-scheme bootstrap (scripts/life-interval-size.ts, committed seeded run)', () => {
-  const fx = JSON.parse(readFileSync(join(process.cwd(), 'test', 'fixtures', 'life-interval-size.json'), 'utf8')) as {
-    replicates: number;
-    cells: { scheme: 'case2' | 'periodic'; samples: number; rejected: number; size: number; standardError: number; firstPValues: number[] }[];
-  };
+  const fx = JSON.parse(readFileSync(join(process.cwd(), 'test', 'fixtures', 'life-interval-size.json'), 'utf8')) as { alpha: number; replicates: number; cells: Cell[] };
 
-  // Measured, not the nominal 5 %: in both designs the bootstrap rejects far less often than α (it is
-  // conservative). Under the case-2 design the replicates turn a suspension at V into one inspection at V
-  // (the unit's earlier inspection at U is not in its row), so they carry less information than the
-  // data; this is the likely cause and is left open (see core/life/interval-bootstrap.ts).
-  it('under each unit’s own two inspections (case 2) it is conservative: more than 2 SE below 5 %', () => {
-    const c = fx.cells.find((x) => x.scheme === 'case2')!;
-    expect(c.size).toBeCloseTo(c.rejected / c.samples, 12);
-    expect(c.size).toBeLessThan(0.05 - 2 * c.standardError);
-  });
+  for (const scheme of ['case2', 'periodic'] as const) {
+    it(`${scheme}: the rate is the stored p-values'; the report quotes it and lets the scheme decide only within 5 ± 1 points`, () => {
+      const c = fx.cells.find((x) => x.scheme === scheme)!;
+      const ok = c.pValues.filter((p): p is number => p !== null);
+      expect(ok.length).toBe(c.samples);
+      expect(ok.filter((p) => p <= fx.alpha).length).toBe(c.rejected);
+      expect(c.size).toBeCloseTo(c.rejected / c.samples, 12);
+      expect(c.standardError).toBeCloseTo(Math.sqrt((0.05 * 0.95) / c.samples), 12);
+      expect(c.samples).toBeGreaterThanOrEqual(1000);
+      const words = INTERVAL_GOF_SIZE[KIND[scheme]];
+      expect(words.text).toContain(`${c.rejected} of ${c.samples}`);
+      expect(words.text).toContain(`${(100 * c.size).toFixed(1)} %`);
+      expect(words.text).toContain(`SE ${(100 * c.standardError).toFixed(2)} points`);
+      expect(words.calibrated).toBe(Math.abs(c.size - 0.05) <= 0.01);
+    });
+  }
 
-  it('under a denser common schedule than the rows show it is conservative as well', () => {
+  it('the common schedule, which decides, is within 5 ± 1 points', () => {
     const c = fx.cells.find((x) => x.scheme === 'periodic')!;
-    expect(c.size).toBeCloseTo(c.rejected / c.samples, 12);
-    expect(c.size).toBeLessThan(0.05 - 2 * c.standardError);
+    expect(Math.abs(c.size - 0.05)).toBeLessThanOrEqual(0.01);
   });
 
   it('the committed run is reproduced: the first sample of each cell gives the same p-value', { timeout: 60_000 }, () => {
-    for (const c of fx.cells) expect(sizePValue(c.scheme, 0, fx.replicates)).toBe(c.firstPValues[0]);
+    for (const c of fx.cells) expect(sizePValue(c.scheme, 0, fx.replicates)).toBe(c.pValues[0]);
   });
 });

@@ -29,6 +29,8 @@ import {
   type TurnbullEstimate,
 } from '../../core/life/index.js';
 import type { Distribution } from '../../core/families/index.js';
+import { analyzeDataset } from '../../core/workflow/index.js';
+import { sizeSample } from '../../scripts/life-interval-size.js';
 
 // references.md, D1 set (SciPy): A² at the MLE, complete sample.
 const D1 = [12.4, 15.1, 9.8, 22.7, 18.3, 11.6, 14.9, 27.5, 10.2, 13.7, 19.8, 8.9, 16.4, 24.1, 12.9, 17.6, 14.2, 31.3, 11.1, 15.8];
@@ -139,7 +141,7 @@ describe('inspection-scheme bootstrap', () => {
   });
 
   it('p = (1 + exceed + unrefittable)/(1 + B), rejected only at p ≤ α', () => {
-    const r = intervalGofFromCounts(1.5, { start: 0, end: 19, completed: 19, valid: 18, exceed: 3, failed: 1, cancelled: false });
+    const r = intervalGofFromCounts(1.5, { start: 0, end: 19, completed: 19, valid: 18, exceed: 3, failed: 1, cancelled: false }, d);
     expect(r.pValue).toBeCloseTo(5 / 20, 15);
     expect(r.monteCarloError).toBeCloseTo(Math.sqrt((0.25 * 0.75) / 19), 15);
   });
@@ -149,6 +151,26 @@ describe('inspection-scheme bootstrap', () => {
     if (!e.ok) throw new Error(e.reason);
     expect(intervalGofBootstrap('exponential', e.parameters, d, { replicates: 99, seed: 3 }).pValue).toBeLessThanOrEqual(0.05);
     expect(intervalGofBootstrap('weibull', fit.parameters, d, { replicates: 99, seed: 3 }).pValue).toBeGreaterThan(0.05);
+  });
+
+  it('on rows that fit no common schedule the p-value decides nothing: no verdict, a warning, "No decision" in the dataset report (INTERVAL_GOF_SIZE)', () => {
+    // Case-2 rows: each unit at its own inspections (the size study's first case-2 sample).
+    const c2 = sizeSample('case2', 0);
+    const input = { start: Array.from(c2.lower), end: Array.from(c2.upper), counts: Array.from(c2.counts) };
+    const r = analyzeRecordedLife({ interval: input }, { families: ['weibull'], replicates: 19, seed: 5, mixture: false });
+    const w = r.candidates[0]!;
+    expect(w.goodnessOfFit!.scheme).toBe('own-times');
+    expect(w.goodnessOfFit!.sizeCalibrated).toBe(false);
+    expect(w.rejected).toBeNull();
+    expect(r.warnings.some((x) => /not size-calibrated/.test(x) && /decides nothing/.test(x))).toBe(true);
+    const ds = analyzeDataset({ interval: input }, { families: ['weibull'], bootstrapReplicates: 19 });
+    const ad = ds.candidates[0]!.andersonDarling as { rejected: boolean; decision: string };
+    expect(ad.rejected).toBe(false);
+    expect(ad.decision).toMatch(/^No decision: the test is not size-calibrated/);
+    // The valve demo fits one common schedule: its test decides.
+    const v = analyzeRecordedLife({ interval: { start: Array.from(d.lower), end: Array.from(d.upper), counts: Array.from(d.counts) } }, { families: ['weibull'], replicates: 19, seed: 5, mixture: false });
+    expect(v.candidates[0]!.goodnessOfFit!.sizeCalibrated).toBe(true);
+    expect(v.candidates[0]!.rejected).toBe(v.candidates[0]!.goodnessOfFit!.pValue <= 0.05);
   });
 
   it('the recorded-life report carries the test on interval rows, and says why not on exact failures with suspensions', () => {

@@ -62,7 +62,7 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
         head: ['Model', 'A²', 'p', 'Replicates', 'Verdict'],
         rows: tested.map((c) => {
           const g = c.goodnessOfFit!;
-          return [c.label, n(g.statistic), `${n(g.pValue, 3)} ± ${n(g.monteCarloError, 2)}`, String(g.replicates), c.rejected ? 'rejected: the data contradict it' : 'not rejected'];
+          return [c.label, n(g.statistic), `${n(g.pValue, 3)} ± ${n(g.monteCarloError, 2)}`, String(g.replicates), c.rejected === null ? 'no decision: test not size-calibrated for these rows' : c.rejected ? 'rejected: the data contradict it' : 'not rejected'];
         }),
       });
     } else if (r.goodnessOfFitNote) lines.push({ kind: 'note', text: `Goodness of fit: ${r.goodnessOfFitNote}.` });
