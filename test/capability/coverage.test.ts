@@ -162,7 +162,7 @@ describe('no tried rule calibrates the Johnson interval (committed runs)', () =>
       expect(run.samples).toBe(simulations);
     }
     expect(rules.sort()).toEqual(['double-boot-t', 'double-calibrated', 'double-percentile', 'smoothed-0-bc', 'smoothed-0-bca', 'smoothed-0-percentile', 'smoothed-0.5-bc', 'smoothed-0.5-bca', 'smoothed-0.5-percentile', 'smoothed-1-bc', 'smoothed-1-bca', 'smoothed-1-percentile']);
-    for (const [key, c] of cov) expect(c.samples, key).toBe(key.split(' ')[1]!.startsWith('double') ? 200 : 1000);
+    for (const [key, c] of cov) expect(c.samples, key).toBe(key.split(' ')[1]!.startsWith('double') ? 500 : 1000);
   });
   for (const rule of rules) {
     it(`${rule}: some index at n = 50 or 125 is more than 1.5 points from 95 %`, () => {
