@@ -281,6 +281,13 @@ function wire(): void {
     if (status) status.value = b.dataset['column'] ?? '0';
     settingsChanged(0);
   });
+  document.addEventListener('click', (ev) => {
+    const b = (ev.target as Element).closest<HTMLElement>('button.use-mode');
+    if (!b) return;
+    const mode = controlFor('modeColumn');
+    if (mode) mode.value = b.dataset['column'] ?? '0';
+    settingsChanged(0);
+  });
 
   // A role column changes what is analysed: run at once; typed values wait a moment for the next keystroke.
   for (const c of settingControls()) c.addEventListener('change', () => settingsChanged(isRoleControl(c) ? 0 : undefined, c));

@@ -9,7 +9,7 @@ import { blockNode, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { byId, clear, el } from './dom.js';
-import { noteCensoring, noteSeries, unusedStatusColumn } from './source-notes.js';
+import { noteCensoring, noteSeries, unusedModeColumn, unusedStatusColumn } from './source-notes.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
 import { capital, modelLabel } from './families.js';
 import { sig } from './format.js';
@@ -201,6 +201,17 @@ export function renderAnswer(st: PageState): void {
         {},
         `Column “${flag.label}” may mark units still running or removed unfailed, but every value of ${st.result?.column ?? 'the column'} is fitted here as a failure: the fits and every life taken from them are biased low. `,
         el('button', { type: 'button', className: 'btn small use-status', 'data-column': String(flag.index) }, `Use “${flag.label}” as the status column`),
+      ),
+    );
+  }
+  const mode = st.result ? unusedModeColumn(st) : undefined;
+  if (mode) {
+    cautions.append(
+      el(
+        'li',
+        {},
+        `Column “${mode.label}” may name the failure mode of each failed unit, but every failure is fitted here as one mode: a life set by one mechanism is mixed with the others'. `,
+        el('button', { type: 'button', className: 'btn small use-mode', 'data-column': String(mode.index) }, `Use “${mode.label}” as the failure-mode column`),
       ),
     );
   }

@@ -1,6 +1,7 @@
 /**
  * The notes beside the data about what the chosen columns leave out: a failed / still-running column
- * that is not used (every value then fitted as a failure), and a text column that splits the rows
+ * that is not used (every value then fitted as a failure), a failure-mode column that is not used
+ * (every failure then fitted as one mode), and a text column that splits the rows
  * into several series pooled into one sample.
  */
 import { seriesKeyColumn } from './columns.js';
@@ -17,6 +18,21 @@ export function unusedStatusColumn(st: PageState): { index: number; label: strin
   return flag && st.settings.statusColumn !== flag.index ? flag : undefined;
 }
 
+const MODE_NAME = /^(mode|failure[ _-]?mode|fail[ _-]?mode|mechanism|failure[ _-]?mechanism|cause|failure[ _-]?cause)$/i;
+
+/**
+ * With the status column in use, a column named like a failure mode (mode, failure mode, mechanism,
+ * cause) that is not used as the failure-mode column, or undefined. Names only: common practice, no
+ * source.
+ */
+export function unusedModeColumn(st: PageState): { index: number; label: string } | undefined {
+  const r = st.reading;
+  const status = st.settings.statusColumn;
+  if (r.shape !== 'values' || typeof status !== 'number' || status <= 0) return undefined;
+  const flag = r.columns.find((c) => c.index !== r.column && c.index !== status && MODE_NAME.test(c.label.trim()));
+  return flag && st.settings.modeColumn !== flag.index ? flag : undefined;
+}
+
 /**
  * A file with a status-like column probably marks some values as censored. Fitting every value as
  * observed biases a life estimate low, so say so and offer the column.
@@ -24,8 +40,15 @@ export function unusedStatusColumn(st: PageState): { index: number; label: strin
 export function noteCensoring(st: PageState): void {
   const note = $('column-note');
   const flag = unusedStatusColumn(st);
+  const mode = flag ? undefined : unusedModeColumn(st);
   clear(note);
-  note.hidden = !flag;
+  note.hidden = !flag && !mode;
+  if (mode) {
+    note.append(
+      `This file has a column “${mode.label}”, which may name the failure mode of each failed unit. Here every failure is fitted as one mode, which mixes mechanisms that wear out differently. `,
+      el('button', { type: 'button', className: 'btn small use-mode', id: 'use-mode', 'data-column': String(mode.index) }, `Use “${mode.label}” as the failure-mode column`),
+    );
+  }
   if (!flag) return;
   note.append(
     `This file has a column “${flag.label}”, which may mark censored values (units still running, specimens that did not fail). ` +

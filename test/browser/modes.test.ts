@@ -97,7 +97,7 @@ describe.skipIf(SKIP_BROWSER)('several failure modes on the page', () => {
     expect(problems).toEqual([]);
   });
 
-  it('another demo and back: nothing stale; clearing the mode role takes the section away', { timeout: 400_000 }, async () => {
+  it('another demo and back: nothing stale; clearing the mode role takes the section away and says so, with a button that applies it again', { timeout: 400_000 }, async () => {
     await page.click('#demo-list button[data-name="bearing-life"]');
     await waitForStatus(page, /^Done: .* 30 values of hours/, 200_000);
     expect(await page.locator('[data-block="modes"]').count()).toBe(0);
@@ -115,6 +115,16 @@ describe.skipIf(SKIP_BROWSER)('several failure modes on the page', () => {
     const pooled = (await page.locator('#headline').textContent()) ?? '';
     expect(pooled).toMatch(/^Decision number: B10 life under /);
     expect(pooled).not.toContain(UNIT_B10);
+    // The column left unused is said beside the answer and beside the data, with a button that applies it.
+    const said = (await page.locator('#answer-cautions').textContent()) ?? '';
+    expect(said).toContain('Column “mode” may name the failure mode of each failed unit, but every failure is fitted here as one mode');
+    expect((await page.locator('#column-note').textContent()) ?? '').toContain('which may name the failure mode of each failed unit');
+    await page.locator('#answer-cautions button.use-mode').click();
+    await page.locator('[data-block="modes"]').waitFor({ timeout: 200_000 });
+    await waitForStatus(page, /^Done: .* 120 values of hours/, 200_000);
+    expect((await page.locator('#headline').textContent()) ?? '').toContain(`B10 life of the whole unit, the 2 failure modes together: ${UNIT_B10} h`);
+    expect(await page.locator('#answer-cautions button.use-mode').count()).toBe(0);
+    expect(await page.locator('#column-note').isHidden()).toBe(true);
     expect(problems).toEqual([]);
   });
 
