@@ -66,6 +66,23 @@ describe('capability page section', () => {
   });
 });
 
+describe('capability page section: run rules', () => {
+  it('a shifted series with no point beyond the limits: the stability line warns, the folded table lists the points completing a run with the rule in words', () => {
+    // invented: a fast oscillation around 10, then the same around 10.15 (no point beyond 3 sigma)
+    const x = Array.from({ length: 42 }, (_, i) => (i >= 30 ? 10.15 : 10) + 0.1 * Math.sin(2.1 * i));
+    const rr = analyzeDataset({ values: x, order: x.map((_, i) => i + 1) }, { lsl: 9, usl: 11, families: ['normal'], capabilityReplicates: 19, seed: 1 });
+    const st = rr.capability!.stability!;
+    expect(st.pointsBeyond).toBe(0);
+    expect(st.runSignals).toBeGreaterThan(0);
+    const bb = capabilitySection({ report: rr, selected: undefined, units: '' })!;
+    expect(bb.lines.some((l) => l.kind === 'warning' && /^Stability \(individuals and moving range.*complete a run signal \(rule/.test(l.text))).toBe(true);
+    const table = bb.tables.find((t) => /^Points that signal/.test(t.caption))!;
+    expect(table.rows).toHaveLength(st.runSignals);
+    expect(table.rows.every((r) => /^rule [234]: /.test(r[4]!))).toBe(true);
+    expect(bb.answer).toMatch(/^Not yet answerable with confidence/);
+  });
+});
+
 describe('capability page section when no model passes', () => {
   it('no empty passing table; the rejected table is shown open, and the room to the limits says its model is rejected', () => {
     const rng = createRng(77, 0);

@@ -6,6 +6,7 @@
  * Every number names its model and the spread it uses. Pure: report in, block out.
  */
 import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
+import { RUN_RULE_WORDS } from '../../../core/capability/run-rules.js';
 import { capital, modelLabel } from '../families.js';
 import { sig } from '../format.js';
 import { testNames } from './test-words.js';
@@ -148,9 +149,17 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
       folded: true,
     });
   }
-  if (cap.stability && cap.stability.pointsBeyond > 0) {
-    const beyond = [...cap.stability.location.points.map((p) => ({ p, what: cap.stability!.location.statistic })), ...cap.stability.dispersion.points.map((p) => ({ p, what: cap.stability!.dispersion.statistic }))].filter((x) => x.p.beyond !== null);
-    tables.push({ caption: 'Points beyond the control limits.', head: ['At', 'Statistic', 'Value', 'Limits'], rows: beyond.map(({ p, what }) => [String(p.label), what, sig(p.value, 4), `${sig(p.lower, 4)} to ${sig(p.upper, 4)}`]), folded: true });
+  if (cap.stability && (cap.stability.pointsBeyond > 0 || (cap.stability.runSignals ?? 0) > 0)) {
+    // every point that signals: beyond a limit (rule 1) or completing a run (Western Electric rules 2-4)
+    const signalled = [...cap.stability.location.points.map((p) => ({ p, what: cap.stability!.location.statistic })), ...cap.stability.dispersion.points.map((p) => ({ p, what: cap.stability!.dispersion.statistic }))].filter((x) => x.p.beyond !== null || (x.p.runRules?.length ?? 0) > 0);
+    const why = (p: (typeof signalled)[number]['p']): string =>
+      [...(p.beyond ? [`beyond the ${p.beyond === 'above' ? 'upper' : 'lower'} limit`] : []), ...(p.runRules ?? []).map((k) => `rule ${k}: ${RUN_RULE_WORDS[k]}`)].join('; ');
+    tables.push({
+      caption: 'Points that signal: beyond the control limits, or completing a run (Western Electric rules 2-4, on the location chart).',
+      head: ['At', 'Statistic', 'Value', 'Limits', 'Signal'],
+      rows: signalled.map(({ p, what }) => [String(p.label), what, sig(p.value, 4), `${sig(p.lower, 4)} to ${sig(p.upper, 4)}`, why(p)]),
+      folded: true,
+    });
   }
   if (cap.resolution.warning) lines.push({ kind: 'warning', text: `Gauge resolution: ${cap.resolution.warning}` });
   for (const w of cap.warnings) if (w !== cap.resolution.warning && !w.startsWith('Stability:')) lines.push({ kind: 'warning', text: w });
