@@ -99,6 +99,13 @@ describe('the failure-modes section', () => {
     expect(block.charts).toEqual(['modes-reliability']);
   });
 
+  it('the life section (all failures pooled) says it pools the modes and points to this section; without a mode column it does not', () => {
+    const life = sectionBlocks({ report: REPORT, selected: REPORT.candidates[0], units: 'h' }).find((b) => b.id === 'life')!;
+    expect(life.lines[0]).toEqual({ kind: 'warning', text: 'Every failure is fitted here as one mode, whatever its cause (crack, leak); the life of the whole unit from each mode\'s own fit is under “Failure modes: which one limits life”.' });
+    const plain = sectionBlocks({ report: PLAIN, selected: PLAIN.candidates[0], units: 'h' }).find((b) => b.id === 'life')!;
+    expect(plain.lines.some((l) => /one mode/.test(l.text))).toBe(false);
+  });
+
   it('is printed in the exported report (escaped HTML with the same rows)', () => {
     const html = blockHtml(block, () => '<svg></svg>');
     expect(html).toContain('data-block="modes"');

@@ -10,6 +10,8 @@ export const lifeSection: SectionView = ({ report: r, selected: c, units: u }) =
     { kind: 'fact', text: `${life.units} units on test: ${life.failures} failed, ${life.suspensions} suspended (still running or removed unfailed, treated as right-censored).` },
     { kind: 'note', text: life.chiSquare.reason },
   ];
+  // With a failure-mode column these fits pool the modes; the whole unit's life by modes is the modes section's (views/modes.ts).
+  if (life.modes) lines.unshift({ kind: 'warning', text: `Every failure is fitted here as one mode, whatever its cause (${life.modes.modes.map((m) => m.mode).join(', ')}); the life of the whole unit from each mode's own fit is under “Failure modes: which one limits life”.` });
   const tables: BlockTable[] = [];
   let answer: string | undefined;
   if (c) {
