@@ -23,11 +23,12 @@ export { turnbull, TURNBULL_METHOD, type TurnbullEstimate, type TurnbullInterval
 export { weibayes, logExposure, type WeibayesOptions, type WeibayesResult } from './weibayes.js';
 export { planTest, binomialUnits, logBinomialCdf, type TestPlan, type TestPlanInput, type TestPlanRow } from './test-plan.js';
 export { analyzeModes, analyzeIntervalModes, systemQuantile, type IntervalModeInput, type ModeInput, type ModeOptions, type ModeResult, type ModeCandidate, type SystemResult, type CompetingModesReport } from './competing-modes.js';
-export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
+export { fitWeibullMixture, mixtureDistribution, mixtureLogLikelihood, mixtureLogLikelihoodOf, mixtureLogSf, mixtureQuantile, type WeibullMixtureFit, type WeibullMixtureOutcome, type WeibullMixtureParameters } from './mixture.js';
 export { fitRankRegression, RANK_REGRESSION_FAMILIES, RANK_REGRESSION_REASON, type RankRegressionFit, type RankRegressionOutcome, type RankRegressionFamily } from './rank-regression.js';
 export { analyzeRecordedLife, rightCensoredOf, SAFETY_CAUTION, INTERVAL_GOF_REPLICATES, type RecordedLifeInput, type RecordedLifeOptions, type RecordedLifeReport, type RecordedLifeCandidate, type LifeEstimation } from './interval-likelihood-report.js';
 export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type RecordedLifeExtrasOptions } from './interval-likelihood-extras.js';
 export { intervalAndersonDarling } from './interval-anderson-darling.js';
+export { mixtureBLife, MIXTURE_BOUND_METHOD } from './mixture-bounds.js';
 export { fitsCommonSchedule, imputeInspections, inspectionScheme, inspectionSchemeKind, inspectionSchemeText, observeUnit, type InspectionScheme, type InspectionSchemeKind } from './interval-inspection-scheme.js';
 export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, INTERVAL_GOF_SIZE, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
 export type { IntervalFitOptions } from './interval-likelihood-fit.js';

@@ -17,7 +17,8 @@ import { buildLifeData, type LifeData, type LifeInput } from './data.js';
 import { intervalInputFromTimes, prepareIntervalLifeData, type IntervalLifeData, type IntervalLifeInput } from './interval-likelihood-data.js';
 import { intervalLogLikelihoodOf } from './interval-likelihood.js';
 import { fitInterval } from './interval-likelihood-fit.js';
-import { fitWeibullMixture, mixtureDistribution, mixtureQuantile, type WeibullMixtureParameters } from './mixture.js';
+import { fitWeibullMixture, mixtureDistribution } from './mixture.js';
+import { mixtureBLife } from './mixture-bounds.js';
 import { LIFE_FAMILIES, lifeModel, type LifeFamilyName } from './models.js';
 import { fitRankRegression, RANK_REGRESSION_REASON } from './rank-regression.js';
 import { turnbull, type TurnbullEstimate } from './turnbull.js';
@@ -298,7 +299,7 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
           correlation: null,
           converged: m.converged,
           method: m.method,
-          bLives: percents.map((percent) => ({ percent, ...mixtureNoBounds(p, percent, confidence) })),
+          bLives: percents.map((percent) => mixtureBLife(m, rc, percent, confidence)),
           reliability: relTimes.map((time) => ({ time, estimate: md.sf(time), lower: Number.NaN, upper: Number.NaN, confidence, method: 'no bounds for the mixture (point value only)', boundsFound: false })),
           meanLife: md.mean(),
           curves: lifeCurves(md, grid),
@@ -360,7 +361,7 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
       topic: 'bounds',
       text:
         estimation === 'ml'
-          ? `${boundMethod === 'likelihood-ratio' ? 'likelihood-ratio (profile likelihood)' : 'Fisher-matrix'} bounds, two-sided ${fmt(100 * confidence)} %, on the full likelihood above; the mixture's numbers are point values`
+          ? `${boundMethod === 'likelihood-ratio' ? 'likelihood-ratio (profile likelihood)' : 'Fisher-matrix'} bounds, two-sided ${fmt(100 * confidence)} %, on the full likelihood above; the mixture's B-lives by the Fisher matrix (delta method on ln t_p) when its components are identified, its reliabilities point values`
           : 'no bounds: rank regression gives point values only',
       source: 'Meeker & Escobar 1998, §8.3–8.4',
     },
@@ -391,8 +392,4 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     cautions,
     methods,
   };
-}
-
-function mixtureNoBounds(p: WeibullMixtureParameters, percent: number, confidence: number) {
-  return { estimate: mixtureQuantile(p, percent / 100), lower: Number.NaN, upper: Number.NaN, confidence, method: 'no bounds for the mixture (point value only)', boundsFound: false };
 }

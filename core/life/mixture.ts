@@ -73,11 +73,21 @@ export function mixtureLogLikelihood(data: Pick<LifeData, 'groups'>, p: WeibullM
   return s;
 }
 
-function fromVector(v: ArrayLike<number>): WeibullMixtureParameters {
+/** The mixture log-likelihood as a function of [fraction, shape1, scale1, shape2, scale2] (-∞ outside the space). */
+export function mixtureLogLikelihoodOf(data: Pick<LifeData, 'groups'>): (v: Float64Array) => number {
+  return (v: Float64Array) => {
+    for (let i = 0; i < 5; i++) if (!Number.isFinite(v[i] as number)) return Number.NEGATIVE_INFINITY;
+    const p = fromVector(v);
+    if (!(p.fraction > 0 && p.fraction < 1 && p.shape1 > 0 && p.shape2 > 0 && p.scale1 > 0 && p.scale2 > 0)) return Number.NEGATIVE_INFINITY;
+    return mixtureLogLikelihood(data, p);
+  };
+}
+
+export function fromVector(v: ArrayLike<number>): WeibullMixtureParameters {
   return { fraction: v[0] as number, shape1: v[1] as number, scale1: v[2] as number, shape2: v[3] as number, scale2: v[4] as number };
 }
 
-function toVector(p: WeibullMixtureParameters): Float64Array {
+export function toVector(p: WeibullMixtureParameters): Float64Array {
   return Float64Array.from(NAMES.map((k) => p[k]));
 }
 
@@ -142,12 +152,7 @@ export function fitWeibullMixture(data: LifeData, opts: { readonly maxIterations
     if (r && (!best || r.ll > best.ll)) best = r;
   }
   if (!best) return { ok: false, family, reason: 'EM could not keep two subpopulations apart from any start (one emptied)' };
-  const ll = (v: Float64Array) => {
-    for (let i = 0; i < 5; i++) if (!Number.isFinite(v[i] as number)) return Number.NEGATIVE_INFINITY;
-    const p = fromVector(v);
-    if (!(p.fraction > 0 && p.fraction < 1 && p.shape1 > 0 && p.shape2 > 0 && p.scale1 > 0 && p.scale2 > 0)) return Number.NEGATIVE_INFINITY;
-    return mixtureLogLikelihood(data, p);
-  };
+  const ll = mixtureLogLikelihoodOf(data);
   const polished = maximize(ll, toVector(best.p), { transforms: TRANSFORMS, skipSimplex: true });
   let p = best.p;
   let value = best.ll;
