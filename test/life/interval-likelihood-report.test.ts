@@ -86,7 +86,9 @@ describe('analyzeRecordedLife: the report for life data as recorded', () => {
     expect(mix).toBeDefined();
     expect(mix!.identified).toBe(true);
     expect(mix!.rank).toBe(1);
-    expect(mix!.bLives[0]!.method).toMatch(/no bounds/);
+    // An identified mixture's B-lives carry Fisher-matrix bounds (mixture-bounds.ts; checked in mixture-bounds.test.ts).
+    expect(mix!.bLives[0]!.method).toMatch(/Fisher matrix/);
+    expect(mix!.bLives[0]!.lower).toBeLessThan(mix!.bLives[0]!.estimate);
   });
 
   it('time + status and the same data as interval rows give the same ML candidates', () => {
