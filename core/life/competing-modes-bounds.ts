@@ -107,6 +107,11 @@ export function systemBLife(modes: readonly FittedMode[], percent: number, confi
     modes.map((m) => getFamily(m.fit.family).make(m.fit.parameters)),
     p,
   );
-  const b = method === 'fisher-matrix' ? fisher(modes, p, estimate, confidence) : likelihoodRatio(modes, p, estimate, confidence);
+  let b: { lower: number; upper: number; found: boolean };
+  try {
+    b = method === 'fisher-matrix' ? fisher(modes, p, estimate, confidence) : likelihoodRatio(modes, p, estimate, confidence);
+  } catch {
+    b = { lower: Number.NaN, upper: Number.NaN, found: false }; // a profile that cannot be followed: no bound, said by boundsFound
+  }
   return { percent, estimate, lower: b.lower, upper: b.upper, confidence, method: method === 'fisher-matrix' ? FM_SYSTEM : LR_SYSTEM, boundsFound: b.found };
 }
