@@ -4,7 +4,8 @@
  * rejected models apart, the stability verdict from the subgroup column and the safety caution; the
  * exported HTML report carries the same section. The pump-seal-wear demo (invented, right-skewed,
  * 80 values) is then driven through the form's transform select and natural-lower-bound input (ids
- * from the option table, client/src/page-options.ts) at 1366 and 800 px.
+ * from the option table, client/src/page-options.ts) at 1366 and 800 px, and with the Johnson
+ * transform, whose interval is withheld.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -122,6 +123,19 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(800);
     await page.screenshot({ path: join(OUT, 'capability-boxcox-800x1000.png') });
     await page.setViewportSize({ width: 1366, height: 768 });
+    expect(problems).toEqual([]);
+  });
+
+  it('pump-seal wear with the Johnson transform: the indices without an interval and the warning saying why (core/capability/bootstrap.ts intervalWithheld)', { timeout: 240_000 }, async () => {
+    await setField('transform-select', 'johnson');
+    await page.waitForFunction(() => /No bootstrap interval under a Johnson curve/.test(document.querySelector('[data-block="capability"]')?.textContent ?? ''), null, { timeout: 120_000 });
+    const text = (await page.locator('[data-block="capability"]').textContent()) ?? '';
+    expect(text).toMatch(/Johnson S[UBL]/);
+    expect(text).toMatch(/its coverage could not be calibrated/);
+    expect(text).not.toMatch(/bootstrap interval [0-9.]+ to [0-9.]+/);
+    expect(text).toMatch(/safety-critical/);
+    await showBlock();
+    await page.screenshot({ path: join(OUT, 'capability-johnson-1366x768.png') });
     expect(problems).toEqual([]);
   });
 });
