@@ -30,7 +30,7 @@ export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type Record
 export { intervalAndersonDarling } from './interval-anderson-darling.js';
 export { mixtureBLife, MIXTURE_BOUND_METHOD } from './mixture-bounds.js';
 export { fitsCommonSchedule, imputeInspections, inspectionScheme, inspectionSchemeKind, inspectionSchemeText, observeUnit, type InspectionScheme, type InspectionSchemeKind } from './interval-inspection-scheme.js';
-export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, INTERVAL_GOF_SIZE, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
+export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, INTERVAL_GOF_SIZE, intervalGofJob, intervalJobData, runIntervalGofRange, type IntervalGofHook, type IntervalGofJob, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
 export type { IntervalFitOptions } from './interval-likelihood-fit.js';
 export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './interval-rows-csv.js';
 export { weibayesInterval } from './weibayes-interval.js';

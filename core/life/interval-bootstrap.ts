@@ -142,3 +142,36 @@ export function intervalGofBootstrap(family: LifeFamilyName, parameters: Paramet
   const observed = intervalStatistic(family, parameters, data);
   return intervalGofFromCounts(observed, runIntervalReplicates(family, parameters, data, observed, seed, 0, B), data);
 }
+
+/** A hook that gives the test's result for a fitted family (the default runs the whole bootstrap here; the pipeline records jobs). */
+export type IntervalGofHook = (family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, replicates: number, seed: number) => IntervalGofResult | null;
+
+/** The inspection-scheme bootstrap of one family as a job run by replicate range (core/workflow/pipeline.ts, the server's pool). */
+export interface IntervalGofJob {
+  readonly kind: 'interval';
+  readonly family: LifeFamilyName;
+  /** The fitted parameters (the model the replicates are drawn from, the refits' warm start and the gap weights). */
+  readonly parameters: Parameters;
+  /** The prepared rows (plain arrays, so the job crosses to a worker thread as it is). */
+  readonly rows: { readonly start: readonly number[]; readonly end: readonly number[]; readonly counts: readonly number[] };
+  readonly observed: number;
+  readonly seed: number;
+  readonly start: number;
+  readonly end: number;
+}
+
+/** The job of a family (replicates [0, replicates)). */
+export function intervalGofJob(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, replicates: number, seed: number): IntervalGofJob {
+  const observed = intervalStatistic(family, parameters, data);
+  return { kind: 'interval', family, parameters, rows: { start: Array.from(data.lower), end: Array.from(data.upper), counts: Array.from(data.counts) }, observed, seed, start: 0, end: replicates };
+}
+
+/** The job's rows as interval data again (already checked and merged: the same data). */
+export function intervalJobData(job: IntervalGofJob): IntervalLifeData {
+  return prepareIntervalLifeData({ start: job.rows.start, end: job.rows.end, counts: job.rows.counts }, { trusted: true });
+}
+
+/** Run replicates [job.start, job.end) of a job (pure). */
+export function runIntervalGofRange(job: IntervalGofJob, opts: IntervalRangeOptions = {}): BootstrapCounts {
+  return runIntervalReplicates(job.family, job.parameters, intervalJobData(job), job.observed, job.seed, job.start, job.end, opts);
+}

@@ -24,7 +24,7 @@ import { fitRankRegression, RANK_REGRESSION_REASON } from './rank-regression.js'
 import { turnbull, type TurnbullEstimate } from './turnbull.js';
 import { weibayes, type WeibayesResult } from './weibayes.js';
 import { weibayesInterval } from './weibayes-interval.js';
-import { INTERVAL_AD_METHOD, intervalGofBootstrap, type IntervalGofResult } from './interval-bootstrap.js';
+import { INTERVAL_AD_METHOD, intervalGofBootstrap, type IntervalGofHook, type IntervalGofResult } from './interval-bootstrap.js';
 import { inspectionSchemeText } from './interval-inspection-scheme.js';
 
 /** Default replicates of the inspection-scheme bootstrap: α(B + 1) whole at α = 0.05 and 0.01 (Monte Carlo SE of p near 0.05: 0.015). */
@@ -61,6 +61,8 @@ export interface RecordedLifeOptions {
   /** Try the two-subpopulation Weibull mixture (default true; needs exact failures and ≥ 10 of them). */
   readonly mixture?: boolean;
   readonly curvePoints?: number;
+  /** Where the inspection-scheme bootstrap runs (default: here, in one piece; core/workflow/pipeline.ts runs it as jobs). */
+  readonly goodnessOfFit?: IntervalGofHook;
 }
 
 export interface RecordedLifeCandidate {
@@ -254,7 +256,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
       else if (name === 'normal' && b.lower <= 0) w.push(`The lower bound of B${fmt(p)} under the normal model is ≤ 0, impossible for a life: the normal model puts probability on negative lives here.`);
       return b;
     });
-    const gof = gofReplicates > 0 ? intervalGofBootstrap(name, f.parameters, data, { replicates: gofReplicates, seed: gofSeed(name) }) : null;
+    const gofHook: IntervalGofHook = options.goodnessOfFit ?? ((fam, params, d, replicates, seed) => intervalGofBootstrap(fam, params, d, { replicates, seed }));
+    const gof = gofReplicates > 0 ? gofHook(name, f.parameters, data, gofReplicates, gofSeed(name)) : null;
     // Only a size-calibrated p-value decides (INTERVAL_GOF_SIZE); otherwise no verdict either way.
     const rejected = gof && gof.sizeCalibrated ? gof.pValue <= alpha : null;
     if (gof && gof.failedReplicates > 0) w.push(`${gof.failedReplicates} of ${gof.replicates} bootstrap replicates could not be refitted and count as exceeding the observed A² (conservative).`);

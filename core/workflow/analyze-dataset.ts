@@ -9,7 +9,7 @@
  */
 import { runPlanBootstrap, type AnalyzeOptions, type BootstrapRunner } from '../analyze.js';
 import { InputError, PlumblineError } from '../errors.js';
-import type { CensoredGofHook } from '../life/index.js';
+import type { CensoredGofHook, IntervalGofHook } from '../life/index.js';
 import { finishComplete, planComplete, type CompleteInput } from './complete.js';
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
@@ -22,7 +22,7 @@ import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, Gro
 /** What the data are and how they are analysed (also used by core/workflow/pipeline.ts). */
 export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
-  | { readonly kind: 'interval'; readonly run: () => DatasetReport }
+  | { readonly kind: 'interval'; readonly run: (goodnessOfFit?: IntervalGofHook) => DatasetReport }
   | { readonly kind: 'pot'; readonly run: () => DatasetReport }
   | { readonly kind: 'life'; readonly run: (goodnessOfFit?: CensoredGofHook) => DatasetReport; readonly times: ArrayLike<number>; readonly status: ArrayLike<number> }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
@@ -37,7 +37,10 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
     }
     const rows = input.interval;
     const modes = input.modes ?? null;
-    return { kind: 'interval', run: () => (modes ? withIntervalModes(intervalLifeReport(rows, options, settings), rows, modes, options, settings) : intervalLifeReport(rows, options, settings)) };
+    return {
+      kind: 'interval',
+      run: (gof?: IntervalGofHook) => (modes ? withIntervalModes(intervalLifeReport(rows, options, settings, gof), rows, modes, options, settings) : intervalLifeReport(rows, options, settings, gof)),
+    };
   }
   if (input.dates) {
     if (input.status || input.grouped || input.subgroups || input.order || options.trend) {

@@ -7,7 +7,7 @@
  * (life.ts): the fits are the ranked candidates (chi-square not computable, A² by the bootstrap),
  * the life section carries no failure points (a unit's failure time is known only to its interval)
  * and the recorded-life extras (`life.recorded`: the Turnbull boxes and the goodness-of-fit table).
- * The bootstrap runs here, in the planning step (bounded by server/limits.ts), not by range on workers.
+ * The bootstrap runs in process by default, or as one job per family on the worker pool (core/workflow/pipeline.ts).
  */
 import { PLUMBLINE_VERSION, resolveOptions } from '../analyze.js';
 import { InputError } from '../errors.js';
@@ -18,6 +18,7 @@ import {
   LIFE_FAMILIES,
   planTest,
   prepareIntervalLifeData,
+  type IntervalGofHook,
   type IntervalLifeInput,
   type LifeFamilyName,
 } from '../life/index.js';
@@ -32,7 +33,8 @@ import type { DatasetCandidate, DatasetOptions, DatasetReport, LifeSection } fro
 export const NO_POINTS_WITH_INTERVALS =
   'none: with interval rows a unit’s failure time is known only to its inspection interval, so no failure is drawn as a point; the nonparametric estimate is drawn as Turnbull boxes (recorded-life section), which reduce to Kaplan–Meier steps for exact times';
 
-export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOptions, settings: WorkflowSettings): DatasetReport {
+/** `goodnessOfFit`: where the inspection-scheme bootstrap runs (default in-process; core/workflow/pipeline.ts runs it as jobs). */
+export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOptions, settings: WorkflowSettings, goodnessOfFit?: IntervalGofHook): DatasetReport {
   if (settings.returnPeriods !== null) throw new InputError('Return periods need a complete sample of annual maxima, not interval rows of life data.', {}, 'bad-option');
   if (settings.capability) throw new InputError('Capability needs a complete sample of measurements, not interval rows of life data.', {}, 'bad-option');
   const families = (options.families ?? LIFE_FAMILIES) as readonly string[];
@@ -60,6 +62,7 @@ export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOpti
       replicates,
       seed: opts.seed,
       alpha: opts.alpha,
+      ...(goodnessOfFit ? { goodnessOfFit } : {}),
     },
   );
   const plan =

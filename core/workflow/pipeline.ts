@@ -11,14 +11,32 @@
  *  - censored life data: the fits and bounds at planning, the censored Anderson–Darling bootstrap
  *    as one job per family (core/life/bootstrap-range.ts), the report from their counts;
  *  - capability: the percentile indices' bootstrap interval as jobs beside the complete sample's
- *    (capability-jobs.ts), each job's result its replicate values instead of counts.
+ *    (capability-jobs.ts), each job's result its replicate values instead of counts;
+ *  - interval rows of life data: the fits and bounds at planning, the inspection-scheme
+ *    Anderson–Darling bootstrap as one job per family (core/life/interval-bootstrap.ts), the report
+ *    from their counts.
  */
 import { PlumblineError } from '../errors.js';
 import { getFamily } from '../families/index.js';
 import { combineBootstrapCounts, runBootstrapRange, type BootstrapCounts, type BootstrapJob, type BootstrapRunOptions } from '../gof/index.js';
 import type { CapabilityBootstrapValues } from '../capability/index.js';
 import { capabilityLookup, combineCapabilityBootstrap, planCapabilityJobs, runCapabilityJob, type CapabilityJob } from './capability-jobs.js';
-import { censoredAndersonDarling, censoredGofFromCounts, INTERVAL_GOF_REPLICATES, LIFE_FAMILIES, runCensoredGofRange, type CensoredGofJob, type CensoredGofResult, type LifeFamilyName } from '../life/index.js';
+import {
+  censoredAndersonDarling,
+  censoredGofFromCounts,
+  intervalGofFromCounts,
+  intervalGofJob,
+  intervalJobData,
+  INTERVAL_GOF_REPLICATES,
+  LIFE_FAMILIES,
+  runCensoredGofRange,
+  runIntervalGofRange,
+  type CensoredGofJob,
+  type CensoredGofResult,
+  type IntervalGofJob,
+  type IntervalGofResult,
+  type LifeFamilyName,
+} from '../life/index.js';
 import { route } from './analyze-dataset.js';
 import { finishComplete, planComplete, type CompletePlan } from './complete.js';
 import { DEFAULT_LIFE_REPLICATES } from './life.js';
@@ -26,7 +44,7 @@ import { workflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport } from './types.js';
 
 /** One full-range job [0, B) of any bootstrap; ranges of it are `{ ...job, start, end }`. */
-export type DatasetJob = BootstrapJob | CensoredGofJob | CapabilityJob;
+export type DatasetJob = BootstrapJob | CensoredGofJob | IntervalGofJob | CapabilityJob;
 
 /** What a job's range gives: counts (the goodness-of-fit bootstraps) or replicate values (capability). */
 export type DatasetJobResult = BootstrapCounts | CapabilityBootstrapValues;
@@ -51,12 +69,15 @@ export type DatasetPlan =
    */
   | { readonly kind: 'complete'; readonly plan: CompletePlan; readonly jobs: readonly (BootstrapJob | CapabilityJob)[]; readonly capabilityJobs: readonly CapabilityJob[] }
   /** Censored life data: run `jobs` (one censored range [0, B) per fitted family), then finish. */
-  | { readonly kind: 'life'; readonly jobs: readonly CensoredGofJob[]; readonly report: (results: ReadonlyMap<LifeFamilyName, CensoredGofResult>) => DatasetReport };
+  | { readonly kind: 'life'; readonly jobs: readonly CensoredGofJob[]; readonly report: (results: ReadonlyMap<LifeFamilyName, CensoredGofResult>) => DatasetReport }
+  /** Interval rows of life data: run `jobs` (one inspection-scheme range [0, B) per fitted family), then finish. */
+  | { readonly kind: 'interval'; readonly jobs: readonly IntervalGofJob[]; readonly report: (results: ReadonlyMap<LifeFamilyName, IntervalGofResult>) => DatasetReport };
 
 /** Run replicates [job.start, job.end) of any kind of job (pure: same job, same result). */
 export function runDatasetJob<J extends DatasetJob>(job: J, opts: BootstrapRunOptions = {}): DatasetJobResultOf<J> {
   const j: DatasetJob = job;
   if (isCapabilityJob(j)) return runCapabilityJob(j, opts) as DatasetJobResultOf<J>;
+  if ('kind' in j && j.kind === 'interval') return runIntervalGofRange(j, opts) as DatasetJobResultOf<J>;
   return ('kind' in j && j.kind === 'censored' ? runCensoredGofRange(j, opts) : runBootstrapRange(j as BootstrapJob, opts)) as DatasetJobResultOf<J>;
 }
 
@@ -82,6 +103,7 @@ export function splitDatasetJob<J extends DatasetJob>(job: J, parts: number): J[
 
 /** Sampled values one job draws per replicate (its n). */
 export function jobSampleSize(job: DatasetJob): number {
+  if ('kind' in job && job.kind === 'interval') return job.rows.counts.reduce((a, c) => a + c, 0);
   return 'kind' in job && job.kind === 'censored' ? job.times.length : (job as BootstrapJob | CapabilityJob).n;
 }
 
@@ -89,7 +111,18 @@ export function jobSampleSize(job: DatasetJob): number {
 export function planDataset(input: DatasetInput, options: DatasetOptions = {}): DatasetPlan {
   const settings = workflowSettings(options);
   const r = route(input, options, settings);
-  if (r.kind === 'grouped' || r.kind === 'interval' || r.kind === 'pot') return { kind: 'done', report: r.run() };
+  if (r.kind === 'grouped' || r.kind === 'pot') return { kind: 'done', report: r.run() };
+  if (r.kind === 'interval') {
+    const jobs: IntervalGofJob[] = [];
+    // As for the status column: the fits and bounds run here once to learn each family's job; the
+    // report is made again with the results (same deterministic fits).
+    const first = r.run((family, parameters, data, replicates, seed) => {
+      jobs.push(intervalGofJob(family, parameters, data, replicates, seed));
+      return null;
+    });
+    if (jobs.length === 0) return { kind: 'done', report: first };
+    return { kind: 'interval', jobs, report: (results) => r.run((family) => results.get(family) ?? null) };
+  }
   if (r.kind === 'life') {
     const times = Array.from(r.times);
     const failed = Array.from(r.status);
@@ -128,6 +161,15 @@ export function finishDataset(plan: Exclude<DatasetPlan, { kind: 'done' }>, coun
     const cap = counts.slice(k);
     if (fit.some(isCapabilityResult) || !cap.every(isCapabilityResult)) throw new PlumblineError('not-computable', 'The bootstrap results do not match the plan\'s jobs.');
     return finishComplete(plan.plan, fit as BootstrapCounts[], capabilityLookup(plan.capabilityJobs, cap as CapabilityBootstrapValues[]));
+  }
+  if (plan.kind === 'interval') {
+    const results = new Map<LifeFamilyName, IntervalGofResult>();
+    plan.jobs.forEach((job, i) => {
+      const c = counts[i];
+      if (c === undefined || isCapabilityResult(c)) throw new PlumblineError('not-computable', `No inspection-scheme bootstrap counts for ${job.family}.`);
+      results.set(job.family, intervalGofFromCounts(job.observed, c, intervalJobData(job)));
+    });
+    return plan.report(results);
   }
   const results = new Map<LifeFamilyName, CensoredGofResult>();
   plan.jobs.forEach((job, i) => {

@@ -1,12 +1,12 @@
 /**
  * Interval rows through the JSON API (server/validate.ts parseAnalyzeBody → server/analysis.ts
- * planRequest/finishRequest → core/workflow/life-interval.ts): the same fits as the CLI, checked
+ * planRequest → the inspection-scheme jobs → finishRequest → core/workflow/life-interval.ts): the same fits as the CLI, checked
  * against SciPy CensoredData refined by mpmath (scripts/fixtures/life-interval.py); the option
  * table's rules (interval columns with csv only, two of them, not with a status column; the count
  * column only with them); the bounded bootstrap work (server/limits.ts); the report's frame.
  */
 import { describe, expect, it } from 'vitest';
-import { analyzeDataset, analyzeRecordedLife, type DatasetReport, type InputSummary } from '../../core/index.js';
+import { analyzeDataset, analyzeRecordedLife, runDatasetJob, type DatasetReport, type InputSummary } from '../../core/index.js';
 import { finishRequest, planRequest } from '../../server/analysis.js';
 import { parseAnalyzeBody } from '../../server/validate.js';
 import { readFixture, rel } from '../helpers/fixtures.js';
@@ -16,10 +16,12 @@ const s = fx.inspection;
 // Empty cells: "before the first inspection" (start) and "still running" (end).
 const CSV = ['start,end,units', ...s.start.map((a: number, i: number) => `${a === 0 ? '' : a},${s.end[i] === null ? '' : s.end[i]},${s.count[i]}`)].join('\n') + '\n';
 
+/** As the server does it: plan, run each inspection-scheme job (one per family; here in one range each), finish. */
 function analyze(body: Record<string, unknown>) {
   const planned = planRequest(parseAnalyzeBody(body));
-  if (planned.plan.kind !== 'done') throw new Error('interval rows are analysed at planning');
-  return finishRequest(planned, []) as DatasetReport & { readonly input: InputSummary };
+  if (planned.plan.kind === 'done') throw new Error('interval rows with a bootstrap plan jobs');
+  if (planned.plan.kind !== 'interval') throw new Error(`expected an interval plan, got ${planned.plan.kind}`);
+  return finishRequest(planned, planned.plan.jobs.map((j) => runDatasetJob(j))) as DatasetReport & { readonly input: InputSummary };
 }
 
 describe('interval rows through the API', () => {
