@@ -5,12 +5,9 @@ import { capability, d2, subgroupRangeChart } from '../../core/capability/index.
  * A published worked example with its data: the hard-bake process of Montgomery, Introduction to
  * Statistical Quality Control (Table 6.1, "Flow Width Measurements (microns) for the Hard-Bake
  * Process": 25 hourly subgroups of 5 wafers, specification 1.50 ± 0.50 microns).
- * Read from public copies of the table, not from the book:
- *  - rows 1-17 with each row's x̄ᵢ and Rᵢ: https://www.transtutors.com/questions/a-hard-bake-process-see-section-5-3-1-is-used-in-conjunction-with-photolithography-i-686288.htm
- *  - rows 18-25, every Rᵢ, the totals Σx̄ᵢ = 37.6400, ΣRᵢ = 8.1302 and x̄̄ = 1.5056, R̄ = 0.32521:
- *    https://askfilo.com/user-question-answers-smart-solutions/v-draw-a-a-ask-copilot-flow-width-measurements-microns-for-3335303530323731
- *  - the specification 1.50 ± 0.50 microns: the same askfilo page and
- *    https://quesba.com/questions/1-a-hard-bake-process-is-used-in-conjunction-with-photolithography-in-semic-162792
+ * Transcribed from reproductions of the table found on the web, not from a printed copy of the book
+ * (not verified against the book): the 25 rows with each row's printed x̄ᵢ and Rᵢ, the totals
+ * Σx̄ᵢ = 37.6400, ΣRᵢ = 8.1302, x̄̄ = 1.5056, R̄ = 0.32521, and the specification 1.50 ± 0.50 microns.
  * The printed x̄ᵢ and Rᵢ of every row check the transcription below: a change of 0.001 in any value
  * moves its row mean by 0.0002 and fails; a change in the 4th decimal of a value that is neither the
  * row's largest nor smallest is below the printed precision and is not caught.
