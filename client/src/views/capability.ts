@@ -164,7 +164,8 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   if (cap.resolution.warning) lines.push({ kind: 'warning', text: `Gauge resolution: ${cap.resolution.warning}` });
   for (const w of cap.warnings) if (w !== cap.resolution.warning && !w.startsWith('Stability:')) lines.push({ kind: 'warning', text: w });
   for (const k of cap.cautions) lines.push({ kind: 'caution', text: k });
-  lines.push({ kind: 'caution', text: 'For a safety-critical characteristic, act on the lower interval end, not the estimate; 0.135 % and ppm figures rest on the model far beyond most samples, so confirm conformance by inspection and follow the governing standard, customer requirements and licensed practice.' });
+  // The core's caution (CAPABILITY_CAUTION) already says: decide on the lower bound, inspect, follow the standard. Added here only what it does not say.
+  lines.push({ kind: 'caution', text: 'The 0.135 % points and the ppm figures rest on the model far beyond most samples: they say what the model implies, not what was measured; licensed practice decides what a safety-critical characteristic needs.' });
   return {
     id: 'capability',
     title: 'Can it meet the tolerance?',
