@@ -8,7 +8,8 @@
  * The figures were measured on this machine's core (one worker thread, Node 20; common practice,
  * no source): grouped maximum likelihood ≈ 0.9 ms per class for the five default families
  * (1000 classes ≈ 1 s; 10^5 classes took 56 s); the complete-sample bootstrap ≈ 1.4 µs per sampled
- * value with its refit; the censored bootstrap ≈ 11 µs per sampled value (a censored refit each).
+ * value with its refit; the censored bootstrap ≈ 11 µs per sampled value (a censored refit each);
+ * the failure modes ≈ 13.5 µs per mode × unit × family (each mode's censored fits and bounds).
  */
 import { censoredBootstrapWork, DEFAULT_LIFE_REPLICATES, INTERVAL_GOF_REPLICATES, type BootstrapJob, type DatasetInput, type DatasetOptions } from '../core/index.js';
 import { HttpError } from './errors.js';
@@ -22,6 +23,10 @@ export const REQUEST_LIMITS = {
   bootstrapValues: 50_000_000,
   /** Censored bootstrap of life data: replicates × units × families (≈ 55 s on one core). */
   censoredBootstrapValues: 5_000_000,
+  /** Distinct failure modes (a column with more labels than this is rarely a mode column: unit ids, dates). */
+  failureModes: 20,
+  /** Failure modes: modes × units × families, each mode's fits and bounds over every unit (≈ 13.5 µs each: 20 modes × 2000 units × 5 families took 2.7 CPU s; ≈ 27 s at the limit). */
+  modeFitValues: 2_000_000,
 } as const;
 
 const fmt = (x: number): string => x.toLocaleString('en-US');
@@ -42,6 +47,23 @@ export function checkDatasetSize(dataset: DatasetInput, options: DatasetOptions,
       field: 'values',
       code: 'too-much-work',
     });
+  }
+  if (dataset.modes) {
+    const modes = new Set(dataset.modes.filter((m): m is string => m !== null)).size;
+    const families = options.families?.length ?? 5;
+    if (modes > limits.failureModes) {
+      throw new HttpError(422, `Too many failure modes: ${fmt(modes)} different labels in the failure-mode column; the server fits at most ${fmt(limits.failureModes)}. Merge related modes, or check that the column names modes.`, {
+        field: 'modeColumn',
+        code: 'too-much-work',
+      });
+    }
+    if (modes * n * families > limits.modeFitValues) {
+      throw new HttpError(
+        422,
+        `The failure modes asked for are too much work: modes × units × families = ${fmt(modes * n * families)}; the server's limit is ${fmt(limits.modeFitValues)}. Use fewer families or merge related modes, or use the command line.`,
+        { field: 'modeColumn', code: 'too-much-work' },
+      );
+    }
   }
   const censored = censoredBootstrapWork(dataset, options);
   if (censored > limits.censoredBootstrapValues) {

@@ -13,6 +13,7 @@ import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
 import { runRecordedLife } from '../../cli/life-recorded.js';
 import { readFailureModes } from '../../core/index.js';
 import { DEMO_SETTINGS } from '../../server/demo.js';
+import { checkDatasetSize, REQUEST_LIMITS } from '../../server/limits.js';
 import { readFixture } from '../helpers/fixtures.js';
 import { testApp } from './helpers.js';
 
@@ -148,6 +149,30 @@ describe('failure modes through the API', () => {
     const missing = await request(app).post('/api/analyze').send({ ...body, modeColumn: 'nope' });
     expect(missing.status).toBe(400);
     expect(missing.body.error.message).toMatch(/nope/);
+  });
+});
+
+describe('the work of failure modes is bounded (server/limits.ts)', () => {
+  // Invented labels and times; the limits are the server's choice (common practice, no source).
+  const data = (modes: number, units: number) => ({
+    values: Array.from({ length: units }, (_, i) => 100 + i),
+    status: Array.from({ length: units }, (_, i) => (i < 2 * modes ? 1 : 0)),
+    modes: Array.from({ length: units }, (_, i) => (i < 2 * modes ? `m${i % modes}` : null)),
+  });
+  it('at most 20 distinct modes, and modes × units × families at most 2,000,000: the boundaries exactly', () => {
+    expect(REQUEST_LIMITS.failureModes).toBe(20);
+    expect(() => checkDatasetSize(data(20, 100), { families: ['exponential'] })).not.toThrow();
+    expect(() => checkDatasetSize(data(21, 100), { families: ['exponential'] })).toThrow(/^Too many failure modes: 21 different labels in the failure-mode column; the server fits at most 20/);
+    expect(() => checkDatasetSize(data(20, 100_000), { families: ['exponential'], bootstrapReplicates: 19 })).not.toThrow(); // 2,000,000
+    expect(() => checkDatasetSize(data(20, 100_001), { families: ['exponential'], bootstrapReplicates: 19 })).toThrow(/^The failure modes asked for are too much work: modes × units × families = 2,000,020; the server's limit is 2,000,000/);
+    // Five families (the default) count five times.
+    expect(() => checkDatasetSize(data(4, 100_001), { bootstrapReplicates: 1 })).toThrow(/= 2,000,020;/);
+  });
+  it('through the API: a 422 naming modeColumn before any fit', async () => {
+    const rows = ['t,status,mode', ...Array.from({ length: 42 }, (_, i) => `${100 + i},1,m${i % 21}`)];
+    const many = await request(app).post('/api/analyze').send({ csv: rows.join('\n'), column: 't', statusColumn: 'status', modeColumn: 'mode' });
+    expect(many.status).toBe(422);
+    expect(many.body.error).toMatchObject({ field: 'modeColumn', code: 'too-much-work' });
   });
 });
 
