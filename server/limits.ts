@@ -27,6 +27,12 @@ export const REQUEST_LIMITS = {
   failureModes: 20,
   /** Failure modes: modes × units × families, each mode's fits and bounds over every unit (≈ 13.5 µs each: 20 modes × 2000 units × 5 families took 2.7 CPU s; ≈ 27 s at the limit). */
   modeFitValues: 2_000_000,
+  /**
+   * Failure modes: modes³ × units, the system B-life bounds (a profile over every mode's parameters
+   * at once; measured ≈ 45-51 µs per mode³·unit at 3, 5 and 8 modes × 2000 units and 3 modes × 8000
+   * units: 8 modes × 2000 units took 52 CPU s); ≈ 30 s at the limit.
+   */
+  modeSystemValues: 600_000,
 } as const;
 
 const fmt = (x: number): string => x.toLocaleString('en-US');
@@ -56,6 +62,14 @@ export function checkDatasetSize(dataset: DatasetInput, options: DatasetOptions,
         field: 'modeColumn',
         code: 'too-much-work',
       });
+    }
+    if (modes ** 3 * n > limits.modeSystemValues) {
+      const most = Math.floor(limits.modeSystemValues / modes ** 3);
+      throw new HttpError(
+        422,
+        `The failure modes asked for are too much work: the bounds of the whole unit's B-lives cost modes³ × units = ${fmt(modes ** 3 * n)}; the server's limit is ${fmt(limits.modeSystemValues)}. With ${fmt(modes)} modes send at most ${fmt(most)} units, merge related modes, or use the command line.`,
+        { field: 'modeColumn', code: 'too-much-work' },
+      );
     }
     if (modes * n * families > limits.modeFitValues) {
       throw new HttpError(

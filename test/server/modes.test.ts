@@ -159,14 +159,16 @@ describe('the work of failure modes is bounded (server/limits.ts)', () => {
     status: Array.from({ length: units }, (_, i) => (i < 2 * modes ? 1 : 0)),
     modes: Array.from({ length: units }, (_, i) => (i < 2 * modes ? `m${i % modes}` : null)),
   });
-  it('at most 20 distinct modes, and modes × units × families at most 2,000,000: the boundaries exactly', () => {
+  it('at most 20 distinct modes, modes³ × units at most 600,000 and modes × units × families at most 2,000,000: the boundaries exactly', () => {
     expect(REQUEST_LIMITS.failureModes).toBe(20);
-    expect(() => checkDatasetSize(data(20, 100), { families: ['exponential'] })).not.toThrow();
-    expect(() => checkDatasetSize(data(21, 100), { families: ['exponential'] })).toThrow(/^Too many failure modes: 21 different labels in the failure-mode column; the server fits at most 20/);
-    expect(() => checkDatasetSize(data(20, 100_000), { families: ['exponential'], bootstrapReplicates: 19 })).not.toThrow(); // 2,000,000
-    expect(() => checkDatasetSize(data(20, 100_001), { families: ['exponential'], bootstrapReplicates: 19 })).toThrow(/^The failure modes asked for are too much work: modes × units × families = 2,000,020; the server's limit is 2,000,000/);
-    // Five families (the default) count five times.
-    expect(() => checkDatasetSize(data(4, 100_001), { bootstrapReplicates: 1 })).toThrow(/= 2,000,020;/);
+    expect(() => checkDatasetSize(data(20, 75), { families: ['exponential'] })).not.toThrow(); // 8000 × 75 = 600,000
+    expect(() => checkDatasetSize(data(21, 75), { families: ['exponential'] })).toThrow(/^Too many failure modes: 21 different labels in the failure-mode column; the server fits at most 20/);
+    expect(() => checkDatasetSize(data(20, 76), { families: ['exponential'] })).toThrow(/^The failure modes asked for are too much work: the bounds of the whole unit's B-lives cost modes³ × units = 608,000; the server's limit is 600,000\. With 20 modes send at most 75 units/);
+    // Two modes: the system bound allows 75,000 units; five families then pass 2,000,000 fits first.
+    expect(() => checkDatasetSize(data(2, 75_000), { bootstrapReplicates: 1 })).not.toThrow(); // 8 × 75,000 = 600,000; 2 × 75,000 × 5 = 750,000
+    expect(() => checkDatasetSize(data(2, 75_001), { bootstrapReplicates: 1 })).toThrow(/modes³ × units = 600,008;/);
+    expect(() => checkDatasetSize(data(1, 400_001), { bootstrapReplicates: 1 })).toThrow(/^The failure modes asked for are too much work: modes × units × families = 2,000,005; the server's limit is 2,000,000/);
+    expect(() => checkDatasetSize(data(1, 400_000), { bootstrapReplicates: 1 })).not.toThrow();
   });
   it('through the API: a 422 naming modeColumn before any fit', async () => {
     const rows = ['t,status,mode', ...Array.from({ length: 42 }, (_, i) => `${100 + i},1,m${i % 21}`)];
