@@ -238,6 +238,8 @@ export function renderDecision(st: PageState): void {
   $('life-scale-row').hidden = !resp || isGrouped(resp) || !resp.life;
   if (!resp || isGrouped(resp)) {
     $('decision-empty').hidden = !resp;
+    // No report (a failed load clears it): no model name left from the previous data in the heading.
+    if (!resp) $('decision-name').textContent = 'the selected model';
     return;
   }
   $('decision-name').textContent = capital(resp.candidates.find((c) => c.family === st.selected)?.label ?? 'the selected model');

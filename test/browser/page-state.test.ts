@@ -91,6 +91,8 @@ describe.skipIf(SKIP_BROWSER)('the page on explicit state', () => {
     expect(await page.locator('#headline').isVisible()).toBe(false);
     expect(await page.locator('#model-choices button').count()).toBe(0);
     expect(await page.locator('#decision-body [data-block]').count()).toBe(0);
+    // Not even the previous selection's model name in the section heading (it said "The numbers under Weibull").
+    expect(await page.locator('#decision-name').textContent()).toBe('the selected model');
     expect(await page.locator('#loaded').isVisible()).toBe(false);
     // A file the server cannot analyse: its name is on screen, nothing of the bearing demo is.
     await page.click('#demo-list button[data-name="bearing-life"]');
