@@ -1,14 +1,20 @@
 /**
  * Stability chart: the characteristic in time (or subgroup) order with its centre line and 3-sigma
  * limits, in the upper panel; the moving ranges or subgroup standard deviations with theirs, in the
- * lower panel (one frame, two panels sharing the x positions). Points beyond a limit are drawn hollow
- * and larger and carry a title saying which limit they cross. Everything comes from the core's
- * StabilityChart (core/capability control-chart.ts); nothing is computed here but positions.
+ * lower panel (one frame, two panels sharing the x positions). Points beyond a limit are drawn as a
+ * hollow brown ring and carry a title saying which limit they cross. A point that completes a run
+ * (Western Electric Statistical Quality Control Handbook, 1956, rules 2-4: core/capability
+ * run-rules.ts) is drawn as a filled teal diamond whose title names the rule in words; with any run
+ * signal, the location panel also shows the faint 1- and 2-sigma lines the rules count in. A legend
+ * says what each mark means. Everything comes from the core's StabilityChart (core/capability
+ * control-chart.ts); nothing is computed here but positions.
  */
 import { scaleLinear } from 'd3';
-import type { ChartPanel, StabilityChart } from '../../core/index.js';
+import { RUN_RULE_WORDS, RUN_RULES_SOURCE } from '../../core/capability/run-rules.js';
+import type { ChartPanel, ChartPoint, StabilityChart } from '../../core/index.js';
 import { sig } from '../src/format.js';
 import { axisBottom, axisLeft, createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, pathThrough, type Frame, type Group } from './frame.js';
+import { runSignalMark, type LegendItem } from './legend.js';
 import type { ChartOptions } from './options.js';
 import { INK } from './palette.js';
 import { round, textWidth } from './text.js';
@@ -20,7 +26,26 @@ function yScale(p: ChartPanel, top: number, bottom: number) {
   return scaleLinear().domain([Math.min(...values), Math.max(...values)]).nice().range([bottom, top]);
 }
 
+/** What a point's marks mean, for its title: the limit it crosses, the run rules it completes. */
+function pointText(q: ChartPoint): string {
+  const parts: string[] = [];
+  if (q.beyond !== null) parts.push(`${q.beyond} the ${q.beyond === 'above' ? 'upper' : 'lower'} limit ${sig(q.beyond === 'above' ? q.upper : q.lower)} (rule 1: a point beyond 3 sigma)`);
+  for (const k of q.runRules ?? []) parts.push(`completes rule ${k}: ${RUN_RULE_WORDS[k]}`);
+  return `${q.label}: ${sig(q.value)}${parts.length > 0 ? ` — ${parts.join('; ')}` : ''}`;
+}
+
+/** The centre ± k·sigma of each point, sigma of its statistic read from its 3-sigma limits. */
+function zoneLine(p: ChartPanel, k: number, x: (i: number) => number, y: (v: number) => number): string {
+  return pathThrough(p.points.map((q, i) => [x(i), y(p.center + (k * (q.upper - p.center)) / 3)] as const));
+}
+
 function drawPanel(frame: Frame, g: Group, p: ChartPanel, y: ReturnType<typeof yScale>, x: (i: number) => number): void {
+  if (p.points.some((q) => (q.runRules?.length ?? 0) > 0)) {
+    // the zones the run rules count in: 1 and 2 sigma of the plotted statistic on each side
+    for (const k of [-2, -1, 1, 2]) {
+      g.append('path').attr('data-kind', 'zone').attr('d', zoneLine(p, k, x, y)).attr('fill', 'none').attr('stroke', INK.zone).attr('stroke-width', 1).attr('stroke-dasharray', '1 3');
+    }
+  }
   for (const side of ['lower', 'upper'] as const) {
     g.append('path').attr('data-kind', `limit-${side}`).attr('d', pathThrough(p.points.map((q, i) => [x(i), y(q[side])] as const)))
       .attr('fill', 'none').attr('stroke', INK.reference).attr('stroke-dasharray', '6 3').attr('stroke-width', 1.2);
@@ -29,10 +54,39 @@ function drawPanel(frame: Frame, g: Group, p: ChartPanel, y: ReturnType<typeof y
   g.append('path').attr('data-kind', 'series').attr('d', pathThrough(p.points.map((q, i) => [x(i), y(q.value)] as const))).attr('fill', 'none').attr('stroke', INK.data).attr('stroke-width', 1);
   p.points.forEach((q, i) => {
     const out = q.beyond !== null;
-    g.append('circle').attr('data-kind', out ? 'beyond' : 'point').attr('cx', round(x(i))).attr('cy', round(y(q.value))).attr('r', out ? 4.5 : 2.2)
-      .attr('fill', out ? 'none' : INK.data).attr('stroke', out ? INK.reference : INK.data).attr('stroke-width', out ? 2 : 1)
-      .append('title').text(`${q.label}: ${sig(q.value)}${out ? ` — ${q.beyond} the ${q.beyond === 'above' ? 'upper' : 'lower'} limit ${sig(q.beyond === 'above' ? q.upper : q.lower)}` : ''}`);
+    const run = (q.runRules?.length ?? 0) > 0;
+    const cx = round(x(i));
+    const cy = round(y(q.value));
+    if (out) {
+      g.append('circle').attr('data-kind', 'beyond').attr('cx', cx).attr('cy', cy).attr('r', 4.5).attr('fill', 'none').attr('stroke', INK.reference).attr('stroke-width', 2).append('title').text(pointText(q));
+    }
+    if (run) {
+      // drawn over the ring when a point does both, so each mark keeps its own meaning
+      g.append('path').attr('data-kind', 'run-signal').attr('data-rules', (q.runRules ?? []).join(' ')).attr('d', runSignalMark(cx, cy)).attr('fill', INK.signal).attr('stroke', INK.signal).attr('stroke-width', 1).append('title').text(pointText(q));
+    }
+    if (!out && !run) {
+      g.append('circle').attr('data-kind', 'point').attr('cx', cx).attr('cy', cy).attr('r', 2.2).attr('fill', INK.data).attr('stroke', INK.data).attr('stroke-width', 1).append('title').text(pointText(q));
+    }
   });
+}
+
+/** The legend: the plain point always; the ring, the diamond and the zone lines only when drawn. */
+function legendItems(chart: StabilityChart): LegendItem[] {
+  const all = [...chart.location.points, ...chart.dispersion.points];
+  const items: LegendItem[] = [{ key: 'point', label: chart.kind === 'individuals and moving range' ? 'value' : 'subgroup statistic', kind: 'point' }];
+  if (all.some((q) => q.beyond !== null)) items.push({ key: 'beyond', label: 'ring: beyond a 3σ limit (rule 1)', kind: 'beyond' });
+  if (all.some((q) => (q.runRules?.length ?? 0) > 0)) {
+    items.push({ key: 'run-signal', label: 'diamond: ends a run (rules 2–4, below; hover for which)', kind: 'run-signal' });
+    items.push({ key: 'zone', label: '1σ and 2σ lines', kind: 'zone' });
+  }
+  return items;
+}
+
+/** A note naming, in words, each run rule that some point completes (none: no note). */
+function runRulesNote(chart: StabilityChart): string | null {
+  const rules = [...new Set([...chart.location.points, ...chart.dispersion.points].flatMap((q) => q.runRules ?? []))].sort();
+  if (rules.length === 0) return null;
+  return `Diamonds end a run (${RUN_RULES_SOURCE}): ${rules.map((k) => `rule ${k}, ${RUN_RULE_WORDS[k]}`).join('; ')}.`;
 }
 
 export function controlChart(container: Element, chart: StabilityChart, options: ChartOptions): SVGSVGElement {
@@ -40,8 +94,10 @@ export function controlChart(container: Element, chart: StabilityChart, options:
   const individuals = chart.kind === 'individuals and moving range';
   const what = individuals ? 'Individual values and moving ranges' : chart.kind === 'subgroup means and ranges' ? 'Subgroup means and ranges' : 'Subgroup means and standard deviations';
   const title = `Is the process stable? ${what}${scale}`;
-  const description = `Upper panel: each ${chart.location.statistic} in order with its centre line and dashed 3-sigma limits; lower panel: each ${chart.dispersion.statistic} with its limits. Hollow points lie beyond a limit. ${chart.statement}`;
-  const frame = createFrame(container, options, title, description, { notes: [`Limits: ${chart.source}. Sigma ${sig(chart.sigma)} from ${chart.sigmaMethod}.`] });
+  const description = `Upper panel: each ${chart.location.statistic} in order with its centre line and dashed 3-sigma limits; lower panel: each ${chart.dispersion.statistic} with its limits. Hollow rings mark points beyond a limit; filled diamonds mark points that end a run (Western Electric rules 2-4). ${chart.statement}`;
+  const runs = runRulesNote(chart);
+  const notes = [`Limits: ${chart.source}. Sigma ${sig(chart.sigma)} from ${chart.sigmaMethod}.`, ...(runs ? [runs] : [])];
+  const frame = createFrame(container, options, title, description, { legend: legendItems(chart), notes });
   const half = (frame.innerHeight - GAP) / 2;
   const yTop = yScale(chart.location, 0, half);
   const yBottom = yScale(chart.dispersion, half + GAP, frame.innerHeight);

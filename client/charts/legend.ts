@@ -13,8 +13,10 @@ export interface LegendItem {
   readonly key: string;
   readonly label: string;
   /** 'line' (a curve), 'bar' (data bars), 'band' (a shaded band), 'point' (markers), 'step',
-   *  'suspension' (open triangle), 'region' (shaded out-of-tolerance region), 'reference'. */
-  readonly kind: 'line' | 'bar' | 'band' | 'point' | 'step' | 'reference' | 'suspension' | 'region';
+   *  'suspension' (open triangle), 'region' (shaded out-of-tolerance region), 'reference';
+   *  on stability charts 'beyond' (a hollow ring: a point beyond a 3-sigma limit), 'run-signal' (a filled
+   *  diamond: a point completing a run rule) and 'zone' (the faint 1- and 2-sigma lines). */
+  readonly kind: 'line' | 'bar' | 'band' | 'point' | 'step' | 'reference' | 'suspension' | 'region' | 'beyond' | 'run-signal' | 'zone';
   readonly style?: SeriesStyle;
   readonly emphasis?: boolean;
 }
@@ -65,6 +67,15 @@ export function drawLegend(svg: Svg, items: readonly LegendItem[], width: number
       case 'region':
         cell.append('rect').attr('x', 0).attr('y', -5).attr('width', 24).attr('height', 10).attr('fill', INK.outside).attr('fill-opacity', 0.55).attr('stroke', INK.outsideEdge);
         break;
+      case 'beyond':
+        cell.append('circle').attr('cx', 12).attr('cy', 0).attr('r', 4.5).attr('fill', 'none').attr('stroke', INK.reference).attr('stroke-width', 2);
+        break;
+      case 'run-signal':
+        cell.append('path').attr('d', runSignalMark(12, 0)).attr('fill', INK.signal).attr('stroke', INK.signal).attr('stroke-width', 1);
+        break;
+      case 'zone':
+        cell.append('line').attr('x1', 0).attr('x2', 24).attr('y1', 0).attr('y2', 0).attr('stroke', INK.zone).attr('stroke-width', 1).attr('stroke-dasharray', '1 3');
+        break;
       case 'reference':
         cell
           .append('line')
@@ -86,4 +97,9 @@ export function drawLegend(svg: Svg, items: readonly LegendItem[], width: number
 /** An open triangle pointing right (a unit still running past this time), centred at (x, y). */
 export function suspensionMark(x: number, y: number): string {
   return `M${round(x - 4)},${round(y - 4.5)}L${round(x + 4.5)},${round(y)}L${round(x - 4)},${round(y + 4.5)}Z`;
+}
+
+/** A filled diamond (a point that completes a run rule on a stability chart), centred at (x, y). */
+export function runSignalMark(x: number, y: number): string {
+  return `M${round(x)},${round(y - 5)}L${round(x + 5)},${round(y)}L${round(x)},${round(y + 5)}L${round(x - 5)},${round(y)}Z`;
 }

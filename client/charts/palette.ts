@@ -53,6 +53,10 @@ export const INK = {
   suspension: '#3d5a80',
   /** The minimum-expected-count reference line. */
   reference: '#7a3b00',
+  /** Stability charts: a point completing a run rule (a deep teal diamond, apart from the brown ring
+   *  of a point beyond a limit), and the faint 1- and 2-sigma zone lines the rules count in. */
+  signal: '#0b6e69',
+  zone: '#8c8c8c',
   /** Out-of-tolerance region and its edge, and the text written in it. */
   outside: '#f1d9a6',
   outsideEdge: '#9a6700',
