@@ -61,15 +61,41 @@ function draw(rng: Rng, skew: number): number {
   return (skew / 2) * (rng.gamma(alpha) - alpha);
 }
 
-export function runCase(c: Case, index: number, R: number): Record<string, number | string> {
-  const rng = createRng(SEED, index);
+/**
+ * One record of a case's design, log10 flows standardized: the systematic years censored below
+ * `low` (−∞: none), then the historical years known only above `high`.
+ */
+export function drawRecord(rng: Rng, c: Case, low: number, high: number): LogObservation[] {
+  const obs: LogObservation[] = [];
+  for (let i = 0; i < c.systematic; i++) {
+    const y = draw(rng, c.skew);
+    obs.push(y > low ? { kind: 'peak', y } : { kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: low });
+  }
+  if (c.historical) {
+    for (let i = 0; i < c.historical.years; i++) {
+      const y = draw(rng, c.skew);
+      obs.push(y > high ? { kind: 'peak', y } : { kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: high });
+    }
+  }
+  return obs;
+}
+
+/** The censoring thresholds of a case at its population (standardized log10 flows) and its EMA design. */
+export function caseDesign(c: Case): { low: number; high: number; design: EmaDesign } {
   const pop = new Pearson3Distribution(0, 1, c.skew);
-  const truth = pop.isf(1 / c.period);
   const low = c.lowCensor !== undefined ? pop.quantile(c.lowCensor) : Number.NEGATIVE_INFINITY;
   const high = c.historical ? pop.quantile(c.historical.quantile) : Number.NaN;
   const design: EmaDesign = {
     thresholds: [{ years: c.systematic, threshold: low }, ...(c.historical ? [{ years: c.historical.years, threshold: high }] : [])],
   };
+  return { low, high, design };
+}
+
+export function runCase(c: Case, index: number, R: number): Record<string, number | string> {
+  const rng = createRng(SEED, index);
+  const pop = new Pearson3Distribution(0, 1, c.skew);
+  const truth = pop.isf(1 / c.period);
+  const { low, high, design } = caseDesign(c);
   const z = normalIsf((1 - CONFIDENCE) / 2);
   let hits = 0;
   let wald = 0;
@@ -80,17 +106,7 @@ export function runCase(c: Case, index: number, R: number): Record<string, numbe
   let widthSum = 0;
   let nqSum = 0;
   for (let r = 0; r < R; r++) {
-    const obs: LogObservation[] = [];
-    for (let i = 0; i < c.systematic; i++) {
-      const y = draw(rng, c.skew);
-      obs.push(y > low ? { kind: 'peak', y } : { kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: low });
-    }
-    if (c.historical) {
-      for (let i = 0; i < c.historical.years; i++) {
-        const y = draw(rng, c.skew);
-        obs.push(y > high ? { kind: 'peak', y } : { kind: 'interval', lower: Number.NEGATIVE_INFINITY, upper: high });
-      }
-    }
+    const obs = drawRecord(rng, c, low, high);
     let regional: { skew: number; mse: number } | undefined;
     if (c.regional === 'held') regional = { skew: c.skew, mse: 1e-9 };
     else if (c.regional) regional = { skew: c.skew + Math.sqrt(c.regional.mse) * rng.normal(), mse: c.regional.mse };

@@ -36,8 +36,7 @@
  * have the same asymptotic variance, n_e = v₁/Var(Ĝ), v₁ the variance of the skew from one
  * uncensored year (so n_e = n for a systematic record, exactly). Bulletin 17C uses such a length
  * for the station skew's mean square error with censored data [from memory; the Bulletin's own
- * formula was not available here]; this module reports it and does not yet feed it back into the
- * skew weighting (regional-skew.ts uses the record length).
+ * formula was not available here]; ema.ts fitEma feeds it to the skew weighting (regional-skew.ts).
  */
 import { InputError } from '../errors.js';
 import { Pearson3Distribution } from '../families/index.js';

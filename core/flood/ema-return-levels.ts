@@ -132,7 +132,8 @@ function bootstrapIntervals(record: EmaRecord, fit: EmaFit, periods: readonly nu
   for (let b = 0; b < B; b++) {
     const obs = syntheticRecord(record, fit, d, rng);
     if (obs.filter((o) => o.kind === 'peak').length < 3) continue;
-    const r = emaIterate(obs, record.regionalSkew);
+    // The station skew's MSE from the fitted record's years (its effective length when censored), not recomputed per replicate.
+    const r = emaIterate(obs, record.regionalSkew, { years: fit.skew.mseYears, kind: fit.skew.mseYearsKind });
     if (!r.converged) continue;
     const rd = new Pearson3Distribution(r.mean, r.sd, r.skew.weightedSkew);
     periods.forEach((t, i) => {

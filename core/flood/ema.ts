@@ -21,12 +21,12 @@
  * unweighted G of the last step.
  */
 import { CompensatedSum } from '../compensated.js';
-import { InputError } from '../errors.js';
+import { InputError, isPlumblineError } from '../errors.js';
 import { Pearson3Distribution } from '../families/index.js';
 import { intervalMoments } from './ema-moments.js';
 import { multipleGrubbsBeck, type MgbResult } from './grubbs-beck.js';
-import { weightSkew, type SkewWeighting } from './regional-skew.js';
-import { effectiveRecordLength, emaDesign } from './ema-covariance.js';
+import { weightSkew, type SkewWeighting, type SkewYears } from './regional-skew.js';
+import { effectiveRecordLength, emaDesign, type EmaDesign } from './ema-covariance.js';
 
 /** One year of the record in log10 flow: a known peak, or an interval lower < Y ≤ upper. */
 export type LogObservation = { readonly kind: 'peak'; readonly y: number } | { readonly kind: 'interval'; readonly lower: number; readonly upper: number };
@@ -72,7 +72,9 @@ export interface EmaFit {
   /**
    * Effective record length of the station skew (ema-covariance.ts): the years of a record with no
    * censoring whose skew has the same asymptotic variance; equals the years when none is censored.
-   * null when the covariance cannot be computed.
+   * With censored or historical years it is the n of the station skew's MSE (skew.mseYears), found
+   * together with the fit (fitEma). null when the covariance cannot be computed (the MSE then uses
+   * the years).
    */
   readonly effectiveRecordLength: number | null;
   readonly method: string;
@@ -216,17 +218,19 @@ function knownMoments(obs: readonly LogObservation[]): { mean: number; sd: numbe
 export function emaIterate(
   obs: readonly LogObservation[],
   regional?: { skew: number; mse: number },
+  skewYears?: SkewYears,
 ): { mean: number; sd: number; skew: SkewWeighting; iterations: number; converged: boolean } {
   const n = obs.length;
   if (n < 3) throw new InputError('EMA needs at least 3 years', {}, 'too-few-values');
+  const years = skewYears ?? { years: n, kind: 'record' as const };
   let cur = knownMoments(obs);
-  let weighting = weightSkew(cur.skew, n, regional);
+  let weighting = weightSkew(cur.skew, years.years, regional, years.kind);
   const hasIntervals = obs.some((o) => o.kind === 'interval');
   if (!hasIntervals) return { mean: cur.mean, sd: cur.sd, skew: weighting, iterations: 1, converged: true };
   for (let it = 1; it <= MAX_ITERATIONS; it++) {
     const d = new Pearson3Distribution(cur.mean, cur.sd, weighting.weightedSkew);
     const next = emaStep(obs, d);
-    const nextWeighting = weightSkew(next.skew, n, regional);
+    const nextWeighting = weightSkew(next.skew, years.years, regional, years.kind);
     const change = Math.max(
       Math.abs(next.mean - cur.mean) / next.sd,
       Math.abs(next.sd - cur.sd) / next.sd,
@@ -239,16 +243,63 @@ export function emaIterate(
   return { mean: cur.mean, sd: cur.sd, skew: weighting, iterations: MAX_ITERATIONS, converged: false };
 }
 
-/** The EMA fit of a record: low-outlier test, iteration, skew weighting. */
+/** Effective record length of the station skew at a fit, or null where the covariance cannot be computed. */
+function erlAt(design: EmaDesign, r: { mean: number; sd: number; skew: SkewWeighting }): number | null {
+  try {
+    const e = effectiveRecordLength(design, { mean: r.mean, sd: r.sd, skew: r.skew.weightedSkew });
+    return Number.isFinite(e) && e > 0 ? e : null;
+  } catch (e) {
+    if (isPlumblineError(e)) return null;
+    throw e;
+  }
+}
+
+/** Most rounds of the search for the effective record length that the fit and its skew weighting share. */
+const MAX_ERL_ROUNDS = 50;
+/** Relative agreement of the effective record length used and the one at the resulting fit. */
+const ERL_TOLERANCE = 1e-9;
+
+/**
+ * The EMA fit of a record: low-outlier test, iteration, skew weighting.
+ *
+ * With censored or historical years the station skew's MSE (regional-skew.ts) is computed from the
+ * effective record length n_e of the station skew, not the record's years (Bulletin 17C [from
+ * memory]). n_e depends on the fit (its skew) and, with a regional skew, the fit on n_e (through the
+ * weights): the two are found together by fixed-point rounds, refitting with the last n_e until
+ * the n_e at the fit agrees with the one used to relative 1e-9 (two or three rounds on the test
+ * records). A record with no censored years keeps n = its years exactly (n_e = n there, up to the
+ * rounding of the covariance). Where n_e cannot be computed (a singular design) the years are used
+ * and effectiveRecordLength is null.
+ */
 export function fitEma(record: EmaRecord): EmaFit {
   const { observations, counts, mgb, lowThreshold } = recordObservations(record);
-  const r = emaIterate(observations, record.regionalSkew);
-  let erl: number | null = null;
-  try {
-    erl = effectiveRecordLength(emaDesign(record, { lowOutlierThreshold: lowThreshold, counts }), { mean: r.mean, sd: r.sd, skew: r.skew.weightedSkew });
-    if (!Number.isFinite(erl)) erl = null;
-  } catch {
-    erl = null;
+  const design = emaDesign(record, { lowOutlierThreshold: lowThreshold, counts });
+  let r = emaIterate(observations, record.regionalSkew);
+  let erl = erlAt(design, r);
+  const censored = design.thresholds.some((t) => t.threshold !== Number.NEGATIVE_INFINITY);
+  let erlConverged = true;
+  if (censored && erl !== null) {
+    erlConverged = false;
+    for (let round = 0; round < MAX_ERL_ROUNDS && erl !== null; round++) {
+      const used: number = erl;
+      r = emaIterate(observations, record.regionalSkew, { years: used, kind: 'effective' });
+      const next = erlAt(design, r);
+      if (next === null) {
+        erl = null;
+        break;
+      }
+      erl = used;
+      if (Math.abs(next - used) <= ERL_TOLERANCE * used) {
+        erlConverged = true;
+        break;
+      }
+      erl = next;
+    }
+    if (erl === null || !erlConverged) {
+      // No consistent effective length: fall back to the record's years, and say so (effectiveRecordLength null).
+      r = emaIterate(observations, record.regionalSkew);
+      erl = null;
+    }
   }
   return {
     effectiveRecordLength: erl,

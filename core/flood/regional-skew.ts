@@ -15,9 +15,13 @@
  * Pearson III population (test/flood/ema.test.ts derives it from the moment covariances of
  * ema-variance.ts); the corrections a, b, c were checked against a seeded SciPy simulation of the
  * estimator (scripts/fixtures/flood-ema.py "skewVariance": within 3 % for n = 20 to 100, skews −1
- * to 1, where the 17B formula is off by up to 14 %). n is the record length in years and G the
- * station skew; for records with censored years Bulletin 17C uses an effective record length
- * instead, which is not implemented here (the report says so). Bulletin 17B's approximation
+ * to 1, where the 17B formula is off by up to 14 %). G is the station skew and n the record length
+ * in years; for a record with censored or historical years, n is the effective record length of
+ * the station skew (ema-covariance.ts: the years of a censor-free record whose skew has the same
+ * asymptotic variance), the way Bulletin 17C computes the station skew's MSE for such records
+ * [from memory: the Bulletin's own text and formula for it were not available here; ema.ts fitEma
+ * finds the length and the fit together, and test/flood/ema-skew-mse.test.ts checks the MSE it
+ * gives against a seeded simulation of the EMA skew]. Bulletin 17B's approximation
  * (IACWD 1982, after Wallis, Matalas & Slack 1974; coefficients as printed in the TxDOT Hydraulic
  * Design Manual, ch. 4, quoting 17B) stays available as stationSkewMse17b:
  *   MSE ≈ 10^(A − B log10(n/10)),
@@ -26,9 +30,18 @@
  */
 import { InputError } from '../errors.js';
 
+/** The years the station skew's MSE is computed from: the record's, or the effective record length of a censored record. */
+export interface SkewYears {
+  readonly years: number;
+  readonly kind: 'record' | 'effective';
+}
+
 export interface SkewWeighting {
   readonly stationSkew: number;
   readonly stationSkewMse: number;
+  /** n of the station skew's MSE: the record length, or the effective record length when years are censored (mseMethod says which). */
+  readonly mseYears: number;
+  readonly mseYearsKind: SkewYears['kind'];
   readonly regionalSkew: number | null;
   readonly regionalSkewMse: number | null;
   /** Weight of the station skew (1 without a regional skew). */
@@ -40,7 +53,11 @@ export interface SkewWeighting {
 }
 
 export const STATION_SKEW_MSE_METHOD =
-  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the record length in years (17C\'s effective record length for censored years is not used)';
+  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the record length in years';
+
+/** The method text for censored records: n is the effective record length (Bulletin 17C's use of it from memory). */
+export const STATION_SKEW_MSE_METHOD_EFFECTIVE =
+  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the effective record length of the station skew (censored or historical years count for less; its use here after Bulletin 17C [from memory])';
 
 function checkYears(years: number): void {
   if (!(years > 0)) throw new InputError(`the record length must be positive (got ${String(years)})`, {}, 'bad-option');
@@ -67,18 +84,21 @@ export function stationSkewMse17b(skew: number, years: number): number {
 }
 
 /** The weighted skew and the weights; without a regional skew, the station skew alone. */
-export function weightSkew(stationSkew: number, years: number, regional?: { skew: number; mse: number }): SkewWeighting {
+export function weightSkew(stationSkew: number, years: number, regional?: { skew: number; mse: number }, yearsKind: SkewYears['kind'] = 'record'): SkewWeighting {
   const mseS = stationSkewMse(stationSkew, years);
+  const mseMethod = yearsKind === 'record' ? STATION_SKEW_MSE_METHOD : STATION_SKEW_MSE_METHOD_EFFECTIVE;
   if (!regional) {
     return {
       stationSkew,
       stationSkewMse: mseS,
+      mseYears: years,
+      mseYearsKind: yearsKind,
       regionalSkew: null,
       regionalSkewMse: null,
       stationWeight: 1,
       regionalWeight: 0,
       weightedSkew: stationSkew,
-      mseMethod: STATION_SKEW_MSE_METHOD,
+      mseMethod,
     };
   }
   if (!Number.isFinite(regional.skew)) throw new InputError('the regional skew must be a finite number', {}, 'bad-option');
@@ -90,11 +110,13 @@ export function weightSkew(stationSkew: number, years: number, regional?: { skew
   return {
     stationSkew,
     stationSkewMse: mseS,
+    mseYears: years,
+    mseYearsKind: yearsKind,
     regionalSkew: regional.skew,
     regionalSkewMse: regional.mse,
     stationWeight: ws,
     regionalWeight: wr,
     weightedSkew: ws * stationSkew + wr * regional.skew,
-    mseMethod: STATION_SKEW_MSE_METHOD,
+    mseMethod,
   };
 }

@@ -37,11 +37,13 @@ describe('plumbline analyze GAUGE --estimation ema', () => {
       expect(r.bootstrap!.method).toMatch(/parametric bootstrap/);
     }
     expect(c.lowOutliers.count).toBeGreaterThanOrEqual(2);
-    // The skew's effective record length: 90.3 of the 137 years (73 systematic with 3 low outliers censored, 2 interval
-    // years counted as systematic, 62 historical years mostly below the threshold). Holding the interval years fixed
+    // The skew's effective record length: 83.6 of the 137 years (73 systematic with 3 low outliers censored, 2 interval
+    // years counted as systematic, 62 historical years mostly below the threshold; 90.3 before the station skew's MSE
+    // used it, which moved the weighted skew). It is the n of the station skew's MSE. Holding the interval years fixed
     // in the covariance gave 11.8, fewer than the systematic peaks alone — the guard against that.
     expect(c.effectiveRecordLength!).toBeGreaterThan(c.counts.peaks - c.counts.lowOutliers);
     expect(c.effectiveRecordLength!).toBeLessThan(c.counts.years);
+    expect(c.skew.mseYears).toBe(c.effectiveRecordLength);
     expect(j.input.codes.map((x) => x.code)).toEqual(['2', '4', '6', '7', '8']);
   });
   it('text: the skews, the codes, the return levels and the cautions deferring to the governing agency', () => {
