@@ -22,10 +22,12 @@ import {
   LOG_CACHE_MAX_N,
   evaluateFamilies,
   prepareSample,
+  sampleSummary,
   type DelegatedFamilies,
   type EvaluatedFamily,
   type FamilyName,
   type Sample,
+  type SampleSummary,
 } from '../core/index.js';
 
 /** Smallest sample for which the second thread is used (common practice, no source: measured here). */
@@ -73,12 +75,17 @@ interface WorkerInput {
   readonly options: SecondThreadOptions;
 }
 
-/** The one message the worker waits for: the sorted values on shared memory. */
+/** The one message the worker waits for: the sorted values on shared memory, with what the main thread computed from them. */
 interface WorkerValues {
   readonly values: SharedArrayBuffer;
   /** Where the sorted values start in `values` (bytes) and how many there are. */
   readonly offset: number;
   readonly length: number;
+  /** The main thread's Sample summary of these values (min, max, sums, counts), so the worker does not repeat that pass. */
+  readonly summary: SampleSummary;
+  /** The main thread's ln x of the sorted values (same length), on shared memory; null when not cached (some x ≤ 0, or past LOG_CACHE_MAX_N). */
+  readonly logs: SharedArrayBuffer | null;
+  readonly logsOffset: number;
 }
 
 type WorkerOutput = { readonly results: readonly EvaluatedFamily[] } | { readonly error: string };
@@ -98,9 +105,13 @@ export function runSecondThread(): void {
   d.port.once('message', (v: WorkerValues) => {
     let out: WorkerOutput;
     try {
-      // No ln x cache here (the lognormal and gamma fits need only sums of ln x, visited block by
-      // block): a second n-length array in this thread would be 80 MB more at 10^7 values.
-      const sample = prepareSample(new Float64Array(v.values, v.offset, v.length), { alreadySorted: true, logCacheMaxN: 0 });
+      // The main thread's ln x when it has them (shared, no copy), else none: the lognormal and gamma
+      // fits then visit ln x block by block (a second n-length array here would be 80 MB more at 10^7 values).
+      const sorted = new Float64Array(v.values, v.offset, v.length);
+      const sample =
+        v.logs !== null
+          ? prepareSample(sorted, { alreadySorted: true, summary: v.summary, logs: new Float64Array(v.logs, v.logsOffset, v.length) })
+          : prepareSample(sorted, { alreadySorted: true, summary: v.summary, logCacheMaxN: 0 });
       out = { results: evaluateFamilies(sample, d.families, d.options) };
     } catch (e) {
       out = { error: e instanceof Error ? e.message : String(e) };
@@ -173,7 +184,25 @@ export function secondThread(entry: URL, options: SecondThreadOptions, early = f
           values = new Float64Array(new SharedArrayBuffer(sample.n * Float64Array.BYTES_PER_ELEMENT));
           values.set(own);
         }
-        const message: WorkerValues = { values: values.buffer as SharedArrayBuffer, offset: values.byteOffset, length: values.length };
+        // ln x: computed here once for both threads (the main thread's Weibull fit needs them too) and
+        // handed over as one shared copy, like the values, when those were copied (at most
+        // LOG_CACHE_MAX_N values; 8 MB at 10^6). Not for values already on shared memory (the piece
+        // reader's large files): a shared copy there would be 80 MB more at 10^7 values, so the worker
+        // visits ln x block by block.
+        let logs: Float64Array | null = null;
+        const ownLogs = values !== own && sample.nonPositive === 0 ? sample.logs() : null;
+        if (ownLogs !== null) {
+          logs = new Float64Array(new SharedArrayBuffer(sample.n * Float64Array.BYTES_PER_ELEMENT));
+          logs.set(ownLogs);
+        }
+        const message: WorkerValues = {
+          values: values.buffer as SharedArrayBuffer,
+          offset: values.byteOffset,
+          length: values.length,
+          summary: sampleSummary(sample),
+          logs: logs === null ? null : (logs.buffer as SharedArrayBuffer),
+          logsOffset: logs === null ? 0 : logs.byteOffset,
+        };
         (port as MessagePort).postMessage(message);
       } catch {
         stop();

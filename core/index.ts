@@ -4,8 +4,8 @@
  */
 export * from './errors.js';
 export type * from './report.js';
-export { LOG_CACHE_MAX_N, prepareSample } from './sample.js';
-export type { Sample } from './sample.js';
+export { LOG_CACHE_MAX_N, prepareSample, sampleSummary } from './sample.js';
+export type { Sample, SampleSummary } from './sample.js';
 export { createRng } from './random/index.js';
 export type { Rng } from './random/index.js';
 export { DEFAULT_FAMILIES, allFamilies, getFamily, registerFamily } from './families/index.js';

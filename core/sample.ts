@@ -73,17 +73,22 @@ const LOG_BLOCK = 65536;
  * unsigned order is numeric order (negative: all bits flipped; otherwise the sign bit set). A pass
  * whose digit is the same for every key is skipped.
  */
-function sortAscending(a: Float64Array): void {
+function sortAscending(a: Float64Array): Float64Array | null {
   const n = a.length;
   if (n < RADIX_MIN || n > LOG_CACHE_MAX_N || !LITTLE_ENDIAN) {
     a.sort();
-    return;
+    return null;
   }
   const words = new Uint32Array(a.buffer, a.byteOffset, 2 * n);
   // The keys are mapped in place and the passes go back and forth between the array's own words and
   // one scratch buffer (one extra copy of the data, not two: 80 MB less at 10^7 values).
   let src: Uint32Array = words;
-  let dst: Uint32Array = new Uint32Array(2 * n);
+  // Handed back for the ln x cache (see prepareSample). Never on shared memory, even for values that
+  // are: V8 counts an ArrayBuffer, not a SharedArrayBuffer, as external memory, and allocating it
+  // prompts the collection of the reader's garbage (with a shared scratch the 10^7-value CLI run
+  // peaked ~30 MiB higher one thread, up to ~100 MiB with two).
+  const scratch = new Uint32Array(2 * n);
+  let dst: Uint32Array = scratch;
   const counts = new Uint32Array(4 * 65536);
   for (let i = 0; i < n; i++) {
     let lo = words[2 * i] as number;
@@ -140,90 +145,61 @@ function sortAscending(a: Float64Array): void {
     words[2 * i] = lo;
     words[2 * i + 1] = hi;
   }
+  return new Float64Array(scratch.buffer);
 }
 
 /**
- * Build a Sample. Throws InputError for non-finite values (with the 0-based index in the
- * message as "value #i", 1-based) and for an empty sample. Does not copy `alreadySorted`
- * when told the array is already ascending and owned by the caller; with `inPlace` a Float64Array
- * the caller gives up (its order is not needed back) is checked and sorted where it is, not copied.
+ * What a Sample computes in its one pass over the sorted values (plain data: another thread that
+ * receives the same sorted values can take it instead of repeating the pass).
  */
-export function prepareSample(
-  values: ArrayLike<number>,
-  opts: { alreadySorted?: boolean; inPlace?: boolean; /** tests: cache ln x only up to this n (default LOG_CACHE_MAX_N) */ logCacheMaxN?: number } = {},
-): Sample {
-  const logCacheMaxN = opts.logCacheMaxN ?? LOG_CACHE_MAX_N;
-  const n = values.length;
-  if (n === 0) throw new InputError('No values to analyse: the sample is empty.', {}, 'too-few-values');
-  let sorted: Float64Array;
-  if (opts.alreadySorted && values instanceof Float64Array) sorted = values;
-  else if (opts.inPlace && values instanceof Float64Array) {
-    for (let i = 0; i < n; i++) {
-      const v = values[i] as number;
-      if (!Number.isFinite(v)) {
-        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
-      }
-    }
-    sorted = values;
-    sortAscending(sorted);
-  } else {
-    sorted = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      const v = values[i] as number;
-      if (!Number.isFinite(v)) {
-        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
-      }
-      sorted[i] = v;
-    }
-    sortAscending(sorted);
-  }
-  const min = sorted[0] as number;
-  const max = sorted[n - 1] as number;
-  if (!Number.isFinite(min) || !Number.isFinite(max)) {
-    throw new InputError('The sample contains a non-finite value.', {}, 'not-a-number');
-  }
-  const sum = compensated(sorted);
-  // The mean lies in [min, max]; the last rounding of sum/n can step just outside (nine values of
-  // 1e307 average to 9.999999999999999e306), so it is held there.
-  const mean = Math.min(max, Math.max(min, sum / n));
-  let s = 0;
-  let c = 0;
-  let negative = 0;
-  let zeros = 0;
-  let distinct = 0;
-  let prev = Number.NaN;
-  for (let i = 0; i < n; i++) {
-    const x = sorted[i] as number;
-    if (x < 0) negative++;
-    else if (x === 0) zeros++;
-    if (x !== prev) distinct++;
-    prev = x;
-    const d = (x - mean) * (x - mean);
-    const t = s + d;
-    if (Math.abs(s) >= Math.abs(d)) c += s - t + d;
-    else c += d - t + s;
-    s = t;
-  }
-  const sumSqDev = s + c;
-  const nonPositive = negative + zeros;
-  let logCache: Float64Array | null | undefined;
+export type SampleSummary = Pick<Sample, 'min' | 'max' | 'sum' | 'mean' | 'sumSqDev' | 'negative' | 'zeros' | 'distinct'>;
+
+/** A Sample's summary as plain data (structured-clone safe). */
+export function sampleSummary(s: Sample): SampleSummary {
+  return { min: s.min, max: s.max, sum: s.sum, mean: s.mean, sumSqDev: s.sumSqDev, negative: s.negative, zeros: s.zeros, distinct: s.distinct };
+}
+
+/** Options of prepareSample. */
+export interface PrepareOptions {
+  /** `values` is a Float64Array already ascending, owned by the caller: used as it is, not copied. */
+  readonly alreadySorted?: boolean;
+  /** `values` is a Float64Array the caller gives up (its order is not needed back): checked and sorted where it is. */
+  readonly inPlace?: boolean;
+  /** Tests, and a thread that cannot afford the memory: cache ln x only up to this n (default LOG_CACHE_MAX_N). */
+  readonly logCacheMaxN?: number;
+  /**
+   * With `alreadySorted`: the summary of these very values from the Sample that sorted them
+   * (sampleSummary), so that the pass over them is not repeated; the same numbers.
+   */
+  readonly summary?: SampleSummary;
+  /** With `alreadySorted`: ln x of the sorted values as that Sample's logs() gave them (the same numbers). */
+  readonly logs?: Float64Array;
+}
+
+/** A Sample of `sorted` (ascending, finite) from its summary; ln x from `logs` when given, else cached lazily. */
+function fromSummary(sorted: Float64Array, sm: SampleSummary, logCacheMaxN: number, logs: Float64Array | undefined, room: Float64Array | null = null): Sample {
+  const n = sorted.length;
+  const nonPositive = sm.negative + sm.zeros;
+  let logCache: Float64Array | null | undefined = logs !== undefined && logs.length === n && nonPositive === 0 ? logs : undefined;
   let sumLogCache: number | undefined;
   return {
     n,
     sorted,
-    min,
-    max,
-    sum,
-    mean,
-    sumSqDev,
+    min: sm.min,
+    max: sm.max,
+    sum: sm.sum,
+    mean: sm.mean,
+    sumSqDev: sm.sumSqDev,
     nonPositive,
-    negative,
-    zeros,
-    distinct,
+    negative: sm.negative,
+    zeros: sm.zeros,
+    distinct: sm.distinct,
     logs(): Float64Array | null {
       if (logCache !== undefined) return logCache;
       if (nonPositive > 0 || n > logCacheMaxN) return (logCache = null);
-      const out = new Float64Array(n);
+      // In the sort's scratch when there is one (free since the sort: no second n-length allocation).
+      const out = room !== null && room.length === n ? room : new Float64Array(n);
+      room = null;
       for (let i = 0; i < n; i++) out[i] = Math.log(sorted[i] as number);
       return (logCache = out);
     },
@@ -263,4 +239,73 @@ export function prepareSample(
       return (sumLogCache = (acc[0] as number) + (acc[1] as number));
     },
   };
+}
+
+/**
+ * Build a Sample. Throws InputError for non-finite values (with the 0-based index in the
+ * message as "value #i", 1-based) and for an empty sample. Does not copy `alreadySorted`
+ * when told the array is already ascending and owned by the caller; with `inPlace` a Float64Array
+ * the caller gives up (its order is not needed back) is checked and sorted where it is, not copied.
+ */
+export function prepareSample(values: ArrayLike<number>, opts: PrepareOptions = {}): Sample {
+  const logCacheMaxN = opts.logCacheMaxN ?? LOG_CACHE_MAX_N;
+  const n = values.length;
+  if (n === 0) throw new InputError('No values to analyse: the sample is empty.', {}, 'too-few-values');
+  if (opts.alreadySorted && opts.summary !== undefined && values instanceof Float64Array) return fromSummary(values, opts.summary, logCacheMaxN, opts.logs);
+  let sorted: Float64Array;
+  // The radix sort's scratch (n doubles, free once the values are sorted): the room for the ln x cache.
+  let room: Float64Array | null = null;
+  if (opts.alreadySorted && values instanceof Float64Array) sorted = values;
+  else if (opts.inPlace && values instanceof Float64Array) {
+    for (let i = 0; i < n; i++) {
+      const v = values[i] as number;
+      if (!Number.isFinite(v)) {
+        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
+      }
+    }
+    sorted = values;
+    room = sortAscending(sorted);
+  } else {
+    sorted = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const v = values[i] as number;
+      if (!Number.isFinite(v)) {
+        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
+      }
+      sorted[i] = v;
+    }
+    room = sortAscending(sorted);
+  }
+  const min = sorted[0] as number;
+  const max = sorted[n - 1] as number;
+  if (!Number.isFinite(min) || !Number.isFinite(max)) {
+    throw new InputError('The sample contains a non-finite value.', {}, 'not-a-number');
+  }
+  const sum = compensated(sorted);
+  // The mean lies in [min, max]; the last rounding of sum/n can step just outside (nine values of
+  // 1e307 average to 9.999999999999999e306), so it is held there.
+  const mean = Math.min(max, Math.max(min, sum / n));
+  let s = 0;
+  let c = 0;
+  let negative = 0;
+  let zeros = 0;
+  let distinct = 0;
+  let prev = Number.NaN;
+  for (let i = 0; i < n; i++) {
+    const x = sorted[i] as number;
+    if (x < 0) negative++;
+    else if (x === 0) zeros++;
+    if (x !== prev) distinct++;
+    prev = x;
+    const d = (x - mean) * (x - mean);
+    const t = s + d;
+    if (Math.abs(s) >= Math.abs(d)) c += s - t + d;
+    else c += d - t + s;
+    s = t;
+  }
+  const sumSqDev = s + c;
+  const summary: SampleSummary = { min, max, sum, mean, sumSqDev, negative, zeros, distinct };
+  // Kept only when it will hold ln x (else it is left to the garbage collector now).
+  const logsRoom = room !== null && negative + zeros === 0 && n <= logCacheMaxN ? room : null;
+  return fromSummary(sorted, summary, logCacheMaxN, opts.alreadySorted ? opts.logs : undefined, logsRoom);
 }

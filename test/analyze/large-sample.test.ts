@@ -6,7 +6,7 @@
  * in test/families and test/gof; here the reference is that path.
  */
 import { describe, expect, it } from 'vitest';
-import { analyze, createRng, LOG_CACHE_MAX_N, prepareSample } from '../../core/index.js';
+import { analyze, createRng, LOG_CACHE_MAX_N, prepareSample, sampleSummary } from '../../core/index.js';
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 
@@ -73,5 +73,33 @@ describe('sorting a caller’s array in place', () => {
     const v = Float64Array.from([1, 2, Number.NaN, 4]);
     expect(() => prepareSample(v, { inPlace: true })).toThrow(/Value #3 is not a finite number/);
     expect(() => prepareSample(Float64Array.from(v))).toThrow(/Value #3 is not a finite number/);
+  });
+});
+
+describe('a sample handed to another thread (cli/second-thread.ts)', () => {
+  it('rebuilt from the sorted values, their summary and their ln x: the same sample and the same report', () => {
+    const v = gammaValues(30_001, 34);
+    const own = prepareSample(v);
+    const logs = own.logs() as Float64Array;
+    const rebuilt = prepareSample(own.sorted, { alreadySorted: true, summary: sampleSummary(own), logs });
+    expect(rebuilt.logs()).toBe(logs); // the given array, not a new pass
+    const fields = (s: typeof own): unknown[] => [s.n, s.min, s.max, s.sum, s.mean, s.sumSqDev, s.nonPositive, s.negative, s.zeros, s.distinct, s.sumLog()];
+    expect(fields(rebuilt)).toEqual(fields(own));
+    // Without ln x the rebuilt sample visits them block by block, with the same Σ ln x.
+    const noLogs = prepareSample(own.sorted, { alreadySorted: true, summary: sampleSummary(own), logCacheMaxN: 0 });
+    expect(noLogs.logs()).toBeNull();
+    expect(noLogs.sumLog()).toBe(own.sumLog());
+    expect(JSON.stringify(analyze(rebuilt))).toBe(JSON.stringify(analyze(prepareSample(v))));
+  });
+
+  it('ln x kept in the radix sort\'s scratch: each equals Math.log of its sorted value (n = 70,000, values on shared memory too)', () => {
+    const v = gammaValues(70_000, 35);
+    const shared = new Float64Array(new SharedArrayBuffer(v.length * 8));
+    shared.set(v);
+    for (const s of [prepareSample(v), prepareSample(Float64Array.from(v), { inPlace: true }), prepareSample(shared, { inPlace: true })]) {
+      const logs = s.logs() as Float64Array;
+      expect(logs.length).toBe(v.length);
+      for (let i = 0; i < logs.length; i++) if (logs[i] !== Math.log(s.sorted[i] as number)) throw new Error(`ln x differs at ${i}`);
+    }
   });
 });
