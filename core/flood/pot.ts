@@ -1,6 +1,7 @@
 /**
  * Peaks over a threshold (e.g. Coles 2001, An Introduction to Statistical Modeling of Extreme
- * Values, ch. 4 [from memory]):
+ * Values, ch. 4 [from memory]; its §4.4.1 rainfall example is reproduced in
+ * test/flood/pot-coles-rain.test.ts on the book's open data):
  * - declustering by runs: exceedances of the threshold u closer in time than the minimum
  *   separation belong to one cluster, and only each cluster's peak is kept;
  * - the excesses y = x − u of the cluster peaks follow a generalized Pareto distribution,
