@@ -4,8 +4,9 @@
  * regional-skew.ts stationSkewMse, Griffis & Stedinger 2009 as in Bulletin 17C [from memory]):
  *   - with n = the record's years (what the weighting did before);
  *   - with n = the effective record length of the station skew (core/flood/ema-covariance.ts:
- *     the years of a censor-free record whose skew has the same asymptotic variance), what
- *     Bulletin 17C does for censored records [from memory] and what fitEma now does.
+ *     the years of a censor-free record whose skew has the same asymptotic variance, capped at the
+ *     record's years), what Bulletin 17C does for censored records [from memory] and what fitEma
+ *     does; the uncapped asymptotic ratio is recorded beside it (asymptoticRatio).
  * Records are drawn from a known log-Pearson III population (log10 flows standardized: mean 0,
  * sd 1, skew γ) with the designs of scripts/flood-ema-ci-coverage.ts (drawRecord), fitted by
  * core/flood emaIterate without a regional skew; the simulated MSE is mean((Ĝ − γ)²) over R
@@ -16,7 +17,7 @@
  */
 import { pathToFileURL } from 'node:url';
 import { emaIterate } from '../core/flood/ema.js';
-import { effectiveRecordLength } from '../core/flood/ema-covariance.js';
+import { asymptoticSkewRecordLength, effectiveRecordLength } from '../core/flood/ema-covariance.js';
 import { stationSkewMse } from '../core/flood/regional-skew.js';
 import { createRng } from '../core/random/index.js';
 import { caseDesign, drawRecord, SEED, type Case } from './flood-ema-ci-coverage.js';
@@ -27,6 +28,16 @@ export const SKEW_MSE_CASES: Case[] = [
   { label: 'historical: 60 systematic + 60 years above the 0.90 quantile, skew -1.0', skew: -1, systematic: 60, period: 100, historical: { years: 60, quantile: 0.9 } },
   { label: 'systematic n = 50 censored below the 0.10 quantile, skew -0.2', skew: -0.2, systematic: 50, period: 100, lowCensor: 0.1 },
   { label: 'systematic n = 80 censored below the 0.30 quantile, skew 0.4', skew: 0.4, systematic: 80, period: 100, lowCensor: 0.3 },
+  { label: 'systematic n = 60 censored below the 0.05 quantile, skew -1.6 (strong negative skew)', skew: -1.6, systematic: 60, period: 100, lowCensor: 0.05 },
+  {
+    label: 'the invented gauge\'s design: 73 systematic censored below the 0.04 quantile + 62 historical above the 0.95 quantile, skew -1.6 (strong negative skew)',
+    skew: -1.6,
+    systematic: 73,
+    period: 100,
+    lowCensor: 0.04,
+    historical: { years: 62, quantile: 0.95 },
+  },
+  { label: 'systematic n = 60, skew -1.6 (no censoring, strong negative skew)', skew: -1.6, systematic: 60, period: 100 },
 ];
 
 export function runSkewMseCase(c: Case, index: number, R: number): Record<string, number | string> {
@@ -58,6 +69,7 @@ export function runSkewMseCase(c: Case, index: number, R: number): Record<string
   const se = Math.sqrt((sumSq / used - mse * mse) / used);
   const years = design.thresholds.reduce((a, t) => a + t.years, 0);
   const erl = effectiveRecordLength(design, { mean: 0, sd: 1, skew: c.skew });
+  const asymptotic = asymptoticSkewRecordLength(design, { mean: 0, sd: 1, skew: c.skew });
   return {
     label: c.label,
     skew: c.skew,
@@ -68,6 +80,7 @@ export function runSkewMseCase(c: Case, index: number, R: number): Record<string
     monteCarloSe: se,
     bias: bias / used,
     effectiveRecordLength: erl,
+    asymptoticRatio: asymptotic,
     mseAtEffectiveLength: stationSkewMse(c.skew, erl),
     mseAtRecordYears: stationSkewMse(c.skew, years),
   };

@@ -57,7 +57,7 @@ export const STATION_SKEW_MSE_METHOD =
 
 /** The method text for censored records: n is the effective record length (Bulletin 17C's use of it from memory). */
 export const STATION_SKEW_MSE_METHOD_EFFECTIVE =
-  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the effective record length of the station skew (censored or historical years count for less; its use here after Bulletin 17C [from memory])';
+  'Griffis & Stedinger (2009) variance of the station skew, (6/n + a(n))[1 + (3/2 + b(n))G² + (5/16 + c(n))G⁴], the Bulletin 17C approximation [from memory], with n the effective record length of the station skew (censored or historical years count for less, and the length is at most the record\'s years; its use here after Bulletin 17C [from memory])';
 
 function checkYears(years: number): void {
   if (!(years > 0)) throw new InputError(`the record length must be positive (got ${String(years)})`, {}, 'bad-option');
