@@ -10,7 +10,7 @@
  * control-chart.ts); nothing is computed here but positions.
  */
 import { scaleLinear } from 'd3';
-import { RUN_RULE_WORDS, RUN_RULES_SOURCE } from '../../core/capability/run-rules.js';
+import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import type { ChartPanel, ChartPoint, StabilityChart } from '../../core/index.js';
 import { sig } from '../src/format.js';
 import { axisBottom, axisLeft, createFrame, drawGrid, drawXAxis, drawYAxis, fitYAxis, pathThrough, type Frame, type Group } from './frame.js';
@@ -20,6 +20,8 @@ import { INK } from './palette.js';
 import { round, textWidth } from './text.js';
 
 const GAP = 34;
+/** Two panels of at least about 90 px each, however long the legend and notes in a narrow slot. */
+const PLOT_MIN = 2 * 90 + GAP;
 
 function yScale(p: ChartPanel, top: number, bottom: number) {
   const values = p.points.flatMap((q) => [q.value, q.lower, q.upper]).filter(Number.isFinite);
@@ -74,9 +76,9 @@ function drawPanel(frame: Frame, g: Group, p: ChartPanel, y: ReturnType<typeof y
 function legendItems(chart: StabilityChart): LegendItem[] {
   const all = [...chart.location.points, ...chart.dispersion.points];
   const items: LegendItem[] = [{ key: 'point', label: chart.kind === 'individuals and moving range' ? 'value' : 'subgroup statistic', kind: 'point' }];
-  if (all.some((q) => q.beyond !== null)) items.push({ key: 'beyond', label: 'ring: beyond a 3σ limit (rule 1)', kind: 'beyond' });
+  if (all.some((q) => q.beyond !== null)) items.push({ key: 'beyond', label: 'beyond a 3σ limit (rule 1)', kind: 'beyond' });
   if (all.some((q) => (q.runRules?.length ?? 0) > 0)) {
-    items.push({ key: 'run-signal', label: 'diamond: ends a run (rules 2–4, below; hover for which)', kind: 'run-signal' });
+    items.push({ key: 'run-signal', label: 'ends a run (rules 2–4, below)', kind: 'run-signal' });
     items.push({ key: 'zone', label: '1σ and 2σ lines', kind: 'zone' });
   }
   return items;
@@ -86,7 +88,7 @@ function legendItems(chart: StabilityChart): LegendItem[] {
 function runRulesNote(chart: StabilityChart): string | null {
   const rules = [...new Set([...chart.location.points, ...chart.dispersion.points].flatMap((q) => q.runRules ?? []))].sort();
   if (rules.length === 0) return null;
-  return `Diamonds end a run (${RUN_RULES_SOURCE}): ${rules.map((k) => `rule ${k}, ${RUN_RULE_WORDS[k]}`).join('; ')}.`;
+  return `Diamonds end a run (Western Electric rules, 1956): ${rules.map((k) => `rule ${k}, ${RUN_RULE_WORDS[k]}`).join('; ')}.`;
 }
 
 export function controlChart(container: Element, chart: StabilityChart, options: ChartOptions): SVGSVGElement {
@@ -97,7 +99,7 @@ export function controlChart(container: Element, chart: StabilityChart, options:
   const description = `Upper panel: each ${chart.location.statistic} in order with its centre line and dashed 3-sigma limits; lower panel: each ${chart.dispersion.statistic} with its limits. Hollow rings mark points beyond a limit; filled diamonds mark points that end a run (Western Electric rules 2-4). ${chart.statement}`;
   const runs = runRulesNote(chart);
   const notes = [`Limits: ${chart.source}. Sigma ${sig(chart.sigma)} from ${chart.sigmaMethod}.`, ...(runs ? [runs] : [])];
-  const frame = createFrame(container, options, title, description, { legend: legendItems(chart), notes });
+  const frame = createFrame(container, options, title, description, { legend: legendItems(chart), notes, minPlotHeight: PLOT_MIN });
   const half = (frame.innerHeight - GAP) / 2;
   const yTop = yScale(chart.location, 0, half);
   const yBottom = yScale(chart.dispersion, half + GAP, frame.innerHeight);

@@ -51,6 +51,9 @@ export interface FrameLayout {
   readonly notes?: readonly string[];
   /** Room for labels drawn just above the plot area (e.g. limit names), in px. */
   readonly headroom?: number;
+  /** The least height of the plotting area: when the title, legend and notes leave less, the chart
+   *  is drawn taller than asked instead of squeezing the plot (a narrow slot with long notes). */
+  readonly minPlotHeight?: number;
 }
 
 let idCounter = 0;
@@ -107,7 +110,12 @@ export function createFrame(
   const bottom = 50 + noteLines.length * NOTE_ROW;
   const margins: Margins = { top, right: RIGHT, bottom, left: LEFT_MIN };
   const innerWidth = Math.max(40, size.width - margins.left - margins.right);
-  const innerHeight = Math.max(40, size.height - margins.top - margins.bottom);
+  const innerHeight = Math.max(40, layout.minPlotHeight ?? 0, size.height - margins.top - margins.bottom);
+  const height = Math.max(size.height, margins.top + innerHeight + margins.bottom);
+  if (height > size.height) {
+    svg.attr('viewBox', `0 0 ${size.width} ${height}`).attr('height', height);
+    svg.select('rect').attr('height', height);
+  }
   if (noteLines.length > 0) {
     const g = svg.append('g').attr('data-kind', 'notes').attr('font-size', 10.5).attr('fill', INK.muted);
     noteLines.forEach((line, i) => g.append('text').attr('x', 8).attr('y', round(top + innerHeight + 48 + (i + 1) * NOTE_ROW - 2)).text(line));

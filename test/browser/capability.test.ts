@@ -42,11 +42,11 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     // the stability chart: 25 subgroup means and 25 standard deviations
     const cc = block.locator('[data-slot="control-chart"] svg');
     await expect(cc.locator('title').first().textContent()).resolves.toMatch(/^Is the process stable\? Subgroup means and standard deviations/);
-    expect(await cc.locator('circle').count()).toBe(50);
+    expect(await cc.locator('[data-panel] circle').count()).toBe(50);
     // beside it, the means-and-ranges chart: 25 subgroup means and 25 ranges
     const rc = block.locator('[data-slot="range-chart"] svg');
     await expect(rc.locator('title').first().textContent()).resolves.toMatch(/^Is the process stable\? Subgroup means and ranges/);
-    expect(await rc.locator('circle').count()).toBe(50);
+    expect(await rc.locator('[data-panel] circle').count()).toBe(50);
     expect(text).toMatch(/Beside it, subgroup means and ranges: .*A2 0\.5768, D3 0, D4 2\.114/);
     // shaft-diameter: every model is rejected (the gauge's resolution ties the values), so there is no
     // table of passing models and the rejected ones are shown open as what each would say, not an answer

@@ -4,8 +4,8 @@
  * 1956, rules 2-4, as computed by core/capability/run-rules.ts) apart from points beyond a limit:
  * a filled diamond for a point that ends a run, a hollow ring for a point beyond a 3-sigma limit,
  * each with a title naming what it signals, a legend entry saying so in words, and the rules present
- * written out in the chart's notes. The data are invented (an oscillating noise, then a shift of
- * about one sigma); which points signal is the core's answer, checked against the rule definitions
+ * written out in the chart's notes. The data are invented (./invented-runs.ts: an oscillating noise,
+ * then a shift of about one sigma); which points signal is the core's answer, checked against the rule definitions
  * in test/capability/run-rules.test.ts. The page's browser check is test/browser/run-rules.test.ts.
  */
 import { beforeEach, describe, expect, it } from 'vitest';
@@ -13,11 +13,7 @@ import { individualsChart, subgroupChart } from '../../core/capability/control-c
 import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import { controlChart } from '../../client/charts/control-chart.js';
 import { resetIds } from '../../client/charts/frame.js';
-
-const NOISE = [0.3, -0.5, 0.8, -0.2, -0.9, 0.4, 0.1, -0.6, 0.7, -0.3, 0.5, -0.8, 0.2, 0.6, -0.4, -0.1, 0.9, -0.7, 0.3, -0.2, 0.4, -0.5, 0.1, -0.3];
-/** Invented: 24 in-control values, then 12 after a shift up. */
-export const STEADY = NOISE.map((e) => 50 + e);
-export const SHIFTED = [...STEADY, ...[0.5, 0.9, 0.2, 0.8, 1.6, 0.3, 1.5, 0.7, 0.3, 0.9, 0.6, 0.5].map((e) => 50.6 + e)];
+import { SHIFTED, STEADY } from './invented-runs.js';
 
 const OPTS = { width: 640, height: 420, units: 'g', quantity: 'Fill weight' };
 const host = (): HTMLElement => document.body.appendChild(document.createElement('div'));
@@ -51,9 +47,9 @@ describe('run rules on the stability chart', () => {
     });
     // the plain points are the others: every location point has exactly one mark
     expect(svg.querySelectorAll('[data-panel="location"] circle[data-kind="point"]')).toHaveLength(SHIFTED.length - chart.runSignals);
-    expect(legend(svg)).toContain('diamond: ends a run (rules 2–4, below; hover for which)');
+    expect(legend(svg)).toContain('ends a run (rules 2–4, below)');
     expect(legend(svg)).toContain('1σ and 2σ lines');
-    expect(legend(svg).some((t) => /ring/.test(t))).toBe(false);
+    expect(legend(svg).some((t) => /beyond/.test(t))).toBe(false);
     expect(svg.querySelectorAll('[data-panel="location"] [data-kind="zone"]')).toHaveLength(4);
     expect(svg.querySelectorAll('[data-panel="dispersion"] [data-kind="zone"]')).toHaveLength(0);
     const n = notes(svg);
@@ -100,8 +96,8 @@ describe('run rules on the stability chart', () => {
     const lastDiamond = [...g.querySelectorAll('[data-kind="run-signal"]')].pop()!;
     expect(lastDiamond.getAttribute('data-rules')).toBe('4');
     expect(lastDiamond.querySelector('title')?.textContent).toMatch(/above the upper limit .*; completes rule 4: eight successive points/);
-    expect(legend(svg)).toContain('ring: beyond a 3σ limit (rule 1)');
-    expect(legend(svg)).toContain('diamond: ends a run (rules 2–4, below; hover for which)');
+    expect(legend(svg)).toContain('beyond a 3σ limit (rule 1)');
+    expect(legend(svg)).toContain('ends a run (rules 2–4, below)');
   });
 
   it('subgroup means: the zone lines follow each subgroup size (sigma / sqrt(n) per point)', () => {
@@ -123,5 +119,19 @@ describe('run rules on the stability chart', () => {
     plus2.forEach((y, i) => expect(y - centre).toBeCloseTo((2 / 3) * (upper[i]! - centre), 0));
     // the two subgroup sizes give two different zone heights
     expect(new Set(plus2.map((y) => Math.round(y))).size).toBeGreaterThan(1);
+  });
+
+  it('in a narrow slot with the legend and notes, the chart grows taller rather than squeezing its two panels', () => {
+    // the page's capability slot at 1366 px is about 460 × 285 (client/src/render.ts chartSize)
+    const svg = controlChart(host(), individualsChart(SHIFTED, null), { ...OPTS, width: 460, height: 285 });
+    const height = Number(svg.getAttribute('height'));
+    expect(height).toBeGreaterThan(285);
+    expect(svg.getAttribute('viewBox')).toBe(`0 0 460 ${height}`);
+    expect(Number(svg.querySelector('rect')!.getAttribute('height'))).toBe(height);
+    // the plot's two centre lines are at least one 90 px panel apart
+    const centres = [...svg.querySelectorAll('[data-kind="centre"]')].map((c) => Number(c.getAttribute('y1')));
+    expect(Math.abs(centres[1]! - centres[0]!)).toBeGreaterThanOrEqual(90);
+    // a roomy chart keeps the size it was given
+    expect(controlChart(host(), individualsChart(SHIFTED, null), { ...OPTS, width: 900, height: 600 }).getAttribute('height')).toBe('600');
   });
 });
