@@ -9,7 +9,9 @@
  *   - a regional skew drawn afresh for each record, G_R ~ N(γ, MSE_R), MSE_R = 0.12;
  *   - a historical record: 40 systematic years + 100 historical years whose peaks are known only
  *     above the population's 0.95 quantile (the rest "below the threshold");
- *   - systematic years censored below a fixed low threshold (the population's 0.10 quantile).
+ *   - systematic years censored below a fixed low threshold (the population's 0.10 quantile);
+ *   - a strong negative skew (−1.6, as the invented gauge's station skew), complete and censored
+ *     below the 0.05 quantile.
  * Each record is fitted by the EMA (core/flood emaIterate, low outliers not tested: the design
  * is fixed) and the interval asks whether it holds the true quantile. The cases' records come
  * from createRng(SEED, case index); R records per case (default 2000: Monte Carlo s.e. of a 90 %
@@ -53,6 +55,8 @@ export const CASES: Case[] = [
   { label: 'regional skew drawn (MSE 0.12), n = 30, skew 0.3, T = 100', skew: 0.3, systematic: 30, period: 100, regional: { mse: 0.12 } },
   { label: 'historical: 40 systematic + 100 years above the 0.95 quantile, skew 0.2, T = 100', skew: 0.2, systematic: 40, period: 100, historical: { years: 100, quantile: 0.95 } },
   { label: 'systematic n = 50 censored below the 0.10 quantile, skew -0.2, T = 100', skew: -0.2, systematic: 50, period: 100, lowCensor: 0.1 },
+  { label: 'systematic n = 60, skew -1.6, T = 100 (strong negative skew)', skew: -1.6, systematic: 60, period: 100 },
+  { label: 'systematic n = 60 censored below the 0.05 quantile, skew -1.6, T = 100 (strong negative skew)', skew: -1.6, systematic: 60, period: 100, lowCensor: 0.05 },
 ];
 
 function draw(rng: Rng, skew: number): number {

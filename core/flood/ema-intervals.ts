@@ -24,8 +24,10 @@
  *   skew −0.3: 94.4 %, skew 0.6: 90.5 %; n = 60 skew 0 T = 10: 89.1 %; regional skew drawn with
  *   MSE 0.12, n = 30: 89.8 %; 40 systematic + 100 historical years (threshold at the 0.95
  *   quantile): 90.1 %; n = 50 censored below the 0.10 quantile, skew −0.2: 86.4 % (11.7 % of true
- *   quantiles above the upper limit). The plain normal interval on the same variance covered
- *   83.2–92.8 % in the same cases.
+ *   quantiles above the upper limit); n = 60 skew −1.6: 92.3 %; the same censored below the 0.05
+ *   quantile: 82.7 % (12.1 % above the upper limit; the first-order variance is far too small for a
+ *   strongly skewed record censored at the low end, see scripts/flood-ema-skew-mse.ts). The plain
+ *   normal interval on the same variance covered 82.8–96.2 % in the same cases.
  */
 import { Pearson3Distribution } from '../families/index.js';
 import { emaCovariance, emaQuantileVariance, effectiveRecordLength, type EmaDesign } from './ema-covariance.js';

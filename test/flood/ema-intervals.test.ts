@@ -153,11 +153,16 @@ describe('measured coverage of the EMA intervals (test/fixtures/flood-ema-ci-cov
     expect(c.label).toMatch(/exact case/);
     expect(Math.abs(c.coverage - 0.9)).toBeLessThan(3 * c.monteCarloSe);
   });
-  it('every case covers between 86 and 97 % (nominal 90 %): approximate, as the report says; the n = 20 zero-skew record over-covers (96 %), the low-censored one under-covers (86 %)', () => {
-    for (const c of cov.cases) {
+  it('every case covers between 86 and 97 % (nominal 90 %) but one: approximate, as the report says; the n = 20 zero-skew record over-covers (96 %), the low-censored one under-covers (86 %)', () => {
+    for (const c of cov.cases.filter((x) => !/censored below the 0.05 quantile, skew -1.6/.test(x.label))) {
       expect(c.coverage).toBeGreaterThan(0.86);
       expect(c.coverage).toBeLessThan(0.97);
     }
+  });
+  it('the known failure, said in the cautions: a strong negative skew (−1.6) censored below the 0.05 quantile covers only 82.7 % (12.1 % of true 100-year flows above the upper limit)', () => {
+    const c = cov.cases.find((x) => /censored below the 0.05 quantile, skew -1.6/.test(x.label))!;
+    expect(c.coverage).toBeGreaterThan(0.8);
+    expect(c.coverage).toBeLessThan(0.86);
   });
   it('the committed numbers are what the script gives (cases 1 and 7 rerun in full)', async () => {
     const { CASES, runCase } = await import('../../scripts/flood-ema-ci-coverage.js');
