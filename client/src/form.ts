@@ -68,7 +68,7 @@ function fieldNode(f: PageField): HTMLElement {
     case 'role': {
       const c = el('select', { id: f.id });
       described(c);
-      return el('div', {}, el('label', { for: f.id, className: 'field-label' }, f.label), c);
+      return el('div', { 'data-role-field': f.name }, el('label', { for: f.id, className: 'field-label' }, f.label), c);
     }
     default: {
       let c: Control;

@@ -12,6 +12,9 @@
  */
 import { OPTION_TABLE, onSurface, type OptionSpec } from '../../core/index.js';
 
+/** How a file's rows are read (client/src/state.ts Shape): one value per row, class counts, or inspection intervals. */
+export type DataShape = 'values' | 'grouped' | 'interval';
+
 export type ControlKind = 'number' | 'text' | 'select' | 'radio' | 'checkbox' | 'families' | 'role';
 
 /** Where a field is placed: the "How to judge" card, the "What you decide" card, or the data card's column roles. */
@@ -37,6 +40,8 @@ export interface PageField {
   readonly secondary: boolean;
   /** Drawn inside the fieldset of this option (replicates inside the p-value method). */
   readonly within?: string;
+  /** Column roles: the data shapes the role applies to (one value per row; interval rows). */
+  readonly shapes: readonly DataShape[];
   /** The radio group name. */
   readonly radioName?: string;
 }
@@ -51,6 +56,8 @@ interface Words {
   readonly secondary?: boolean;
   readonly within?: string;
   readonly radio?: string;
+  /** Column roles: the data shapes the role applies to (default: one value per row only). */
+  readonly shapes?: readonly DataShape[];
 }
 
 /** The page's words for the options it knows. An option not listed here is still shown (see the file comment). */
@@ -94,7 +101,7 @@ const WORDS: Readonly<Record<string, Words>> = {
   threshold: { label: 'Peaks over a threshold of', placeholder: 'none', secondary: true },
   minSeparation: { label: 'Days between independent peaks', secondary: true },
   dateColumn: { label: 'Date column (peaks over a threshold)', id: 'date-select', placeholder: 'none' },
-  modeColumn: { label: 'Failure-mode column', id: 'mode-select', placeholder: 'none (one failure mode)', hint: 'With the failed / still-running column: the mode of each failed unit (e.g. leak, crack). Each mode is fitted on its own and the whole unit’s life is the earlier of its modes.' },
+  modeColumn: { label: 'Failure-mode column', id: 'mode-select', placeholder: 'none (one failure mode)', shapes: ['values', 'interval'], hint: 'With the failed / still-running column, or with interval rows: the mode of each failed unit (e.g. leak, crack; blank for a unit still running). Each mode is fitted on its own and the whole unit’s life is the earlier of its modes.' },
 };
 
 /** The data card reads the file itself; the page sets the plot-data settings; many series have their own page. */
@@ -149,6 +156,7 @@ function fieldOf(spec: OptionSpec): PageField {
     choiceWords,
     placeholder: w.placeholder ?? (control === 'number' || control === 'text' ? (spec.default === null ? 'none' : '') : ''),
     secondary: w.secondary ?? false,
+    shapes: w.shapes ?? (control === 'role' ? ['values'] : []),
     ...(w.within ? { within: w.within } : {}),
     ...(w.radio ? { radioName: w.radio } : {}),
   };
@@ -171,6 +179,15 @@ export function pageField(name: string): PageField | undefined {
 
 /** The column-role options (status, subgroups, order): a column of this source, by its 1-based index. */
 export const ROLE_FIELDS: readonly PageField[] = PAGE_FIELDS.filter((f) => f.control === 'role');
+
+/**
+ * Whether a column role applies to data read in this shape: every role to one value per row; to
+ * interval rows only the failure-mode column (the API takes modeColumn with intervalColumns, core
+ * options/combinations.ts); none to class counts.
+ */
+export function roleApplies(f: PageField, shape: DataShape): boolean {
+  return f.shapes.includes(shape);
+}
 
 /** The fieldsets of the "What you decide" card, by table group, with their legends. */
 export const DECIDE_LEGENDS: Readonly<Partial<Record<OptionSpec['group'], string>>> = {

@@ -9,6 +9,7 @@ import { blockNode, decisionBlocks } from './decision.js';
 import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { byId, clear, el } from './dom.js';
+import { ROLE_FIELDS, roleApplies } from './page-options.js';
 import { noteCensoring, noteSeries, unusedModeColumn, unusedStatusColumn } from './source-notes.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
 import { capital, modelLabel } from './families.js';
@@ -88,6 +89,15 @@ export function renderSource(st: PageState): void {
   $('grouped-cols').hidden = reading.shape !== 'grouped';
   $('interval-cols').hidden = reading.shape !== 'interval';
   $('value-cols').hidden = reading.shape !== 'values';
+  // The column roles that apply to this shape of data (page-options.ts roleApplies): all for one value per row,
+  // the failure-mode column for interval rows, none for class counts.
+  for (const f of ROLE_FIELDS) {
+    const box = document.querySelector<HTMLElement>(`[data-role-field="${f.name}"]`);
+    if (box) box.hidden = !roleApplies(f, reading.shape);
+  }
+  $('roles').hidden = !ROLE_FIELDS.some((f) => roleApplies(f, reading.shape));
+  $('roles-hint').hidden = reading.shape !== 'values';
+  $('roles-interval-hint').hidden = reading.shape !== 'interval';
   const fill = (id: string, chosen: number): void => {
     const sel = select(id);
     clear(sel);

@@ -8,7 +8,7 @@
 import { OPTION_COMBINATIONS, checkCombinations, optionNamed, parseFormOption, parseJsonOption, parseStrictNumber, type OptionSpec, type OptionValue } from '../../core/index.js';
 import type { AnalyzeRequest, GroupedRequest } from './api.js';
 import { readGroupedClasses } from './grouped-view.js';
-import { PAGE_FIELDS, ROLE_FIELDS, pageField, type PageField } from './page-options.js';
+import { PAGE_FIELDS, ROLE_FIELDS, pageField, roleApplies, type DataShape, type PageField } from './page-options.js';
 import { settingText, type Settings } from './settings.js';
 import { columnLabel, type PageState } from './state.js';
 
@@ -103,12 +103,13 @@ const sameAsDefault = (spec: OptionSpec, v: OptionValue): boolean => JSON.string
  * needs (a column role without it is quietly not sent, as the subgroups without a tolerance). The remaining rules between options
  * (conflicts, order) are checked as the API checks them.
  */
-function tradeFields(s: Settings, life: boolean, problems: Problem[], reading: ReadonlyMap<string, OptionValue> = new Map()): Map<string, OptionValue> {
-  // The reading's own fields (interval columns) count as given; the column roles only for one value per row.
+function tradeFields(s: Settings, life: boolean, problems: Problem[], shape: DataShape, reading: ReadonlyMap<string, OptionValue> = new Map()): Map<string, OptionValue> {
+  // The reading's own fields (interval columns) count as given; the column roles that apply to this shape of data
+  // (page-options.ts roleApplies: with interval rows only the failure-mode column).
   const given = new Map<string, OptionValue>(reading);
   for (const r of ROLE_FIELDS) {
     const i = s[r.name];
-    if (reading.size === 0 && typeof i === 'number' && i > 0 && appliesHere(r.spec, life)) given.set(r.name, i);
+    if (roleApplies(r, shape) && typeof i === 'number' && i > 0 && appliesHere(r.spec, life)) given.set(r.name, i);
   }
   for (const f of PAGE_FIELDS) {
     if (FITTING_KEYS.has(f.name) || f.control === 'role') continue;
@@ -156,7 +157,7 @@ export function buildRequest(state: PageState): RequestOutcome {
     reading.shape === 'interval' ? [['intervalColumns', [iv.start, iv.end]], ...(iv.count > 0 ? [['countColumn', iv.count] as [string, OptionValue]] : [])] : [],
   );
   const life = reading.shape === 'interval' || (typeof s.statusColumn === 'number' && s.statusColumn > 0);
-  const wf = tradeFields(s, life, problems, intervalFields);
+  const wf = tradeFields(s, life, problems, reading.shape, intervalFields);
   const lsl = wf.get('lsl');
   const usl = wf.get('usl');
   if (typeof lsl === 'number' && typeof usl === 'number' && !(lsl < usl)) problems.push({ field: 'usl', message: 'The upper limit must be above the lower one.' });
@@ -180,6 +181,10 @@ export function buildRequest(state: PageState): RequestOutcome {
   }
   if (reading.shape === 'interval' && new Set([iv.start, iv.end, ...(iv.count > 0 ? [iv.count] : [])]).size !== (iv.count > 0 ? 3 : 2)) {
     problems.push({ field: 'intervals', message: 'Choose different columns for the start of the interval, its end and the count.' });
+  }
+  const mode = wf.get('modeColumn');
+  if (reading.shape === 'interval' && typeof mode === 'number' && [iv.start, iv.end, iv.count].includes(mode)) {
+    problems.push({ field: 'modeColumn', message: 'The failure-mode column must be another column than the interval start, end and count.' });
   }
   if (problems.length > 0) return { ok: false, problems };
   if (wf.size > 0 && typeof confidence === 'number') wf.set('confidence', confidence);

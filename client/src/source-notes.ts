@@ -21,15 +21,16 @@ export function unusedStatusColumn(st: PageState): { index: number; label: strin
 const MODE_NAME = /^(mode|failure[ _-]?mode|fail[ _-]?mode|mechanism|failure[ _-]?mechanism|cause|failure[ _-]?cause)$/i;
 
 /**
- * With the status column in use, a column named like a failure mode (mode, failure mode, mechanism,
- * cause) that is not used as the failure-mode column, or undefined. Names only: common practice, no
- * source.
+ * With the status column in use, or with interval rows, a column named like a failure mode (mode,
+ * failure mode, mechanism, cause) that is not used as the failure-mode column, or undefined. Names
+ * only: common practice, no source.
  */
 export function unusedModeColumn(st: PageState): { index: number; label: string } | undefined {
   const r = st.reading;
   const status = st.settings.statusColumn;
-  if (r.shape !== 'values' || typeof status !== 'number' || status <= 0) return undefined;
-  const flag = r.columns.find((c) => c.index !== r.column && c.index !== status && MODE_NAME.test(c.label.trim()));
+  const taken = r.shape === 'interval' ? [r.interval.start, r.interval.end, r.interval.count] : [r.column, status];
+  if (r.shape === 'grouped' || (r.shape === 'values' && (typeof status !== 'number' || status <= 0))) return undefined;
+  const flag = r.columns.find((c) => !taken.includes(c.index) && MODE_NAME.test(c.label.trim()));
   return flag && st.settings.modeColumn !== flag.index ? flag : undefined;
 }
 

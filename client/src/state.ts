@@ -149,9 +149,10 @@ function scan(csv: string, header: boolean, decimal: '.' | ',', prefer?: number)
   }
 }
 
-/** Roles point at columns of this source only, never at the value column. */
+/** Roles point at columns of this source only, never at the value column (with interval rows: at the interval and count columns). */
 function keepRoles(settings: Settings, reading: Reading): Settings {
-  const ok = (i: number): number => (i > 0 && i !== reading.column && reading.columns.some((c) => c.index === i) ? i : 0);
+  const taken = reading.shape === 'interval' ? [reading.interval.start, reading.interval.end, reading.interval.count] : [reading.column];
+  const ok = (i: number): number => (i > 0 && !taken.includes(i) && reading.columns.some((c) => c.index === i) ? i : 0);
   const next: Record<string, number> = {};
   for (const r of ROLE_FIELDS) {
     const now = settings[r.name];

@@ -150,6 +150,26 @@ describe('buildRequest', () => {
     expect(noCount.ok && noCount.built.request).not.toHaveProperty('countColumn');
   });
 
+  // Interval rows with a failure-mode column (issue 13), in the layout of test/fixtures/life-modes-interval.json's rows.
+  const MODES_IV = 'start,end,units,mode\n,25,1,B\n8.04,8.04,1,B\n25,50,3,A\n50,75,14,A\n150,,4,\n';
+  it('interval rows with a failure-mode column: the request sends modeColumn beside the interval columns, and no other role', () => {
+    const st = loaded(MODES_IV, { modeColumn: 4, statusColumn: 2, orderColumn: 3, subgroupColumn: 2 });
+    expect(st.reading.shape).toBe('interval');
+    const out = buildRequest(st);
+    if (!out.ok || out.built.kind !== 'values') throw new Error('expected a request');
+    const r = out.built.request;
+    expect(r).toMatchObject({ intervalColumns: [1, 2], countColumn: 3, modeColumn: 4 });
+    for (const k of ['statusColumn', 'orderColumn', 'subgroupColumn', 'column']) expect(r).not.toHaveProperty(k);
+    // the API takes the same pair (core/options/combinations.ts: modeColumn needs statusColumn or intervalColumns)
+    expect(parseJsonOption(optionNamed('modeColumn')!, 4).ok).toBe(true);
+    // a mode column that is one of the interval columns is refused beside the mode field
+    const clash = buildRequest(update(st, { type: 'settings-edited', patch: { modeColumn: 3 } }));
+    expect(!clash.ok && clash.problems.map((p) => p.field)).toEqual(['modeColumn']);
+    // without the mode column nothing of it is sent
+    const none = buildRequest(update(st, { type: 'settings-edited', patch: { modeColumn: 0 } }));
+    expect(none.ok && none.built.request).not.toHaveProperty('modeColumn');
+  });
+
   it('class limits with counts become a grouped request read with the core CSV reader', () => {
     const s = loaded('lower,upper,count\n0,1,5\n1,2,9\n2,3,4\n');
     expect(s.reading.shape).toBe('grouped');

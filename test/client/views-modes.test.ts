@@ -35,9 +35,11 @@ const ends = (b: { estimate: number }): { lower: number; upper: number } | null 
   const x = b as { lower?: number; upper?: number };
   return Number.isFinite(x.lower) && Number.isFinite(x.upper) ? { lower: x.lower!, upper: x.upper! } : null;
 };
-const unitWords = (b: { estimate: number }): string => {
+/** The method's short name as the page writes it beside a bound (the core's method text: core/life bounds.ts, competing-modes-bounds.ts). */
+const shortName = (b: { method?: string }): string => (/^likelihood ratio/.test(b.method ?? '') ? 'likelihood-ratio ' : /^Fisher matrix/.test(b.method ?? '') ? 'Fisher-matrix ' : '');
+const unitWords = (b: { estimate: number; method?: string }): string => {
   const e = ends(b);
-  return `${sig(b.estimate)} h (${e ? `90 % bounds ${sig(e.lower)} to ${sig(e.upper)}` : 'point estimate'})`;
+  return `${sig(b.estimate)} h (${e ? `90 % ${shortName(b)}bounds ${sig(e.lower)} to ${sig(e.upper)}` : 'point estimate'})`;
 };
 /** The report with the whole unit's B-lives given bounds (as a core that bounds them reports them). */
 const WITH_BOUNDS = {
@@ -64,14 +66,18 @@ describe('the failure-modes section', () => {
     expect(text).toContain('At 50 % failed the leak mode comes first');
   });
 
-  it('tables each mode’s B-lives with their bounds and the whole unit’s as point values, naming the bound method and level', () => {
+  it('tables each mode’s B-lives and the whole unit’s with their bounds, naming the bound method of each row and the level', () => {
     const table = block.tables[0]!;
     expect(table.caption).toMatch(/90 % two-sided likelihood-ratio \(profile likelihood\) bounds per mode; /);
     const crack10 = m.modes[0]!.bLives[0]!;
-    expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper)]);
+    expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper), crack10.method]);
+    expect(crack10.method).toMatch(/^likelihood ratio/);
+    expect(table.head.at(-1)).toBe('Bounds by');
     const unit = table.rows.find((r) => r[0] === 'whole unit: B10')!;
     const e = ends(m.system!.bLives[0]!);
-    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), e ? sig(e.lower) : 'no bound', e ? sig(e.upper) : 'no bound']);
+    expect(e).not.toBeNull();
+    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), sig(e!.lower), sig(e!.upper), m.system!.bLives[0]!.method]);
+    expect(unit[6]).toMatch(/^likelihood ratio \(profile likelihood over every mode’s parameters\)/);
     // The whole unit's B10 is the fixture's (SciPy brentq on the product of the mode reliabilities), to the digits shown.
     expect(unit[3]).toBe(sig(fx.systemBest.b10));
     const rel = block.tables.find((x) => x.caption.startsWith('Reliability at the times'))!;
@@ -82,13 +88,13 @@ describe('the failure-modes section', () => {
   it('prints the whole unit’s bounds when the report carries them, and "no bound" with "point estimates" when it does not', () => {
     const withB = modesSection({ report: WITH_BOUNDS, selected: undefined, units: 'h' })!;
     const b10 = WITH_BOUNDS.life!.modes!.system!.bLives[0]!;
-    expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate)]);
-    expect(withB.tables[0]!.caption).toMatch(/the whole unit's bounds as the method note says$/);
+    expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate), 'test']);
+    expect(withB.tables[0]!.caption).toMatch(/the whole unit's bounds over every mode's parameters at once; the method of each row's bounds in its last column$/);
     expect(withB.answer).toContain(`Whole unit B10: ${sig(b10.estimate)} h (90 % bounds ${sig(0.8 * b10.estimate)} to ${sig(1.2 * b10.estimate)}) from 2 modes`);
     const none = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate })) } } } } as unknown as DatasetReport;
     const noB = modesSection({ report: none, selected: undefined, units: 'h' })!;
-    expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound']);
-    expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates$/);
+    expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound', 'point estimate: bounds not found']);
+    expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates; /);
     expect(noB.answer).toMatch(/^Whole unit B10: [\d.]+ h \(point estimate\) from 2 modes/);
   });
 
@@ -121,7 +127,7 @@ describe('the answer with a failure-mode column', () => {
     const [crack, leak] = m.modes;
     const b = (x: typeof crack) => x!.bLives[0]!;
     expect(a.sentence).toBe(
-      `B10 life of the whole unit, the 2 failure modes together: ${unitWords(m.system!.bLives[0]!)}, from crack ${sig(b(crack).estimate)} h (Exponential; 90 % bounds ${sig(b(crack).lower)} to ${sig(b(crack).upper)}); leak ${sig(b(leak).estimate)} h (Lognormal; 90 % bounds ${sig(b(leak).lower)} to ${sig(b(leak).upper)}). The crack mode limits life at 10 % failed.`,
+      `B10 life of the whole unit, the 2 failure modes together: ${unitWords(m.system!.bLives[0]!)}, from crack ${sig(b(crack).estimate)} h (Exponential; 90 % likelihood-ratio bounds ${sig(b(crack).lower)} to ${sig(b(crack).upper)}); leak ${sig(b(leak).estimate)} h (Lognormal; 90 % likelihood-ratio bounds ${sig(b(leak).lower)} to ${sig(b(leak).upper)}). The crack mode limits life at 10 % failed.`,
     );
     expect(a.cautions).toEqual(expect.arrayContaining([...m.cautions]));
   });

@@ -28,11 +28,23 @@ export function firstToReach(m: CompetingModesReport, j: number): { readonly fir
   return { first: sorted[0]!, others: sorted.slice(1) };
 }
 
-/** One mode's B-life in words: 'crack 3930 h (exponential; 90 % bounds 2704 to 6025)'. */
+/**
+ * The short name of the method behind a bound, from the core's method text (core/life bounds.ts,
+ * competing-modes-bounds.ts): 'likelihood-ratio ' or 'Fisher-matrix ' (with its space), '' when
+ * the text names neither.
+ */
+export function boundName(method: string | undefined): string {
+  if (method === undefined) return '';
+  if (/^likelihood ratio/i.test(method)) return 'likelihood-ratio ';
+  if (/^Fisher matrix/i.test(method)) return 'Fisher-matrix ';
+  return '';
+}
+
+/** One mode's B-life in words: 'crack 3930 h (Exponential; 90 % likelihood-ratio bounds 2704 to 6025)'. */
 export function modeBLifeWords(x: ModeResult, j: number, u: string): string {
   const b = x.bLives[j];
   if (!b) return `${x.mode}: not fitted`;
-  return `${x.mode} ${withU(sig(b.estimate), u)} (${familyWords(x.family)}; ${pct(b.confidence)} bounds ${end(b.lower, 'open')} to ${end(b.upper, 'open')})`;
+  return `${x.mode} ${withU(sig(b.estimate), u)} (${familyWords(x.family)}; ${pct(b.confidence)} ${boundName(b.method)}bounds ${end(b.lower, 'open')} to ${end(b.upper, 'open')})`;
 }
 
 /**
@@ -44,10 +56,16 @@ export function unitBounds(b: { readonly percent: number; readonly estimate: num
   return typeof x.lower === 'number' && Number.isFinite(x.lower) && typeof x.upper === 'number' && Number.isFinite(x.upper) ? { lower: x.lower, upper: x.upper } : null;
 }
 
-/** The whole unit's B-life in words: '2893 h (90 % bounds 2400 to 3300)' or '2893 h (point estimate)'. */
+/** The core's method text of the whole unit's B-life bounds, when it gives one. */
+const methodOf = (b: { readonly estimate: number }): string | undefined => {
+  const m = (b as { readonly method?: unknown }).method;
+  return typeof m === 'string' ? m : undefined;
+};
+
+/** The whole unit's B-life in words: '2893 h (90 % likelihood-ratio bounds 2400 to 3300)' or '2893 h (point estimate)'. */
 export function unitBLifeWords(b: { readonly percent: number; readonly estimate: number }, confidence: number, u: string): string {
   const bd = unitBounds(b);
-  return `${withU(sig(b.estimate), u)} (${bd ? `${pct(confidence)} bounds ${sig(bd.lower)} to ${sig(bd.upper)}` : 'point estimate'})`;
+  return `${withU(sig(b.estimate), u)} (${bd ? `${pct(confidence)} ${boundName(methodOf(b))}bounds ${sig(bd.lower)} to ${sig(bd.upper)}` : 'point estimate'})`;
 }
 
 export const modesSection: SectionView = ({ report, units: u }) => {
@@ -61,9 +79,12 @@ export const modesSection: SectionView = ({ report, units: u }) => {
   const tables: BlockTable[] = [];
   const percents = life.bLifePercents;
   const sys = m.system;
+  // Interval rows (some failure known only within an interval): a unit failed by another mode is running up to the last inspection it was seen working.
+  const rec = life.recorded?.report;
+  const inspected = rec !== undefined && rec !== null && rec.left + rec.interval > 0;
   lines.push({
     kind: 'fact',
-    text: `${m.modes.length} failure modes among ${m.n} units: ${m.modes.map((x) => `${x.mode} ${x.failures} failed`).join(', ')}; each mode is fitted with every other unit (failed by another mode, or not failed) counted as still running at its time.`,
+    text: `${m.modes.length} failure modes among ${m.n} units: ${m.modes.map((x) => `${x.mode} ${x.failures} failed`).join(', ')}; each mode is fitted with every other unit (failed by another mode, or not failed) counted as still running ${inspected ? 'up to the last inspection it was seen working (a unit found failed by another mode) or to its last inspection' : 'at its time'}.`,
   });
   percents.forEach((p, j) => {
     const r = firstToReach(m, j);
@@ -75,19 +96,19 @@ export const modesSection: SectionView = ({ report, units: u }) => {
   });
   const rows: string[][] = [];
   for (const x of m.modes) {
-    x.bLives.forEach((b) => rows.push([`${x.mode}: ${bName(b.percent)}`, `${familyWords(x.family)}`, String(x.failures), sig(b.estimate), end(b.lower, 'not closed'), end(b.upper, 'not closed')]));
-    if (x.bLives.length === 0) rows.push([`${x.mode}`, 'not fitted', String(x.failures), '—', '—', '—']);
+    x.bLives.forEach((b) => rows.push([`${x.mode}: ${bName(b.percent)}`, `${familyWords(x.family)}`, String(x.failures), sig(b.estimate), end(b.lower, 'not closed'), end(b.upper, 'not closed'), b.method]));
+    if (x.bLives.length === 0) rows.push([`${x.mode}`, 'not fitted', String(x.failures), '—', '—', '—', '—']);
   }
   const unitHasBounds = sys !== null && sys.bLives.some((b) => unitBounds(b) !== null);
   if (sys) {
     for (const b of sys.bLives) {
       const bd = unitBounds(b);
-      rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), bd ? sig(bd.lower) : 'no bound', bd ? sig(bd.upper) : 'no bound']);
+      rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), bd ? sig(bd.lower) : 'no bound', bd ? sig(bd.upper) : 'no bound', bd ? (methodOf(b) ?? '—') : 'point estimate: bounds not found']);
     }
   }
   tables.push({
-    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided ${bound} bounds per mode; ${unitHasBounds ? 'the whole unit\'s bounds as the method note says' : 'the whole unit\'s B-lives are point estimates'}`,
-    head: ['Life', 'Model', 'Failures', 'Estimate', 'Lower', 'Upper'],
+    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided ${bound} bounds per mode; ${unitHasBounds ? 'the whole unit\'s bounds over every mode\'s parameters at once' : 'the whole unit\'s B-lives are point estimates'}; the method of each row\'s bounds in its last column`,
+    head: ['Life', 'Model', 'Failures', 'Estimate', 'Lower', 'Upper', 'Bounds by'],
     rows,
   });
   const times = life.reliabilityTimes;
