@@ -16,7 +16,7 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { peaksOverThreshold } from '../../core/flood/pot.js';
+import { peaksOverThreshold, thresholdDiagnostics } from '../../core/flood/pot.js';
 
 const FIX = JSON.parse(readFileSync('test/fixtures/pot-coles-rain.json', 'utf8')) as {
   data: { sha256: string; days: number };
@@ -28,6 +28,7 @@ const FIX = JSON.parse(readFileSync('test/fixtures/pot-coles-rain.json', 'utf8')
   scipyFit: { shape: number; scale: number };
   returnLevels: Record<string, { estimate: number; profileLower: number; profileUpper: number }>;
   colesFromMemory: { exceedances: number; scale: number; shape: number; returnLevel100: number };
+  diagnostics: { threshold: number; exceedances: number; meanExcess: number; shape: number; modifiedScale: number }[];
 };
 const raw = readFileSync('test/fixtures/coles-rain.csv');
 const lines = raw.toString('ascii').split('\n');
@@ -75,5 +76,16 @@ describe('Coles (2001) §4.4.1: daily rainfall above 30 mm', () => {
     expect(Math.abs(r100.estimate - FIX.colesFromMemory.returnLevel100)).toBeLessThanOrEqual(0.05);
     // The interval is strongly asymmetric (a heavy upper tail, ξ > 0): far more room above the estimate than below.
     expect((r100.upper as number) - r100.estimate).toBeGreaterThan(2 * (r100.estimate - (r100.lower as number)));
+  });
+
+  it('threshold diagnostics at 10, 20, 30, 40 mm: counts and mean excesses exact (NumPy), ML shape and modified scale σ − ξu to 1e-5 of SciPy', () => {
+    const d = thresholdDiagnostics(times, values, FIX.diagnostics.map((x) => x.threshold), 0);
+    d.forEach((row, i) => {
+      const ref = FIX.diagnostics[i]!;
+      expect(row.clusters).toBe(ref.exceedances);
+      expect(Math.abs(row.meanExcess / ref.meanExcess - 1)).toBeLessThan(1e-12);
+      expect(Math.abs((row.shape as number) - ref.shape)).toBeLessThan(1e-5);
+      expect(Math.abs((row.modifiedScale as number) - ref.modifiedScale)).toBeLessThan(1e-5 * Math.max(1, Math.abs(ref.modifiedScale)));
+    });
   });
 });
