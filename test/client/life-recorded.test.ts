@@ -15,6 +15,7 @@ import { recordedBlock } from '../../client/src/views/life-recorded.js';
 import { SECTIONS } from '../../client/src/views/sections.js';
 import { drawSlot } from '../../client/src/decision-charts.js';
 import { resetIds } from '../../client/charts/frame.js';
+import { FEW_EARLY } from './invented-mixture.js';
 
 const t = readColumns(readFileSync(join(process.cwd(), 'datasets', 'seal-failure-modes.csv'), 'utf8'), [
   { select: 'hours', kind: 'number' },
@@ -93,5 +94,21 @@ describe('recorded-life section', () => {
     const exact = recordedBlock(JSON.parse(JSON.stringify(recordedLifeExtras({ times, failed }, {})!.report)), null, 'h');
     expect(exact.tables.some((tb) => /Does each model fit/.test(tb.caption))).toBe(false);
     expect(exact.lines.some((l) => /Goodness of fit: .*life section/.test(l.text))).toBe(true);
+  });
+
+  it('a mixture ranked first but not identified is not called the best: the answer says why and names the best single model', () => {
+    // Invented (test/client/invented-mixture.ts): 4 early failures and 14 late ones with 4 survivors;
+    // the mixture ranks first by AICc but its early subpopulation has about 3 failures (core/life/mixture.ts flags it).
+    const x = analyzeRecordedLife({ times: FEW_EARLY.times, failed: FEW_EARLY.failed }, { families: ['weibull', 'lognormal'], bLifePercents: [10] });
+    const wire = JSON.parse(JSON.stringify(x));
+    const mix = wire.candidates.find((c: { family: string }) => c.family === 'weibull-mixture');
+    expect(mix.rank).toBe(1);
+    expect(mix.identified).toBe(false);
+    const b = recordedBlock(wire, null, 'h');
+    expect(b.answer).toMatch(/^The Weibull mixture ranks first by AICc \(smallest first\) but its two subpopulations are not identified by these data, so its numbers are not to be used; best single model: (Weibull|Lognormal) \(maximum likelihood\)\.$/);
+    const mixRow = b.tables[1]!.rows.find((r) => /mixture/.test(r[0]!))!;
+    expect(mixRow.slice(2)).toEqual(['—', '—', 'no bound: the mixture’s components are not identified by these data']);
+    expect(b.tables[0]!.rows.find((r) => /mixture/.test(r[1]!))![1]).toMatch(/— not identified$/);
+    expect(b.lines.some((l) => l.kind === 'warning' && /not identified by these data .*do not use the mixture's numbers/.test(l.text))).toBe(true);
   });
 });

@@ -30,6 +30,11 @@ function answerOf(r: RecordedLifeReport, u: string): string | undefined {
   if (!top) return undefined;
   const mix = r.candidates.find((c) => c.family === 'weibull-mixture');
   if (mix && mix.rank === 1 && mix.identified) return `Two subpopulations fit better than any single model (Weibull mixture ranked first by ${r.rankedBy}); ${n(100 * (mix.parameters.fraction ?? Number.NaN), 3)} % of units belong to the earlier-failing one.`;
+  if (mix && mix.rank === 1 && mix.identified === false) {
+    // Ranked first but not identified: its numbers are not to be used, so the answer names the best single model.
+    const single = r.candidates.find((c) => c.family !== 'weibull-mixture');
+    return `The Weibull mixture ranks first by ${r.rankedBy} but its two subpopulations are not identified by these data, so its numbers are not to be used${single ? `; best single model: ${single.label} (${ESTIMATOR[single.estimation]})` : ''}.`;
+  }
   return `Best by ${r.rankedBy}: ${top.label} (${ESTIMATOR[top.estimation]}).`;
 }
 
