@@ -7,7 +7,7 @@
  */
 import {
   DEFAULT_EMA_REPLICATES,
-  EMA_CAUTIONS,
+  emaCautions,
   InputError,
   EMA_INTERVAL_STREAM,
   createRng,
@@ -103,7 +103,7 @@ export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
       { ...emaCandidateFields(fit), returnLevels },
     ],
     warnings,
-    cautions: EMA_CAUTIONS,
+    cautions: emaCautions(fit),
   };
 }
 

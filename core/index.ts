@@ -75,7 +75,7 @@ export type {
 } from './life/index.js';
 export * from './regional/index.js';
 export type { ChartPanel, ChartPoint, ComparisonRow, ModelComparison, PercentileIntervals, BootstrapIndexInterval, StabilityChart, TransformSection, TransformedCapability } from './capability/index.js';
-export { EMA_CAUTIONS, DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaCandidateFields, emaReturnLevels, fitEma, multipleGrubbsBeck, stationSkewMse, weightSkew } from './flood/index.js';
+export { EMA_CAUTIONS, emaCautions, DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaCandidateFields, emaReturnLevels, fitEma, multipleGrubbsBeck, stationSkewMse, weightSkew } from './flood/index.js';
 export type { EmaCandidateFields, EmaFit, EmaRecord, EmaReturnLevel, MgbResult, SkewWeighting } from './flood/index.js';
 export { readPeakFile } from './gauge/peak-file.js';
 export type { CodeSummary, PeakFile, PeakFileOptions, PeakRow } from './gauge/peak-file.js';

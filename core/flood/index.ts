@@ -24,7 +24,7 @@ export { MGB_INWARD_ALPHA, MGB_OUTWARD_ALPHA, mgbPValues, mgbStatistics, multipl
 export type { MgbResult } from './grubbs-beck.js';
 export { STATION_SKEW_MSE_METHOD, stationSkewMse, weightSkew } from './regional-skew.js';
 export type { SkewWeighting } from './regional-skew.js';
-export { EMA_CAUTIONS } from './ema-cautions.js';
+export { EMA_CAUTIONS, emaCautions } from './ema-cautions.js';
 export { declusterRuns, fitGpdLMoments, fitGpdMl, gpdLogLikelihood, gpdReturnLevel, peaksOverThreshold, thresholdDiagnostics } from './pot.js';
 export type { Cluster, GpdFit, PotOptions, PotResult, PotReturnLevel, ThresholdDiagnostic } from './pot.js';
 export { dayNumbers, isoDayNumber } from './pot-dates.js';

@@ -21,7 +21,7 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName } from '../families/index.js';
-import { DEFAULT_EMA_REPLICATES, EMA_CAUTIONS, EMA_INTERVAL_STREAM, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
+import { DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaCautions, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
 import { fitByLMoments, LMOMENT_FAMILIES, ratioDiagram, sampleLMoments, type LMomentFamily, type RatioDiagram } from '../lmoments/index.js';
 import { createRng } from '../random/index.js';
 import type { MethodNote } from '../report.js';
@@ -132,7 +132,7 @@ function emaBlock(values: ArrayLike<number>, s: FloodEstimatorSettings, warnings
       bootstrapLower: l.bootstrap?.lower ?? null,
       bootstrapUpper: l.bootstrap?.upper ?? null,
     })),
-    cautions: EMA_CAUTIONS,
+    cautions: emaCautions(fit),
   };
 }
 

@@ -10,6 +10,7 @@ import { parseArgs, type AnalyzeArgs } from '../../cli/args.js';
 import { floodEmaText, isFloodEma, runFloodEmaJson } from '../../cli/flood-ema.js';
 import type { DatasetReport } from '../../core/index.js';
 import type { FloodEmaBlock } from '../../core/workflow/flood-estimators.js';
+import { EMA_CAUTIONS, emaCautions } from '../../core/flood/ema-cautions.js';
 
 const FILE = fileURLToPath(new URL('../../datasets/invented-gauge-peaks.txt', import.meta.url));
 
@@ -52,6 +53,21 @@ describe('plumbline analyze GAUGE --estimation ema', () => {
     expect(text).toMatch(/Qualification codes found/);
     expect(text).toMatch(/governing agency/);
     expect(text).toMatch(/Low outliers: \d+ peaks below/);
+  });
+  it('the record-specific caution: the gauge alone (station skew -1.60, 3 low outliers censored) gets it; weighted with a regional skew (station skew -0.84) it does not', () => {
+    const alone = runFloodEmaJson(args([]));
+    expect(alone.candidates[0]!.skew.stationSkew).toBeLessThan(-1.5);
+    expect(alone.cautions.join(' ')).toMatch(/strongly skewed \(station skew -1\.6\d?\) and has 3 low years censored/);
+    const weighted = runFloodEmaJson(args(['--regional-skew', '-0.1', '--regional-skew-mse', '0.12']));
+    expect(weighted.cautions.join(' ')).not.toMatch(/strongly skewed/);
+    expect(weighted.cautions.length).toBe(alone.cautions.length - 1);
+  });
+  it('the caution\'s condition: |station skew| ≥ 1 and at least one low year censored (a low outlier or a zero flow)', () => {
+    const f = (g: number, low: number, zeros: number) => emaCautions({ skew: { stationSkew: g }, counts: { lowOutliers: low, zeros } });
+    expect(f(-1, 1, 0)).toHaveLength(EMA_CAUTIONS.length + 1);
+    expect(f(1.2, 0, 2)).toHaveLength(EMA_CAUTIONS.length + 1);
+    expect(f(-0.999, 3, 0)).toBe(EMA_CAUTIONS);
+    expect(f(-1.6, 0, 0)).toBe(EMA_CAUTIONS);
   });
   it('a regional skew without its MSE is refused', () => {
     expect(() => runFloodEmaJson(args(['--regional-skew', '-0.1']))).toThrow(/go together/);
