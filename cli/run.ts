@@ -87,7 +87,13 @@ export type JsonReport = AnyDatasetReport & {
  * Read the file and its value column (with the status, subgroup, order or grouped columns when
  * asked for); the file's text is not kept once the columns are read.
  */
-function readInput(args: AnalyzeArgs, fileLabel: string, source: InputText = readInputText(args.file)): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
+function readInput(
+  args: AnalyzeArgs,
+  fileLabel: string,
+  source: InputText = readInputText(args.file),
+  /** The values on shared memory (read by the second thread without a copy). */
+  shared = false,
+): { read: ColumnResult; input: CliInput; dataset: DatasetInput; rowNumbers?: Int32Array; hint?: string | null } {
   const csv = csvArgs(args);
   if (needsTable(args)) {
     const d = readDataset(source.text, args, fileLabel, csv);
@@ -95,7 +101,8 @@ function readInput(args: AnalyzeArgs, fileLabel: string, source: InputText = rea
     return { read: d.column, input: { ...input, otherColumns: d.extraColumns }, dataset: d.input, rowNumbers: d.rowNumbers };
   }
   const column = columnArg(args, 'column');
-  const read = readColumn(source.text, { ...(column !== undefined ? { column } : {}), ...csv });
+  // The values as the scanner grew them (no final copy): the core sorts them where they are.
+  const read = readColumn(source.text, { ...(column !== undefined ? { column } : {}), ...csv }, { shared, handOff: true });
   const hint = statusColumnHint(source.text, read, csv);
   return { read, input: cliInput(fileLabel, read, csv.decimal, source.encoding, source.warnings), dataset: { values: read.values, sortInPlace: true }, hint };
 }
@@ -143,7 +150,7 @@ function analyzeRead(args: AnalyzeArgs, io: CliIo, fileLabel: string, options: D
   // file: V8 sorts a typed array on shared memory through a copy of it, which 10^8 values cannot afford.
   const shared = second !== null && (regularFileSize(args.file) ?? Infinity) <= SHARED_MAX_BYTES;
   const { read, input, dataset, rowNumbers, hint } =
-    source !== undefined ? readInput(args, fileLabel, source) : readsInPieces(args) ? readLargeColumn(args, fileLabel, shared) : readInput(args, fileLabel);
+    source !== undefined ? readInput(args, fileLabel, source, shared) : readsInPieces(args) ? readLargeColumn(args, fileLabel, shared) : readInput(args, fileLabel, undefined, shared);
   if (hint) io.err(`plumbline: warning: ${hint}\n`);
   if (read.values.length === 0) {
     const dropped = read.skipped.reduce((a, s) => a + s.count, 0);

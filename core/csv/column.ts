@@ -4,15 +4,17 @@
  */
 import { InputError } from '../errors.js';
 import { columnLabel } from './columns.js';
-import { scanTable } from './table.js';
+import { scanTable, type ScanStorage } from './table.js';
 import type { ColumnOptions, ColumnRequest, ColumnResult, CsvOptions, NumberColumn, TableResult } from './types.js';
 
 /**
  * Read one column of strict numbers. Without `column`, a file with exactly one column is read;
- * otherwise the column must be named.
+ * otherwise the column must be named. `storage.shared`: the values on a SharedArrayBuffer;
+ * `storage.handOff`: the values as a view of the scanner's array (no final copy).
  */
-export function readColumn(text: string, options: ColumnOptions = {}): ColumnResult {
-  return columnResult(scanTable(text, columnPlan(options), options));
+export function readColumn(text: string, options: ColumnOptions = {}, storage: Pick<ScanStorage, 'shared' | 'handOff'> = {}): ColumnResult {
+  // The row numbers are not part of a ColumnResult: not kept.
+  return columnResult(scanTable(text, columnPlan(options), options, { ...storage, rowNumbers: false }));
 }
 
 /** The one column readColumn reads: the chosen one, or the only one. */

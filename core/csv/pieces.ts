@@ -100,7 +100,8 @@ export class ColumnPieces {
   add(text: string): void {
     if (text.length === 0) return;
     const plan = this.next === null ? columnPlan(this.options) : [{ select: this.columnIndex, kind: 'number' as const }];
-    const piece = scanTablePiece(text, plan, this.options, this.next);
+    // Row numbers are not kept and the piece's values are copied into the column at once.
+    const piece = scanTablePiece(text, plan, this.options, this.next, { rowNumbers: false, handOff: true });
     const col = piece.table.columns[0] as NumberColumn;
     if (this.first === null) {
       this.first = columnResult(piece.table);

@@ -20,6 +20,22 @@ const QUOTE = 34;
 const SPACE = 32;
 const TAB = 9;
 
+/**
+ * How a caller wants the scanner's arrays (all optional; the values are the same either way):
+ * `rowNumbers: false` leaves TableResult.rowNumbers empty (a caller that never looks at them saves
+ * filling and growing them); `shared` puts the number columns on SharedArrayBuffers (read by another
+ * thread without a copy); `handOff`: the caller takes each number column as it is, a view of the
+ * grown array (the first 1.02 × its estimated length), instead of an exact copy.
+ */
+export interface ScanStorage {
+  readonly rowNumbers?: boolean;
+  readonly shared?: boolean;
+  readonly handOff?: boolean;
+}
+
+/** Rows read before the whole text's row count is estimated from them (common practice, no source). */
+const ESTIMATE_AFTER_ROWS = 16384;
+
 /** Requests, fixed up front or chosen once the header is known. */
 export type RequestPlan =
   | readonly ColumnRequest[]
@@ -68,7 +84,7 @@ export interface TablePiece {
  * mark, blank lines, delimiter and header handled here), or a later piece holding whole records
  * only, read with the first piece's context. The result leaves out the summary warnings.
  */
-export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOptions, continuation: Continuation | null): TablePiece {
+export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOptions, continuation: Continuation | null, storage: ScanStorage = {}): TablePiece {
   const decimal = options.decimal ?? '.';
   if (decimal !== '.' && decimal !== ',') {
     throw new InputError(`decimal separator must be "." or ",", got ${showValue(String(decimal))}`, {}, 'bad-option');
@@ -187,16 +203,46 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
   const expectedFields = fieldCount;
 
   // Outputs.
+  const keepRows = storage.rowNumbers !== false;
+  const allocate = (length: number): Float64Array =>
+    storage.shared === true ? new Float64Array(new SharedArrayBuffer(length * Float64Array.BYTES_PER_ELEMENT)) : new Float64Array(length);
   let cap = 1024;
   const numbers: (Float64Array | null)[] = [];
   const texts: (string[] | null)[] = [];
   for (let s = 0; s < nSlots; s++) {
-    numbers.push(isNumber[s] ? new Float64Array(cap) : null);
+    numbers.push(isNumber[s] ? allocate(cap) : null);
     texts.push(isNumber[s] ? null : []);
   }
-  let rowNumbers = new Int32Array(cap);
+  let rowNumbers = new Int32Array(keepRows ? cap : 0);
   let kept = 0;
   let rowsRead = 0;
+  const dataStart = i;
+  let estimated = false;
+  /** Room for more rows (kept === cap), `at` = where the scan is: doubling, or once the whole text's estimate. */
+  const grow = (at: number): void => {
+    let next = cap * 2;
+    if (!estimated && kept >= ESTIMATE_AFTER_ROWS) {
+      // The rows so far per character, over the whole text (+2 %): one more allocation instead of
+      // a doubling every time (common practice, no source).
+      estimated = true;
+      const estimate = Math.ceil(((kept * (n - dataStart)) / Math.max(1, at - dataStart)) * 1.02);
+      if (estimate > next) next = estimate;
+    }
+    cap = next;
+    for (let s = 0; s < nSlots; s++) {
+      const arr = numbers[s];
+      if (arr) {
+        const grown = allocate(cap);
+        grown.set(arr);
+        numbers[s] = grown;
+      }
+    }
+    if (keepRows) {
+      const rows = new Int32Array(cap);
+      rows.set(rowNumbers);
+      rowNumbers = rows;
+    }
+  };
 
   // Per-row cell ranges; state 0 = absent, 1 = plain, 2 = quoted, 3 = quoted with doubled quotes.
   const cellStart = new Int32Array(nSlots);
@@ -374,17 +420,9 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
     if (single && extraAt < 0 && cellState[0] === 1) {
       const v = parseNumberRange(text, cellStart[0] as number, cellEnd[0] as number, decimalCode, failure);
       if (v === v) {
-        if (kept === cap) {
-          cap *= 2;
-          const grown = new Float64Array(cap);
-          grown.set(numbers[0] as Float64Array);
-          numbers[0] = grown;
-          const rows = new Int32Array(cap);
-          rows.set(rowNumbers);
-          rowNumbers = rows;
-        }
+        if (kept === cap) grow(i);
         (numbers[0] as Float64Array)[kept] = v;
-        rowNumbers[kept] = recordLine;
+        if (keepRows) rowNumbers[kept] = recordLine;
         kept++;
         continue;
       }
@@ -468,26 +506,13 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
       continue;
     }
 
-    if (kept === cap) {
-      cap *= 2;
-      for (let s = 0; s < nSlots; s++) {
-        const arr = numbers[s];
-        if (arr) {
-          const grown = new Float64Array(cap);
-          grown.set(arr);
-          numbers[s] = grown;
-        }
-      }
-      const rows = new Int32Array(cap);
-      rows.set(rowNumbers);
-      rowNumbers = rows;
-    }
+    if (kept === cap) grow(i);
     for (let s = 0; s < nSlots; s++) {
       const arr = numbers[s];
       if (arr) arr[kept] = rowValues[s] as number;
       else (texts[s] as string[]).push(rowTexts[s] as string);
     }
-    rowNumbers[kept] = recordLine;
+    if (keepRows) rowNumbers[kept] = recordLine;
     kept++;
   }
 
@@ -502,13 +527,21 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
     const arr = numbers[s];
     const column = labels[s] as string;
     const index = (slotField[s] as number) + 1;
-    if (arr) columns.push({ kind: 'number', column, index, values: arr.slice(0, kept) });
+    if (arr) {
+      let values: Float64Array;
+      if (storage.handOff === true) values = arr.subarray(0, kept);
+      else if (storage.shared === true) {
+        values = allocate(kept); // slice() would give an ordinary ArrayBuffer
+        values.set(arr.subarray(0, kept));
+      } else values = arr.slice(0, kept);
+      columns.push({ kind: 'number', column, index, values });
+    }
     else columns.push({ kind: 'text', column, index, texts: texts[s] as string[] });
   }
   return {
     table: {
       columns,
-      rowNumbers: rowNumbers.slice(0, kept),
+      rowNumbers: keepRows ? rowNumbers.slice(0, kept) : rowNumbers,
       rowsRead,
       skipped,
       blankLines,

@@ -5,12 +5,12 @@
  */
 import { REASON_WORDS } from './classify.js';
 import { showValue } from './record.js';
-import { scanTablePiece, type RequestPlan } from './scan-piece.js';
+import { scanTablePiece, type RequestPlan, type ScanStorage } from './scan-piece.js';
 import type { CsvOptions, SkipCount, TableResult } from './types.js';
 
 export { showValue } from './record.js';
 export { REASON_ORDER, scanTablePiece } from './scan-piece.js';
-export type { Continuation, RequestPlan, TablePiece } from './scan-piece.js';
+export type { Continuation, RequestPlan, ScanStorage, TablePiece } from './scan-piece.js';
 
 /**
  * The warnings that sum up a whole read (blank lines, dropped rows by reason, no data rows), added
@@ -34,7 +34,7 @@ export function summaryWarnings(blankLines: number, skipped: readonly SkipCount[
  * Read the requested columns of a CSV text in one pass. Rows are kept only when every requested
  * cell is valid, so all returned columns stay aligned with `rowNumbers`.
  */
-export function scanTable(text: string, plan: RequestPlan, options: CsvOptions = {}): TableResult {
-  const { table } = scanTablePiece(text, plan, options, null);
+export function scanTable(text: string, plan: RequestPlan, options: CsvOptions = {}, storage: ScanStorage = {}): TableResult {
+  const { table } = scanTablePiece(text, plan, options, null, storage);
   return { ...table, warnings: [...table.warnings, ...summaryWarnings(table.blankLines, table.skipped, table.rowsRead)] };
 }
