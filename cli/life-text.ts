@@ -55,10 +55,12 @@ export function lifeReportLines(r: RecordedLifeReport): string[] {
     );
     const tested = r.candidates.filter((c) => c.goodnessOfFit !== null);
     if (tested.length > 0) {
-      out.push(`Goodness of fit: Anderson–Darling on the Turnbull estimate, p by a bootstrap that reproduces each unit's inspections (α = ${f(r.alpha, 3)})`);
+      // Every family of one data set gets the same test, named by the result (core/life interval-gof-design.ts).
+      const g0 = tested[0]!.goodnessOfFit!;
+      out.push(`Goodness of fit: ${g0.testLabel}${g0.test === 'anderson-darling' ? ' on the Turnbull estimate' : ''}, p by a bootstrap that reproduces each unit's inspections (α = ${f(r.alpha, 3)})`);
       out.push(
         ...table(
-          ['model', 'A²', 'p', '± MC SE', 'B', 'unrefitted', 'decision'],
+          ['model', g0.test === 'likelihood-ratio' ? 'LR' : 'A²', 'p', '± MC SE', 'B', 'unrefitted', 'decision'],
           tested.map((c) => {
             const g = c.goodnessOfFit!;
             return [c.label, f(g.statistic, 4), f(g.pValue, 3), f(g.monteCarloError, 2), String(g.replicates), String(g.failedReplicates), c.rejected === null ? 'no decision (not size-calibrated)' : c.rejected ? 'rejected' : 'not rejected'];

@@ -30,7 +30,9 @@ export { recordedLifeExtras, MIXTURE_UNITS, type RecordedLifeExtras, type Record
 export { intervalAndersonDarling } from './interval-anderson-darling.js';
 export { mixtureBLife, MIXTURE_BOUND_METHOD } from './mixture-bounds.js';
 export { fitsCommonSchedule, imputeInspections, inspectionScheme, inspectionSchemeKind, inspectionSchemeText, observeUnit, type InspectionScheme, type InspectionSchemeKind } from './interval-inspection-scheme.js';
-export { intervalGofBootstrap, intervalGofFromCounts, intervalStatistic, runIntervalReplicates, INTERVAL_AD_METHOD, INTERVAL_AD_TURNBULL, INTERVAL_GOF_SIZE, intervalGofJob, intervalJobData, runIntervalGofRange, type IntervalGofHook, type IntervalGofJob, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
+export { intervalGofBootstrap, intervalGofFromCounts, intervalGofObserved, intervalStatistic, runIntervalReplicates, INTERVAL_AD_TURNBULL, intervalGofJob, intervalJobData, runIntervalGofRange, type IntervalGofHook, type IntervalGofJob, type IntervalGofOptions, type IntervalGofResult, type IntervalRangeOptions } from './interval-bootstrap.js';
+export { intervalLikelihoodRatio, likelihoodRatioApplies, INTERVAL_LR_TURNBULL } from './interval-likelihood-ratio.js';
+export { INTERVAL_AD_METHOD, INTERVAL_LR_METHOD, INTERVAL_GOF_DEFAULT_STATISTIC, INTERVAL_GOF_METHOD, INTERVAL_GOF_SIZE, INTERVAL_GOF_STATISTIC_LABEL, type IntervalGofStatistic } from './interval-gof-design.js';
 export type { IntervalFitOptions } from './interval-likelihood-fit.js';
 export { readIntervalRows, columnSelector, type IntervalColumns, type IntervalRowsRead } from './interval-rows-csv.js';
 export { weibayesInterval } from './weibayes-interval.js';

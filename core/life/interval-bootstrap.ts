@@ -8,12 +8,10 @@
  * 2003, Scand. J. Statist. 30:211-226 [from memory], keeps each unit's inspection times and redraws
  * its life); exact rows are watched continuously up to the last time in the data.
  * Earlier, replicates used only each row's own times, which a row records only around its failure:
- * the test then rejected 0.5 % and 0 % at α = 5 % (coarser replicates than data). Measured size now
- * (test/fixtures/life-interval-size.json, scripts/life-interval-size.ts; INTERVAL_GOF_SIZE below):
- * on a common schedule 5.3 % (2000 samples, SE 0.49 points): its p-value decides; with each unit at
- * its own two inspection times 2.4 % (1000 samples, SE 0.69): still conservative, the cause not found
- * (not the refits: warm and cold starts agree, none failed; not the Turnbull iteration: converged),
- * so there the p-value is reported for information and decides nothing.
+ * the test then rejected 0.5 % and 0 % at α = 5 % (coarser replicates than data). Measured size now,
+ * and which test decides where: interval-gof-design.ts (A² decides on a common schedule, 5.3 %; with
+ * each unit at its own inspection times no test decides). The statistic is A², or for a size study
+ * the likelihood ratio against the Turnbull estimate (interval-likelihood-ratio.ts; `statistic`).
  * Each replicate is refitted by the same interval maximum likelihood (warm start at the fitted
  * parameters) and its statistic computed on its own Turnbull estimate against its own fit, so the
  * p-value accounts for estimated parameters (as bootstrap.ts does for right-censored data).
@@ -30,8 +28,11 @@ import { censoredGofFromCounts } from './bootstrap-range.js';
 import { countReplicates, type ReplicateRangeOptions } from './replicate-counts.js';
 import { intervalAndersonDarling } from './interval-anderson-darling.js';
 import { imputeInspections, inspectionScheme, inspectionSchemeKind, observeUnit, type InspectionSchemeKind } from './interval-inspection-scheme.js';
+import { intervalLogLikelihood } from './interval-likelihood.js';
 import { prepareIntervalLifeData, type IntervalLifeData } from './interval-likelihood-data.js';
+import { INTERVAL_GOF_DEFAULT_STATISTIC, INTERVAL_GOF_METHOD, INTERVAL_GOF_SIZE, INTERVAL_GOF_STATISTIC_LABEL, type IntervalGofStatistic } from './interval-gof-design.js';
 import { fitInterval } from './interval-likelihood-fit.js';
+import { intervalLikelihoodRatio } from './interval-likelihood-ratio.js';
 import type { LifeFamilyName } from './models.js';
 import { turnbull, type TurnbullOptions } from './turnbull.js';
 
@@ -41,15 +42,26 @@ const IMPUTATION_STREAM = 2 ** 40;
 /** The Turnbull settings of the statistic, the same for the data and every replicate. */
 export const INTERVAL_AD_TURNBULL: TurnbullOptions = { tolerance: 1e-9, maxIterations: 20000 };
 
-export const INTERVAL_AD_METHOD =
-  'Anderson–Darling A² on the Turnbull estimate (inside each innermost interval the estimate taken nearest the model; cf. Ren 2003), p-value by parametric bootstrap that refits every replicate and reproduces the inspection scheme unit by unit: each unit gets a lifetime from the fitted model and is seen at the inspections the scheme gives it (a common schedule when the rows fit one, every time up to its end of follow-up; else its own recorded times, the inspection a left row or suspension does not record imputed once from the interval rows’ widths; exact rows watched to the last time in the data); replicates that cannot be refitted count as exceeding (conservative). Assumes inspection times independent of the lives';
-
 /** The observed statistic of a fitted model. */
 export function intervalStatistic(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData): number {
   return intervalAndersonDarling(getFamily(family).make(parameters), turnbull(data, INTERVAL_AD_TURNBULL), data.n);
 }
 
-export type IntervalRangeOptions = ReplicateRangeOptions;
+/** The statistic `statistic` of the model `parameters` (maximised log-likelihood `logLikelihood`) on `data`. */
+function statisticOf(statistic: IntervalGofStatistic, family: LifeFamilyName, parameters: Parameters, logLikelihood: number, data: IntervalLifeData): number {
+  return statistic === 'likelihood-ratio' ? intervalLikelihoodRatio(logLikelihood, data) : intervalStatistic(family, parameters, data);
+}
+
+/** The observed statistic (A² unless a size study asks for the likelihood ratio) for the fitted `parameters`. */
+export function intervalGofObserved(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, statistic: IntervalGofStatistic = INTERVAL_GOF_DEFAULT_STATISTIC): number {
+  const ll = statistic === 'likelihood-ratio' ? intervalLogLikelihood(getFamily(family).make(parameters), data) : Number.NaN;
+  return statisticOf(statistic, family, parameters, ll, data);
+}
+
+export interface IntervalRangeOptions extends ReplicateRangeOptions {
+  /** The statistic, when not A² (interval-gof-design.ts): for size studies of the likelihood ratio. */
+  readonly statistic?: IntervalGofStatistic;
+}
 
 /** Run replicates [start, end) of the inspection-scheme bootstrap. Pure: same arguments, same counts. */
 export function runIntervalReplicates(
@@ -65,6 +77,7 @@ export function runIntervalReplicates(
   const fam = getFamily(family);
   const dist = fam.make(parameters);
   const scheme = inspectionScheme(data, dist);
+  const statistic = opts.statistic ?? INTERVAL_GOF_DEFAULT_STATISTIC;
   // The missing inspections, imputed once from a stream no replicate uses, so every range sees one scheme.
   const imputer = createRng(seed, IMPUTATION_STREAM);
   const extra = imputeInspections(scheme, data, () => imputer.uniform());
@@ -92,55 +105,48 @@ export function runIntervalReplicates(
     try {
       const sim = prepareIntervalLifeData({ start: lo, end: hi }, { trusted: true });
       const rf = fitInterval(family, sim, { warmStart: parameters });
-      return rf.ok && Number.isFinite(rf.logLikelihood) ? intervalStatistic(family, rf.parameters, sim) : Number.NaN;
+      return rf.ok && Number.isFinite(rf.logLikelihood) ? statisticOf(statistic, family, rf.parameters, rf.logLikelihood, sim) : Number.NaN;
     } catch {
       return Number.NaN; // a replicate whose fit throws is unrefittable
     }
   }, opts);
 }
 
-/**
- * The measured size of the test by scheme (scripts/life-interval-size.ts -> test/fixtures/life-interval-size.json,
- * Weibull n = 50, B = 39, α = 5 %; test/life/interval-gof-size.test.ts checks these words against the fixture).
- * Only where it was measured near α does the p-value decide.
- */
-export const INTERVAL_GOF_SIZE: Readonly<Record<InspectionSchemeKind, { readonly calibrated: boolean; readonly text: string }>> = {
-  'common-schedule': {
-    calibrated: true,
-    text: 'size measured on a common schedule (every unit inspected every 25 h to 150 h): 106 of 2000 seeded samples rejected at α = 5 % (5.3 %, SE 0.49 points; Weibull n = 50, B = 39)',
-  },
-  'own-times': {
-    calibrated: false,
-    text: 'not size-calibrated for rows that do not fit one common inspection schedule: with each unit at its own two inspection times it rejected 24 of 1000 seeded samples at α = 5 % (2.4 %, SE 0.69 points; Weibull n = 50, B = 39), far below 5 %, so its p-value is shown for information and decides nothing',
-  },
-};
-
 /** The interval test's result: the bootstrap's, with the scheme it reproduced and whether its p-value may decide. */
 export interface IntervalGofResult extends CensoredGofResult {
   readonly scheme: InspectionSchemeKind;
+  /** The statistic bootstrapped (A², or the likelihood ratio in a size study) and its name in words. */
+  readonly test: IntervalGofStatistic;
+  readonly testLabel: string;
   /** true only where the size was measured near α (INTERVAL_GOF_SIZE); otherwise the p-value decides nothing. */
   readonly sizeCalibrated: boolean;
   readonly sizeNote: string;
 }
 
 /** The p-value from the observed statistic and the counts over the whole range (the rule of bootstrap-range.ts). */
-export function intervalGofFromCounts(observed: number, counts: BootstrapCounts, data: IntervalLifeData): IntervalGofResult {
+export function intervalGofFromCounts(observed: number, counts: BootstrapCounts, data: IntervalLifeData, statistic: IntervalGofStatistic = INTERVAL_GOF_DEFAULT_STATISTIC): IntervalGofResult {
   const scheme = inspectionSchemeKind(data);
   const size = INTERVAL_GOF_SIZE[scheme];
-  return { ...censoredGofFromCounts(observed, counts), method: INTERVAL_AD_METHOD, scheme, sizeCalibrated: size.calibrated, sizeNote: size.text };
+  // Only A²'s size was measured where it decides; another statistic (a size study's choice) decides nothing.
+  const calibrated = size.calibrated && statistic === INTERVAL_GOF_DEFAULT_STATISTIC;
+  const sizeNote = statistic === INTERVAL_GOF_DEFAULT_STATISTIC ? size.text : `not size-calibrated where it would decide: ${INTERVAL_GOF_STATISTIC_LABEL[statistic]} is a size study's statistic (interval-gof-design.ts)`;
+  return { ...censoredGofFromCounts(observed, counts), method: INTERVAL_GOF_METHOD[statistic], scheme, test: statistic, testLabel: INTERVAL_GOF_STATISTIC_LABEL[statistic], sizeCalibrated: calibrated, sizeNote };
 }
 
 export interface IntervalGofOptions {
   readonly replicates?: number;
   readonly seed?: number;
+  /** The statistic, when not the one the data call for (size studies; the result then decides nothing). */
+  readonly statistic?: IntervalGofStatistic;
 }
 
 /** The whole bootstrap in one piece. */
 export function intervalGofBootstrap(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, opts: IntervalGofOptions = {}): IntervalGofResult {
   const B = opts.replicates ?? 999;
   const seed = opts.seed ?? 20261201;
-  const observed = intervalStatistic(family, parameters, data);
-  return intervalGofFromCounts(observed, runIntervalReplicates(family, parameters, data, observed, seed, 0, B), data);
+  const statistic = opts.statistic ?? INTERVAL_GOF_DEFAULT_STATISTIC;
+  const observed = intervalGofObserved(family, parameters, data, statistic);
+  return intervalGofFromCounts(observed, runIntervalReplicates(family, parameters, data, observed, seed, 0, B, { statistic }), data, statistic);
 }
 
 /** A hook that gives the test's result for a fitted family (the default runs the whole bootstrap here; the pipeline records jobs). */
@@ -162,7 +168,7 @@ export interface IntervalGofJob {
 
 /** The job of a family (replicates [0, replicates)). */
 export function intervalGofJob(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, replicates: number, seed: number): IntervalGofJob {
-  const observed = intervalStatistic(family, parameters, data);
+  const observed = intervalGofObserved(family, parameters, data);
   return { kind: 'interval', family, parameters, rows: { start: Array.from(data.lower), end: Array.from(data.upper), counts: Array.from(data.counts) }, observed, seed, start: 0, end: replicates };
 }
 

@@ -25,7 +25,7 @@
  *    47:663-685); every replicate then sees the units through that one completed scheme, as the
  *    data were seen through theirs. Measured: 24 of 1000 samples rejected at α = 5 % (2.4 %); drawing
  *    the missing times afresh in every replicate (commit 4ff4bef) gave 16 of 750 (2.1 %): both still
- *    conservative, so for this scheme the test decides nothing (interval-bootstrap.ts
+ *    conservative, so for this scheme the test decides nothing (interval-gof-design.ts
  *    INTERVAL_GOF_SIZE). With no interval rows
  *    (current-status data: one inspection per unit) every row already records its unit's only
  *    inspection and is kept.

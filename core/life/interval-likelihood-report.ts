@@ -24,7 +24,8 @@ import { fitRankRegression, RANK_REGRESSION_REASON } from './rank-regression.js'
 import { turnbull, type TurnbullEstimate } from './turnbull.js';
 import { weibayes, type WeibayesResult } from './weibayes.js';
 import { weibayesInterval } from './weibayes-interval.js';
-import { INTERVAL_AD_METHOD, intervalGofBootstrap, type IntervalGofHook, type IntervalGofResult } from './interval-bootstrap.js';
+import { intervalGofBootstrap, type IntervalGofHook, type IntervalGofResult } from './interval-bootstrap.js';
+import { INTERVAL_GOF_DEFAULT_STATISTIC, INTERVAL_GOF_METHOD } from './interval-gof-design.js';
 import { inspectionSchemeText } from './interval-inspection-scheme.js';
 
 /** Default replicates of the inspection-scheme bootstrap: α(B + 1) whole at α = 0.05 and 0.01 (Monte Carlo SE of p near 0.05: 0.015). */
@@ -260,7 +261,7 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     const gof = gofReplicates > 0 ? gofHook(name, f.parameters, data, gofReplicates, gofSeed(name)) : null;
     // Only a size-calibrated p-value decides (INTERVAL_GOF_SIZE); otherwise no verdict either way.
     const rejected = gof && gof.sizeCalibrated ? gof.pValue <= alpha : null;
-    if (gof && gof.failedReplicates > 0) w.push(`${gof.failedReplicates} of ${gof.replicates} bootstrap replicates could not be refitted and count as exceeding the observed A² (conservative).`);
+    if (gof && gof.failedReplicates > 0) w.push(`${gof.failedReplicates} of ${gof.replicates} bootstrap replicates could not be refitted and count as exceeding the observed statistic (conservative).`);
     raw.push({
       family: name,
       label: fam.label,
@@ -318,10 +319,10 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
   const candidates = ranked(raw, estimation);
   const tested = candidates.filter((c) => c.rejected !== null);
   for (const c of tested) {
-    if (c.rejected) warnings.push(`${c.label}: rejected at α = ${fmt(alpha)} by the inspection-scheme Anderson–Darling bootstrap (A² = ${fmt(c.goodnessOfFit!.statistic)}, p = ${fmt(c.goodnessOfFit!.pValue)}): its B-lives describe a model these data contradict.`);
+    if (c.rejected) warnings.push(`${c.label}: rejected at α = ${fmt(alpha)} by the inspection-scheme bootstrap of the ${c.goodnessOfFit!.testLabel} (${fmt(c.goodnessOfFit!.statistic)}, p = ${fmt(c.goodnessOfFit!.pValue)}): its B-lives describe a model these data contradict.`);
   }
   const uncalibrated = candidates.find((c) => c.goodnessOfFit && !c.goodnessOfFit.sizeCalibrated);
-  if (uncalibrated) warnings.push(`The inspection-scheme Anderson–Darling test is ${uncalibrated.goodnessOfFit!.sizeNote}; no model is rejected or supported by it here.`);
+  if (uncalibrated) warnings.push(`The inspection-scheme test (${uncalibrated.goodnessOfFit!.testLabel}) is ${uncalibrated.goodnessOfFit!.sizeNote}; no model is rejected or supported by it here.`);
   if (tested.length > 0 && tested.every((c) => c.rejected)) warnings.push(`Every tested model is rejected at α = ${fmt(alpha)}: none describes these data well; the ranking only says which is least bad.`);
   const np = turnbull(data);
   let wb: WeibayesResult | null = null;
@@ -370,7 +371,7 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     },
     { topic: 'nonparametric', text: np.method, source: np.source },
     ...(gofReplicates > 0
-      ? [{ topic: 'goodness of fit', text: `${INTERVAL_AD_METHOD}; inspection scheme of these rows: ${inspectionSchemeText(data)}; ${gofReplicates} replicates, seed ${options.seed ?? 20261201} + 7919 × the family's index; reject at p ≤ ${fmt(alpha)}`, source: 'Turnbull 1976; Ren 2003, Scand. J. Statist. 30:211-226 [from memory]; Davison & Hinkley 1997 §4.2.5 [from memory]; size: test/fixtures/life-interval-size.json' }]
+      ? [{ topic: 'goodness of fit', text: `${INTERVAL_GOF_METHOD[INTERVAL_GOF_DEFAULT_STATISTIC]}; inspection scheme of these rows: ${inspectionSchemeText(data)}; ${gofReplicates} replicates, seed ${options.seed ?? 20261201} + 7919 × the family's index; reject at p ≤ ${fmt(alpha)}`, source: 'Turnbull 1976; Ren 2003, Scand. J. Statist. 30:211-226 [from memory]; Davison & Hinkley 1997 §4.2.5 [from memory]; size: test/fixtures/life-interval-size.json, life-interval-lr-size.json' }]
       : []),
   ];
   return {

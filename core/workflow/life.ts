@@ -160,7 +160,7 @@ export interface LifeCandidateLike {
   readonly iterations?: number;
   readonly converged: boolean;
   /** The inspection-scheme test adds whether its size is calibrated (core/life IntervalGofResult). */
-  readonly goodnessOfFit: (CensoredGofResult & { readonly sizeCalibrated?: boolean; readonly sizeNote?: string }) | null;
+  readonly goodnessOfFit: (CensoredGofResult & { readonly sizeCalibrated?: boolean; readonly sizeNote?: string; readonly testLabel?: string }) | null;
   readonly bLives: readonly BLife[];
   readonly reliability: readonly ReliabilityAt[];
   readonly meanLife: number;
@@ -185,6 +185,8 @@ export function lifeCandidate(
   const uncalibrated = g?.sizeCalibrated === false ? (g.sizeNote ?? 'not size-calibrated here') : null;
   const rejected = uncalibrated === null && pValue <= alpha; // a Monte Carlo p-value (1 + #)/(B + 1): reject at p ≤ α (exact size, Davison & Hinkley 1997 §4.2.5 [from memory])
   const p = `p = ${formatNumber(pValue)}`;
+  // Which statistic the test bootstrapped, in words (interval rows: the testLabel of core/life interval-gof-design.ts; status-column data: censored A²).
+  const named = `${g?.testLabel ?? 'censored A²'} = ${formatNumber(g?.statistic ?? Number.NaN)}`;
   const ad: AndersonDarlingReport = {
     statistic: g?.statistic ?? Number.NaN,
     pValue,
@@ -199,8 +201,8 @@ export function lifeCandidate(
     rejected,
     decision:
       uncalibrated !== null
-        ? `No decision: the test is ${uncalibrated}. Censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`
-        : `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: censored A² = ${formatNumber(g?.statistic ?? Number.NaN)}, ${p}.`,
+        ? `No decision: the test is ${uncalibrated}. ${named.charAt(0).toUpperCase()}${named.slice(1)}, ${p}.`
+        : `${rejected ? 'Rejected' : 'Not rejected'} at α = ${formatNumber(alpha)}: ${named}, ${p}.`,
   };
   const rejectedBy = rejected ? (['anderson-darling'] as const) : ([] as const);
   return {

@@ -49,7 +49,7 @@ describe('plumbline analyze with life data as recorded', () => {
     expect(r.out).toMatch(/B1 .* likelihood ratio/);
     expect(r.out).toMatch(/licensed practice/);
     // The inspection-scheme A² bootstrap, with --replicates read through the option table.
-    expect(r.out).toMatch(/Goodness of fit: Anderson–Darling on the Turnbull estimate/);
+    expect(r.out).toMatch(/Goodness of fit: Anderson–Darling A² on the Turnbull estimate/);
     expect(r.out).toMatch(/Weibull\s+\S+\s+\S+\s+\S+\s+39\s+\d+\s+(not )?rejected/);
   });
 

@@ -167,6 +167,9 @@ describe('inspection-scheme bootstrap', () => {
     const ad = ds.candidates[0]!.andersonDarling as { rejected: boolean; decision: string };
     expect(ad.rejected).toBe(false);
     expect(ad.decision).toMatch(/^No decision: the test is not size-calibrated/);
+    // The report names the test it ran (A² on every design; the likelihood ratio was measured and not adopted: interval-gof-design.ts).
+    expect(w.goodnessOfFit!.test).toBe('anderson-darling');
+    expect(ad.decision).toMatch(/Anderson–Darling A² = \S+, p = /);
     // The valve demo fits one common schedule: its test decides.
     const v = analyzeRecordedLife({ interval: { start: Array.from(d.lower), end: Array.from(d.upper), counts: Array.from(d.counts) } }, { families: ['weibull'], replicates: 19, seed: 5, mixture: false });
     expect(v.candidates[0]!.goodnessOfFit!.sizeCalibrated).toBe(true);
