@@ -16,6 +16,7 @@ import { SECTIONS } from '../../client/src/views/sections.js';
 import { drawSlot } from '../../client/src/decision-charts.js';
 import { resetIds } from '../../client/charts/frame.js';
 import { FEW_EARLY } from './invented-mixture.js';
+import { modelLabel } from '../../client/src/families.js';
 
 const t = readColumns(readFileSync(join(process.cwd(), 'datasets', 'seal-failure-modes.csv'), 'utf8'), [
   { select: 'hours', kind: 'number' },
@@ -87,8 +88,9 @@ describe('recorded-life section', () => {
     const rec = JSON.parse(JSON.stringify(analyzeRecordedLife({ interval }, { families: ['weibull', 'exponential'], replicates: 39, seed: 2 })));
     const b = recordedBlock(rec, null, 'months');
     const gof = b.tables.find((tb) => /Does each model fit/.test(tb.caption))!;
-    expect(gof.rows.map((r) => r[0])).toEqual(rec.candidates.filter((c: { goodnessOfFit: unknown }) => c.goodnessOfFit).map((c: { label: string }) => c.label));
-    const expo = gof.rows.find((r) => r[0] === 'exponential')!;
+    // each model by the page's one label (client/src/families.ts), not the core's lower-case name
+    expect(gof.rows.map((r) => r[0])).toEqual(rec.candidates.filter((c: { goodnessOfFit: unknown }) => c.goodnessOfFit).map((c: { family: string }) => modelLabel(c.family)));
+    const expo = gof.rows.find((r) => r[0] === 'Exponential')!;
     expect(expo[3]).toBe('39');
     expect(expo[4]).toMatch(/^rejected/);
     const exact = recordedBlock(JSON.parse(JSON.stringify(recordedLifeExtras({ times, failed }, {})!.report)), null, 'h');

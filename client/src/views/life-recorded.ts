@@ -5,6 +5,7 @@
  * boxes, and a test plan when one was asked for. Pure: report → block.
  */
 import type { RecordedLifeCandidate, RecordedLifeReport, TestPlan } from '../../../core/index.js';
+import { modelLabel } from '../families.js';
 import { sig } from '../format.js';
 import type { BlockLine, BlockTable, SectionBlock, SectionView } from './block.js';
 import { pct, withU } from './numbers.js';
@@ -13,6 +14,9 @@ import { pct, withU } from './numbers.js';
 const n = (x: number | null | undefined, d = 4): string => (x === null || x === undefined || Number.isNaN(x) ? '—' : sig(x, d));
 
 const ESTIMATOR = { ml: 'maximum likelihood', 'rank-regression': 'rank regression' } as const;
+
+/** The page's one label per model (client/src/families.ts); the mixture keeps the core's name. */
+const labelOf = (c: Pick<RecordedLifeCandidate, 'family' | 'label'>): string => (c.family === 'weibull-mixture' ? c.label : modelLabel(c.family));
 
 function params(c: RecordedLifeCandidate): string {
   return Object.entries(c.parameters)
@@ -33,9 +37,9 @@ function answerOf(r: RecordedLifeReport, u: string): string | undefined {
   if (mix && mix.rank === 1 && mix.identified === false) {
     // Ranked first but not identified: its numbers are not to be used, so the answer names the best single model.
     const single = r.candidates.find((c) => c.family !== 'weibull-mixture');
-    return `The Weibull mixture ranks first by ${r.rankedBy} but its two subpopulations are not identified by these data, so its numbers are not to be used${single ? `; best single model: ${single.label} (${ESTIMATOR[single.estimation]})` : ''}.`;
+    return `The Weibull mixture ranks first by ${r.rankedBy} but its two subpopulations are not identified by these data, so its numbers are not to be used${single ? `; best single model: ${labelOf(single)} (${ESTIMATOR[single.estimation]})` : ''}.`;
   }
-  return `Best by ${r.rankedBy}: ${top.label} (${ESTIMATOR[top.estimation]}).`;
+  return `Best by ${r.rankedBy}: ${labelOf(top)} (${ESTIMATOR[top.estimation]}).`;
 }
 
 export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: string): SectionBlock {
@@ -52,7 +56,7 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
       head: ['Rank', 'Model', 'Estimator', 'Parameters', 'ln L', 'AICc', r.estimation === 'rank-regression' ? 'r' : 'ΔAICc'],
       rows: r.candidates.map((c) => [
         String(c.rank),
-        c.label + (c.identified === false ? ' — not identified' : ''),
+        labelOf(c) + (c.identified === false ? ' — not identified' : ''),
         ESTIMATOR[c.estimation],
         params(c),
         n(c.logLikelihood, 6),
@@ -67,16 +71,16 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
         head: ['Model', 'A²', 'p', 'Replicates', 'Verdict'],
         rows: tested.map((c) => {
           const g = c.goodnessOfFit!;
-          return [c.label, n(g.statistic), `${n(g.pValue, 3)} ± ${n(g.monteCarloError, 2)}`, String(g.replicates), c.rejected === null ? 'no decision: test not size-calibrated for these rows' : c.rejected ? 'rejected: the data contradict it' : 'not rejected'];
+          return [labelOf(c), n(g.statistic), `${n(g.pValue, 3)} ± ${n(g.monteCarloError, 2)}`, String(g.replicates), c.rejected === null ? 'no decision: test not size-calibrated for these rows' : c.rejected ? 'rejected: the data contradict it' : 'not rejected'];
         }),
       });
     } else if (r.goodnessOfFitNote) lines.push({ kind: 'note', text: `Goodness of fit: ${r.goodnessOfFitNote}.` });
     const rows: string[][] = [];
-    for (const c of r.candidates) for (const b of c.bLives) rows.push([`${c.label}: B${n(b.percent, 3)}`, n(b.estimate), n(b.lower), n(b.upper), b.method]);
+    for (const c of r.candidates) for (const b of c.bLives) rows.push([`${labelOf(c)}: B${n(b.percent, 3)}`, n(b.estimate), n(b.lower), n(b.upper), b.method]);
     if (rows.length > 0) tables.push({ caption: `B-lives${u ? ` [${u}]` : ''} with two-sided ${pct(r.confidence)} bounds where the estimator gives them`, head: ['Life', 'Estimate', 'Lower', 'Upper', 'Estimator and bounds'], rows });
   }
-  for (const c of r.candidates) for (const f of c.flags) lines.push({ kind: 'warning', text: `${c.label}: ${f}` });
-  for (const c of r.candidates) for (const w of c.warnings) lines.push({ kind: 'warning', text: `${c.label}: ${w}` });
+  for (const c of r.candidates) for (const f of c.flags) lines.push({ kind: 'warning', text: `${labelOf(c)}: ${f}` });
+  for (const c of r.candidates) for (const w of c.warnings) lines.push({ kind: 'warning', text: `${labelOf(c)}: ${w}` });
   for (const x of r.notFitted) lines.push({ kind: 'note', text: `${x.family} not fitted: ${x.reason}` });
   if (r.weibayes) {
     const w = r.weibayes;
