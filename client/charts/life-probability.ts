@@ -68,9 +68,13 @@ export function lifeProbabilityChart(container: Element, data: LifeProbabilityDa
     `Each failure at its plotting position (${data.plot.description}); ${data.suspensions} suspended units are not plotted but move the positions of later failures. ` +
     `Whiskers: pointwise ${Math.round(data.plot.bandLevel * 100)} % band. Lines: fitted models.`;
   const pts = data.plot[data.scale];
-  const items: LegendItem[] = [{ key: 'data', label: `Failures (${pts.length})`, kind: 'point' }];
+  // No points (interval rows: each failure is known only within its interval): the legend says so instead of "Failures (0)".
+  const items: LegendItem[] = pts.length > 0 ? [{ key: 'data', label: `Failures (${pts.length})`, kind: 'point' }] : [];
   for (const c of data.curves) items.push({ key: c.family, label: `${data.labels[c.family] ?? c.family}${c.family === data.selected ? ' (selected)' : ''}`, kind: 'line', emphasis: c.family === data.selected });
-  const frame = createFrame(container, options, title, description, { legend: items });
+  const frame = createFrame(container, options, title, description, {
+    legend: items,
+    ...(pts.length === 0 ? { notes: ['No failure is plotted: none has a point on the paper here (a failure known only within an inspection interval is drawn as a Turnbull box in the recorded-life section).'] } : {}),
+  });
   const xs = [...pts.map((p) => p.x), ...data.curves.flatMap((c) => c.time.map((t) => Math.log(t)))];
   const ysPts = pts.flatMap((p) => [p.yLower, p.yUpper, p.y]).filter(Number.isFinite);
   const y0 = Math.min(...ysPts, scaleY(0.01, data.scale));

@@ -6,8 +6,13 @@ import { pct, withU } from './numbers.js';
 export const lifeSection: SectionView = ({ report: r, selected: c, units: u }) => {
   const life = r.life;
   if (!life) return null;
+  // Interval rows (core RecordedLifeReport counts): say how each failure is known, not "treated as right-censored" alone.
+  const rec = life.recorded?.report;
+  const inspected = rec !== undefined && rec !== null && rec.left + rec.interval > 0;
   const lines: BlockLine[] = [
-    { kind: 'fact', text: `${life.units} units on test: ${life.failures} failed, ${life.suspensions} suspended (still running or removed unfailed, treated as right-censored).` },
+    inspected
+      ? { kind: 'fact', text: `${rec.n} units found at inspections: ${rec.failures} failed (${rec.exact} at a known time, ${rec.left} before the first inspection, ${rec.interval} within an inspection interval), ${rec.right} still running at their last inspection (right-censored).` }
+      : { kind: 'fact', text: `${life.units} units on test: ${life.failures} failed, ${life.suspensions} suspended (still running or removed unfailed, treated as right-censored).` },
     { kind: 'note', text: life.chiSquare.reason },
   ];
   // With a failure-mode column these fits pool the modes; the whole unit's life by modes is the modes section's (views/modes.ts).
