@@ -81,7 +81,9 @@ describe.skipIf(SKIP_BROWSER)('life data as recorded on the page', () => {
     const text = (await block.textContent()) ?? '';
     expect(text).toMatch(/Does each model fit\? Anderson–Darling on the nonparametric estimate/);
     // datasets/README.md: the valve lives are Weibull; the exponential is rejected (p ≤ 0.05 in test/life/interval-gof.test.ts).
-    expect(text).toMatch(/exponential[^]*rejected: the data contradict it/);
+    expect(text).toMatch(/Exponential[^]*rejected: the data contradict it/);
+    // the mixture is not fitted to interval rows, and the note names it by its label
+    expect(text).toMatch(/The Weibull mixture \(two subpopulations\) not fitted: /);
     expect(await block.locator('svg[role="img"] rect[data-kind="box"]').count()).toBeGreaterThan(5);
     await page.screenshot({ path: join(OUT, 'life-recorded-valves-1366x768.png') });
     expect(problems).toEqual([]);

@@ -81,7 +81,7 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
   }
   for (const c of r.candidates) for (const f of c.flags) lines.push({ kind: 'warning', text: `${labelOf(c)}: ${f}` });
   for (const c of r.candidates) for (const w of c.warnings) lines.push({ kind: 'warning', text: `${labelOf(c)}: ${w}` });
-  for (const x of r.notFitted) lines.push({ kind: 'note', text: `${x.family} not fitted: ${x.reason}` });
+  for (const x of r.notFitted) lines.push({ kind: 'note', text: `${x.family === 'weibull-mixture' ? 'The Weibull mixture (two subpopulations)' : modelLabel(x.family)} not fitted: ${x.reason}` });
   if (r.weibayes) {
     const w = r.weibayes;
     tables.push({
