@@ -108,11 +108,28 @@ describe.skipIf(SKIP_BROWSER)('the settings form and the practitioner\'s traps',
     await expect(page.locator('#answer-empty').textContent()).resolves.toMatch(/^Mark a failed \/ still-running column/);
   });
 
-  it('reads well at 800 and 1366 px (screenshots) with no horizontal scroll', { timeout: 60_000 }, async () => {
+  it('reads well at 800 and 1366 px (screenshots) with no horizontal scroll, and no model name broken mid-word', { timeout: 60_000 }, async () => {
     for (const width of [800, 1366]) {
       await page.setViewportSize({ width, height: width === 800 ? 900 : 768 });
       await page.waitForTimeout(300);
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
+      // every word of every model's check box on one line (at 800 px the two columns once split "Exponenti al")
+      const broken = await page.evaluate(() => {
+        const out: string[] = [];
+        for (const l of document.querySelectorAll('#family-boxes label')) {
+          const walk = document.createTreeWalker(l, NodeFilter.SHOW_TEXT);
+          for (let n = walk.nextNode(); n; n = walk.nextNode()) {
+            for (const m of (n.textContent ?? '').matchAll(/\S+/g)) {
+              const r = document.createRange();
+              r.setStart(n, m.index ?? 0);
+              r.setEnd(n, (m.index ?? 0) + m[0].length);
+              if (new Set([...r.getClientRects()].map((x) => Math.round(x.top))).size > 1) out.push(m[0]);
+            }
+          }
+        }
+        return out;
+      });
+      expect(broken, `${width} px`).toEqual([]);
       await page.screenshot({ path: join(OUT, `form-shaft-${width}.png`), fullPage: true });
     }
   });
