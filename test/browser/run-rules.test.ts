@@ -7,6 +7,7 @@
  * chart's labels keep clear of one another at 1366 and 800 px. Screenshots of the chart at both
  * widths go to test-output/.
  */
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
@@ -23,7 +24,7 @@ describe.skipIf(SKIP_BROWSER)('run rules on the stability chart, in Chromium', (
   const problems: string[] = [];
 
   beforeAll(async () => {
-    session = await openSession({ problems, open: true });
+    session = await openSession({ problems, open: true, acceptDownloads: true });
     page = session.page;
     await waitForStatus(page, /^Done: /, 240_000);
   }, 300_000);
@@ -74,6 +75,15 @@ describe.skipIf(SKIP_BROWSER)('run rules on the stability chart, in Chromium', (
     expect(legend).toContain('ends a run (rules 2–4, below)');
     // the section's table lists the same points in words
     await expect(page.locator('[data-block="capability"]').textContent()).resolves.toMatch(/rule 3: four of five successive points beyond 1 sigma on one side/);
+    // the exported HTML report carries the same chart: its diamonds with their titles, the legend and the note
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, 'report-run-rules.html');
+    await download.saveAs(file);
+    const html = readFileSync(file, 'utf8');
+    expect(html.match(/data-kind="run-signal"/g)?.length).toBe(expected.length);
+    expect(html).toContain('ends a run (rules 2–4, below)');
+    expect(html).toContain(`completes rule 2: ${RUN_RULE_WORDS[2]}`);
+    expect(html).toContain('Diamonds end a run (Western Electric rules, 1956)');
     for (const [w, h] of [[1366, 768], [800, 900]] as const) {
       await page.setViewportSize({ width: w, height: h });
       await page.waitForTimeout(800);
