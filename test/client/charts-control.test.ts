@@ -10,6 +10,8 @@
  */
 import { beforeEach, describe, expect, it } from 'vitest';
 import { individualsChart, subgroupChart } from '../../core/capability/control-chart.js';
+import { analyzeDataset, type DatasetReport } from '../../core/index.js';
+import { capabilitySection } from '../../client/src/views/capability.js';
 import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import { controlChart } from '../../client/charts/control-chart.js';
 import { resetIds } from '../../client/charts/frame.js';
@@ -133,5 +135,29 @@ describe('run rules on the stability chart', () => {
     expect(Math.abs(centres[1]! - centres[0]!)).toBeGreaterThanOrEqual(90);
     // a roomy chart keeps the size it was given
     expect(controlChart(host(), individualsChart(SHIFTED, null), { ...OPTS, width: 900, height: 600 }).getAttribute('height')).toBe('600');
+  });
+});
+
+describe('the capability section with an order column (individuals chart, no range chart)', () => {
+  const report = (order: boolean): DatasetReport =>
+    JSON.parse(JSON.stringify(analyzeDataset({ values: SHIFTED, ...(order ? { order: SHIFTED.map((_, i) => i + 1) } : {}) }, { families: ['normal'], lsl: 47, usl: 54, seed: 1 }))) as DatasetReport;
+  it('says the stability verdict and its run signals, and never "Stability not checked" beside the chart', () => {
+    const r = report(true);
+    expect(r.capability?.stability?.kind).toBe('individuals and moving range');
+    expect(r.capability?.rangeChart ?? null).toBeNull();
+    const b = capabilitySection({ report: r, selected: undefined, units: 'g' })!;
+    const texts = b.lines.map((l) => l.text);
+    expect(texts.some((t) => /^Stability \(individuals and moving range, order from the order column\): .*complete a run signal/.test(t))).toBe(true);
+    expect(texts.some((t) => /Stability not checked/.test(t))).toBe(false);
+    expect(b.answer).toMatch(/^Not yet answerable with confidence — the process is not shown to be stable\./);
+    expect(b.charts).toContain('control-chart');
+    // the signalled points in words, rule by rule
+    const signal = b.tables.find((t) => /^Points that signal/.test(t.caption))!;
+    expect(signal.rows.length).toBe(r.capability!.stability!.runSignals);
+    expect(signal.rows.some((row) => row[4] === `rule 2: ${RUN_RULE_WORDS[2]}`)).toBe(true);
+  });
+  it('without an order or subgroup column it says stability was not checked', () => {
+    const b = capabilitySection({ report: report(false), selected: undefined, units: 'g' })!;
+    expect(b.lines.some((l) => /^Stability not checked/.test(l.text))).toBe(true);
   });
 });

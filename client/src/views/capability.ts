@@ -113,7 +113,8 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
     const factors = k ? ` Factors for subgroups of ${k.n}: A2 ${sig(k.A2)}, D3 ${sig(k.D3)}, D4 ${sig(k.D4)} (Montgomery's table; d2 ${sig(k.d2)} and d3 ${sig(k.d3)} integrated here).` : ' Subgroups of unequal size: each has its own limits.';
     lines.push({ kind: rc.stable ? 'fact' : 'warning', text: `Beside it, subgroup means and ranges: sigma ${sig(rc.sigma)} from ${rc.sigmaMethod}.${factors} ${rc.statement}` });
   }
-  else lines.push({ kind: 'note', text: 'Stability not checked: give an order or subgroup column to see a control chart; indices of an unstable process do not predict its future.' });
+  // Only without any chart (the else once hung on the range chart, so an individuals chart was also called "not checked").
+  if (!cap.stability) lines.push({ kind: 'note', text: 'Stability not checked: give an order or subgroup column to see a control chart; indices of an unstable process do not predict its future.' });
   if (cap.normality) lines.push({ kind: cap.normality.passes ? 'fact' : 'warning', text: `Normality gate: ${cap.normality.statement}` });
   if (t && t.kind !== 'none') {
     const what = t.kind === 'boxcox' ? `Box–Cox λ = ${sig(t.lambda ?? Number.NaN, 4)} (${pct(t.lambdaInterval?.confidence ?? 0.95)} profile interval ${sig(t.lambdaInterval?.lower ?? null, 3)} to ${sig(t.lambdaInterval?.upper ?? null, 3)})` : `Johnson ${t.type ?? ''} curve`;
