@@ -1,10 +1,11 @@
 /**
  * The CLI's second thread for large samples: on this 2-core machine the per-family work (fit, A²,
- * chi-square) of the five families is most of the time at 10^6 values, so the lognormal, gamma and
- * exponential families are evaluated on a worker_thread (core `evaluateFamilies`) while the main thread
+ * chi-square) of the five families is most of the time at 10^6 values, so the lognormal and gamma
+ * families are evaluated on a worker_thread (core `evaluateFamilies`) while the main thread
  * evaluates the others (core `planAnalysis` with `delegated`). The sorted sample is shared through
- * a SharedArrayBuffer (one copy, no sort in the worker: the same sorted values, so the same
- * numbers); results come back as plain data and planAnalysis combines them in family order, so
+ * a SharedArrayBuffer (the reader's own array, or one copy; no sort in the worker: the same sorted
+ * values, so the same numbers), with the main thread's Sample summary and, up to LOGS_COPY_MAX_N
+ * values, its ln x (the same numbers again, not computed twice); results come back as plain data and planAnalysis combines them in family order, so
  * the report is byte-identical to the one-thread run. The main thread stays synchronous: it
  * blocks on an Atomics flag the worker sets after posting, then takes the message with
  * receiveMessageOnPort. Any failure (worker error, timeout) falls back to evaluating those
@@ -43,8 +44,9 @@ export const PARALLEL_MIN_N = 200_000;
 const AWAY: readonly FamilyName[] = ['lognormal', 'gamma'];
 /**
  * Most values whose ln x are copied to shared memory for the worker (16 MiB; common practice, no
- * source): it saves the worker about as much as the copy costs many times over (measured: CPU of the
- * whole run at 10^6 values 1.45 -> 1.24 s), but 10^7 values would need 80 MB more.
+ * source). At 10^6 values the copy costs the main thread ~3 ms and saves the worker its own ln x
+ * passes: with the main thread's summary as well, the worker's CPU for lognormal and gamma went from
+ * ~350 to ~281 ms (thread CPU, 6 runs each, 2026-12-05). 10^7 values would need 80 MB more.
  */
 const LOGS_COPY_MAX_N = 2 ** 21;
 /** How long the main thread waits for the worker before doing its share itself. */
