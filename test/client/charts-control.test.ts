@@ -8,10 +8,12 @@
  * then a shift of about one sigma); which points signal is the core's answer, checked against the rule definitions
  * in test/capability/run-rules.test.ts. The page's browser check is test/browser/run-rules.test.ts.
  */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { individualsChart, subgroupChart } from '../../core/capability/control-chart.js';
 import { analyzeDataset, type DatasetReport } from '../../core/index.js';
-import { capabilitySection } from '../../client/src/views/capability.js';
+import { capabilitySection, shareWords } from '../../client/src/views/capability.js';
 import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import { controlChart } from '../../client/charts/control-chart.js';
 import { resetIds } from '../../client/charts/frame.js';
@@ -159,5 +161,24 @@ describe('the capability section with an order column (individuals chart, no ran
   it('without an order or subgroup column it says stability was not checked', () => {
     const b = capabilitySection({ report: report(false), selected: undefined, units: 'g' })!;
     expect(b.lines.some((l) => /^Stability not checked/.test(l.text))).toBe(true);
+  });
+});
+
+describe('the capability comparison with a natural lower bound', () => {
+  it('a model reaching below the bound is flagged in its row with the share it puts there (pump-seal-wear demo, USL 120, bound 0)', () => {
+    const csv = readFileSync(join(process.cwd(), 'datasets', 'pump-seal-wear.csv'), 'utf8');
+    const values = csv.trim().split('\n').slice(1).map(Number);
+    const r = JSON.parse(JSON.stringify(analyzeDataset({ values }, { families: ['normal', 'weibull'], usl: 120, naturalLowerBound: 0, seed: 1 }))) as DatasetReport;
+    const rows = [...r.capability!.comparison.passing, ...r.capability!.comparison.rejected];
+    const normal = rows.find((x) => x.kind === 'normal')!;
+    // mean 41.1 µm, sd 20.2 µm: the normal puts about 2 % below 0 (datasets/README.md, invented gamma data)
+    expect(normal.ppmBelowNaturalBound).toBeGreaterThan(1e4);
+    const b = capabilitySection({ report: r, selected: undefined, units: 'µm' })!;
+    const cells = b.tables.flatMap((t) => t.rows).filter((row) => row[0] === 'Normal').map((row) => row[4]);
+    expect(cells).toHaveLength(1);
+    expect(cells[0]).toBe(`all real x; puts ${shareWords(normal.ppmBelowNaturalBound!)} below the natural bound 0`);
+    // the Weibull lives on x > 0: nothing below the bound, no flag
+    const weib = b.tables.flatMap((t) => t.rows).find((row) => row[0] === 'Weibull')!;
+    expect(weib[4]).toBe('x > 0');
   });
 });

@@ -67,11 +67,22 @@ function modelName(row: ComparisonRow): string {
   return row.kind === 'transformation' ? row.model : capital(row.model);
 }
 
-function comparisonRows(rows: readonly ComparisonRow[]): string[][] {
+/**
+ * Where the model lives, and with a natural lower bound the share it puts below that bound (the core's
+ * ppmBelowNaturalBound; the CLI's 'ppm below bound' column): a model reaching below a bound the
+ * characteristic cannot cross is flagged with that share, as the bound's note promises.
+ */
+function supportWords(r: ComparisonRow, bound: number | null): string {
+  const below = r.ppmBelowNaturalBound;
+  if (bound === null || below === null || !(below > 0)) return r.support;
+  return `${r.support}; puts ${shareWords(below)} below the natural bound ${sig(bound, 6)}`;
+}
+
+function comparisonRows(rows: readonly ComparisonRow[], bound: number | null): string[][] {
   return rows.map((r) => {
     const ppk = r.indices.find((i) => i.name === 'Ppk');
     const sides = `${sig(r.ppmBelow, 3)} below, ${sig(r.ppmAbove, 3)} above`;
-    return [modelName(r), r.kind === 'normal' ? 'overall sd (n − 1)' : 'its 0.135 %, 50 %, 99.865 % points', ppk ? sig(ppk.estimate, 3) : '—', `${shareWords(r.ppmTotal)} (${sides})`, r.support, ...(r.passes ? [] : [testNames(r.rejectedBy)])];
+    return [modelName(r), r.kind === 'normal' ? 'overall sd (n − 1)' : 'its 0.135 %, 50 %, 99.865 % points', ppk ? sig(ppk.estimate, 3) : '—', `${shareWords(r.ppmTotal)} (${sides})`, supportWords(r, bound), ...(r.passes ? [] : [testNames(r.rejectedBy)])];
   });
 }
 
@@ -127,14 +138,14 @@ export const capabilitySection: SectionView = ({ report: r, units: u }) => {
   tables.push({ caption: `Normal-theory indices, each with the spread it uses; two-sided ${pct(cap.confidence)} intervals.`, head: ['Index', 'Spread used', 'Estimate', 'Interval', 'Interval method'], rows: idxRows, folded: true });
   if (cap.comparison) {
     const none = cap.comparison.passing.length === 0;
-    if (!none) tables.push({ caption: 'Share outside the tolerance under each model that passes the tests (the model and the spread each number uses).', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on'], rows: comparisonRows(cap.comparison.passing) });
+    if (!none) tables.push({ caption: 'Share outside the tolerance under each model that passes the tests (the model and the spread each number uses).', head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on'], rows: comparisonRows(cap.comparison.passing, cap.bounds?.naturalLowerBound ?? null) });
     if (cap.comparison.rejected.length > 0) {
       tables.push({
         caption: none
           ? 'Models the tests reject — here every one: what each would say, not an answer; no spread is drawn from them.'
           : 'Models the tests reject: not used for the answer and not in the spread.',
         head: ['Model', 'Spread from', 'Ppk', 'Outside the tolerance', 'Model lives on', 'Rejected by'],
-        rows: comparisonRows(cap.comparison.rejected),
+        rows: comparisonRows(cap.comparison.rejected, cap.bounds?.naturalLowerBound ?? null),
         folded: !none,
       });
     }
