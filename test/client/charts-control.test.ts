@@ -176,7 +176,7 @@ describe('the capability comparison with a natural lower bound', () => {
     const b = capabilitySection({ report: r, selected: undefined, units: 'µm' })!;
     const cells = b.tables.flatMap((t) => t.rows).filter((row) => row[0] === 'Normal').map((row) => row[4]);
     expect(cells).toHaveLength(1);
-    expect(cells[0]).toBe(`all real x; puts ${shareWords(normal.ppmBelowNaturalBound!)} below the natural bound 0`);
+    expect(cells[0]).toBe(`all real x; below the natural bound 0: ${shareWords(normal.ppmBelowNaturalBound!)}`);
     // the Weibull lives on x > 0: nothing below the bound, no flag
     const weib = b.tables.flatMap((t) => t.rows).find((row) => row[0] === 'Weibull')!;
     expect(weib[4]).toBe('x > 0');

@@ -75,7 +75,7 @@ function modelName(row: ComparisonRow): string {
 function supportWords(r: ComparisonRow, bound: number | null): string {
   const below = r.ppmBelowNaturalBound;
   if (bound === null || below === null || !(below > 0)) return r.support;
-  return `${r.support}; puts ${shareWords(below)} below the natural bound ${sig(bound, 6)}`;
+  return `${r.support}; below the natural bound ${sig(bound, 6)}: ${shareWords(below)}`;
 }
 
 function comparisonRows(rows: readonly ComparisonRow[], bound: number | null): string[][] {
