@@ -41,6 +41,10 @@ const ROLE_WORDS: Readonly<Record<string, string>> = {
   status: 'Status column (1 failed, 0 suspended)',
   subgroups: 'Subgroup column',
   order: 'Order column (time or year)',
+  'failure mode': 'Failure-mode column (each failed unit\'s mode)',
+  'interval end': 'Interval end column (found failed by)',
+  count: 'Units per row column',
+  date: 'Date column',
 };
 
 export interface ReportContext {
@@ -109,12 +113,14 @@ export function buildReportHtml(ctx: ReportContext): string {
   const totalSkipped = skipped.reduce((s, k) => s + k.count, 0);
   const selectedChi = selected?.chiSquare;
   const grouped = isGrouped(r) ? r : null;
+  // Life data found at inspections: the input names an interval-end column (server/analysis.ts otherColumns).
+  const intervalRows = (input?.otherColumns ?? []).some((c) => c.role === 'interval end');
 
   const record: [string, string][] = [
     ['Software', `${r.software.name} ${r.software.version}`],
     ['Report generated', when],
     ['Data source', ctx.sourceName],
-    [isGrouped(r) ? 'Class columns (lower–upper, count)' : 'Value column', ctx.column],
+    [isGrouped(r) ? 'Class columns (lower–upper, count)' : intervalRows ? 'Interval columns (start–end, units per row)' : 'Value column', ctx.column],
     ...(input?.otherColumns ?? []).map((c) => [ROLE_WORDS[c.role] ?? `${c.role} column`, c.column] as [string, string]),
     ...(grouped || (input?.otherColumns ?? []).length > 0 ? [] : [['Other column roles', 'none (every value an observed value; no status, subgroup or order column)'] as [string, string]]),
     ['Quantity', ctx.quantity || '(not given)'],

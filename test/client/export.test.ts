@@ -209,6 +209,20 @@ describe('the report opens with the answer and records every input', () => {
     expect(none).toContain('Confidence levelnot used');
   });
 
+  it('interval rows with a failure-mode column: the record names the interval columns and each role in words', () => {
+    const base = response();
+    const ctx = { selected: base.candidates[0]!.family, sourceName: 'inspections.csv', column: 'start–end, units', units: 'h', quantity: 'Time', generatedAt: new Date(0), charts: [], binsTable: [], requestedBins: null };
+    // the roles as the server lists them for interval rows (server/analysis.ts otherColumns)
+    const otherColumns = [{ role: 'interval end', column: 'end' }, { role: 'count', column: 'units' }, { role: 'failure mode', column: 'mode' }];
+    const html = buildReportHtml({ ...ctx, response: { ...base, input: { ...base.input!, otherColumns } } as unknown as AnalyzeResponse });
+    const text = new DOMParser().parseFromString(html, 'text/html').getElementById('record')!.parentElement!.textContent ?? '';
+    expect(text).toContain('Interval columns (start–end, units per row)start–end, units');
+    expect(text).toContain('Interval end column (found failed by)end');
+    expect(text).toContain('Units per row columnunits');
+    expect(text).toContain("Failure-mode column (each failed unit's mode)mode");
+    expect(text).not.toContain('Value column');
+  });
+
   it('shows the bootstrap chi-square p where it decides the test, beside the asymptotic pair', () => {
     const base = response();
     const i = base.candidates.findIndex((c) => c.chiSquare.computable);
