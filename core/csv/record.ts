@@ -6,11 +6,12 @@
 import { InputError } from '../errors.js';
 import { columnLabel } from './columns.js';
 
-const LF = 10;
-const CR = 13;
-const QUOTE = 34;
-const SPACE = 32;
-const TAB = 9;
+/** Char codes the scanner looks for. */
+export const LF = 10;
+export const CR = 13;
+export const QUOTE = 34;
+export const SPACE = 32;
+export const TAB = 9;
 
 export interface Cursor {
   i: number;

@@ -11,14 +11,8 @@ import { classifyCell, numberHint, REASON_WORDS } from './classify.js';
 import { columnLabel, headerWarnings, resolveColumn } from './columns.js';
 import { detectDelimiter } from './delimiter.js';
 import { parseNumberRange, type NumberFailure } from './number.js';
-import { afterQuote, checkText, isBlankRange, isBlankRecord, readRecordStrings, showValue, unquote, unterminated, type Cursor } from './record.js';
+import { CR, LF, QUOTE, SPACE, TAB, afterQuote, checkText, isBlankRange, isBlankRecord, readRecordStrings, showValue, unquote, unterminated, type Cursor } from './record.js';
 import type { ColumnData, ColumnRequest, CsvOptions, SkipCount, SkipReason, TableResult } from './types.js';
-
-const LF = 10;
-const CR = 13;
-const QUOTE = 34;
-const SPACE = 32;
-const TAB = 9;
 
 /**
  * How a caller wants the scanner's arrays (all optional; the values are the same either way):
