@@ -28,12 +28,27 @@
  *                and Q the (1 − p̂) quantile of the A²**, p = #{A²*_j > Q}/B (unrefittable replicates dropped)
  *   +old         the statistic before 2026-12-05: after a last failure of censored data it integrated
  *                (1 − u)/u on to u = 1 (core/life/anderson-darling.ts explains why that was dropped)
+ *   +trunc       the data (and every replicate) truncated at their last withdrawal: units still running
+ *                then suspended there, refitted, so no Kaplan–Meier censoring mass is left over
+ *   +win         every replicate's statistic on the observed window [0, τ_obs] (units past τ_obs
+ *                suspended there for the statistic only; the refit uses the whole replicate)
+ *   +norm        A² / F̂(τ) (its mean for a known model without censoring inside the window)
+ *   +stud        A² / its Greenwood-estimated mean (core/life/anderson-darling.ts
+ *                censoredAndersonDarlingMean; the product's staggered statistic since 2026-12-05)
+ *   +studA       the same with the Aalen increments d/Y² instead of Greenwood's d/(Y(Y − d))
+ *   +studP       A² / (Greenwood mean − the fitted model's share, ∇Fᵀ J⁻¹ ∇F; Hausman 1978 [from memory])
+ *   +studV       (A² − mean)/sd, both from Greenwood's covariance of the Kaplan–Meier process
+ *   +shapeF      replicates from the fitted shape × F (a sensitivity probe, not a method)
+ *   prog         (mode) suspensions moved back to the failure before them and the sample treated as
+ *                progressively Type II censored with that pattern (Balakrishnan & Sandhu 1995 draws):
+ *                the statistic is then parameter-free for the Weibull, but the pattern is not ancillary
+ *                under random censorship
  * Prints the size at α = 0.05 and 0.10, the mean p-value and the unrefittable replicates per variant.
  */
 import { getFamily, type Distribution } from '../core/families/index.js';
 import { censoringDistribution } from '../core/life/bootstrap.js';
-import { type LifeData } from '../core/life/data.js';
-import { buildLifeData, censoredAndersonDarling, fitCensored, prepareLifeData } from '../core/life/index.js';
+import { forEachFailureTime, type LifeData } from '../core/life/data.js';
+import { buildLifeData, censoredAndersonDarling, censoredLogLikelihood, fitCensored, prepareLifeData } from '../core/life/index.js';
 import { createRng, type Rng } from '../core/random/index.js';
 
 const SHAPE = 1.5;
@@ -136,6 +151,173 @@ function censoringFor(mode: string, data: LifeData, kind: string, w: number): (i
   return (_i, rng) => km(Number.NEGATIVE_INFINITY, rng);
 }
 
+/**
+ * The data with every suspension moved back to the failure before it (suspensions before the first
+ * failure dropped): a progressively Type II censored sample with pattern R_1..R_m (Balakrishnan &
+ * Aggarwala 2000, Progressive Censoring [from memory]). Returns the moved data and the pattern.
+ */
+function movedBack(data: LifeData): { moved: LifeData; pattern: number[] } {
+  const pattern: number[] = [];
+  const t: number[] = [];
+  const f: number[] = [];
+  let last = Number.NaN;
+  for (let i = 0; i < data.n; i++) {
+    if (data.failed[i]) {
+      last = data.times[i] as number;
+      pattern.push(0);
+      t.push(last);
+      f.push(1);
+    } else if (pattern.length > 0) {
+      pattern[pattern.length - 1]!++;
+      t.push(last);
+      f.push(0);
+    }
+  }
+  return { moved: buildLifeData(Float64Array.from(t), Uint8Array.from(f)), pattern };
+}
+
+/** Progressive Type II sample (pattern R) from dist by Balakrishnan & Sandhu (1995, Am. Stat. 49:229-230 [from memory]). */
+function drawProgressive(dist: Distribution, pattern: readonly number[], rng: Rng): LifeData {
+  const m = pattern.length;
+  const t: number[] = [];
+  const f: number[] = [];
+  let tail = 0; // R_m + ... + R_{m-i+1}
+  let prod = 1;
+  for (let i = 1; i <= m; i++) {
+    tail += pattern[m - i] as number;
+    prod *= Math.pow(rng.uniform(), 1 / (i + tail));
+    const x = dist.quantile(1 - prod);
+    const r = pattern[i - 1] as number;
+    t.push(x);
+    f.push(1);
+    for (let k = 0; k < r; k++) {
+      t.push(x);
+      f.push(0);
+    }
+  }
+  return buildLifeData(Float64Array.from(t), Uint8Array.from(f));
+}
+
+/** Every unit still running after the last withdrawal suspended at that withdrawal's time (failures there kept). */
+function truncateAtLastWithdrawal(data: LifeData): LifeData {
+  if (data.suspensions === 0) return data;
+  const cMax = data.suspensionTimes[data.suspensions - 1] as number;
+  if (cMax >= data.maxTime) return data;
+  const t = Float64Array.from(data.times, (x) => Math.min(x, cMax));
+  const f = Uint8Array.from(data.failed, (d, i) => ((data.times[i] as number) > cMax ? 0 : d));
+  return buildLifeData(t, f);
+}
+
+/**
+ * The mean of the censored A² for a fully specified model estimated from the data: n·Var K(u) by
+ * Greenwood's formula (Kaplan & Meier 1958) on each Kaplan–Meier step, times ∫ du/(u(1 − u)) over
+ * the step, summed over the window [0, τ] (τ = largest time; to u = 1 for a complete sample).
+ */
+function greenwoodMean(dist: Distribution, data: LifeData, aalen = false): number {
+  let S = 1;
+  let g = 0;
+  let total = 0;
+  let prevT = Number.NaN;
+  const seg = (a: number, b: number): number => {
+    const la = dist.logCdf(a);
+    const lb = b === Number.POSITIVE_INFINITY ? 0 : dist.logCdf(b);
+    const sa = dist.logSf(a);
+    const sb = b === Number.POSITIVE_INFINITY ? Number.NEGATIVE_INFINITY : dist.logSf(b);
+    return lb - la + (sa - sb);
+  };
+  forEachFailureTime(data, (t, Y, d) => {
+    if (!Number.isNaN(prevT) && S > 0) total += data.n * S * S * g * seg(prevT, t);
+    S *= 1 - d / Y;
+    g += aalen ? d / (Y * Y) : Y > d ? d / (Y * (Y - d)) : 0;
+    prevT = t;
+  });
+  if (!Number.isNaN(prevT) && S > 0 && data.suspensions > 0 && data.maxTime > prevT) total += data.n * S * S * g * seg(prevT, data.maxTime);
+  return total;
+}
+
+/**
+ * n ∫ Var F̂(u) du/(u(1 − u)) over the window: the part of the Kaplan–Meier variance the fitted model
+ * takes up. With an efficient estimator θ̂, Var(K − F_θ̂) = Var K − Var F_θ̂ asymptotically (Hausman
+ * 1978, Econometrica 46:1251-1271 [from memory]); Var F_θ̂(t) = ∇F(t)ᵀ J⁻¹ ∇F(t), J the observed
+ * information on (ln shape, ln scale). Midpoint rule in ln u, 200 points. Weibull only (pilot).
+ */
+function parametricVarianceMean(params: { shape?: number; scale?: number }, data: LifeData): number {
+  const ls = Math.log(params.shape as number);
+  const lc = Math.log(params.scale as number);
+  const ll = (a: number, b: number): number => censoredLogLikelihood(fam.make({ shape: Math.exp(a), scale: Math.exp(b) }), data);
+  const h = 1e-4;
+  const f0 = ll(ls, lc);
+  const haa = (ll(ls + h, lc) - 2 * f0 + ll(ls - h, lc)) / (h * h);
+  const hbb = (ll(ls, lc + h) - 2 * f0 + ll(ls, lc - h)) / (h * h);
+  const hab = (ll(ls + h, lc + h) - ll(ls + h, lc - h) - ll(ls - h, lc + h) + ll(ls - h, lc - h)) / (4 * h * h);
+  // J = -H; J⁻¹ = (1/det) [[jbb, -jab], [-jab, jaa]]
+  const jaa = -haa;
+  const jbb = -hbb;
+  const jab = -hab;
+  const det = jaa * jbb - jab * jab;
+  if (!(det > 0)) return Number.NaN;
+  const dist = fam.make(params as never);
+  const uTau = data.suspensions === 0 ? 1 - 1e-12 : Math.exp(dist.logCdf(data.maxTime));
+  const lo = Math.log(1e-10);
+  const hi = Math.log(uTau);
+  const K = 200;
+  let total = 0;
+  for (let i = 0; i < K; i++) {
+    const v = lo + ((i + 0.5) * (hi - lo)) / K;
+    const u = Math.exp(v);
+    const t = dist.quantile(u);
+    const cdf = (a: number, b: number): number => fam.make({ shape: Math.exp(a), scale: Math.exp(b) }).cdf(t);
+    const ga = (cdf(ls + h, lc) - cdf(ls - h, lc)) / (2 * h);
+    const gb = (cdf(ls, lc + h) - cdf(ls, lc - h)) / (2 * h);
+    const q = (jbb * ga * ga - 2 * jab * ga * gb + jaa * gb * gb) / det;
+    total += (q / (1 - u)) * ((hi - lo) / K);
+  }
+  return data.n * total;
+}
+
+/**
+ * Mean and variance of the censored A² for a Gaussian limit of the Kaplan–Meier process with
+ * Greenwood's covariance n·Cov(K(s), K(t)) = n·S(s)S(t)·g(min(s, t)) (steps i: S_i, g_i, weight
+ * W_i = ∫ du/(u(1 − u))): mean Σ n S_i² g_i W_i, variance 2 Σ_i Σ_j (n S_i S_j g_min)² W_i W_j (on steps,
+ * the within-step covariance taken at the step's value; a pilot approximation).
+ */
+function greenwoodMoments(dist: Distribution, data: LifeData): { mean: number; sd: number } {
+  const Ss: number[] = [];
+  const gs: number[] = [];
+  const Ws: number[] = [];
+  let S = 1;
+  let g = 0;
+  let prevT = Number.NaN;
+  const seg = (a: number, b: number): number => dist.logCdf(b) - dist.logCdf(a) + (dist.logSf(a) - dist.logSf(b));
+  forEachFailureTime(data, (t, Y, d) => {
+    if (!Number.isNaN(prevT) && S > 0 && g > 0) {
+      Ss.push(S);
+      gs.push(g);
+      Ws.push(seg(prevT, t));
+    }
+    S *= 1 - d / Y;
+    if (Y > d) g += d / (Y * (Y - d));
+    prevT = t;
+  });
+  if (!Number.isNaN(prevT) && S > 0 && g > 0 && data.suspensions > 0 && data.maxTime > prevT) {
+    Ss.push(S);
+    gs.push(g);
+    Ws.push(seg(prevT, data.maxTime));
+  }
+  const n = data.n;
+  let mean = 0;
+  for (let i = 0; i < Ss.length; i++) mean += n * Ss[i]! * Ss[i]! * gs[i]! * Ws[i]!;
+  // Σ_i Σ_j S_i² S_j² g_min² W_i W_j = Σ_i g_i² S_i² W_i (S_i² W_i + 2 Σ_{j>i} S_j² W_j)   (g increasing)
+  let suffix = 0;
+  let v = 0;
+  for (let i = Ss.length - 1; i >= 0; i--) {
+    const a = Ss[i]! * Ss[i]! * Ws[i]!;
+    v += gs[i]! * gs[i]! * a * (a + 2 * suffix);
+    suffix += a;
+  }
+  return { mean, sd: Math.sqrt(2 * v) * n };
+}
+
 const [kind = 'staggered', qs = '0.3', Rs = '200', Bs = '99', ...variants] = process.argv.slice(2);
 const q = Number(qs);
 const R = Number(Rs);
@@ -155,15 +337,91 @@ for (let s = 0; s < R; s++) {
     times.push(Math.min(x, c));
     failed.push(x <= c ? 1 : 0);
   }
-  const data = prepareLifeData({ times, failed });
-  const fit = fitCensored('weibull', data);
-  if (!fit.ok) continue;
+  const data0 = prepareLifeData({ times, failed });
+  const fit0 = fitCensored('weibull', data0);
+  if (!fit0.ok) continue;
   done++;
   for (const v of variants) {
     const [mode = 'cur', ...flags] = v.split('+');
-    const stat = flags.includes('old') ? oldStatistic : flags.includes('lf') ? toLastFailure : censoredAndersonDarling;
+    if (mode === 'prog') {
+      const { moved, pattern } = movedBack(data0);
+      const mf = fitCensored('weibull', moved, { warmStart: fit0.parameters });
+      const r = res.get(v)!;
+      if (!mf.ok) {
+        r.unrefit += B;
+        continue;
+      }
+      const observed = censoredAndersonDarling(fam.make(mf.parameters), moved);
+      const dist = fam.make(mf.parameters);
+      let exceed = 0;
+      let unrefit = 0;
+      for (let b = 0; b < B; b++) {
+        const sim = drawProgressive(dist, pattern, createRng(5000 + s, b));
+        const rf = fitCensored('weibull', sim, { warmStart: mf.parameters });
+        const a = rf.ok ? censoredAndersonDarling(fam.make(rf.parameters), sim) : Number.NaN;
+        if (!Number.isFinite(a)) unrefit++;
+        else if (a >= observed) exceed++;
+      }
+      const p = (1 + exceed + unrefit) / (1 + B);
+      r.unrefit += unrefit;
+      r.psum += p;
+      if (p <= 0.05) r.rej5++;
+      if (p <= 0.1) r.rej10++;
+      continue;
+    }
+    const baseStat = flags.includes('old') ? oldStatistic : flags.includes('lf') ? toLastFailure : censoredAndersonDarling;
+    const trunc = flags.includes('trunc');
+    // +trunc: the statistic of data truncated at their last withdrawal, refitted there (observed and every replicate alike).
+    const norm = flags.includes('norm');
+    // +stud: A² divided by its Greenwood-estimated mean under a known model (greenwoodMean).
+    const studA = flags.includes('studA');
+    // +studP: divided by the Greenwood mean less the fitted model's share (parametricVarianceMean).
+    const studP = flags.includes('studP');
+    // +studV: (A² − mean)/sd with the Greenwood moments (greenwoodMoments).
+    const studV = flags.includes('studV');
+    // +studA: the same with the Aalen form d/Y² of the variance increments.
+    const stud = flags.includes('stud') || studA;
+    // +norm: A² divided by u_τ = F̂(τ), its mean under a known model without censoring inside the window.
+    const stat = (d: Distribution, x: LifeData): number => {
+      if (norm) return statT(d, x) / (x.suspensions === 0 ? 1 : Math.exp(d.logCdf(x.maxTime)));
+      if (studV) {
+        const m = greenwoodMoments(d, x);
+        return m.sd > 0 ? (statT(d, x) - m.mean) / m.sd : statT(d, x);
+      }
+      if (studP) {
+        const g = greenwoodMean(d, x);
+        const e = g - parametricVarianceMean(d.parameters as never, x);
+        return e > 0.1 * g ? statT(d, x) / e : g > 0 ? statT(d, x) / (0.1 * g) : statT(d, x);
+      }
+      if (stud) {
+        const e = greenwoodMean(d, x, studA);
+        return e > 0 ? statT(d, x) / e : statT(d, x);
+      }
+      return statT(d, x);
+    };
+    const statT = (d: Distribution, x: LifeData): number => {
+      if (!trunc) return baseStat(d, x);
+      const y = truncateAtLastWithdrawal(x);
+      if (y === x) return baseStat(d, x);
+      const yf = fitCensored('weibull', y, { warmStart: d.parameters });
+      return yf.ok ? baseStat(fam.make(yf.parameters), y) : Number.NaN;
+    };
+    const data = trunc ? truncateAtLastWithdrawal(data0) : data0;
+    // +win: every replicate's statistic on the observed window [0, τ_obs] (units past τ_obs suspended there, fit unchanged).
+    const win = flags.includes('win');
+    const tauObs = data.maxTime;
+    const repStat = (d: Distribution, x: LifeData, tau = tauObs): number => {
+      if (!win || x.maxTime <= tau) return stat(d, x);
+      const t2 = Float64Array.from(x.times, (y) => Math.min(y, tau));
+      const f2 = Uint8Array.from(x.failed, (y, i) => ((x.times[i] as number) > tau ? 0 : y));
+      return stat(d, buildLifeData(t2, f2));
+    };
+    const fit = trunc ? fitCensored('weibull', data, { warmStart: fit0.parameters }) : fit0;
+    if (!fit.ok) continue;
     const keepR = flags.includes('r');
-    const par = mode === 'oracleTheta' ? TRUTH : fit.parameters;
+    const adj = flags.find((x) => x.startsWith('shape'));
+    // +shapeF: replicates drawn with the fitted shape multiplied by F (a sensitivity probe, not a method).
+    const par = mode === 'oracleTheta' ? TRUTH : adj ? { ...fit.parameters, shape: (fit.parameters.shape as number) * Number(adj.slice(5)) } : fit.parameters;
     const censor = censoringFor(mode === 'oracleTheta' ? 'cur' : mode, data, kind, w);
     const observed = stat(fam.make(fit.parameters), data);
     let exceed = 0;
@@ -192,13 +450,13 @@ for (let s = 0; s < R; s++) {
       const r2 = createRng(5000 + s, b);
       const sim = drawInto(data, par, censor, r2);
       const rf = fitCensored('weibull', sim, { warmStart: par });
-      const a = rf.ok ? stat(fam.make(rf.parameters), sim) : Number.NaN;
+      const a = rf.ok ? repStat(fam.make(rf.parameters), sim) : Number.NaN;
       if (!Number.isFinite(a)) unrefit++;
       else if (a >= observed) exceed++;
       if (fdb && rf.ok && Number.isFinite(a)) {
         const sim2 = drawInto(sim, rf.parameters, censoringFor(mode === 'oracleTheta' ? 'cur' : mode, sim, kind, w), r2);
         const rf2 = fitCensored('weibull', sim2, { warmStart: rf.parameters });
-        const a2 = rf2.ok ? stat(fam.make(rf2.parameters), sim2) : Number.NaN;
+        const a2 = rf2.ok ? repStat(fam.make(rf2.parameters), sim2, Math.min(tauObs, sim.maxTime)) : Number.NaN;
         if (Number.isFinite(a2)) {
           first.push(a);
           second.push(a2);

@@ -17,12 +17,12 @@
  *    from their counts.
  */
 import { PlumblineError } from '../errors.js';
-import { getFamily } from '../families/index.js';
 import { combineBootstrapCounts, runBootstrapRange, type BootstrapCounts, type BootstrapJob, type BootstrapRunOptions } from '../gof/index.js';
 import type { CapabilityBootstrapValues } from '../capability/index.js';
 import { capabilityLookup, combineCapabilityBootstrap, planCapabilityJobs, runCapabilityJob, type CapabilityJob } from './capability-jobs.js';
+import { censoredGofObserved, censoringDesign } from '../life/bootstrap.js';
+import { prepareLifeData } from '../life/data.js';
 import {
-  censoredAndersonDarling,
   censoredGofFromCounts,
   intervalGofFromCounts,
   intervalGofJob,
@@ -130,7 +130,7 @@ export function planDataset(input: DatasetInput, options: DatasetOptions = {}): 
     // The fits and bounds run here once to learn each family's fit (the job); the report is then
     // made again with the results (same deterministic fits).
     const first = r.run((fit, data, replicates, seed) => {
-      const observed = censoredAndersonDarling(getFamily(fit.family).make(fit.parameters), data);
+      const observed = censoredGofObserved(fit, data);
       jobs.push({ kind: 'censored', family: fit.family, parameters: fit.parameters, times, failed, observed, seed, start: 0, end: replicates });
       return null;
     });
@@ -175,7 +175,7 @@ export function finishDataset(plan: Exclude<DatasetPlan, { kind: 'done' }>, coun
   plan.jobs.forEach((job, i) => {
     const c = counts[i];
     if (c === undefined || isCapabilityResult(c)) throw new PlumblineError('not-computable', `No censored bootstrap counts for ${job.family}.`);
-    results.set(job.family, censoredGofFromCounts(job.observed, c));
+    results.set(job.family, censoredGofFromCounts(job.observed, c, censoringDesign(prepareLifeData({ times: job.times, failed: job.failed }))));
   });
   return plan.report(results);
 }

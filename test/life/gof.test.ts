@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../../core/families/index.js';
 import { buildLifeData, censoredAndersonDarling, censoredGofBootstrap, fitCensored, prepareLifeData } from '../../core/life/index.js';
-import { censoringDistribution } from '../../core/life/bootstrap.js';
-import { censoredReplicateDrawer } from '../../core/life/bootstrap-range.js';
+import { censoredAndersonDarlingMean, studentizedCensoredAndersonDarling } from '../../core/life/anderson-darling.js';
+import { censoringDesign, censoringDistribution } from '../../core/life/bootstrap.js';
+import { censoredGofFromCounts, censoredReplicateDrawer, MAX_REPLICATE_ATTEMPTS, runCensoredReplicates } from '../../core/life/bootstrap-range.js';
+import { forEachFailureTime } from '../../core/life/data.js';
 import { createRng } from '../../core/random/index.js';
 import { readFixture } from '../helpers/fixtures.js';
 
@@ -74,7 +76,7 @@ describe('censored Anderson–Darling', () => {
     const G = censoringDistribution(d);
     expect(Array.from(G.atoms)).toEqual([500]);
     expect(G.mass[0]).toBeCloseTo(1, 14);
-    expect(G.drawBeyond(54, 0.3)).toBe(500);
+    expect(G.draw(0.3)).toBe(500);
   });
 
   it('bootstrap p-value: seeded, reproducible, in (0, 1], and small for a clearly wrong model', () => {
@@ -172,8 +174,91 @@ describe('censored bootstrap: unrefittable replicates are counted, censoring by 
     const data = prepareLifeData({ times: [5, 8, 10, 12, 15, 20, 25, 30], failed: [0, 1, 0, 1, 0, 1, 1, 0] });
     const G = censoringDistribution(data);
     let below = 0;
-    for (let k = 0; k < 200; k++) if (G.drawBeyond(Number.NEGATIVE_INFINITY, (k + 0.5) / 200) < 8) below++;
+    for (let k = 0; k < 200; k++) if (G.draw((k + 0.5) / 200) < 8) below++;
     // The mass of Ĝ at 5 is 1/8 (first withdrawal, 8 at risk): 25 of the 200 evenly spaced draws.
     expect(below).toBe(25);
+  });
+});
+
+describe('staggered withdrawals: studentized A², replicates that keep the number of failures', () => {
+  // Staggered design: withdrawals at 5, 10, 15 and 30 between and after failures (Kaplan–Meier censoring estimate has 4 atoms).
+  const times = [5, 8, 10, 12, 15, 20, 25, 30, 6.5, 17, 22, 27];
+  const failed = [0, 1, 0, 1, 0, 1, 1, 0, 1, 1, 1, 0];
+  const params = { shape: 2, scale: 22 };
+
+  it('the mean of A² is n ∑ Greenwood variance × ∫ du/(u(1 − u)) over the window (midpoint quadrature of the definition)', () => {
+    // Greenwood (1926) variance of the Kaplan–Meier estimate, Var K(t) = S(t)² Σ_{t_j ≤ t} d_j/(Y_j(Y_j − d_j)) (Kaplan & Meier 1958);
+    // integrated here by the midpoint rule on t up to the last observed time, independently of the closed form.
+    const d = prepareLifeData({ times, failed });
+    const dist = getFamily('weibull').make(params);
+    const varK = (x: number): number => {
+      let S = 1;
+      let g = 0;
+      forEachFailureTime(d, (t, Y, k) => {
+        if (t > x) return;
+        S *= 1 - k / Y;
+        if (Y > k) g += k / (Y * (Y - k));
+      });
+      return S * S * g;
+    };
+    let q = 0;
+    const steps = 200000;
+    const h = d.maxTime / steps;
+    for (let j = 0; j < steps; j++) {
+      const x = (j + 0.5) * h;
+      const u = dist.cdf(x);
+      q += (varK(x) / (u * (1 - u))) * Math.exp(dist.logPdf(x)) * h;
+    }
+    expect(censoredAndersonDarlingMean(dist, d)).toBeCloseTo(d.n * q, 3);
+    expect(studentizedCensoredAndersonDarling(dist, d)).toBeCloseTo(censoredAndersonDarling(dist, d) / (d.n * q), 3);
+  });
+
+  it('staggered data are tested with the studentized A² (named in the result); Type I and complete data keep the plain A²', () => {
+    const d = prepareLifeData({ times, failed });
+    expect(censoringDesign(d)).toBe('staggered');
+    const fit = fitCensored('weibull', d);
+    if (!fit.ok) throw new Error('fit');
+    const r = censoredGofBootstrap(fit, d, { replicates: 19, seed: 1 });
+    const dist = getFamily('weibull').make(fit.parameters);
+    expect(r.statistic).toBeCloseTo(studentizedCensoredAndersonDarling(dist, d), 12);
+    expect(r.statistic).not.toBeCloseTo(censoredAndersonDarling(dist, d), 3);
+    expect(r.testLabel).toMatch(/studentized/);
+    // NIST e-Handbook §8.4.1.3 design: Type I at 500 h.
+    const nist = prepareLifeData({ times: fx.nist.times, failed: fx.nist.failed });
+    expect(censoringDesign(nist)).toBe('type-1');
+    const fn = fitCensored('weibull', nist);
+    if (!fn.ok) throw new Error('fit');
+    const rn = censoredGofBootstrap(fn, nist, { replicates: 19, seed: 1 });
+    expect(rn.statistic).toBeCloseTo(censoredAndersonDarling(getFamily('weibull').make(fn.parameters), nist), 12);
+    expect(rn.testLabel).toBeUndefined();
+  });
+
+  it('every staggered replicate has the observed number of failures', () => {
+    const d = prepareLifeData({ times, failed });
+    const draw = censoredReplicateDrawer('weibull', params, d);
+    const t = new Float64Array(d.n);
+    const f = new Uint8Array(d.n);
+    for (let b = 0; b < 300; b++) {
+      expect(draw(createRng(7, b), t, f)).toBe(true);
+      expect(f.reduce((a, x) => a + x, 0)).toBe(d.failures);
+    }
+  });
+
+  it('a replicate that cannot reach the observed number of failures counts as unrefittable (exceeding), after at most the stated attempts', () => {
+    // Lives ~ 1e-6 of the withdrawal times: every unit fails in every draw, never r = 7 of 12.
+    const d = prepareLifeData({ times, failed });
+    const draw = censoredReplicateDrawer('weibull', { shape: 2, scale: 1e-5 }, d);
+    const t = new Float64Array(d.n);
+    const f = new Uint8Array(d.n);
+    let uniforms = 0;
+    const rng = createRng(3, 0);
+    const counting = { ...rng, uniform: () => (uniforms++, rng.uniform()), normal: rng.normal, exponential: rng.exponential, gamma: rng.gamma };
+    expect(draw(counting, t, f)).toBe(false);
+    // One censoring uniform per unit per attempt (the lifetimes may use more): at most MAX_REPLICATE_ATTEMPTS attempts.
+    expect(uniforms).toBeGreaterThanOrEqual(MAX_REPLICATE_ATTEMPTS * d.n);
+    expect(uniforms).toBeLessThanOrEqual(2 * MAX_REPLICATE_ATTEMPTS * d.n);
+    const counts = runCensoredReplicates('weibull', { shape: 2, scale: 1e-5 }, d, 0, 1, 0, 3);
+    expect(counts.failed).toBe(3);
+    expect(censoredGofFromCounts(0, counts).pValue).toBe(1);
   });
 });
