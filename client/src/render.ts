@@ -396,6 +396,8 @@ export function doneLine(st: PageState): string {
   // Peaks over a threshold: the models are the section's own (generalized Pareto on the event excesses).
   const pot = isGrouped(resp) ? undefined : resp.pot;
   if (pot) return `Done: peaks over a threshold of ${sig(pot.threshold)}: ${pot.clusters} events in ${sig(pot.years, 3)} years of ${res.column} from ${res.source}.`;
+  const weibayes = isGrouped(resp) ? null : resp.life?.recorded?.report?.weibayes;
+  if (n === 0 && weibayes) return `Done: no model could be fitted (${weibayes.failures} failure${weibayes.failures === 1 ? '' : 's'} in ${weibayes.units} units); Weibayes bounds with the shape assumed, from ${res.source}.`;
   if (n === 0) return 'No model could be fitted to these values.';
   const what = isGrouped(resp)
     ? `${resp.n} counted in ${resp.grouped.classes.length} classes`

@@ -10,6 +10,7 @@ import { capital } from '../families.js';
 import { pValue, sig } from '../format.js';
 import { end, pct, withU } from './numbers.js';
 import { modesAnswer } from './answer-modes.js';
+import { weibayesAnswer } from './answer-weibayes.js';
 import { testWords } from './test-words.js';
 
 export interface Answer {
@@ -84,7 +85,8 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   const byModes = modesAnswer(r, units);
   if (byModes) return byModes;
   const c = r.candidates.find((x) => x.family === selected) ?? r.candidates[0];
-  if (!c) return null;
+  // No model fitted (no or too few failures) but a shape given from experience: the Weibayes lower bounds (answer-weibayes.ts).
+  if (!c) return weibayesAnswer(r, units);
   const s = sentenceFor(r, c, units.trim());
   if (!s) return null;
   const label = capital(c.label);
