@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDataset, type DatasetReport } from '../../core/index.js';
 import { sig } from '../../client/src/format.js';
 import { answerFor } from '../../client/src/views/answer.js';
+import { recordedBlock } from '../../client/src/views/life-recorded.js';
 
 const RUNNING = [800, 950, 1000, 1000, 1200, 1200, 1500, 1500, 1500, 2000];
 const interval = { start: RUNNING, end: RUNNING.map(() => Number.POSITIVE_INFINITY), counts: RUNNING.map(() => 1) };
@@ -27,6 +28,12 @@ describe('the answer with no failures and an assumed Weibull shape', () => {
     expect(a.undermined).toBe(false);
     expect(a.cautions.some((c) => /ASSUMED .*not estimated from these data/.test(c))).toBe(true);
     expect(a.cautions.some((c) => /licensed practice/.test(c))).toBe(true);
+    // each caution once (the core lists Weibayes' statement among its cautions too)
+    expect(new Set(a.cautions).size).toBe(a.cautions.length);
+    const block = recordedBlock(r.life!.recorded!.report!, null, 'h');
+    const said = block.lines.filter((l) => l.kind === 'caution').map((l) => l.text);
+    expect(new Set(said).size).toBe(said.length);
+    expect(said.filter((t) => /is ASSUMED/.test(t))).toHaveLength(1);
   });
 
   it('without an assumed shape there is no number to state', () => {

@@ -20,7 +20,7 @@ export function weibayesAnswer(r: DatasetReport, units: string): Answer | null {
   const life = b && typeof b.lower === 'number' ? `B${sig(b.percent, 3)} life at least ${withU(sig(b.lower), u)}, the scale at least ${withU(sig(w.scaleLower), u)}` : `the Weibull scale at least ${withU(sig(w.scaleLower), u)}`;
   return {
     sentence: `With the Weibull shape ASSUMED at β = ${w.shape} (Weibayes, ${what}): ${life} (one-sided ${pct(w.confidence)} lower bounds; no model could be fitted to these data).`,
-    cautions: [w.statement, ...rec.cautions],
+    cautions: [...new Set([w.statement, ...rec.cautions])],
     change: `The bound rests on the assumed shape: a smaller β gives a lower bound on the B-life further below the data; the data cannot check β.`,
     undermined: false,
   };

@@ -111,7 +111,8 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
     for (const c of plan.cautions) lines.push({ kind: 'caution', text: c });
   }
   for (const w of r.warnings) lines.push({ kind: 'note', text: w });
-  for (const c of r.cautions) lines.push({ kind: 'caution', text: c });
+  // The core repeats Weibayes' statement among the cautions: said once.
+  for (const c of r.cautions) if (!lines.some((l) => l.text === c)) lines.push({ kind: 'caution', text: c });
   const answer = answerOf(r, u);
   return {
     id: 'life-recorded',
