@@ -80,6 +80,18 @@ describe('settings belong to their source', () => {
     const moved = run(s, { type: 'reading-changed', column: 2 });
     expect(moved.settings.orderColumn).toBe(0);
   });
+
+  it('interval rows: the mode role is kept on its own column, and dropped when it becomes an interval or count column', () => {
+    // invented inspection rows with a mode column (the layout of test/fixtures/life-modes-interval.json)
+    const csv = 'start,end,units,mode\n,25,1,B\n25,50,3,A\n50,75,14,A\n150,,4,\n';
+    const s = run(INITIAL_STATE, { type: 'source-loaded', source: { kind: 'file', name: 'iv.csv', csv } }, { type: 'settings-edited', patch: { modeColumn: 4 } });
+    expect(s.reading.shape).toBe('interval');
+    // the value column the scan suggested does not matter for interval rows: a re-read keeps the role
+    const reread = run(s, { type: 'reading-changed', column: 4 });
+    expect(reread.settings.modeColumn).toBe(4);
+    const clash = run(s, { type: 'reading-changed', interval: { count: 4 } });
+    expect(clash.settings.modeColumn).toBe(0);
+  });
 });
 
 describe('results belong to one source', () => {
