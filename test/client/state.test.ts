@@ -11,6 +11,7 @@ import type { AnalyzeResponse } from '../../client/src/api.js';
 import { DEFAULT_SETTINGS } from '../../client/src/settings.js';
 import { INITIAL_STATE, settingsFromReport, shownLabels, update, type Action, type PageState } from '../../client/src/state.js';
 import { guessFromColumn } from '../../client/src/units-guess.js';
+import { unusedModeColumn } from '../../client/src/source-notes.js';
 
 const dataset = (f: string): string => readFileSync(join(process.cwd(), 'datasets', f), 'utf8');
 const RIVER = dataset('river-peaks.csv');
@@ -91,6 +92,10 @@ describe('settings belong to their source', () => {
     expect(reread.settings.modeColumn).toBe(4);
     const clash = run(s, { type: 'reading-changed', interval: { count: 4 } });
     expect(clash.settings.modeColumn).toBe(0);
+    // before the role is set, the mode-like column is pointed out (the page's "Use “mode” as the failure-mode column")
+    const fresh = run(INITIAL_STATE, { type: 'source-loaded', source: { kind: 'file', name: 'iv.csv', csv } });
+    expect(unusedModeColumn(fresh)).toEqual({ index: 4, label: 'mode' });
+    expect(unusedModeColumn(s)).toBeUndefined();
   });
 });
 
