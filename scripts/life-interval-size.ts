@@ -30,6 +30,8 @@
  *         (left row before the first, a suspension at the last), so the unit had more inspections
  *         than its row shows (mixed-case interval censoring, Schick & Yu 2000, Scand. J. Statist.
  *         27:45-55 [from memory]) and the bootstrap's imputed scheme is only an approximation.
+ * and A² on the ownk samples (cells a2-ownk-SHAPE-N: the same samples and seeds), what the product
+ * shows for information on such rows.
  *   nice -n 10 npx tsx scripts/life-interval-size.ts 0 500 39 own2-0.8-30 > o0.json   (and so on)
  *   npx tsx scripts/life-interval-size.ts --merge o*.json > test/fixtures/life-interval-lr-size.json
  * test/life/interval-gof-size.test.ts reads that JSON too and reproduces each cell's first sample.
@@ -50,6 +52,9 @@ export type LrDesign = 'own2' | 'own2e' | 'ownk';
 export const LR_SHAPES = [0.8, 2] as const;
 export const LR_SIZES = [30, 100] as const;
 export const LR_CELLS: readonly string[] = (['own2', 'own2e', 'ownk'] as const).flatMap((d) => LR_SHAPES.flatMap((b) => LR_SIZES.map((n) => `${d}-${b}-${n}`)));
+/** A² on the same samples as the ownk cells (prefix a2-): what the product shows, for information, on such rows. */
+export const A2_OWNK_CELLS: readonly string[] = LR_CELLS.filter((c) => c.startsWith('ownk-')).map((c) => `a2-${c}`);
+export const OWN_TIMES_CELLS: readonly string[] = [...LR_CELLS, ...A2_OWNK_CELLS];
 
 /** The design, shape and n of a cell name such as 'ownk-0.8-30'. */
 export function parseLrCell(cell: string): { design: LrDesign; shape: number; n: number; index: number } {
@@ -93,12 +98,13 @@ export function lrSample(cell: string, i: number): IntervalLifeData {
   return prepareIntervalLifeData({ start, end });
 }
 
-/** The p-value of the likelihood-ratio test on sample i of a cell (null when the Weibull fit fails). */
+/** The p-value of the likelihood-ratio test on sample i of a cell, or of A² for an a2- cell (null when the Weibull fit fails). */
 export function lrPValue(cell: string, i: number, replicates: number): number | null {
-  const data = lrSample(cell, i);
+  const a2 = cell.startsWith('a2-');
+  const data = lrSample(a2 ? cell.slice(3) : cell, i);
   const fit = fitInterval('weibull', data);
   if (!fit.ok) return null;
-  return intervalGofBootstrap('weibull', fit.parameters, data, { replicates, seed: SIZE_SEED + 17 * i, statistic: 'likelihood-ratio' }).pValue;
+  return intervalGofBootstrap('weibull', fit.parameters, data, { replicates, seed: SIZE_SEED + 17 * i, statistic: a2 ? 'anderson-darling' : 'likelihood-ratio' }).pValue;
 }
 
 /** Sample i of a cell: the units' rows as interval data. */
@@ -203,8 +209,9 @@ export function sizeTable(root: string): string {
   ];
   for (const c of ad.cells) rows.push(`| A² | ${design[c.scheme]} | 2 | 50 | ${c.samples} (${c.skipped}) | ${c.rejected} | ${pc(c.size)}${mark(c)} | ${(100 * c.standardError).toFixed(2)} |`);
   for (const c of lr.cells) {
-    const [d, b, n] = c.scheme.split('-');
-    rows.push(`| likelihood ratio | ${design[d!]} | ${b} | ${n} | ${c.samples} (${c.skipped}) | ${c.rejected} | ${pc(c.size)}${mark(c)} | ${(100 * c.standardError).toFixed(2)} |`);
+    const a2 = c.scheme.startsWith('a2-');
+    const [d, b, n] = (a2 ? c.scheme.slice(3) : c.scheme).split('-');
+    rows.push(`| ${a2 ? 'A²' : 'likelihood ratio'} | ${design[d!]} | ${b} | ${n} | ${c.samples} (${c.skipped}) | ${c.rejected} | ${pc(c.size)}${mark(c)} | ${(100 * c.standardError).toFixed(2)} |`);
   }
   return [
     ...rows,
@@ -230,9 +237,9 @@ function main(): void {
     const parts = process.argv.slice(3).map((f) => JSON.parse(readFileSync(f, 'utf8')) as Part);
     if (new Set(parts.map((x) => x.replicates)).size !== 1) throw new Error('the runs to merge used different replicates');
     const cells: SizeCell[] = [];
-    const lr = parts.some((x) => LR_CELLS.includes(x.scheme));
-    if (lr && !parts.every((x) => LR_CELLS.includes(x.scheme))) throw new Error('merge the A² cells and the likelihood-ratio cells into separate fixtures');
-    for (const scheme of lr ? LR_CELLS : (['case2', 'periodic'] as const)) {
+    const lr = parts.some((x) => OWN_TIMES_CELLS.includes(x.scheme));
+    if (lr && !parts.every((x) => OWN_TIMES_CELLS.includes(x.scheme))) throw new Error('merge the n = 50 A² cells and the own-times cells into separate fixtures');
+    for (const scheme of lr ? OWN_TIMES_CELLS : (['case2', 'periodic'] as const)) {
       const mine = parts.filter((x) => x.scheme === scheme).sort((a, b) => a.from - b.from);
       if (mine.length === 0) continue;
       const ps: (number | null)[] = [];
@@ -245,7 +252,7 @@ function main(): void {
     const out = {
       generator: 'scripts/life-interval-size.ts',
       model: lr
-        ? { family: 'weibull', scale: SIZE_SCALE, shapes: LR_SHAPES, n: LR_SIZES, seed: SIZE_SEED, statistic: 'likelihood-ratio against the Turnbull estimate', cells: 'DESIGN-SHAPE-N; designs in the script header' }
+        ? { family: 'weibull', scale: SIZE_SCALE, shapes: LR_SHAPES, n: LR_SIZES, seed: SIZE_SEED, statistic: 'likelihood-ratio against the Turnbull estimate; A² in the a2- cells (same samples as ownk)', cells: '[a2-]DESIGN-SHAPE-N; designs in the script header' }
         : { family: 'weibull', shape: SIZE_SHAPE, scale: SIZE_SCALE, n: SIZE_N, seed: SIZE_SEED },
       alpha,
       replicates: parts[0]!.replicates,
@@ -259,8 +266,8 @@ function main(): void {
   const to = Number(process.argv[3]);
   const B = Number(process.argv[4] ?? 39);
   const scheme = process.argv[5] ?? '';
-  if (!(Number.isInteger(from) && Number.isInteger(to) && to > from && (scheme === 'case2' || scheme === 'periodic' || LR_CELLS.includes(scheme)))) {
-    throw new Error(`usage: life-interval-size.ts FROM TO B case2|periodic|${LR_CELLS.join('|')}  |  --merge part.json ...`);
+  if (!(Number.isInteger(from) && Number.isInteger(to) && to > from && (scheme === 'case2' || scheme === 'periodic' || OWN_TIMES_CELLS.includes(scheme)))) {
+    throw new Error(`usage: life-interval-size.ts FROM TO B case2|periodic|${OWN_TIMES_CELLS.join('|')}  |  --merge part.json ...`);
   }
   const part: Part = { scheme, replicates: B, from, pValues: runRange(scheme, from, to, B) };
   process.stdout.write(`${JSON.stringify(part)}\n`);

@@ -164,7 +164,7 @@ export function turnbull(data: IntervalLifeData, opts: TurnbullOptions = {}): Tu
     // towards α = −1 (which gives p2) until every mass that p2 keeps stays positive (a mass set to 0
     // stays 0 under EM, so a clipped one would stop the iteration short of the maximum); then one EM
     // step from p'. The stopping rule is the plain one (an EM step that moves no mass by tol), and the
-    // result is checked by the Kuhn–Tucker excess below.
+    // Kuhn–Tucker excess below reports whether the result is the maximum.
     const p1 = one.next;
     const p2 = emStep(p1).next;
     it++;
