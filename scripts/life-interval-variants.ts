@@ -14,8 +14,10 @@
  * (The product's A² p-values are those of test/fixtures/life-interval-size.json's first 200 case-2
  * samples: same data, seeds and imputation stream; 4 and 17 there too.)
  * So the A² stays low even with the true inspection times, and the likelihood-ratio statistic is
- * nearer 5 % with either scheme: the candidate for a calibrated case-2 test (not adopted: it needs a
- * committed size run of its own in both designs).
+ * nearer 5 % with either scheme: the candidate for a calibrated case-2 test. Its committed size run
+ * (scripts/life-interval-size.ts own-times cells, docs/size-study.md) found it not calibrated
+ * (2.9-6.9 % by cell with every inspection recorded, about 80 % when units had unrecorded
+ * inspections), so it was not adopted (core/life/interval-gof-design.ts).
  */
 import { createRng, getFamily } from '../core/index.js';
 import { fitInterval, prepareIntervalLifeData, intervalStatistic, inspectionScheme, imputeInspections, observeUnit, turnbull, type IntervalLifeData } from '../core/life/index.js';
