@@ -74,7 +74,7 @@ describe.skipIf(SKIP_BROWSER)('several failure modes on the page', () => {
     expect(text).toMatch(new RegExp(`leak: B10Lognormal32${LEAK_B10}`));
     // Bounds of the whole unit's B10 where the core gives them, else "no bound" (views/modes.ts unitBounds).
     expect(text).toMatch(new RegExp(`whole unit: B10product of the modes49${UNIT_B10}(no boundno bound|\\d+\\d+)`));
-    expect(text).toMatch(/likelihood-ratio \(profile likelihood\) bounds per mode/);
+    expect(text).toMatch(/two-sided bounds: per mode by likelihood ratio; for the whole unit by likelihood ratio over every mode's parameters at once/);
     expect(text).toMatch(/governing maintenance and safety practice/);
     const chart = block.locator('svg[role="img"]');
     await chart.first().waitFor();

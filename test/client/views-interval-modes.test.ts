@@ -55,15 +55,16 @@ describe('interval rows with failure modes on the page', () => {
 
   it('the modes section: interval wording, each bound with its method, the whole unit equal to the SciPy/mpmath fixture (LR and Fisher)', () => {
     for (const [method, rep, ends, name] of [
-      ['likelihood-ratio', LR, fx.system.b10LikelihoodRatio90, /^likelihood ratio \(profile likelihood over every mode’s parameters\)/],
-      ['fisher-matrix', report('fisher-matrix'), fx.system.b10Fisher90, /^Fisher matrix/],
+      ['likelihood-ratio', LR, fx.system.b10LikelihoodRatio90, /whole unit: likelihood ratio \(profile likelihood over every mode’s parameters\), two-sided\.$/],
+      ['fisher-matrix', report('fisher-matrix'), fx.system.b10Fisher90, /whole unit: Fisher matrix .*two-sided\.$/],
     ] as const) {
       const b = modesSection({ report: rep, selected: undefined, units: '' })!;
       expect(b.lines[0]!.text).toMatch(/counted as still running up to the last inspection it was seen working/);
       const unit = b.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!;
-      expect(unit.slice(3, 6), method).toEqual([sig(fx.system.b10), sig(ends[0]), sig(ends[1])]);
-      expect(unit[6]).toMatch(name);
-      for (const r of b.tables[0]!.rows) expect(r[6], r[0]).toMatch(method === 'likelihood-ratio' ? /^likelihood ratio/ : /^Fisher matrix/);
+      expect(unit.slice(3), method).toEqual([sig(fx.system.b10), sig(ends[0]), sig(ends[1])]);
+      const words = method === 'likelihood-ratio' ? 'likelihood ratio' : 'Fisher matrix';
+      expect(b.tables[0]!.caption).toMatch(new RegExp(`two-sided bounds: per mode by ${words}; for the whole unit by ${words} over every mode's parameters at once$`));
+      expect(b.lines.find((l) => /^Bounds on the B-lives, /.test(l.text))!.text).toMatch(name);
       expect(b.answer).toContain(`(90 % ${method === 'likelihood-ratio' ? 'likelihood-ratio' : 'Fisher-matrix'} bounds ${sig(ends[0])} to ${sig(ends[1])})`);
     }
   });

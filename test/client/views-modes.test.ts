@@ -68,16 +68,17 @@ describe('the failure-modes section', () => {
 
   it('tables each mode’s B-lives and the whole unit’s with their bounds, naming the bound method of each row and the level', () => {
     const table = block.tables[0]!;
-    expect(table.caption).toMatch(/90 % two-sided likelihood-ratio \(profile likelihood\) bounds per mode; /);
+    expect(table.caption).toMatch(/; 90 % two-sided bounds: per mode by likelihood ratio; for the whole unit by likelihood ratio over every mode's parameters at once$/);
     const crack10 = m.modes[0]!.bLives[0]!;
-    expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper), crack10.method]);
+    expect(table.rows[0]).toEqual(['crack: B10', 'Exponential', '17', sig(crack10.estimate), sig(crack10.lower), sig(crack10.upper)]);
     expect(crack10.method).toMatch(/^likelihood ratio/);
-    expect(table.head.at(-1)).toBe('Bounds by');
+    // the full method texts once, in a note (the cell names the method in two words)
+    expect(block.lines.find((l) => /^Bounds on the B-lives, /.test(l.text))!.text).toBe(`Bounds on the B-lives, per mode: ${crack10.method}; whole unit: ${m.system!.bLives[0]!.method}.`);
     const unit = table.rows.find((r) => r[0] === 'whole unit: B10')!;
     const e = ends(m.system!.bLives[0]!);
     expect(e).not.toBeNull();
-    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), sig(e!.lower), sig(e!.upper), m.system!.bLives[0]!.method]);
-    expect(unit[6]).toMatch(/^likelihood ratio \(profile likelihood over every mode’s parameters\)/);
+    expect(unit).toEqual(['whole unit: B10', 'product of the modes', '49', sig(m.system!.bLives[0]!.estimate), sig(e!.lower), sig(e!.upper)]);
+    expect(m.system!.bLives[0]!.method).toMatch(/^likelihood ratio \(profile likelihood over every mode’s parameters\)/);
     // The whole unit's B10 is the fixture's (SciPy brentq on the product of the mode reliabilities), to the digits shown.
     expect(unit[3]).toBe(sig(fx.systemBest.b10));
     const rel = block.tables.find((x) => x.caption.startsWith('Reliability at the times'))!;
@@ -88,13 +89,13 @@ describe('the failure-modes section', () => {
   it('prints the whole unit’s bounds when the report carries them, and "no bound" with "point estimates" when it does not', () => {
     const withB = modesSection({ report: WITH_BOUNDS, selected: undefined, units: 'h' })!;
     const b10 = WITH_BOUNDS.life!.modes!.system!.bLives[0]!;
-    expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate), 'test']);
-    expect(withB.tables[0]!.caption).toMatch(/the whole unit's bounds over every mode's parameters at once; the method of each row's bounds in its last column$/);
+    expect(withB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')).toEqual(['whole unit: B10', 'product of the modes', '49', sig(b10.estimate), sig(0.8 * b10.estimate), sig(1.2 * b10.estimate)]);
+    expect(withB.tables[0]!.caption).toMatch(/for the whole unit by test over every mode's parameters at once$/);
     expect(withB.answer).toContain(`Whole unit B10: ${sig(b10.estimate)} h (90 % bounds ${sig(0.8 * b10.estimate)} to ${sig(1.2 * b10.estimate)}) from 2 modes`);
     const none = { ...REPORT, life: { ...REPORT.life!, modes: { ...m, system: { ...m.system!, bLives: m.system!.bLives.map((b) => ({ percent: b.percent, estimate: b.estimate })) } } } } as unknown as DatasetReport;
     const noB = modesSection({ report: none, selected: undefined, units: 'h' })!;
-    expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound', 'point estimate: bounds not found']);
-    expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates; /);
+    expect(noB.tables[0]!.rows.find((r) => r[0] === 'whole unit: B10')!.slice(4)).toEqual(['no bound', 'no bound']);
+    expect(noB.tables[0]!.caption).toMatch(/the whole unit's B-lives are point estimates \(no bound\)$/);
     expect(noB.answer).toMatch(/^Whole unit B10: [\d.]+ h \(point estimate\) from 2 modes/);
   });
 

@@ -56,6 +56,12 @@ export function unitBounds(b: { readonly percent: number; readonly estimate: num
   return typeof x.lower === 'number' && Number.isFinite(x.lower) && typeof x.upper === 'number' && Number.isFinite(x.upper) ? { lower: x.lower, upper: x.upper } : null;
 }
 
+/** A bound's method in two words for a table cell ('likelihood ratio', 'Fisher matrix'); the full text goes in a note. */
+function shortMethod(method: string | undefined): string {
+  const name = boundName(method).trim();
+  return name === '' ? (method ?? '—') : name.replace('-', ' ');
+}
+
 /** The core's method text of the whole unit's B-life bounds, when it gives one. */
 const methodOf = (b: { readonly estimate: number }): string | undefined => {
   const m = (b as { readonly method?: unknown }).method;
@@ -96,19 +102,25 @@ export const modesSection: SectionView = ({ report, units: u }) => {
   });
   const rows: string[][] = [];
   for (const x of m.modes) {
-    x.bLives.forEach((b) => rows.push([`${x.mode}: ${bName(b.percent)}`, `${familyWords(x.family)}`, String(x.failures), sig(b.estimate), end(b.lower, 'not closed'), end(b.upper, 'not closed'), b.method]));
-    if (x.bLives.length === 0) rows.push([`${x.mode}`, 'not fitted', String(x.failures), '—', '—', '—', '—']);
+    x.bLives.forEach((b) => rows.push([`${x.mode}: ${bName(b.percent)}`, `${familyWords(x.family)}`, String(x.failures), sig(b.estimate), end(b.lower, 'not closed'), end(b.upper, 'not closed')]));
+    if (x.bLives.length === 0) rows.push([`${x.mode}`, 'not fitted', String(x.failures), '—', '—', '—']);
   }
   const unitHasBounds = sys !== null && sys.bLives.some((b) => unitBounds(b) !== null);
+  const modeMethod = [...new Set(m.modes.flatMap((x) => x.bLives.map((b) => shortMethod(b.method))))].join(' or ') || shortMethod(bound);
+  const unitMethod = [...new Set((sys?.bLives ?? []).filter((b) => unitBounds(b) !== null).map((b) => shortMethod(methodOf(b))))].join(' or ');
   if (sys) {
     for (const b of sys.bLives) {
       const bd = unitBounds(b);
-      rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), bd ? sig(bd.lower) : 'no bound', bd ? sig(bd.upper) : 'no bound', bd ? (methodOf(b) ?? '—') : 'point estimate: bounds not found']);
+      rows.push([`whole unit: ${bName(b.percent)}`, 'product of the modes', String(m.modes.reduce((a, x) => a + x.failures, 0)), sig(b.estimate), bd ? sig(bd.lower) : 'no bound', bd ? sig(bd.upper) : 'no bound']);
     }
   }
+  // Each bound method in full once (the table's last column names it in two words).
+  const full = [...new Set([...m.modes.flatMap((x) => x.bLives.map((b) => `per mode: ${b.method}`)), ...(sys?.bLives ?? []).filter((b) => unitBounds(b) !== null).map((b) => `whole unit: ${methodOf(b) ?? '—'}`)])];
+  if (full.length > 0) lines.push({ kind: 'note', text: `Bounds on the B-lives, ${full.join('; ')}.` });
   tables.push({
-    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided ${bound} bounds per mode; ${unitHasBounds ? 'the whole unit\'s bounds over every mode\'s parameters at once' : 'the whole unit\'s B-lives are point estimates'}; the method of each row\'s bounds in its last column`,
-    head: ['Life', 'Model', 'Failures', 'Estimate', 'Lower', 'Upper', 'Bounds by'],
+    // The method of every bound named in the caption, from the rows' own method texts (a column for it did not fit at 800 px).
+    caption: `B-lives${unitHead} by mode (each under its best model by AICc) and for the whole unit; ${conf} two-sided bounds: per mode by ${modeMethod}; ${unitHasBounds ? `for the whole unit by ${unitMethod} over every mode's parameters at once` : 'the whole unit\'s B-lives are point estimates (no bound)'}`,
+    head: ['Life', 'Model', 'Failures', 'Estimate', 'Lower', 'Upper'],
     rows,
   });
   const times = life.reliabilityTimes;
