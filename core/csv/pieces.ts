@@ -100,14 +100,18 @@ export class ColumnPieces {
   add(text: string): void {
     if (text.length === 0) return;
     const plan = this.next === null ? columnPlan(this.options) : [{ select: this.columnIndex, kind: 'number' as const }];
-    // Row numbers are not kept and the piece's values are copied into the column at once.
-    const piece = scanTablePiece(text, plan, this.options, this.next, { rowNumbers: false, handOff: true });
+    // Row numbers are not kept.
+    // The values are written straight into the column's free room (no array per piece, no copy);
+    // those past its end, if any, are appended.
+    const room = this.kept < this.values.length ? this.values.subarray(this.kept) : undefined;
+    const piece = scanTablePiece(text, plan, this.options, this.next, { rowNumbers: false, handOff: true, ...(room ? { into: room } : {}) });
     const col = piece.table.columns[0] as NumberColumn;
     if (this.first === null) {
       this.first = columnResult(piece.table);
       this.columnIndex = col.index;
     }
-    this.append(col.values);
+    if (room !== undefined && col.values.buffer === room.buffer && col.values.byteOffset === room.byteOffset) this.kept += col.values.length;
+    else this.append(col.values);
     this.rowsRead += piece.table.rowsRead;
     this.blankLines += piece.table.blankLines;
     mergeSkipped(this.skipped, piece.table.skipped);

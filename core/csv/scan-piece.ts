@@ -25,6 +25,12 @@ export interface ScanStorage {
   readonly rowNumbers?: boolean;
   readonly shared?: boolean;
   readonly handOff?: boolean;
+  /**
+   * One number column and no row numbers only: write its values straight into this array (e.g. the
+   * column being filled, from its first free place) while they fit; past its end the scanner goes on
+   * in an array of its own (with what it had written). The column is then a view of `into` when all fit.
+   */
+  readonly into?: Float64Array;
 }
 
 /** Rows read before the whole text's row count is estimated from them (common practice, no source). */
@@ -200,11 +206,12 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
   const keepRows = storage.rowNumbers !== false;
   const allocate = (length: number): Float64Array =>
     storage.shared === true ? new Float64Array(new SharedArrayBuffer(length * Float64Array.BYTES_PER_ELEMENT)) : new Float64Array(length);
-  let cap = 1024;
+  const into = storage.into !== undefined && !keepRows && nSlots === 1 && isNumber[0] === 1 && storage.into.length > 0 ? storage.into : null;
+  let cap = into !== null ? into.length : 1024;
   const numbers: (Float64Array | null)[] = [];
   const texts: (string[] | null)[] = [];
   for (let s = 0; s < nSlots; s++) {
-    numbers.push(isNumber[s] ? allocate(cap) : null);
+    numbers.push(isNumber[s] ? (into ?? allocate(cap)) : null);
     texts.push(isNumber[s] ? null : []);
   }
   let rowNumbers = new Int32Array(keepRows ? cap : 0);
@@ -214,7 +221,7 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
   let estimated = false;
   /** Room for more rows (kept === cap), `at` = where the scan is: doubling, or once the whole text's estimate. */
   const grow = (at: number): void => {
-    let next = cap * 2;
+    let next = Math.max(cap * 2, 1024);
     if (!estimated && kept >= ESTIMATE_AFTER_ROWS) {
       // The rows so far per character, over the whole text (+2 %): one more allocation instead of
       // a doubling every time (common practice, no source).
@@ -523,7 +530,7 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
     const index = (slotField[s] as number) + 1;
     if (arr) {
       let values: Float64Array;
-      if (storage.handOff === true) values = arr.subarray(0, kept);
+      if (storage.handOff === true || arr === into) values = arr.subarray(0, kept);
       else if (storage.shared === true) {
         values = allocate(kept); // slice() would give an ordinary ArrayBuffer
         values.set(arr.subarray(0, kept));

@@ -69,4 +69,23 @@ describe('the scanner\'s storage options read the same values', () => {
       j++;
     }
   });
+
+  it('into: the values written straight into a given array while they fit, else in one of the scanner\'s own', () => {
+    const text = csv(30_000, () => 2);
+    const expected = Array.from({ length: 30_000 }, (_, i) => value(i));
+    const plan = columnPlan({ column: 'load' });
+    for (const room of [40_000, 30_000, 29_999, 5, 1]) {
+      const into = new Float64Array(room + 3).fill(-1).subarray(3);
+      const t = scanTable(text, plan, {}, { rowNumbers: false, into });
+      const col = t.columns[0];
+      if (col?.kind !== 'number') throw new Error('not a number column');
+      expect(Array.from(col.values), `room ${room}`).toEqual(expected);
+      const inPlace = col.values.buffer === into.buffer && col.values.byteOffset === into.byteOffset;
+      expect(inPlace, `room ${room}`).toBe(room >= 30_000);
+      if (inPlace) expect(into[30_000 - 1]).toBe(value(29_999));
+    }
+    // With row numbers kept, or several columns, `into` is not used.
+    const withRows = scanTable(text, plan, {}, { into: new Float64Array(40_000) }).columns[0];
+    expect(withRows?.kind === 'number' && withRows.values.length).toBe(30_000);
+  });
 });
