@@ -38,6 +38,8 @@
  *   +studA       the same with the Aalen increments d/Y² instead of Greenwood's d/(Y(Y − d))
  *   +studP       A² / (Greenwood mean − the fitted model's share, ∇Fᵀ J⁻¹ ∇F; Hausman 1978 [from memory])
  *   +studV       (A² − mean)/sd, both from Greenwood's covariance of the Kaplan–Meier process
+ *   +studM       A² / its mean from the fitted model's asymptotic Kaplan–Meier variance under the
+ *                Kaplan–Meier censoring estimate (Breslow & Crowley 1974 [from memory]; modelMean)
  *   +shapeF      replicates from the fitted shape × F (a sensitivity probe, not a method)
  *   prog         (mode) suspensions moved back to the failure before them and the sample treated as
  *                progressively Type II censored with that pattern (Balakrishnan & Sandhu 1995 draws):
@@ -318,6 +320,40 @@ function greenwoodMoments(dist: Distribution, data: LifeData): { mean: number; s
   return { mean, sd: Math.sqrt(2 * v) * n };
 }
 
+/**
+ * The mean of A² from the model's own asymptotic variance of the Kaplan–Meier estimate under random
+ * censorship, n·Var K(t) = (1 − F(t))² ∫₀ᵗ dF/((1 − F)²(1 − G(s−))) (Breslow & Crowley 1974, Ann.
+ * Stat. 2:437-453 [from memory]), with F the fitted model and G the Kaplan–Meier censoring
+ * estimate: on a stretch where 1 − G = γ and C = the integral so far at u = a, the integrand
+ * Var/(u(1 − u)) is C(1 − u)/u + (u − a)/(γ u (1 − a)), integrated in closed form.
+ */
+function modelMean(dist: Distribution, data: LifeData): number {
+  const G = censoringDistribution(data);
+  const end = data.suspensions === 0 ? Number.POSITIVE_INFINITY : data.maxTime;
+  let gamma = 1;
+  let C = 0;
+  let a = 0;
+  let total = 0;
+  const piece = (b: number): void => {
+    if (!(b > a)) return;
+    const lr = a > 0 ? Math.log(b / a) : 0;
+    const first = a > 0 ? C * (lr - (b - a)) : 0;
+    const second = (a > 0 ? (b - a) - a * lr : b) / (gamma * (1 - a));
+    total += first + second;
+    C += (1 / (1 - b) - 1 / (1 - a)) / gamma;
+    a = b;
+  };
+  for (let j = 0; j < G.atoms.length; j++) {
+    const c = G.atoms[j] as number;
+    if (c >= end) break;
+    piece(Math.exp(dist.logCdf(c)));
+    gamma -= G.mass[j] as number;
+    if (!(gamma > 1e-12)) return total;
+  }
+  piece(end === Number.POSITIVE_INFINITY ? 1 - 1e-15 : Math.exp(dist.logCdf(end)));
+  return total;
+}
+
 const [kind = 'staggered', qs = '0.3', Rs = '200', Bs = '99', ...variants] = process.argv.slice(2);
 const q = Number(qs);
 const R = Number(Rs);
@@ -379,11 +415,17 @@ for (let s = 0; s < R; s++) {
     const studP = flags.includes('studP');
     // +studV: (A² − mean)/sd with the Greenwood moments (greenwoodMoments).
     const studV = flags.includes('studV');
+    // +studM: A² / its mean from the model's Kaplan–Meier variance with the censoring estimate (modelMean).
+    const studM = flags.includes('studM');
     // +studA: the same with the Aalen form d/Y² of the variance increments.
     const stud = flags.includes('stud') || studA;
     // +norm: A² divided by u_τ = F̂(τ), its mean under a known model without censoring inside the window.
     const stat = (d: Distribution, x: LifeData): number => {
       if (norm) return statT(d, x) / (x.suspensions === 0 ? 1 : Math.exp(d.logCdf(x.maxTime)));
+      if (studM) {
+        const m = modelMean(d, x);
+        return m > 0 ? statT(d, x) / m : statT(d, x);
+      }
       if (studV) {
         const m = greenwoodMoments(d, x);
         return m.sd > 0 ? (statT(d, x) - m.mean) / m.sd : statT(d, x);

@@ -12,9 +12,10 @@
  *   censoring times independently from the Kaplan–Meier estimate of the censoring distribution
  *   (suspensions are its events, failures its censored values), with any mass the estimate leaves
  *   undistributed at the end of observation (the largest time in the data); a unit fails when its
- *   lifetime comes first. The draw is repeated until the replicate has the observed number of
- *   failures r (conditional on r, as under Type I). The statistic here is A² divided by its
- *   Greenwood-estimated mean (anderson-darling.ts studentizedCensoredAndersonDarling): with the
+ *   lifetime comes first, conditional on the observed number of failures r (as under Type I): r
+ *   units drawn given failure, the others given suspension (bootstrap-range.ts). The statistic
+ *   here is A² divided by its Greenwood-estimated mean (anderson-darling.ts
+ *   studentizedCensoredAndersonDarling): with the
  *   plain A² this bootstrap's size was 5.89 % (30 % censored) and 2.04 % (70 %), n = 40
  *   (docs/size-study.md, where the variants tried are listed).
  * - A complete sample: complete replicates.
@@ -53,7 +54,7 @@ export interface BootstrapOptions {
 }
 
 export const CENSORED_AD_METHOD =
-  'Anderson–Darling A² on the Kaplan–Meier estimate up to the last observed time (Anderson–Darling weight on the product-limit process, cf. Koziol & Green 1976; integrated to the end of observation as in Pettitt & Stephens 1976), p-value by parametric bootstrap that refits every replicate and reproduces the censoring: under Type I censoring each replicate keeps the observed number of failures (drawn from the fitted model truncated at the end of test, the other units suspended there); with staggered withdrawals every unit gets a censoring time drawn from the Kaplan–Meier estimate of the censoring distribution (random censorship, Efron 1981), the replicate is redrawn until it has the observed number of failures, and the statistic is A² divided by its mean estimated from Greenwood\'s variance of the Kaplan–Meier estimate (studentized; the plain A² had a size of 2–6 % there); replicates that cannot be refitted (or drawn) are counted as exceeding the observed statistic (conservative)';
+  'Anderson–Darling A² on the Kaplan–Meier estimate up to the last observed time (Anderson–Darling weight on the product-limit process, cf. Koziol & Green 1976; integrated to the end of observation as in Pettitt & Stephens 1976), p-value by parametric bootstrap that refits every replicate and reproduces the censoring: under Type I censoring each replicate keeps the observed number of failures (drawn from the fitted model truncated at the end of test, the other units suspended there); with staggered withdrawals every unit gets a censoring time drawn from the Kaplan–Meier estimate of the censoring distribution (random censorship, Efron 1981), each replicate keeps the observed number of failures, and the statistic is A² divided by its mean estimated from Greenwood\'s variance of the Kaplan–Meier estimate (studentized; the plain A² had a size of 2–6 % there); replicates that cannot be refitted (or drawn) are counted as exceeding the observed statistic (conservative)';
 
 export function censoredGofBootstrap(fit: CensoredFitSuccess, data: LifeData, opts: BootstrapOptions = {}): CensoredGofResult {
   const B = opts.replicates ?? 999;

@@ -244,6 +244,50 @@ describe('staggered withdrawals: studentized A², replicates that keep the numbe
     }
   });
 
+  it('the unit-by-unit conditional draw has the law of whole replicates redrawn until they have r failures (the definition)', () => {
+    // Units are independent and alike, so given r failures the failed ones are independent draws given failure
+    // and the others given suspension; checked against the definition by the mean failure and suspension times.
+    const d = prepareLifeData({ times, failed });
+    const dist = getFamily('weibull').make(params);
+    const G = censoringDistribution(d);
+    const draw = censoredReplicateDrawer('weibull', params, d);
+    const t = new Float64Array(d.n);
+    const f = new Uint8Array(d.n);
+    const stats = () => ({ fs: 0, fs2: 0, fk: 0, ss: 0, ss2: 0, sk: 0 });
+    const a = stats();
+    const b = stats();
+    const add = (s: ReturnType<typeof stats>, x: number, failedUnit: boolean): void => {
+      if (failedUnit) {
+        s.fs += x;
+        s.fs2 += x * x;
+        s.fk++;
+      } else {
+        s.ss += x;
+        s.ss2 += x * x;
+        s.sk++;
+      }
+    };
+    for (let k = 0; k < 4000; k++) {
+      draw(createRng(21, k), t, f);
+      for (let i = 0; i < d.n; i++) add(a, t[i] as number, f[i] === 1);
+      const rng = createRng(22, k);
+      for (;;) {
+        const xs = Array.from({ length: d.n }, () => [dist.quantile(rng.uniform()), G.draw(rng.uniform())] as const);
+        if (xs.filter(([x, c]) => x <= c).length !== d.failures) continue;
+        for (const [x, c] of xs) add(b, Math.min(x, c), x <= c);
+        break;
+      }
+    }
+    const close = (m1: number, q1: number, k1: number, m2: number, q2: number, k2: number): void => {
+      const v1 = q1 / k1 - (m1 / k1) ** 2;
+      const v2 = q2 / k2 - (m2 / k2) ** 2;
+      expect(Math.abs(m1 / k1 - m2 / k2)).toBeLessThan(5 * Math.sqrt(v1 / k1 + v2 / k2));
+    };
+    expect(a.fk).toBe(b.fk);
+    close(a.fs, a.fs2, a.fk, b.fs, b.fs2, b.fk);
+    close(a.ss, a.ss2, a.sk, b.ss, b.ss2, b.sk);
+  });
+
   it('a replicate that cannot reach the observed number of failures counts as unrefittable (exceeding), after at most the stated attempts', () => {
     // Lives ~ 1e-6 of the withdrawal times: every unit fails in every draw, never r = 7 of 12.
     const d = prepareLifeData({ times, failed });
