@@ -80,7 +80,10 @@ export function rangeChartFactors(n: number): RangeChartFactors {
 }
 
 export const D3_PAIR = Math.sqrt(2 * (1 - 2 / Math.PI));
-export const D4_PAIR = 1 + (3 * D3_PAIR) / d2(2);
+/** D4 for moving ranges of two; computed when first asked (d2 is a numerical integral; not at module load). */
+export function d4Pair(): number {
+  return 1 + (3 * D3_PAIR) / d2(2);
+}
 
 export const STABILITY_SOURCE = 'Montgomery, Introduction to Statistical Quality Control, ch. 6 (Shewhart charts, 3-sigma limits; constants c4, d2 computed exactly); run rules: Western Electric Statistical Quality Control Handbook (1956)';
 export const UNSTABLE_WARNING =
@@ -134,7 +137,7 @@ export function individualsChart(values: ArrayLike<number>, order: ArrayLike<num
   const sigma = mrBar / d2(2);
   const lo = mean - 3 * sigma;
   const hi = mean + 3 * sigma;
-  const mrHi = D4_PAIR * mrBar;
+  const mrHi = d4Pair() * mrBar;
   const location: ChartPoint[] = x.map((v, i) => ({ label: labels[i] as number, value: v, lower: lo, upper: hi, beyond: beyond(v, lo, hi) }));
   const dispersion: ChartPoint[] = [];
   for (let i = 1; i < n; i++) {

@@ -47,7 +47,7 @@ export { transformedCapability } from './transformed.js';
 export type { TransformedCapability, TransformKind, TransformNormality } from './transformed.js';
 export { compareModels, OVERALL_SIGMA, PERCENTILE_SIGMA } from './comparison.js';
 export type { ComparisonCandidate, ComparisonRow, ModelComparison, NormalRowInput } from './comparison.js';
-export { D3_PAIR, D4_PAIR, individualsChart, rangeChartFactors, subgroupChart, subgroupRangeChart, STABILITY_SOURCE, UNSTABLE_RUNS_WARNING, UNSTABLE_WARNING } from './control-chart.js';
+export { D3_PAIR, d4Pair, individualsChart, rangeChartFactors, subgroupChart, subgroupRangeChart, STABILITY_SOURCE, UNSTABLE_RUNS_WARNING, UNSTABLE_WARNING } from './control-chart.js';
 export { runRuleSignals, RUN_RULE_WORDS, RUN_RULES_SOURCE } from './run-rules.js';
 export type { RunRule } from './run-rules.js';
 export type { ChartPanel, ChartPoint, RangeChartFactors, StabilityChart } from './control-chart.js';

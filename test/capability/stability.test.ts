@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { c4, D4_PAIR, d2, individualsChart, subgroupChart } from '../../core/capability/index.js';
+import { c4, d2, d4Pair, individualsChart, subgroupChart } from '../../core/capability/index.js';
 import { createRng } from '../../core/random/index.js';
 
 // Control-chart factors printed in Montgomery, Introduction to Statistical Quality Control,
@@ -40,7 +40,7 @@ describe('subgroup chart (X̄ and S)', () => {
 
 describe('individuals and moving-range chart', () => {
   it("D4 for pairs is 1 + 3·d3(2)/d2(2) = 3.267 and the individuals half-width is E2·MR̄ with E2 = 2.660 (Montgomery)", () => {
-    expect(D4_PAIR).toBeCloseTo(MONTGOMERY.D4_2, 3);
+    expect(d4Pair()).toBeCloseTo(MONTGOMERY.D4_2, 3);
     // the table's 2.660 is 3/1.128 with d2 rounded; the exact 3/d2(2) = 2.6587 agrees to 2 decimals
     expect(3 / d2(2)).toBeCloseTo(MONTGOMERY.E2, 2);
     const x = [5, 7, 6, 8, 7, 6, 9, 7];
@@ -49,7 +49,7 @@ describe('individuals and moving-range chart', () => {
     expect(ch.location.center).toBeCloseTo(6.875, 14);
     expect(ch.dispersion.center).toBeCloseTo(12 / 7, 14);
     expect(ch.location.points[0]!.upper).toBeCloseTo(6.875 + (3 * (12 / 7)) / d2(2), 12);
-    expect(ch.dispersion.points[0]!.upper).toBeCloseTo(D4_PAIR * (12 / 7), 12);
+    expect(ch.dispersion.points[0]!.upper).toBeCloseTo(d4Pair() * (12 / 7), 12);
     expect(ch.orderFrom).toBe('row order');
   });
   it('sorts by the order column before the moving ranges', () => {
