@@ -33,6 +33,9 @@ export interface ComparisonRow {
   readonly ppmAbove: number;
   readonly ppmTotal: number;
   readonly indices: readonly { readonly name: string; readonly estimate: number }[];
+  /** The model's 0.135 % and 99.865 % points (the normal row: mean ∓ 3 overall sd), in the data's units: the room to each limit is read from these. */
+  readonly lowerQuantile: number;
+  readonly upperQuantile: number;
   readonly passes: boolean;
   readonly rejectedBy: readonly string[];
   readonly support: string;
@@ -87,6 +90,8 @@ export function compareModels(
       ppmAbove: above,
       ppmTotal: below + above,
       indices: idx,
+      lowerQuantile: mean - 3 * sd,
+      upperQuantile: mean + 3 * sd,
       passes: normalRow.rejectedBy.length === 0,
       rejectedBy: normalRow.rejectedBy,
       support: 'all real x',
@@ -106,6 +111,8 @@ export function compareModels(
       ppmAbove: above,
       ppmTotal: below + above,
       indices: pc.indices.map((i) => ({ name: i.name, estimate: i.estimate })),
+      lowerQuantile: pc.lowerQuantile,
+      upperQuantile: pc.upperQuantile,
       passes: c.rejectedBy.length === 0,
       rejectedBy: c.rejectedBy,
       support: supportText(d.support),

@@ -12,6 +12,8 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDataset, type DatasetReport } from '../../core/index.js';
 import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import { capabilitySection, shareWords } from '../../client/src/views/capability.js';
+import { answerFor } from '../../client/src/views/answer.js';
+import { sig } from '../../client/src/format.js';
 import { SHIFTED } from './invented-runs.js';
 
 describe('the capability section with an order column (individuals chart, no range chart)', () => {
@@ -54,5 +56,43 @@ describe('the capability comparison with a natural lower bound', () => {
     // the Weibull lives on x > 0: nothing below the bound, no flag
     const weib = b.tables.flatMap((t) => t.rows).find((row) => row[0] === 'Weibull')!;
     expect(weib[4]).toBe('x > 0');
+  });
+});
+
+describe('the capability section answers under the model the headline quotes (the selected one)', () => {
+  // Pump-seal-wear demo (invented gamma data, datasets/README.md), USL 120 µm: the normal and the Weibull both pass,
+  // so the section once answered under the normal (45.6 ppm, Ppk 1.30) while the headline quoted the selected Weibull (404 ppm, Ppk 1.12).
+  const csv = readFileSync(join(process.cwd(), 'datasets', 'pump-seal-wear.csv'), 'utf8');
+  const values = csv.trim().split('\n').slice(1).map(Number);
+  const r = JSON.parse(JSON.stringify(analyzeDataset({ values }, { families: ['normal', 'weibull'], usl: 120, seed: 1 }))) as DatasetReport;
+  const rows = [...r.capability!.comparison.passing, ...r.capability!.comparison.rejected];
+  it('with the Weibull selected: its ppm and Ppk in the section answer and in the headline, the normal only as a labelled comparison', () => {
+    const weibull = r.candidates.find((c) => c.family === 'weibull')!;
+    const row = rows.find((x) => x.model.toLowerCase() === weibull.label.toLowerCase())!;
+    const normal = rows.find((x) => x.kind === 'normal')!;
+    expect(row.passes && normal.passes).toBe(true);
+    const ppk = sig(row.indices.find((i) => i.name === 'Ppk')!.estimate, 3);
+    const normalPpk = sig(normal.indices.find((i) => i.name === 'Ppk')!.estimate, 3);
+    expect(ppk).not.toBe(normalPpk); // the case can tell the two models apart
+    const b = capabilitySection({ report: r, selected: weibull, units: 'µm' })!;
+    expect(b.answer).toContain(`under Weibull; Ppk ${ppk}`);
+    expect(b.answer).toContain(`${sig(row.ppmTotal, 3)} ppm`);
+    expect(b.answer).not.toMatch(/Normal/);
+    const head = answerFor(r, 'weibull', 'µm')!.sentence;
+    expect(head).toContain(`Ppk ${ppk}`);
+    expect(head).toContain(`${sig(weibull.ppmOutOfSpec!.total, 3)} ppm out of tolerance under Weibull`);
+    expect(sig(weibull.ppmOutOfSpec!.total, 3)).toBe(sig(row.ppmTotal, 3));
+    // the room to the limits from the Weibull's own 0.135 % / 99.865 % points, not mean ± 3 sd
+    expect(b.lines.find((l) => /^Upper side/.test(l.text))!.text).toContain(`(${sig(row.upperQuantile, 5)} µm)`);
+    expect(b.lines.find((l) => /^Upper side/.test(l.text))!.text).toContain('under Weibull');
+    const cmp = b.lines.filter((l) => /^For comparison only, under the normal model/.test(l.text));
+    expect(cmp).toHaveLength(1);
+    expect(cmp[0]!.text).toContain(`Ppk ${normalPpk}`);
+  });
+  it('with the normal selected: the normal answer and no comparison line for it', () => {
+    const normal = r.candidates.find((c) => c.family === 'normal')!;
+    const b = capabilitySection({ report: r, selected: normal, units: 'µm' })!;
+    expect(b.answer).toMatch(/under Normal; Ppk/);
+    expect(b.lines.some((l) => /^For comparison only/.test(l.text))).toBe(false);
   });
 });

@@ -5,7 +5,7 @@
  * stability). Only models that pass the tests carry the answer; rejected ones are listed apart.
  * Every number names its model and the spread it uses. Pure: report in, block out.
  */
-import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
+import type { ComparisonRow, DatasetCandidate, DatasetReport, PercentileIntervals } from '../../../core/index.js';
 import { RUN_RULE_WORDS } from '../../../core/capability/run-rules.js';
 import { capital, modelLabel } from '../families.js';
 import { sig } from '../format.js';
@@ -28,27 +28,40 @@ function intervalOf(name: string, iv: PercentileIntervals | null | undefined): s
   return i ? ` (${pct(i.confidence)} bootstrap interval ${sig(i.lower, 3)} to ${sig(i.upper, 3)})` : '';
 }
 
-/** The model the answer stands on: the transformation if it passes, else the normal if it passes, else the best passing fitted model. */
-function answerRow(cap: Cap): ComparisonRow | null {
+/** The comparison row of a candidate (matched by its label, as the headline does in answer.ts). */
+function rowOf(cap: Cap, c: DatasetCandidate): ComparisonRow | null {
+  const rows = cap.comparison ? [...cap.comparison.passing, ...cap.comparison.rejected] : [];
+  return rows.find((r) => (c.family === 'normal' ? r.kind === 'normal' : r.kind === 'fitted model' && r.model.toLowerCase() === c.label.toLowerCase())) ?? null;
+}
+
+/**
+ * The model the answer stands on: the selected model (the one the headline quotes), so the page
+ * answers with one model; without a selection (or no row for it), the transformation if it passes,
+ * else the normal if it passes, else the best passing fitted model.
+ */
+function answerRow(cap: Cap, selected: DatasetCandidate | undefined): ComparisonRow | null {
+  const own = selected ? rowOf(cap, selected) : null;
+  if (own) return own;
   const passing = cap.comparison?.passing ?? [];
   return passing.find((r) => r.kind === 'transformation') ?? passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
 }
 
 /** Room between the model's 0.135 % / 99.865 % points and each limit, under the model the answer stands on. */
 function headroom(cap: Cap, row: ComparisonRow | null, u: string): BlockLine[] {
-  const t = cap.transform;
   let lo = cap.mean - 3 * cap.sdOverall;
   let hi = cap.mean + 3 * cap.sdOverall;
   let basis = 'under the normal model (mean ± 3 overall sd)';
-  if (row?.kind === 'transformation' && t && t.kind !== 'none') {
-    lo = t.percentile.lowerQuantile;
-    hi = t.percentile.upperQuantile;
-    basis = `under ${modelName(row)}`;
-  } else if (row?.kind !== 'normal' && cap.percentile) {
+  if (row && row.kind !== 'normal') {
+    lo = row.lowerQuantile;
+    hi = row.upperQuantile;
+    basis = `under ${modelName(row)}${row.passes ? '' : ' (rejected by a test)'}`;
+  } else if (row) {
+    if (!row.passes) basis += ' (rejected by a test)';
+  } else if (cap.percentile) {
     lo = cap.percentile.lowerQuantile;
     hi = cap.percentile.upperQuantile;
-    basis = `under ${capital(modelLabel(cap.percentile.family))}${row ? '' : ' (rejected by a test, as every model is here)'}`;
-  } else if (!row) basis += ' (rejected by a test, as every model is here)';
+    basis = `under ${capital(modelLabel(cap.percentile.family))} (rejected by a test, as every model is here)`;
+  } else basis += ' (rejected by a test, as every model is here)';
   const lines: BlockLine[] = [];
   const unit = u ? ` ${u}` : '';
   if (cap.usl !== null) {
@@ -86,24 +99,31 @@ function comparisonRows(rows: readonly ComparisonRow[], bound: number | null): s
   });
 }
 
-export const capabilitySection: SectionView = ({ report: r, units: u }) => {
+export const capabilitySection: SectionView = ({ report: r, selected, units: u }) => {
   const cap = r.capability;
   if (!cap) return null;
   const limits = [cap.lsl !== null ? `LSL ${sig(cap.lsl, 6)}` : 'no lower limit', cap.usl !== null ? `USL ${sig(cap.usl, 6)}` : 'no upper limit', ...(cap.target !== null ? [`target ${sig(cap.target, 6)}`] : [])];
-  const row = answerRow(cap);
+  const row = answerRow(cap, selected);
   const t = cap.transform;
-  const chosenIntervals = row?.kind === 'transformation' && t && t.kind !== 'none' ? t.intervals : row && row.kind === 'fitted model' ? cap.percentileIntervals : null;
+  // The bootstrap interval belongs to one model: the transformation's, or the percentile family's (not any fitted row's).
+  const fittedFamily = row?.kind === 'fitted model' ? (selected && rowOf(cap, selected) === row ? selected.family : cap.percentile?.family) : undefined;
+  const chosenIntervals = row?.kind === 'transformation' && t && t.kind !== 'none' ? t.intervals : fittedFamily && fittedFamily === cap.percentileFamily ? cap.percentileIntervals : null;
   const ppk = row?.indices.find((i) => i.name === 'Ppk');
   const unstable = cap.stability ? !cap.stability.stable : false;
   const first = unstable ? 'Not yet answerable with confidence — the process is not shown to be stable. ' : '';
   const answer = row
-    ? `${first}${unstable ? 'As measured: a' : 'A'}bout ${shareWords(row.ppmTotal)} outside the tolerance under ${modelName(row)}${ppk ? `; Ppk ${sig(ppk.estimate, 3)}${intervalOf('Ppk', chosenIntervals)}` : ''}.`
+    ? `${first}${unstable ? 'As measured: a' : 'A'}bout ${shareWords(row.ppmTotal)} outside the tolerance under ${modelName(row)}${row.passes ? '' : ' (a model the tests reject)'}${ppk ? `; Ppk ${sig(ppk.estimate, 3)}${intervalOf('Ppk', chosenIntervals)}` : ''}.`
     : `${first}No model passes the tests, so no share outside the tolerance can be stated with a model behind it; the rejected models below show what each would say.`;
 
   const lines: BlockLine[] = [
     { kind: 'fact', text: `Tolerance: ${limits.join(', ')}${u ? ` (${u})` : ''}. n = ${cap.n}, mean ${sig(cap.mean, 6)}, overall sd ${sig(cap.sdOverall, 4)} (n − 1).` },
   ];
   if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
+  // Another passing model that a reader may look for (the normal theory, a transformation): named as a comparison, never as the answer.
+  for (const other of (cap.comparison?.passing ?? []).filter((x) => x !== row && (x.kind === 'normal' || x.kind === 'transformation'))) {
+    const k = other.indices.find((i) => i.name === 'Ppk');
+    lines.push({ kind: 'note', text: `For comparison only, under ${other.kind === 'normal' ? 'the normal model (overall sd, n − 1)' : modelName(other)}: ${shareWords(other.ppmTotal)}${k ? `, Ppk ${sig(k.estimate, 3)}` : ''}; the answer above stands on ${row ? modelName(row) : 'no model'}.` });
+  }
   // Why an index has no interval (a Johnson curve's interval is withheld, too much work, ...): said once, beside the answer.
   const noInterval = [chosenIntervals, t && t.kind !== 'none' ? t.intervals : null].find((iv) => iv && !iv.intervals && iv.note);
   if (noInterval?.note) lines.push({ kind: 'warning', text: noInterval.note });
