@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../../core/families/index.js';
-import { buildLifeData, censoredAndersonDarling, censoredGofBootstrap, fitCensored, prepareLifeData } from '../../core/life/index.js';
+import { analyzeLife, buildLifeData, censoredAndersonDarling, censoredGofBootstrap, fitCensored, prepareLifeData } from '../../core/life/index.js';
 import { censoredAndersonDarlingMean, studentizedCensoredAndersonDarling } from '../../core/life/anderson-darling.js';
-import { censoringDesign, censoringDistribution } from '../../core/life/bootstrap.js';
+import { censoringDesign, censoringDistribution, STAGGERED_SIZE_WARNING } from '../../core/life/bootstrap.js';
 import { censoredGofFromCounts, censoredReplicateDrawer, MAX_REPLICATE_ATTEMPTS, runCensoredReplicates } from '../../core/life/bootstrap-range.js';
 import { forEachFailureTime } from '../../core/life/data.js';
 import { createRng } from '../../core/random/index.js';
@@ -231,6 +231,14 @@ describe('staggered withdrawals: studentized A², replicates that keep the numbe
     const rn = censoredGofBootstrap(fn, nist, { replicates: 19, seed: 1 });
     expect(rn.statistic).toBeCloseTo(censoredAndersonDarling(getFamily('weibull').make(fn.parameters), nist), 12);
     expect(rn.testLabel).toBeUndefined();
+  });
+
+  it("a report on staggered data warns that the test's measured size is off the nominal (docs/size-study.md); Type I data and runs without the test do not", () => {
+    const opts = { families: ['weibull' as const], bootstrapReplicates: 19, seed: 1 };
+    expect(analyzeLife({ times, failed }, opts).warnings).toContain(STAGGERED_SIZE_WARNING);
+    expect(STAGGERED_SIZE_WARNING).toMatch(/5\.5 %.*4\.0 %/);
+    expect(analyzeLife({ times, failed }, { ...opts, bootstrapReplicates: 0 }).warnings).not.toContain(STAGGERED_SIZE_WARNING);
+    expect(analyzeLife({ times: fx.nist.times, failed: fx.nist.failed }, opts).warnings).not.toContain(STAGGERED_SIZE_WARNING);
   });
 
   it('every staggered replicate has the observed number of failures', () => {
