@@ -59,6 +59,7 @@ const USER_CODES = new Set([
   'csv-parse',
   'not-a-number',
   'too-few-values',
+  'needs-assumed-shape',
   'no-column',
   'bins-too-many',
   'not-computable',

@@ -11,6 +11,8 @@ export type ErrorCode =
   | 'csv-parse'
   | 'not-a-number'
   | 'too-few-values'
+  /** Fewer than 2 failures and no assumed Weibull shape: the zero-failure analysis needs one (HTTP 422). */
+  | 'needs-assumed-shape'
   | 'no-column'
   | 'bins-too-many'
   | 'not-computable'

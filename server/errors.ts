@@ -74,7 +74,8 @@ export function clientFault(err: unknown): { status: number; body: ErrorBody } |
       return null;
     }
     const place = err.place && Object.keys(err.place).length > 0 ? { place: err.place } : {};
-    return { status: err.code === 'cancelled' ? 409 : 400, body: { message: err.message, code: err.code, ...place } };
+    // 422: the request is well formed, but these data (fewer than 2 failures) need an assumed shape to be answered.
+    return { status: err.code === 'cancelled' ? 409 : err.code === 'needs-assumed-shape' ? 422 : 400, body: { message: err.message, code: err.code, ...place } };
   }
   // A route parameter whose percent-encoding is not valid UTF-8 (the router's decodeURIComponent).
   if (err instanceof URIError && (err as { status?: unknown }).status === 400) {

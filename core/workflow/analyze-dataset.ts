@@ -9,7 +9,7 @@
  */
 import { runPlanBootstrap, type AnalyzeOptions, type BootstrapRunner } from '../analyze.js';
 import { InputError, PlumblineError } from '../errors.js';
-import type { CensoredGofHook, IntervalGofHook } from '../life/index.js';
+import { intervalInputFromTimes, type CensoredGofHook, type IntervalGofHook } from '../life/index.js';
 import { finishComplete, planComplete, type CompleteInput } from './complete.js';
 import { groupedReport } from './grouped.js';
 import { lifeReport } from './life.js';
@@ -72,12 +72,41 @@ export function route(input: DatasetInput, options: DatasetOptions, settings: Wo
       throw new InputError('Subgroups and the trend check apply to a complete sample, not to life data with a status column.', {}, 'bad-option');
     }
     const modes = input.modes ?? null;
+    // Fewer than 2 failures: no model can be fitted. With a Weibull shape given from experience the
+    // zero-failure (Weibayes; Nelson 1985) lower bounds are the answer, as the CLI gives them: the
+    // units go through the recorded-life analysis as exact failures and right suspensions.
+    const failures = failuresIn(status);
+    if (failures !== null && failures < 2 && !modes) {
+      if (options.assumedShape === undefined || options.assumedShape === null) throw tooFewFailures(failures, status.length);
+      const rows = intervalInputFromTimes({ times: Float64Array.from(values), failed: Uint8Array.from(status) });
+      return { kind: 'interval', run: (gof?: IntervalGofHook) => intervalLifeReport(rows, options, settings, gof) };
+    }
     return { kind: 'life', run: (gof) => lifeReport(values, status, options, settings, gof, modes), times: values, status };
   }
   if (settings.bLifePercents !== null || settings.reliabilityTimes.length > 0 || options.boundMethod !== undefined || options.lifePlotPositions !== undefined) {
     throw new InputError('B-lives, reliability times and life bounds need life data: give a status column (1 = failed, 0 = still running or removed).', {}, 'bad-option');
   }
   return { kind: 'complete', input: { values, subgroups: input.subgroups ?? null, order: input.order ?? null, ...(input.sortInPlace === true ? { sortInPlace: true } : {}) } };
+}
+
+/** Failures in a status column (1 = failed); null when an entry is not 0 or 1 (lifeReport names it). */
+function failuresIn(status: ArrayLike<number>): number | null {
+  let failures = 0;
+  for (let i = 0; i < status.length; i++) {
+    const f = status[i] as number;
+    if (f !== 0 && f !== 1) return null;
+    failures += f;
+  }
+  return failures;
+}
+
+/** Fewer than 2 failures and no assumed shape: what is needed, said plainly. */
+export function tooFewFailures(failures: number, units: number): InputError {
+  return new InputError(
+    `Only ${failures} failure${failures === 1 ? '' : 's'} among ${units} units: at least 2 failures are needed to fit a life model. With fewer, give a Weibull shape from experience (assumedShape, --assumed-shape) for the zero-failure (Weibayes) lower bounds on the scale and B-lives.`,
+    {},
+    'needs-assumed-shape',
+  );
 }
 
 export function analyzeDataset(input: DatasetInput & { readonly grouped: NonNullable<DatasetInput['grouped']> }, options?: DatasetOptions): GroupedDatasetReport;
