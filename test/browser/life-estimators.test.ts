@@ -84,6 +84,29 @@ describe.skipIf(SKIP_BROWSER)('Weibayes and rank regression on the page', () => 
     expect(problems).toEqual([]);
   });
 
+  it('times with a status column and no failure: without a shape the page says one is needed; with shape 2 the Weibayes bounds as Nelson’s closed form', { timeout: 400_000 }, async () => {
+    await upload('running-status.csv', `hours,status\n${RUNNING.map((t) => `${t},0`).join('\n')}\n`);
+    await done('running-status.csv');
+    await page.selectOption('#status-select', '2');
+    // the API's 422: at least 2 failures to fit, else a shape from experience
+    await page.waitForFunction(() => /no model can|at least 2 failures are needed[\s\S]*Weibull shape from experience/.test(document.body.textContent ?? ''), undefined, { timeout: 180_000 });
+    await setField('assumed-shape-input', '2');
+    await waitForStatus(page, /^Done: no model could be fitted \(0 failures in 10 units\); Weibayes bounds with the shape assumed, from running-status\.csv/, 180_000);
+    const scaleLower = Math.sqrt(RUNNING.reduce((a, t) => a + t * t, 0) / -Math.log(1 - 0.9));
+    const b10Lower = scaleLower * Math.sqrt(-Math.log(0.9));
+    await expect(page.locator('#headline').textContent()).resolves.toContain(`With the Weibull shape ASSUMED at β = 2 (Weibayes, 0 failures in 10 units): B10 life at least ${sig(b10Lower)} h, the scale at least ${sig(scaleLower)} h (one-sided 90 % lower bounds`);
+    const body = (await page.locator('body').textContent()) ?? '';
+    // the caution matches: no shape is estimated with no failures
+    expect(body).not.toMatch(/especially a shape, are uncertain/);
+    expect(body).toMatch(/Only 0 failures among 10 units: no model can be fitted and no shape is estimated/);
+    await page.locator('#headline').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'weibayes-status-zero-failures-1366x768.png') });
+    // the one expected refusal (no shape yet) is the browser's log of the 422; nothing else
+    expect(problems.filter((x) => !/status of 422/.test(x))).toEqual([]);
+    expect(problems.filter((x) => /status of 422/.test(x)).length).toBeGreaterThan(0);
+    problems.length = 0;
+  });
+
   it('rank regression on the NIST censored example: the estimator on every candidate, the Weibull line as SciPy/NumPy, no bounds claimed', { timeout: 400_000 }, async () => {
     const csv = `unit,hours,status\n${rr.nist.times.map((t, i) => `U${i + 1},${t},${rr.nist.failed[i]}`).join('\n')}\n`;
     await upload('nist-censored.csv', csv);
