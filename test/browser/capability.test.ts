@@ -98,6 +98,35 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     }
   }
 
+  it('pump-seal wear, USL 120: the section answers under the model the headline quotes, whichever is selected; the normal theory only as a labelled comparison', { timeout: 300_000 }, async () => {
+    await page.click('#demo-list button[data-name="pump-seal-wear"]');
+    await waitForStatus(page, /^Done: .* 80 values/, 120_000);
+    await setField('usl-input', '120');
+    await page.waitForFunction(() => /outside the tolerance under/.test(document.querySelector('[data-block="capability"] .block-answer')?.textContent ?? ''), null, { timeout: 120_000 });
+    for (const family of ['weibull', 'normal']) {
+      const pick = page.locator(`#model-choices button.model-pick[data-family="${family}"]`);
+      if ((await pick.count()) === 0) continue;
+      await pick.first().click();
+      const label = family === 'weibull' ? 'Weibull' : 'Normal';
+      await page.waitForFunction((l) => new RegExp(`under ${l}`).test(document.querySelector('[data-block="capability"] .block-answer')?.textContent ?? ''), label, { timeout: 60_000 });
+      const answer = (await page.locator('[data-block="capability"] .block-answer').textContent()) ?? '';
+      const head = (await page.locator('#headline').textContent()) ?? '';
+      // the same Ppk in both, under the same model (the headline words the normal one "under the normal model")
+      const ppk = /Ppk (\d+(?:\.\d+)?)/.exec(answer)?.[1];
+      expect(ppk).toBeDefined();
+      expect(head).toContain(`Ppk ${ppk}`);
+      expect(head).toMatch(family === 'weibull' ? /under Weibull/ : /under the normal model/);
+      if (family === 'weibull') {
+        expect(answer).not.toMatch(/Normal/);
+        const text = (await page.locator('[data-block="capability"]').textContent()) ?? '';
+        expect(text).toMatch(/For comparison only, under the normal model \(overall sd, n − 1\)/);
+        await showBlock();
+        await page.screenshot({ path: join(OUT, 'capability-selected-weibull-1366x768.png') });
+      }
+    }
+    expect(problems).toEqual([]);
+  });
+
   it('pump-seal wear: the transform select and the natural lower bound give the Box–Cox answer, upper side only (1366 and 800 px)', { timeout: 300_000 }, async () => {
     await page.click('#demo-list button[data-name="pump-seal-wear"]');
     await waitForStatus(page, /^Done: .* 80 values/, 120_000);

@@ -35,15 +35,20 @@ function rowOf(cap: Cap, c: DatasetCandidate): ComparisonRow | null {
 }
 
 /**
- * The model the answer stands on: the selected model (the one the headline quotes), so the page
- * answers with one model; without a selection (or no row for it), the transformation if it passes,
- * else the normal if it passes, else the best passing fitted model.
+ * The model the answer stands on: a transformation the user asked for, if it passes; else the
+ * selected model (the one the headline quotes, flagged when a test rejects it), so the page answers
+ * with one model; without a selection (or no row for it), the normal if it passes, else the best
+ * passing fitted model; none when every model is rejected.
  */
 function answerRow(cap: Cap, selected: DatasetCandidate | undefined): ComparisonRow | null {
+  const passing = cap.comparison?.passing ?? [];
+  const transformed = passing.find((r) => r.kind === 'transformation');
+  if (transformed) return transformed;
+  // With every model rejected there is no answer with a model behind it (the headline says the selected one is rejected).
+  if (passing.length === 0) return null;
   const own = selected ? rowOf(cap, selected) : null;
   if (own) return own;
-  const passing = cap.comparison?.passing ?? [];
-  return passing.find((r) => r.kind === 'transformation') ?? passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
+  return passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
 }
 
 /** Room between the model's 0.135 % / 99.865 % points and each limit, under the model the answer stands on. */
@@ -120,9 +125,10 @@ export const capabilitySection: SectionView = ({ report: r, selected, units: u }
   ];
   if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
   // Another passing model that a reader may look for (the normal theory, a transformation): named as a comparison, never as the answer.
-  for (const other of (cap.comparison?.passing ?? []).filter((x) => x !== row && (x.kind === 'normal' || x.kind === 'transformation'))) {
+  const selectedRow = selected ? rowOf(cap, selected) : null;
+  for (const other of (cap.comparison?.passing ?? []).filter((x) => x !== row && (x.kind === 'normal' || x.kind === 'transformation' || x === selectedRow))) {
     const k = other.indices.find((i) => i.name === 'Ppk');
-    lines.push({ kind: 'note', text: `For comparison only, under ${other.kind === 'normal' ? 'the normal model (overall sd, n − 1)' : modelName(other)}: ${shareWords(other.ppmTotal)}${k ? `, Ppk ${sig(k.estimate, 3)}` : ''}; the answer above stands on ${row ? modelName(row) : 'no model'}.` });
+    lines.push({ kind: 'note', text: `For comparison only, under ${other.kind === 'normal' ? 'the normal model (overall sd, n − 1)' : modelName(other)}${other === selectedRow ? ' (the model selected above)' : ''}: ${shareWords(other.ppmTotal)}${k ? `, Ppk ${sig(k.estimate, 3)}` : ''}; the answer above stands on ${row ? modelName(row) : 'no model'}.` });
   }
   // Why an index has no interval (a Johnson curve's interval is withheld, too much work, ...): said once, beside the answer.
   const noInterval = [chosenIntervals, t && t.kind !== 'none' ? t.intervals : null].find((iv) => iv && !iv.intervals && iv.note);
