@@ -115,6 +115,10 @@ export function renderSource(st: PageState): void {
   renderLabels(st);
   noteCensoring(st);
   noteSeries(st);
+  // Chi-square bins (the option table: bins apply to a complete sample) mean nothing for interval rows: the field and its hint are hidden.
+  const bins = document.getElementById('bins-input');
+  const binsBox = bins?.closest<HTMLElement>('.field') ?? bins?.closest<HTMLElement>('.field-row');
+  if (binsBox) binsBox.hidden = reading.shape === 'interval';
 }
 
 export function renderLabels(st: PageState): void {

@@ -41,6 +41,14 @@ describe.skipIf(SKIP_BROWSER)('Weibayes and rank regression on the page', () => 
   const upload = (name: string, text: string) => page.setInputFiles('#file-input', { name, mimeType: 'text/csv', buffer: Buffer.from(text) });
   const done = (name: string) => waitForStatus(page, new RegExp(`^Done: .*${name.replace(/\./g, '\\.')}`), 180_000);
 
+  /** Whether the bins field (its row and its line of help) is hidden, and laid out as hidden (no box). */
+  const binsHidden = () =>
+    page.evaluate(() => {
+      const b = document.getElementById('bins-input');
+      const box = b?.closest<HTMLElement>('.field') ?? b?.closest<HTMLElement>('.field-row');
+      return box ? box.hidden && box.getClientRects().length === 0 : null;
+    });
+
   async function setField(id: string, value: string): Promise<void> {
     await page.evaluate((i) => document.getElementById(i)?.closest('details')?.setAttribute('open', ''), id);
     const tag = await page.locator(`#${id}`).evaluate((n) => n.tagName);
@@ -56,6 +64,8 @@ describe.skipIf(SKIP_BROWSER)('Weibayes and rank regression on the page', () => 
     // no failure: no model can be fitted, and the page says so
     await waitForStatus(page, /^No model could be fitted/, 180_000);
     expect(await page.inputValue('#shape-select')).toBe('interval');
+    // chi-square bins do not apply to interval rows: the field and its hint are hidden (render.ts renderSource)
+    expect(await binsHidden()).toBe(true);
     await setField('assumed-shape-input', '2');
     await waitForStatus(page, /^Done: no model could be fitted \(0 failures in 10 units\); Weibayes bounds with the shape assumed, from running-units\.csv/, 180_000);
     const block = page.locator('[data-block="life-recorded"]');
@@ -88,6 +98,7 @@ describe.skipIf(SKIP_BROWSER)('Weibayes and rank regression on the page', () => 
     await upload('running-status.csv', `hours,status\n${RUNNING.map((t) => `${t},0`).join('\n')}\n`);
     await done('running-status.csv');
     await page.selectOption('#status-select', '2');
+    expect(await binsHidden()).toBe(false); // one value per row: the field is there
     // the API's 422: at least 2 failures to fit, else a shape from experience
     await page.waitForFunction(() => /no model can|at least 2 failures are needed[\s\S]*Weibull shape from experience/.test(document.body.textContent ?? ''), undefined, { timeout: 180_000 });
     await setField('assumed-shape-input', '2');
