@@ -182,6 +182,10 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
       normality: normal ? { passes: !normal.andersonDarling.rejected, alpha: normal.andersonDarling.alpha, pValue: normal.andersonDarling.pValue } : null,
       nonNormal: chosen ? getFamily(chosen.family).make(chosen.parameters) : null,
     });
+    // One normal model on the page and in the report: the normal candidate's ppm uses the overall
+    // sample sd (n - 1) that Pp/Ppk and the comparison's normal row use, not the ML sd (divisor n);
+    // otherwise the headline and the capability section printed two ppm under 'Normal' (issue 14 item 4).
+    if (normal) ppmByFamily.set('normal', rep.normalPpm);
     const warnings = [...rep.warnings];
     if (rep.percentile !== null && chosen !== null && chosen.rejectedBy.length > 0) {
       warnings.push(`Every non-normal candidate is rejected; the percentile method uses the best-ranked one (${chosen.label}), which does not describe the data well either.`);

@@ -160,14 +160,17 @@ describe('capability on D1 with LSL 5, USL 35 (references.md)', () => {
     expect(ppk!.intervalMethod).toMatch(/Bissell/);
   });
 
-  it('ppm of the normal candidate = 1e6·(Φ((5-μ)/σ) + Φ((μ-35)/σ)) at its fitted μ, σ (Φ by Simpson integration here)', () => {
+  it('ppm of the normal candidate = 1e6·(Φ((5-μ)/s) + Φ((μ-35)/s)) at its fitted μ and the overall sample sd s (n − 1) (Φ by Simpson integration here)', () => {
     const n = byFamily(r.candidates, 'normal');
     const mu = n.parameters.mean as number;
     const sd = n.parameters.sd as number;
     // references.md: normal MLE mean 16.415, sd 5.894343.
     expect(Math.abs(mu - 16.415)).toBeLessThan(5e-4);
     expect(Math.abs(sd - 5.894343)).toBeLessThan(5e-7);
-    const expected = 1e6 * (phi((5 - mu) / sd) + phi((mu - 35) / sd));
+    // The ppm uses the overall sample sd (n - 1) that Pp/Ppk use (one normal model, one ppm): σ = sd_ML·√(n/(n-1)).
+    const s = sd * Math.sqrt(D1.length / (D1.length - 1));
+    const expected = 1e6 * (phi((5 - mu) / s) + phi((mu - 35) / s));
+    expect(n.ppmOutOfSpec!.total).toBeCloseTo(r.capability!.normalPpm.total, 9);
     expect(Math.abs(n.ppmOutOfSpec!.total - expected) / expected).toBeLessThan(1e-8);
     for (const c of r.candidates) expect(c.ppmOutOfSpec).toBeDefined();
   });
