@@ -30,7 +30,8 @@
  * (dŷ/dG_R)² MSE_R with dθ̂/dG_R = −A⁻¹ ∂E[Σψ]/∂G_R. Everything is evaluated at the fitted
  * model, standardized (M = 0, S = 1, skew G_w; then G_R = G_w there, which makes the derivative of
  * the weight w itself drop out). For a record with no censored years A⁻¹BA⁻ᵀ is the classical
- * moment covariance, and the quantile variance equals ema-variance.ts's (tested).
+ * moment covariance, and the quantile variance equals ema-variance.ts's and the published moment
+ * quantile variance of Kite (2004, eq. 9-54) (both tested: test/flood/ema-kite.test.ts).
  *
  * Effective record length of the skew: the years of a censor-free record whose station skew would
  * have the same asymptotic variance, n_e = v₁/Var(Ĝ), v₁ the variance of the skew from one

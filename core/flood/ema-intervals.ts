@@ -28,6 +28,11 @@
  *   quantile: 82.7 % (12.1 % above the upper limit; the first-order variance is far too small for a
  *   strongly skewed record censored at the low end, see scripts/flood-ema-skew-mse.ts). The plain
  *   normal interval on the same variance covered 82.8–96.2 % in the same cases.
+ * The variance behind n_q is, for a record without censoring or regional skew, exactly Kite's
+ * (2004, eq. 9-54) published variance of the moment quantile (test/flood/ema-kite.test.ts); at
+ * 20–100 years it overstates the estimator's real variance by 3–23 % (scripts/flood-kite-variance.ts),
+ * in the direction of the wide cases above (96.2 %, 94.4 %) but not their whole size (a 7 % larger
+ * variance alone would take a 90 % normal interval to about 91 %).
  */
 import { Pearson3Distribution } from '../families/index.js';
 import { emaCovariance, emaQuantileVariance, effectiveRecordLength, type EmaDesign } from './ema-covariance.js';

@@ -19,6 +19,18 @@
  * the variance of EMA quantiles of Cohn, Lane & Stedinger 2001, WRR 37(6):1695-1706, which also
  * covers censored years — derived for censored records in ema-covariance.ts.)
  *
+ * Published check: without a regional skew this is exactly the standard error of a Pearson III
+ * T-year event by moments of Kite (2004, Frequency and Risk Analyses in Hydrology, eq. 9-54; the δ
+ * of Australian Rainfall and Runoff 1987, Book IV), Var = δ²σ²/n with
+ *   δ² = 1 + Kγ + (K²/2)(3γ²/4 + 1) + 3K K_γ(γ + γ³/4) + 3K_γ²(2 + 3γ² + 5γ⁴/8)
+ * (equation read as quoted by T. Ladson 2015, "Delta values for flood frequency confidence limits";
+ * test/flood/ema-kite.test.ts, skews −2 … 2, exceedance 0.5 … 0.002, to 1e-7). Kite's skew term
+ * is the large-sample variance of the sample skew, as here. At finite n both overstate the real
+ * variance of the estimator (seeded simulation, scripts/flood-kite-variance.ts, 20,000 records a
+ * case, T = 100): by 3–7 % at skew 0 (n = 20 … 60), 7–15 % at skew 0.5 and 9–23 % at skew −0.5
+ * (n = 30 … 100), 2.5 % at n = 400; Griffis & Stedinger's finite-n skew variance in its place
+ * comes within −11 … +7 % (not adopted: the interval's coverage was measured with this one).
+ *
  * The interval is ŷ_p ± z_{(1+c)/2} √Var on log10 Q, then 10^(·): a normal approximation, not
  * the report's EMA interval (ema-intervals.ts, which uses this variance — through the general
  * censored-record covariance of ema-covariance.ts, equal to this one without censoring — with
