@@ -23,7 +23,14 @@
  * finds the length and the fit together, and test/flood/ema-skew-mse.test.ts checks the MSE it
  * gives against a seeded simulation of the EMA skew]. Bulletin 17B's approximation
  * (IACWD 1982, after Wallis, Matalas & Slack 1974; coefficients as printed in the TxDOT Hydraulic
- * Design Manual, ch. 4, quoting 17B) stays available as stationSkewMse17b:
+ * Design Manual, ch. 4 sec. 9 "Skew", eq. 4-7, quoting 17B — read) stays available as
+ * stationSkewMse17b. The two measure different things (seeded SciPy simulation of the
+ * bias-corrected skew, n = 10 … 100, skew 0 … 2, scripts/fixtures/flood-skew-mse-17b.py; tested in
+ * test/flood/skew-mse-17b.test.ts): Griffis & Stedinger's is the skew's variance (within 6 % in
+ * every cell), 17B's is near its mean square error about the true skew (within −9.4 … +11.1 %),
+ * which adds the skew's remaining downward bias; at |G| ≥ 1.5 and n ≤ 30 that MSE is 28–138 % above
+ * the variance used here for the weighting (information only; the Bulletin 17C text, which would
+ * say which one it weights by, was not available). Bulletin 17B's formula:
  *   MSE ≈ 10^(A − B log10(n/10)),
  *   A = −0.33 + 0.08|G| (|G| ≤ 0.90), −0.52 + 0.30|G| (|G| > 0.90),
  *   B = 0.94 − 0.26|G| (|G| ≤ 1.50), 0.55 (|G| > 1.50).
