@@ -40,6 +40,29 @@ function table(head: readonly string[], rows: readonly (readonly string[])[]): s
   return [line(head), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)];
 }
 
+const BASIS_WORDS: Readonly<Record<CapabilitySection['answer']['basis'], string>> = {
+  transformation: 'the transformation asked for; its transformed values pass the normality test',
+  'selected model': 'the best-ranked model',
+  normal: 'the normal model, which passes its test',
+  'best passing model': 'the best model that passes the tests',
+  'no passing model': '',
+};
+
+/**
+ * The answer first, under the model the page's headline and capability section use for the
+ * best-ranked candidate (core/capability/answer.ts): its Ppk with the bootstrap interval computed
+ * for that very model, and its ppm out of specification.
+ */
+export function capabilityAnswerLine(c: CapabilitySection): string {
+  const a = c.answer;
+  if (!a.row) return wrap('No model passes the tests, so no share outside the tolerance is stated with a model behind it; the rejected models below show what each would say.', '  Answer: ', '  ');
+  const ppk = a.row.indices.find((i) => i.name === 'Ppk');
+  const withheld = a.intervals && !a.intervals.intervals && a.intervals.note ? ' (no interval, see below)' : '';
+  const idx = ppk ? `Ppk ${f4(ppk.estimate)}${intervalText('Ppk', a.intervals) || withheld}` : '';
+  const rejected = a.row.passes ? '' : ', which a test rejects';
+  return wrap(`${idx}${idx ? '; ' : ''}ppm out of spec ${f4(a.row.ppmTotal)} under ${a.row.model} (${BASIS_WORDS[a.basis]}${rejected}).`, '  Answer: ', '  ');
+}
+
 export function capabilityExtensionLines(c: CapabilitySection): string[] {
   const out: string[] = [];
   if (c.bounds) out.push(wrap(c.bounds.statement, '  One-sided: ', '  '));

@@ -3,7 +3,7 @@
  * model sensitivity), each with its cautions. Only sections present in the report are printed.
  */
 import { formatNumber, type DatasetCandidate, type DatasetReport, type SensitivityRow } from '../core/index.js';
-import { capabilityExtensionLines } from './capability-text.js';
+import { capabilityAnswerLine, capabilityExtensionLines } from './capability-text.js';
 import { floodEstimatorLines } from './flood-estimators-text.js';
 import { wrap } from './text-report.js';
 
@@ -103,6 +103,7 @@ function capabilityLines(r: DatasetReport): string[] {
   const out: string[] = ['Process capability'];
   const limits = [c.lsl !== null ? `LSL ${formatNumber(c.lsl)}` : null, c.usl !== null ? `USL ${formatNumber(c.usl)}` : null, c.target !== null ? `target ${formatNumber(c.target)}` : null].filter((x) => x !== null);
   out.push(wrap(`${limits.join(', ')}; n = ${c.n}, mean ${formatNumber(c.mean)}, overall sd ${formatNumber(c.sdOverall)} (n - 1); intervals two-sided ${pct(c.confidence)}.`, '  ', '  '));
+  out.push(capabilityAnswerLine(c));
   const idx = [...c.overall, ...(c.within?.indices ?? [])];
   out.push(...table(['index', 'estimate', 'lower', 'upper', 'interval'], idx.map((i) => [i.name, formatNumber(i.estimate, 4), formatNumber(i.lower, 4), formatNumber(i.upper, 4), i.intervalMethod]), new Set([1, 2, 3])));
   if (c.within) out.push(wrap(`Within-subgroup sigma ${formatNumber(c.within.sigma)}: ${c.within.description} (${c.within.subgroups} subgroups).`, '  ', '  '));

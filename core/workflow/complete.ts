@@ -11,7 +11,7 @@
  */
 import { finishAnalysis, planAnalysis, type AnalysisPlan } from '../analyze.js';
 import type { BootstrapCounts } from '../gof/index.js';
-import { capability, capabilityExtensions, CAPABILITY_BOOTSTRAP_REPLICATES, ppmOutOfSpec, type CapabilityExtensionsInput } from '../capability/index.js';
+import { capability, capabilityAnswer, capabilityExtensions, CAPABILITY_BOOTSTRAP_REPLICATES, ppmOutOfSpec, type CapabilityExtensionsInput } from '../capability/index.js';
 import { InputError } from '../errors.js';
 import { DEFAULT_FAMILIES, EXTREME_VALUE_FAMILIES, GEV_SHAPE_GUARD, getFamily, type FamilyName } from '../families/index.js';
 import { exceedanceRisk, floodFrequency, FLOOD_CAUTION, GEV_SIGN_NOTE, plottingPositions, RECORD_MULTIPLE, returnLevels, type ReturnLevelMethod } from '../flood/index.js';
@@ -211,7 +211,10 @@ export function finishComplete(p: CompletePlan, counts: readonly BootstrapCounts
       ...(ran ? { ran } : {}),
     });
     warnings.push(...extWarnings);
-    capabilitySection = { ...rep, ...ext, warnings, percentileFamily, gateRule };
+    // The answer for the best-ranked candidate (the page's first selection), one decision with the page and the CLI.
+    const selected = base.candidates[0]?.family ?? null;
+    const answer = { ...capabilityAnswer({ ...ext, percentileFamily }, base.candidates, selected), selected };
+    capabilitySection = { ...rep, ...ext, warnings, percentileFamily, gateRule, answer };
     extraWarnings.push(...warnings);
     methods.push({
       topic: 'capability',

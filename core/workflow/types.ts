@@ -7,7 +7,7 @@
  *   dataKind 'censored'  values + status (1 failed, 0 running) → candidates from censored MLE, `life`
  *   dataKind 'grouped'   classes lower, upper, count           → GroupedDatasetReport (own candidates)
  */
-import type { CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
+import type { CapabilityAnswer, CapabilityExtensions, CapabilityReport, PpmOutOfSpec } from '../capability/index.js';
 import type { FamilyName } from '../families/index.js';
 import type { GumbelVersusGev, PlottingFormula, PlottingPoint, ReturnLevelMethod } from '../flood/index.js';
 import type { GroupedChiSquare, GroupedClass } from '../grouped/index.js';
@@ -206,6 +206,12 @@ export interface CapabilitySection extends CapabilityReport, Omit<CapabilityExte
   readonly percentileFamily: FamilyName | null;
   /** How the gate and the percentile model were chosen, in words. */
   readonly gateRule: string;
+  /**
+   * The model that answers for the best-ranked candidate (core/capability/answer.ts): the
+   * transformation asked for when it passes its normality test, else that candidate's row; the page
+   * recomputes it for the model the user selects. `selected` is the candidate it was computed for.
+   */
+  readonly answer: CapabilityAnswer & { readonly selected: FamilyName | null };
 }
 
 /** trend: core/trend's Mann–Kendall result plus where the order came from. */

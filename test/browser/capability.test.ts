@@ -137,7 +137,23 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     await page.waitForFunction((src) => new RegExp(src).test(document.querySelector('[data-block="capability"] .block-answer')?.textContent ?? ''), 'under Box–Cox normal \\(λ = ', { timeout: 120_000 });
     const block = page.locator('[data-block="capability"]');
     const text = (await block.textContent()) ?? '';
-    expect(await page.evaluate(answer)).toMatch(/bootstrap interval/);
+    const section = await page.evaluate(answer);
+    expect(section).toMatch(/bootstrap interval/);
+    // The headline quotes the same index, interval and ppm under the same model as the section (it quoted the
+    // selected Weibull, Ppk 1.12 and 404 ppm, before core/capability/answer.ts gave both one decision).
+    const [, model, ppk, lo, hi] = /under (Box–Cox normal \(λ = [^)]+\)); Ppk ([0-9.]+) \(90 % bootstrap interval ([0-9.]+) to ([0-9.]+)\)/.exec(section) ?? [];
+    expect(model).toBeDefined();
+    const head = (await page.locator('#headline').textContent()) ?? '';
+    expect(head).toContain(`Ppk ${ppk} (90 % interval ${lo} to ${hi}) under ${model}, the transformation asked for`);
+    expect(head).toContain(`ppm out of tolerance under ${model}`);
+    const ppmSection = /About ([0-9.,]+) ppm/.exec(section)?.[1];
+    expect(head).toContain(`${ppmSection} ppm out of tolerance`);
+    // the exported report carries the same headline
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export-html')]);
+    const file = join(OUT, 'report-capability-boxcox.html');
+    await download.saveAs(file);
+    const html = readFileSync(file, 'utf8');
+    expect(html).toContain(`Ppk ${ppk} (90 % interval ${lo} to ${hi}) under ${model}, the transformation asked for`);
     expect(text).toMatch(/Upper limit only, with a natural lower bound at 0/);
     expect(text).not.toMatch(/Lower side: the 0\.135 % point/);
     expect(text).toMatch(/Upper side: the 99\.865 % point/);
@@ -145,12 +161,17 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     await expect(page.locator('#transform-select').inputValue()).resolves.toBe('boxcox');
     await showBlock();
     await page.screenshot({ path: join(OUT, 'capability-boxcox-1366x768.png') });
+    await page.locator('#headline').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'capability-boxcox-headline-1366x768.png') });
     await page.setViewportSize({ width: 800, height: 1000 });
     await page.waitForTimeout(800);
     await showBlock();
     // nothing wider than the window at 800 px
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(800);
     await page.screenshot({ path: join(OUT, 'capability-boxcox-800x1000.png') });
+    await page.locator('#headline').scrollIntoViewIfNeeded();
+    expect((await page.locator('#headline').textContent()) ?? '').toContain(`under ${model}, the transformation asked for`);
+    await page.screenshot({ path: join(OUT, 'capability-boxcox-headline-800x1000.png') });
     await page.setViewportSize({ width: 1366, height: 768 });
     expect(problems).toEqual([]);
   });
@@ -163,6 +184,14 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     expect(text).toMatch(/its coverage could not be calibrated/);
     expect(text).not.toMatch(/bootstrap interval [0-9.]+ to [0-9.]+/);
     expect(text).toMatch(/safety-critical/);
+    // the headline: the section's point estimate under the same curve, and why there is no interval
+    const section = (await page.locator('[data-block="capability"] .block-answer').textContent()) ?? '';
+    const [, curve, ppk] = /under (Johnson S[UBL]); Ppk ([0-9.]+)\./.exec(section) ?? [];
+    expect(curve).toBeDefined();
+    await expect(page.locator('#headline').textContent()).resolves.toMatch(new RegExp(`Ppk ${(ppk ?? 'none').replace('.', '\\.')} under ${curve}, the transformation asked for`));
+    await expect(page.locator('#answer-cautions').textContent()).resolves.toMatch(/No bootstrap interval under a Johnson curve/);
+    await page.locator('#headline').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(OUT, 'capability-johnson-headline-1366x768.png') });
     await showBlock();
     await page.screenshot({ path: join(OUT, 'capability-johnson-1366x768.png') });
     expect(problems).toEqual([]);

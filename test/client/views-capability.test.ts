@@ -14,6 +14,7 @@ import { RUN_RULE_WORDS } from '../../core/capability/run-rules.js';
 import { capabilitySection, shareWords } from '../../client/src/views/capability.js';
 import { answerFor } from '../../client/src/views/answer.js';
 import { sig } from '../../client/src/format.js';
+import { capital } from '../../client/src/families.js';
 import { SHIFTED } from './invented-runs.js';
 
 describe('the capability section with an order column (individuals chart, no range chart)', () => {
@@ -94,5 +95,43 @@ describe('the capability section answers under the model the headline quotes (th
     const b = capabilitySection({ report: r, selected: normal, units: 'µm' })!;
     expect(b.answer).toMatch(/under Normal; Ppk/);
     expect(b.lines.some((l) => /^For comparison only/.test(l.text))).toBe(false);
+  });
+});
+
+describe('a transformation the user asks for answers in the headline as in the section (issue 14; core/capability/answer.ts)', () => {
+  // Pump-seal-wear demo (invented, datasets/README.md), USL 120 µm, natural lower bound 0, Box–Cox asked for: its
+  // transformed values pass Anderson–Darling, so the section answered under it while the headline still quoted the
+  // selected Weibull (Ppk 1.12, 404 ppm) or, with a rejected model selected, that model.
+  const csv = readFileSync(join(process.cwd(), 'datasets', 'pump-seal-wear.csv'), 'utf8');
+  const values = csv.trim().split('\n').slice(1).map(Number);
+  const run = (transform: 'boxcox' | 'johnson'): DatasetReport =>
+    JSON.parse(JSON.stringify(analyzeDataset({ values }, { usl: 120, naturalLowerBound: 0, transform, confidence: 0.9, capabilityReplicates: 199, seed: 5 }))) as DatasetReport;
+  const r = run('boxcox');
+  const cap = r.capability!;
+  const row = cap.comparison.passing.find((x) => x.kind === 'transformation')!;
+  const ppk = sig(row.indices.find((i) => i.name === 'Ppk')!.estimate, 3);
+  it.each(['weibull', 'gamma', 'normal'])('with %s selected: the same Ppk, interval, ppm and model name in the headline and the section; the spread over the section\'s rows', (family) => {
+    const c = r.candidates.find((x) => x.family === family)!;
+    const b = capabilitySection({ report: r, selected: { ...c, label: capital(c.label) }, units: 'µm' })!;
+    const a = answerFor(r, family, 'µm')!;
+    expect(b.answer).toContain(`under ${row.model}; Ppk ${ppk} (90 % bootstrap interval `);
+    const interval = /interval ([^ ]+) to ([^ )]+)\)/.exec(b.answer ?? "")!;
+    expect(a.sentence).toMatch(new RegExp(`^Ppk ${ppk} \\(90 % interval ${interval[1]} to ${interval[2]}\\) under ${row.model.replace(/[()]/g, '\\$&')}, the transformation asked for`));
+    expect(a.sentence).toContain(`${sig(row.ppmTotal, 3)} ppm out of tolerance under ${row.model}`);
+    expect(b.answer).toContain(`${sig(row.ppmTotal, 3)} ppm`);
+    // the selected model's own rejection is not the answer's caution (gamma is rejected by chi-square here)
+    expect(a.cautions.some((w) => /is rejected by/.test(w))).toBe(false);
+    const ppm = cap.comparison.passing.map((x) => x.ppmTotal);
+    expect(a.cautions.some((w) => w.includes(`from ${sig(Math.min(...ppm))} to ${sig(Math.max(...ppm))}`))).toBe(true);
+  });
+  it('under a Johnson curve the headline quotes the section\'s point estimate and says why it has no interval', () => {
+    const j = run('johnson');
+    const jr = j.capability!.comparison.passing.find((x) => x.kind === 'transformation')!;
+    const a = answerFor(j, 'weibull', 'µm')!;
+    const b = capabilitySection({ report: j, selected: j.candidates.find((x) => x.family === 'weibull'), units: 'µm' })!;
+    const jp = sig(jr.indices.find((i) => i.name === 'Ppk')!.estimate, 3);
+    expect(b.answer).toContain(`under ${jr.model}; Ppk ${jp}.`);
+    expect(a.sentence).toMatch(new RegExp(`^Ppk ${jp} under ${jr.model}, the transformation asked for`));
+    expect(a.cautions.some((w) => /^No bootstrap interval under a Johnson curve/.test(w))).toBe(true);
   });
 });

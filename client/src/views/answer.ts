@@ -4,7 +4,8 @@
  * did not converge, every model is rejected, a trend was found, the number lies far beyond the
  * record, another acceptable model gives a very different number). Pure: report in, words out.
  */
-import type { DatasetCandidate, DatasetReport } from '../../../core/index.js';
+import type { ComparisonRow, DatasetCandidate, DatasetReport } from '../../../core/index.js';
+import { capabilityAnswer, comparisonRowOf } from '../../../core/capability/answer.js';
 import { chiSquareDecidingP } from '../candidate-cells.js';
 import { capital } from '../families.js';
 import { pValue, sig } from '../format.js';
@@ -54,30 +55,46 @@ function sentenceFor(r: DatasetReport, c: DatasetCandidate, u: string): { text: 
   }
   const cap = r.capability;
   const ppk = cap?.overall.find((x) => x.name === 'Ppk');
-  if (cap && ppk) return { text: capabilitySentence(cap, ppk, c, label), quantity: 'ppm out of spec' };
+  if (cap && ppk) return { text: capabilitySentence(r, cap, ppk, c, label), quantity: 'ppm out of spec' };
   return null;
 }
 
 type Capability = NonNullable<DatasetReport['capability']>;
 
 /**
- * Ppk and ppm under one and the same model: the selected model's percentile-method Ppk (ISO 22514-2,
- * the comparison row of that model, with its bootstrap interval when the report ran one for it) next
- * to its ppm; the normal-theory Ppk is named as such. Under the normal model, the normal-theory Ppk
- * with its lower bound.
+ * Ppk and ppm under one and the same model, the one the capability section answers with (one
+ * decision, core/capability/answer.ts): a transformation the user asked for when its transformed
+ * values pass the normality test; else the selected model's percentile-method Ppk (ISO 22514-2,
+ * the comparison row of that model, with its bootstrap interval when the report ran one for it)
+ * next to its ppm; the normal-theory Ppk is named as such. Under the normal model, the
+ * normal-theory Ppk with its lower bound.
  */
-function capabilitySentence(cap: Capability, ppk: Capability['overall'][number], c: DatasetCandidate, label: string): string {
-  const ppm = `${sig(c.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}`;
+function capabilitySentence(r: DatasetReport, cap: Capability, ppk: Capability['overall'][number], c: DatasetCandidate, label: string): string {
   const normalPpk = `Ppk ${sig(ppk.estimate, 3)} (lower bound ${sig(ppk.lower, 3)})`;
   const gate = cap.normality && !cap.normality.passes ? ', but the normal model fails its test' : '';
-  if (c.family === 'normal') return `${normalPpk} under the normal model${gate}; ${ppm}.`;
-  const rows = cap.comparison ? [...cap.comparison.passing, ...cap.comparison.rejected] : [];
-  const row = rows.find((x) => x.kind === 'fitted model' && x.model.toLowerCase() === c.label.toLowerCase());
-  const own = row?.indices.find((x) => x.name === 'Ppk');
-  if (!own) return `${ppm}; normal-theory ${normalPpk}${gate}.`;
-  const interval = cap.percentileFamily === c.family ? cap.percentileIntervals?.intervals?.find((x) => x.name === 'Ppk') : undefined;
+  const a = capabilityAnswer(cap, r.candidates, c.family);
+  const ownPpk = (row: ComparisonRow | null) => row?.indices.find((x) => x.name === 'Ppk');
+  const interval = a.intervals?.intervals?.find((x) => x.name === 'Ppk');
   const bound = interval ? ` (${pct(interval.confidence)} interval ${sig(interval.lower, 3)} to ${sig(interval.upper, 3)})` : '';
-  return `Ppk ${sig(own.estimate, 3)}${bound} under ${label} by its percentiles (ISO 22514-2); ${ppm}. Normal theory gives ${normalPpk}${gate}.`;
+  const tr = a.basis === 'transformation' ? a.row : null;
+  const trPpk = ownPpk(tr);
+  if (tr && trPpk) {
+    return `Ppk ${sig(trPpk.estimate, 3)}${bound} under ${tr.model}, the transformation asked for, by its percentiles (ISO 22514-2); ${sig(tr.ppmTotal, 3)} ppm out of tolerance under ${tr.model}. Normal theory gives ${normalPpk}${gate}.`;
+  }
+  const ppm = `${sig(c.ppmOutOfSpec?.total ?? cap.normalPpm.total, 3)} ppm out of tolerance under ${label}`;
+  if (c.family === 'normal') return `${normalPpk} under the normal model${gate}; ${ppm}.`;
+  const own = ownPpk(comparisonRowOf(cap.comparison, c));
+  if (!own) return `${ppm}; normal-theory ${normalPpk}${gate}.`;
+  const ownBound = a.family === c.family ? bound : '';
+  return `Ppk ${sig(own.estimate, 3)}${ownBound} under ${label} by its percentiles (ISO 22514-2); ${ppm}. Normal theory gives ${normalPpk}${gate}.`;
+}
+
+/** ppm out of tolerance over the capability comparison's passing rows (a transformation included), as the sensitivity rows give it. */
+function capabilitySpread(r: DatasetReport): { values: readonly unknown[]; min: number; max: number } | undefined {
+  const passing = r.capability?.comparison.passing ?? [];
+  if (passing.length === 0) return undefined;
+  const ppm = passing.map((x) => x.ppmTotal);
+  return { values: passing, min: Math.min(...ppm), max: Math.max(...ppm) };
 }
 
 export function answerFor(r: DatasetReport, selected: string | null, units: string): Answer | null {
@@ -93,13 +110,16 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   const alpha = r.options.alpha;
   const cautions: string[] = [];
   let undermined = false;
-  if (c.rejectedBy.length > 0) {
+  // A transformation the user asked for carries the capability number: the selected model's rejection, fit and warnings are not its.
+  const capAnswer = s.quantity === 'ppm out of spec' && r.capability ? capabilityAnswer(r.capability, r.candidates, c.family) : null;
+  const viaTransform = capAnswer?.basis === 'transformation';
+  if (c.rejectedBy.length > 0 && !viaTransform) {
     undermined = true;
     const tests = c.rejectedBy.map((t) => `${TEST_WORDS[t] ?? t}${testP(c, t)}`).join(' and ');
     const ok = r.candidates.find((x) => x.rejectedBy.length === 0);
     cautions.push(`${label} is rejected by ${tests} at α = ${alpha}: the data contradict this model, so do not design on this number.${ok ? ` The best model no test rejects is ${capital(ok.label)}.` : ' No model tried passes every test.'}`);
   }
-  if (!c.fit.converged) {
+  if (!c.fit.converged && !viaTransform) {
     undermined = true;
     cautions.push(`The ${label} fit did not converge (${c.fit.method}, ${c.fit.iterations} iterations): the number is not a maximum-likelihood estimate.`);
   }
@@ -114,7 +134,8 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   const rl = c.returnLevels?.[c.returnLevels.length - 1];
   if (r.flood && rl?.beyondRecord && !own.some((w) => /record/.test(w))) cautions.push(`The ${sig(rl.period)}-year level is more than twice the ${r.flood.recordLength}-year record: the model's tail, not the data, sets it.`);
   // A spread is drawn only across models no test rejects: across rejected ones it says nothing (the rejection is said above).
-  const row = s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity && x.basis === 'passing') : undefined;
+  // Under a transformation, the spread over the same passing rows as the capability section's (the transformation among them).
+  const row = viaTransform ? capabilitySpread(r) : s.quantity ? r.sensitivity?.find((x) => x.quantity === s.quantity && x.basis === 'passing') : undefined;
   let change = '';
   const which = 'models no test rejects';
   if (row && row.values.length > 1 && row.min > 0 && row.max / row.min >= 1.25) {
@@ -124,7 +145,11 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   } else if (row && row.values.length === 1) {
     change = `No other model passes the tests, so there is nothing to compare it with.`;
   }
+  // A point estimate without an interval (a Johnson curve's is withheld, too much work): why, beside the number.
+  // Its first sentence only: the section beside it gives the measured reason in full.
+  const why = viaTransform && capAnswer?.intervals && !capAnswer.intervals.intervals ? capAnswer.intervals.note : null;
+  if (why) cautions.push(`${why.split(/(?<=\.) /)[0]?.replace(/\.$/, '')}; the Ppk above is a point estimate (the reason, measured, in “Can it meet the tolerance?”).`);
   for (const w of own) cautions.push(w);
-  for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
+  if (!viaTransform) for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
   return { sentence: s.text, cautions, change, undermined };
 }

@@ -5,7 +5,8 @@
  * stability). Only models that pass the tests carry the answer; rejected ones are listed apart.
  * Every number names its model and the spread it uses. Pure: report in, block out.
  */
-import type { ComparisonRow, DatasetCandidate, DatasetReport, PercentileIntervals } from '../../../core/index.js';
+import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
+import { capabilityAnswer, comparisonRowOf } from '../../../core/capability/answer.js';
 import { RUN_RULE_WORDS } from '../../../core/capability/run-rules.js';
 import { capital, modelLabel } from '../families.js';
 import { sig } from '../format.js';
@@ -26,29 +27,6 @@ export function shareWords(ppm: number): string {
 function intervalOf(name: string, iv: PercentileIntervals | null | undefined): string {
   const i = iv?.intervals?.find((x) => x.name === name);
   return i ? ` (${pct(i.confidence)} bootstrap interval ${sig(i.lower, 3)} to ${sig(i.upper, 3)})` : '';
-}
-
-/** The comparison row of a candidate (matched by its label, as the headline does in answer.ts). */
-function rowOf(cap: Cap, c: DatasetCandidate): ComparisonRow | null {
-  const rows = cap.comparison ? [...cap.comparison.passing, ...cap.comparison.rejected] : [];
-  return rows.find((r) => (c.family === 'normal' ? r.kind === 'normal' : r.kind === 'fitted model' && r.model.toLowerCase() === c.label.toLowerCase())) ?? null;
-}
-
-/**
- * The model the answer stands on: a transformation the user asked for, if it passes; else the
- * selected model (the one the headline quotes, flagged when a test rejects it), so the page answers
- * with one model; without a selection (or no row for it), the normal if it passes, else the best
- * passing fitted model; none when every model is rejected.
- */
-function answerRow(cap: Cap, selected: DatasetCandidate | undefined): ComparisonRow | null {
-  const passing = cap.comparison?.passing ?? [];
-  const transformed = passing.find((r) => r.kind === 'transformation');
-  if (transformed) return transformed;
-  // With every model rejected there is no answer with a model behind it (the headline says the selected one is rejected).
-  if (passing.length === 0) return null;
-  const own = selected ? rowOf(cap, selected) : null;
-  if (own) return own;
-  return passing.find((r) => r.kind === 'normal') ?? passing[0] ?? null;
 }
 
 /** Room between the model's 0.135 % / 99.865 % points and each limit, under the model the answer stands on. */
@@ -108,11 +86,9 @@ export const capabilitySection: SectionView = ({ report: r, selected, units: u }
   const cap = r.capability;
   if (!cap) return null;
   const limits = [cap.lsl !== null ? `LSL ${sig(cap.lsl, 6)}` : 'no lower limit', cap.usl !== null ? `USL ${sig(cap.usl, 6)}` : 'no upper limit', ...(cap.target !== null ? [`target ${sig(cap.target, 6)}`] : [])];
-  const row = answerRow(cap, selected);
+  // The model the answer stands on and its own interval: one decision with the headline (core/capability/answer.ts).
+  const { row, intervals: chosenIntervals } = capabilityAnswer(cap, r.candidates, selected?.family ?? null);
   const t = cap.transform;
-  // The bootstrap interval belongs to one model: the transformation's, or the percentile family's (not any fitted row's).
-  const fittedFamily = row?.kind === 'fitted model' ? (selected && rowOf(cap, selected) === row ? selected.family : cap.percentile?.family) : undefined;
-  const chosenIntervals = row?.kind === 'transformation' && t && t.kind !== 'none' ? t.intervals : fittedFamily && fittedFamily === cap.percentileFamily ? cap.percentileIntervals : null;
   const ppk = row?.indices.find((i) => i.name === 'Ppk');
   const unstable = cap.stability ? !cap.stability.stable : false;
   const first = unstable ? 'Not yet answerable with confidence — the process is not shown to be stable. ' : '';
@@ -125,7 +101,7 @@ export const capabilitySection: SectionView = ({ report: r, selected, units: u }
   ];
   if (cap.bounds) lines.push({ kind: 'note', text: cap.bounds.statement });
   // Another passing model that a reader may look for (the normal theory, a transformation): named as a comparison, never as the answer.
-  const selectedRow = selected ? rowOf(cap, selected) : null;
+  const selectedRow = selected ? comparisonRowOf(cap.comparison, selected) : null;
   for (const other of (cap.comparison?.passing ?? []).filter((x) => x !== row && (x.kind === 'normal' || x.kind === 'transformation' || x === selectedRow))) {
     const k = other.indices.find((i) => i.name === 'Ppk');
     lines.push({ kind: 'note', text: `For comparison only, under ${other.kind === 'normal' ? 'the normal model (overall sd, n − 1)' : modelName(other)}${other === selectedRow ? ' (the model selected above)' : ''}: ${shareWords(other.ppmTotal)}${k ? `, Ppk ${sig(k.estimate, 3)}` : ''}; the answer above stands on ${row ? modelName(row) : 'no model'}.` });
