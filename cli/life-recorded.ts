@@ -50,11 +50,12 @@ export function readRecordedLife(text: string, args: AnalyzeArgs, file: string):
   const interval = args.options.get('intervalColumns') as readonly string[] | undefined;
   const count = columnArg(args, 'countColumn');
   const mode = columnArg(args, 'modeColumn');
+  const inspections = columnArg(args, 'inspectionTimesColumn');
   if (interval) {
     if (interval.length !== 2) throw new InputError('--interval-columns takes two columns: START,END', {}, 'bad-option');
     const r = readIntervalRows(
       text,
-      { start: columnSelector(interval[0]!), end: columnSelector(interval[1]!), ...(count !== undefined ? { count: columnSelector(count) } : {}), ...(mode !== undefined ? { mode: columnSelector(mode) } : {}) },
+      { start: columnSelector(interval[0]!), end: columnSelector(interval[1]!), ...(count !== undefined ? { count: columnSelector(count) } : {}), ...(mode !== undefined ? { mode: columnSelector(mode) } : {}), ...(inspections !== undefined ? { inspections: columnSelector(inspections) } : {}) },
       csv,
       file,
     );

@@ -53,7 +53,7 @@ export interface InputSummary {
   readonly header?: readonly string[];
   readonly warnings?: readonly string[];
   /** Workflow columns read from the CSV besides the value column. */
-  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order' | 'interval end' | 'count' | 'date' | 'failure mode'; readonly column: string }[];
+  readonly otherColumns?: readonly { readonly role: 'status' | 'subgroups' | 'order' | 'interval end' | 'count' | 'date' | 'failure mode' | 'inspection times'; readonly column: string }[];
 }
 
 /** `POST /api/analyze` 200, and a done job's `result`: the report as `plumbline analyze --json` prints it. */

@@ -177,7 +177,30 @@ function runRange(scheme: string, from: number, to: number, B: number): (number 
   return ps;
 }
 
-interface Part {
+/** The fixture's JSON text: the cells `schemes` merged from the pieces `parts`, with the run's settings. */
+export function sizeFixture(generator: string, model: Record<string, unknown>, parts: readonly Part[], schemes: readonly string[], alpha: number): string {
+  if (new Set(parts.map((x) => x.replicates)).size !== 1) throw new Error('the runs to merge used different replicates');
+  const out = { generator, model, alpha, replicates: parts[0]!.replicates, rule: 'reject at p <= alpha (alpha(B + 1) whole); SE = sqrt(0.05*0.95/samples)', cells: mergeCells(parts, schemes, alpha) };
+  return `${JSON.stringify(out, null, 1)}\n`;
+}
+
+/** The cells `schemes` from contiguous pieces of runs (each piece: samples [from, from + its length) of one cell). */
+export function mergeCells(parts: readonly Part[], schemes: readonly string[], alpha: number): SizeCell[] {
+  const cells: SizeCell[] = [];
+  for (const scheme of schemes) {
+    const mine = parts.filter((x) => x.scheme === scheme).sort((a, b) => a.from - b.from);
+    if (mine.length === 0) continue;
+    const ps: (number | null)[] = [];
+    for (const x of mine) {
+      if (x.from !== ps.length) throw new Error(`${scheme}: pieces are not contiguous (a piece starts at ${x.from}, expected ${ps.length})`);
+      ps.push(...x.pValues);
+    }
+    cells.push(cellOf(scheme, ps, alpha));
+  }
+  return cells;
+}
+
+export interface Part {
   readonly scheme: string;
   readonly replicates: number;
   readonly from: number;
@@ -235,31 +258,12 @@ function main(): void {
   }
   if (process.argv[2] === '--merge') {
     const parts = process.argv.slice(3).map((f) => JSON.parse(readFileSync(f, 'utf8')) as Part);
-    if (new Set(parts.map((x) => x.replicates)).size !== 1) throw new Error('the runs to merge used different replicates');
-    const cells: SizeCell[] = [];
     const lr = parts.some((x) => OWN_TIMES_CELLS.includes(x.scheme));
     if (lr && !parts.every((x) => OWN_TIMES_CELLS.includes(x.scheme))) throw new Error('merge the n = 50 A² cells and the own-times cells into separate fixtures');
-    for (const scheme of lr ? OWN_TIMES_CELLS : (['case2', 'periodic'] as const)) {
-      const mine = parts.filter((x) => x.scheme === scheme).sort((a, b) => a.from - b.from);
-      if (mine.length === 0) continue;
-      const ps: (number | null)[] = [];
-      for (const x of mine) {
-        if (x.from !== ps.length) throw new Error(`${scheme}: pieces are not contiguous (a piece starts at ${x.from}, expected ${ps.length})`);
-        ps.push(...x.pValues);
-      }
-      cells.push(cellOf(scheme, ps, alpha));
-    }
-    const out = {
-      generator: 'scripts/life-interval-size.ts',
-      model: lr
-        ? { family: 'weibull', scale: SIZE_SCALE, shapes: LR_SHAPES, n: LR_SIZES, seed: SIZE_SEED, statistic: 'likelihood-ratio against the Turnbull estimate; A² in the a2- cells (same samples as ownk)', cells: '[a2-]DESIGN-SHAPE-N; designs in the script header' }
-        : { family: 'weibull', shape: SIZE_SHAPE, scale: SIZE_SCALE, n: SIZE_N, seed: SIZE_SEED },
-      alpha,
-      replicates: parts[0]!.replicates,
-      rule: 'reject at p <= alpha (alpha(B + 1) whole); SE = sqrt(0.05*0.95/samples)',
-      cells,
-    };
-    process.stdout.write(`${JSON.stringify(out, null, 1)}\n`);
+    const model = lr
+      ? { family: 'weibull', scale: SIZE_SCALE, shapes: LR_SHAPES, n: LR_SIZES, seed: SIZE_SEED, statistic: 'likelihood-ratio against the Turnbull estimate; A² in the a2- cells (same samples as ownk)', cells: '[a2-]DESIGN-SHAPE-N; designs in the script header' }
+      : { family: 'weibull', shape: SIZE_SHAPE, scale: SIZE_SCALE, n: SIZE_N, seed: SIZE_SEED };
+    process.stdout.write(sizeFixture('scripts/life-interval-size.ts', model, parts, lr ? OWN_TIMES_CELLS : ['case2', 'periodic'], alpha));
     return;
   }
   const from = Number(process.argv[2]);

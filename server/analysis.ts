@@ -172,7 +172,7 @@ export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; in
 function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, string | number]): { dataset: DatasetInput; input: InputSummary } {
   const r = readIntervalRows(
     req.csv ?? '',
-    { start: columnSelector(cols[0]), end: columnSelector(cols[1]), ...(req.countColumn !== undefined ? { count: columnSelector(req.countColumn) } : {}), ...(req.modeColumn !== undefined ? { mode: columnSelector(req.modeColumn) } : {}) },
+    { start: columnSelector(cols[0]), end: columnSelector(cols[1]), ...(req.countColumn !== undefined ? { count: columnSelector(req.countColumn) } : {}), ...(req.modeColumn !== undefined ? { mode: columnSelector(req.modeColumn) } : {}), ...(req.inspectionTimesColumn !== undefined ? { inspections: columnSelector(req.inspectionTimesColumn) } : {}) },
     req.csvOptions,
     'the CSV',
   );
@@ -194,8 +194,8 @@ function intervalDataset(req: AnalyzeRequest, cols: readonly [string | number, s
       delimiterDetected: r.summary.delimiterDetected,
       header: r.summary.header,
       warnings: [...r.summary.warnings, ...(modes?.notes ?? [])],
-      // The interval start is `column`; the end, the count and the failure mode are the other columns.
-      otherColumns: others.map((c) => ({ role: c.role as 'interval end' | 'count' | 'failure mode', column: c.column })),
+      // The interval start is `column`; the end, the count, the failure mode and the inspection times are the other columns.
+      otherColumns: others.map((c) => ({ role: c.role as 'interval end' | 'count' | 'failure mode' | 'inspection times', column: c.column })),
     },
   };
 }

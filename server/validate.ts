@@ -35,6 +35,8 @@ export interface AnalyzeRequest {
   /** Life data as recorded at inspections: the START and END columns of the CSV, and its count column (interval rows). */
   readonly intervalColumns?: readonly [string | number, string | number];
   readonly countColumn?: string | number;
+  /** With interval rows: each row's inspection times separated by ';' (core IntervalLifeInput.inspections). */
+  readonly inspectionTimesColumn?: string | number;
   /** A dated series (peaks over a threshold): the CSV's date column beside the value column. */
   readonly dateColumn?: string | number;
   /** Several failure modes: the CSV's failure-mode column beside the times and the status column. */
@@ -222,6 +224,7 @@ function parseAnalyzeFields(body: Record<string, unknown>): AnalyzeRequest {
       if (given.has('column')) throw badRequest('"column" goes with a value column; interval rows are read from "intervalColumns" (START, END) alone.', 'column', 'bad-option');
       out.intervalColumns = [interval[0], interval[1]];
       if (given.has('countColumn')) out.countColumn = given.get('countColumn');
+      if (given.has('inspectionTimesColumn')) out.inspectionTimesColumn = given.get('inspectionTimesColumn');
     }
   }
   return out as unknown as AnalyzeRequest;

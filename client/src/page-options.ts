@@ -101,6 +101,7 @@ const WORDS: Readonly<Record<string, Words>> = {
   threshold: { label: 'Peaks over a threshold of', placeholder: 'none', secondary: true },
   minSeparation: { label: 'Days between independent peaks', secondary: true },
   dateColumn: { label: 'Date column (peaks over a threshold)', id: 'date-select', placeholder: 'none' },
+  inspectionTimesColumn: { label: 'Inspection-times column', id: 'inspection-times-select', placeholder: 'none (rebuilt from the rows)', shapes: ['interval'], hint: 'With interval rows: each unit’s inspection times separated by ; (e.g. 20; 45; 70), every inspection it was due up to the end of its follow-up, also those after it was found failed; empty for an exact time. The fit test then re-inspects each unit at exactly these times.' },
   modeColumn: { label: 'Failure-mode column', id: 'mode-select', placeholder: 'none (one failure mode)', shapes: ['values', 'interval'], hint: 'With the failed / still-running column, or with interval rows: the mode of each failed unit (e.g. leak, crack; blank for a unit still running). Each mode is fitted on its own and the whole unit’s life is the earlier of its modes.' },
 };
 
@@ -182,7 +183,7 @@ export const ROLE_FIELDS: readonly PageField[] = PAGE_FIELDS.filter((f) => f.con
 
 /**
  * Whether a column role applies to data read in this shape: every role to one value per row; to
- * interval rows only the failure-mode column (the API takes modeColumn with intervalColumns, core
+ * interval rows only the failure-mode and inspection-times columns (the API takes them with intervalColumns, core
  * options/combinations.ts); none to class counts.
  */
 export function roleApplies(f: PageField, shape: DataShape): boolean {

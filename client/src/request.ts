@@ -186,6 +186,10 @@ export function buildRequest(state: PageState): RequestOutcome {
   if (reading.shape === 'interval' && typeof mode === 'number' && [iv.start, iv.end, iv.count].includes(mode)) {
     problems.push({ field: 'modeColumn', message: 'The failure-mode column must be another column than the interval start, end and count.' });
   }
+  const seen = wf.get('inspectionTimesColumn');
+  if (reading.shape === 'interval' && typeof seen === 'number' && [iv.start, iv.end, iv.count, mode].includes(seen)) {
+    problems.push({ field: 'inspectionTimesColumn', message: 'The inspection-times column must be another column than the interval start, end, count and failure mode.' });
+  }
   if (problems.length > 0) return { ok: false, problems };
   if (wf.size > 0 && typeof confidence === 'number') wf.set('confidence', confidence);
   // Interval rows name their columns in intervalColumns (in wf); there is no value column and no bins.

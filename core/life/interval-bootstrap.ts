@@ -83,6 +83,7 @@ export function runIntervalReplicates(
   const extra = imputeInspections(scheme, data, () => imputer.uniform());
   const tau = data.maxTime;
   const rows = data.lower.length;
+  const own = data.schedules;
   const n = data.n;
   const lo = new Float64Array(n);
   const hi = new Float64Array(n);
@@ -97,7 +98,7 @@ export function runIntervalReplicates(
         // Inversion of the model's own quantile (tails by isf): one uniform per unit, in row order.
         const u = rng.uniform();
         const T = u < 0.5 ? dist.quantile(u) : dist.isf(1 - u);
-        const [a, z] = observeUnit(scheme, kind, L, R, T, tau, extra[k] as number);
+        const [a, z] = observeUnit(scheme, kind, L, R, T, tau, extra[k] as number, own ? (own[r] as Float64Array) : null);
         lo[k] = a;
         hi[k++] = z;
       }
@@ -159,7 +160,7 @@ export interface IntervalGofJob {
   /** The fitted parameters (the model the replicates are drawn from, the refits' warm start and the gap weights). */
   readonly parameters: Parameters;
   /** The prepared rows (plain arrays, so the job crosses to a worker thread as it is). */
-  readonly rows: { readonly start: readonly number[]; readonly end: readonly number[]; readonly counts: readonly number[] };
+  readonly rows: { readonly start: readonly number[]; readonly end: readonly number[]; readonly counts: readonly number[]; readonly inspections?: readonly (readonly number[])[] };
   readonly observed: number;
   readonly seed: number;
   readonly start: number;
@@ -169,12 +170,12 @@ export interface IntervalGofJob {
 /** The job of a family (replicates [0, replicates)). */
 export function intervalGofJob(family: LifeFamilyName, parameters: Parameters, data: IntervalLifeData, replicates: number, seed: number): IntervalGofJob {
   const observed = intervalGofObserved(family, parameters, data);
-  return { kind: 'interval', family, parameters, rows: { start: Array.from(data.lower), end: Array.from(data.upper), counts: Array.from(data.counts) }, observed, seed, start: 0, end: replicates };
+  return { kind: 'interval', family, parameters, rows: { start: Array.from(data.lower), end: Array.from(data.upper), counts: Array.from(data.counts), ...(data.schedules ? { inspections: data.schedules.map((s) => Array.from(s)) } : {}) }, observed, seed, start: 0, end: replicates };
 }
 
 /** The job's rows as interval data again (already checked and merged: the same data). */
 export function intervalJobData(job: IntervalGofJob): IntervalLifeData {
-  return prepareIntervalLifeData({ start: job.rows.start, end: job.rows.end, counts: job.rows.counts }, { trusted: true });
+  return prepareIntervalLifeData({ start: job.rows.start, end: job.rows.end, counts: job.rows.counts, ...(job.rows.inspections ? { inspections: job.rows.inspections } : {}) }, { trusted: true });
 }
 
 /** Run replicates [job.start, job.end) of a job (pure). */

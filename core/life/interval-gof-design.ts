@@ -46,6 +46,10 @@ export const INTERVAL_GOF_SIZE: Readonly<Record<InspectionSchemeKind, { readonly
     calibrated: true,
     text: 'size measured on a common schedule (every unit inspected every 25 h to 150 h): 106 of 2000 seeded samples rejected at α = 5 % (5.3 %, SE 0.49 points; Weibull n = 50, B = 39)',
   },
+  stated: {
+    calibrated: false,
+    text: 'size with stated inspection schedules not yet measured: the p-value is shown for information and decides nothing',
+  },
   'own-times': {
     calibrated: false,
     text: 'not size-calibrated for rows that fit no common inspection schedule: A² with each unit at its own two inspection times rejected 24 of 1000 seeded samples at α = 5 % (2.4 %, SE 0.69 points; Weibull n = 50, B = 39), and 0 of 600 (0.0 %) when the units had inspections their rows do not show (n = 30 and 100); the likelihood ratio against the Turnbull estimate, measured as the alternative (Weibull n = 30 and 100, B = 39), rejected 397 of 8940 (4.4 %) true models of shape 0.8 and 564 of 8997 (6.3 %) of shape 2 when each row records every inspection of its unit, and 638 of 800 (79.8 %) when the units had more inspections; rows cannot tell these apart, so no test decides here: the p-value is shown for information and decides nothing',

@@ -29,14 +29,19 @@
  *    INTERVAL_GOF_SIZE). With no interval rows
  *    (current-status data: one inspection per unit) every row already records its unit's only
  *    inspection and is kept.
+ * 3. Stated by the user (IntervalLifeInput.inspections, the inspection-times column): each unit is
+ *    inspected at exactly its listed times, nothing rebuilt or imputed; this is the scheme the
+ *    rows' units were really seen through when the list is complete (every inspection due up to the
+ *    end of follow-up, also those after the unit was found failed), so the bootstrap reproduces it
+ *    exactly and the own-times case can decide (size: interval-gof-design.ts).
  * Exact rows: watched continuously up to the last time in the data, τ (T exact when T ≤ τ).
- * Inspection times are assumed independent of the lives in both.
+ * Inspection times are assumed independent of the lives in all three.
  */
 import type { Distribution } from '../families/index.js';
 import { logClassProbability } from '../grouped/index.js';
 import type { IntervalLifeData } from './interval-likelihood-data.js';
 
-export type InspectionSchemeKind = 'common-schedule' | 'own-times';
+export type InspectionSchemeKind = 'common-schedule' | 'own-times' | 'stated';
 
 export interface InspectionScheme {
   readonly kind: InspectionSchemeKind;
@@ -53,6 +58,8 @@ export const COMMON_SCHEDULE_TEXT =
   'the rows fit one common inspection schedule (each interval between consecutive inspection times), so every unit is taken as inspected at every one of those times up to its end of follow-up (a suspension: its last inspection; a failed unit: the last inspection in the data)';
 export const OWN_TIMES_TEXT =
   'each unit at its own inspection times (case-2 interval censoring): an interval row keeps both times; the inspection a left row or a suspension does not record is imputed once, at a gap drawn from the interval rows’ widths weighted by 1/(F̂(R) − F̂(L)) under the fitted model';
+export const STATED_SCHEDULE_TEXT =
+  'each unit at exactly the inspection times stated for it (the inspection-times column), up to its last one; nothing imputed';
 export const CURRENT_STATUS_TEXT = 'each unit at its one recorded inspection (no interval rows: current-status data)';
 
 /** The sorted distinct finite end points > 0 of the censored rows (exact rows excluded). */
@@ -100,11 +107,13 @@ export function fitsCommonSchedule(data: IntervalLifeData, times: Float64Array):
 
 /** Which scheme the bootstrap uses for `data` (the same choice as inspectionScheme, without the model). */
 export function inspectionSchemeKind(data: IntervalLifeData): InspectionSchemeKind {
+  if (data.schedules) return 'stated';
   return fitsCommonSchedule(data, inspectionTimes(data)) ? 'common-schedule' : 'own-times';
 }
 
 /** The scheme in words. */
 export function inspectionSchemeText(data: IntervalLifeData): string {
+  if (data.schedules) return STATED_SCHEDULE_TEXT;
   if (inspectionSchemeKind(data) === 'common-schedule') return COMMON_SCHEDULE_TEXT;
   return data.interval > 0 ? OWN_TIMES_TEXT : CURRENT_STATUS_TEXT;
 }
@@ -113,6 +122,7 @@ export function inspectionSchemeText(data: IntervalLifeData): string {
 export function inspectionScheme(data: IntervalLifeData, dist: Distribution): InspectionScheme {
   const times = inspectionTimes(data);
   const empty = new Float64Array(0);
+  if (data.schedules) return { kind: 'stated', schedule: empty, gaps: empty, gapCumulative: empty, description: STATED_SCHEDULE_TEXT };
   if (fitsCommonSchedule(data, times)) return { kind: 'common-schedule', schedule: times, gaps: empty, gapCumulative: empty, description: COMMON_SCHEDULE_TEXT };
   const gaps: number[] = [];
   const weights: number[] = [];
@@ -194,7 +204,8 @@ export function imputeInspections(scheme: InspectionScheme, data: IntervalLifeDa
 
 /**
  * How a unit recorded as the row (L, R] of `kind` would have seen the lifetime T. `extra`: its
- * imputed inspection (imputeInspections; NaN for none). τ: the last time in the data.
+ * imputed inspection (imputeInspections; NaN for none). τ: the last time in the data. `own`: the
+ * row's stated schedule (scheme 'stated').
  */
 export function observeUnit(
   scheme: InspectionScheme,
@@ -204,8 +215,10 @@ export function observeUnit(
   T: number,
   tau: number,
   extra: number,
+  own: Float64Array | null = null,
 ): [number, number] {
   if (kind === 'exact') return T <= tau ? [T, T] : [tau, Number.POSITIVE_INFINITY];
+  if (scheme.kind === 'stated' && own) return seenAt(T, own, own.length);
   if (scheme.kind === 'common-schedule') {
     const s = scheme.schedule;
     const end = kind === 'right' ? indexOf(s, L) + 1 : s.length;

@@ -23,6 +23,13 @@ export interface IntervalLifeInput {
   readonly counts?: Float64Array | readonly number[];
   /** Spreadsheet line of each row, for error messages (default: row index + 1). */
   readonly lines?: readonly number[];
+  /**
+   * Each row's inspection schedule as stated by the user (interval-inspection-schedule.ts): the
+   * times, ascending, at which its unit(s) were due to be inspected up to the end of follow-up, also
+   * those due after the unit was found failed; empty for an exact row (watched continuously). When
+   * given, the goodness-of-fit bootstrap inspects every unit at exactly these times.
+   */
+  readonly inspections?: readonly (readonly number[])[];
 }
 
 export interface IntervalLifeData {
@@ -43,6 +50,8 @@ export interface IntervalLifeData {
   /** Smallest positive end point and largest finite end point (the span of the data). */
   readonly minTime: number;
   readonly maxTime: number;
+  /** Each distinct row's stated inspection schedule (IntervalLifeInput.inspections), or null when none was stated. */
+  readonly schedules: readonly Float64Array[] | null;
 }
 
 export function censoringKind(lower: number, upper: number): CensoringKind {
@@ -64,7 +73,10 @@ export function prepareIntervalLifeData(input: IntervalLifeInput, options: { rea
   if (input.counts && input.counts.length !== m) {
     throw new InputError(`The count column has ${input.counts.length} entries but there are ${m} rows.`, {}, 'bad-input');
   }
-  const rows: { lo: number; hi: number; c: number }[] = [];
+  if (input.inspections && input.inspections.length !== m) {
+    throw new InputError(`The inspection-times column has ${input.inspections.length} entries but there are ${m} rows.`, {}, 'bad-input');
+  }
+  const rows: { lo: number; hi: number; c: number; s: readonly number[] | null }[] = [];
   for (let i = 0; i < m; i++) {
     const line = input.lines?.[i] ?? i + 1;
     const rawLo = input.start[i] as number;
@@ -73,8 +85,9 @@ export function prepareIntervalLifeData(input: IntervalLifeInput, options: { rea
     const hi = Number.isNaN(rawHi) ? Number.POSITIVE_INFINITY : rawHi;
     const c = input.counts ? (input.counts[i] as number) : 1;
     const where = { row: line };
+    const sched = input.inspections ? (input.inspections[i] as readonly number[]) : null;
     if (options.trusted) {
-      rows.push({ lo, hi, c });
+      rows.push({ lo, hi, c, s: sched });
       continue;
     }
     if (!(Number.isFinite(c) && c >= 0 && Number.isInteger(c))) {
@@ -92,14 +105,16 @@ export function prepareIntervalLifeData(input: IntervalLifeInput, options: { rea
     if (lo === 0 && hi === Number.POSITIVE_INFINITY) {
       throw new InputError(`Row ${line}: start and end are both empty, so the row says nothing about the unit's life.`, where, 'bad-input');
     }
-    if (c > 0) rows.push({ lo, hi, c });
+    if (sched) checkSchedule(lo, hi, sched, line);
+    if (c > 0) rows.push({ lo, hi, c, s: sched });
   }
   if (rows.length === 0) throw new InputError('No units to analyse: every row is empty or has count 0.', {}, 'too-few-values');
-  rows.sort((a, b) => a.lo - b.lo || a.hi - b.hi);
-  const merged: { lo: number; hi: number; c: number }[] = [];
+  // Rows merge only when their schedules are the same too (each unit keeps its own stated inspections).
+  rows.sort((a, b) => a.lo - b.lo || a.hi - b.hi || compareSchedules(a.s, b.s));
+  const merged: { lo: number; hi: number; c: number; s: readonly number[] | null }[] = [];
   for (const r of rows) {
     const last = merged[merged.length - 1];
-    if (last && last.lo === r.lo && last.hi === r.hi) last.c += r.c;
+    if (last && last.lo === r.lo && last.hi === r.hi && compareSchedules(last.s, r.s) === 0) last.c += r.c;
     else merged.push({ ...r });
   }
   const g = merged.length;
@@ -133,7 +148,47 @@ export function prepareIntervalLifeData(input: IntervalLifeInput, options: { rea
     kinds,
     minTime,
     maxTime,
+    schedules: input.inspections ? merged.map((r) => Float64Array.from(r.s ?? [])) : null,
   };
+}
+
+/** Order of two schedules (shorter first, then by the first differing time); 0 when equal. */
+function compareSchedules(a: readonly number[] | null, b: readonly number[] | null): number {
+  if (!a || !b) return 0;
+  if (a.length !== b.length) return a.length - b.length;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return (a[i] as number) - (b[i] as number);
+  return 0;
+}
+
+/**
+ * A row's stated schedule must be the one its interval was seen through: ascending times > 0; a left
+ * row (0, R] found failed at the first, R; an interval row (L, R] running at one time and found failed
+ * at the next; a suspension running at its last, L (follow-up ended there); an exact row watched
+ * continuously (no times).
+ */
+function checkSchedule(lo: number, hi: number, s: readonly number[], line: number): void {
+  const where = { row: line };
+  const kind = censoringKind(lo, hi);
+  for (let j = 0; j < s.length; j++) {
+    const t = s[j] as number;
+    if (!(t > 0 && Number.isFinite(t)) || (j > 0 && !(t > (s[j - 1] as number)))) {
+      throw new InputError(`Row ${line}: the inspection times must be finite times > 0 in increasing order; ${String(t)} is not.`, { ...where, value: String(t) }, 'bad-input');
+    }
+  }
+  if (kind === 'exact') {
+    if (s.length > 0) throw new InputError(`Row ${line}: an exact failure time is watched continuously; leave its inspection times empty.`, where, 'bad-input');
+    return;
+  }
+  const at = (v: number) => s.indexOf(v);
+  const list = s.join('; ');
+  if (s.length === 0) throw new InputError(`Row ${line}: no inspection times; every row found at inspections needs its unit's inspection times (separated by ;).`, where, 'bad-input');
+  if (kind === 'left' && s[0] !== hi) throw new InputError(`Row ${line}: failed before the first inspection at ${hi}, but its first inspection time is ${s[0]} (${list}).`, where, 'bad-input');
+  if (kind === 'interval' && !(at(lo) >= 0 && at(hi) === at(lo) + 1)) {
+    throw new InputError(`Row ${line}: running at ${lo} and found failed at ${hi}, which must be consecutive inspection times of the unit (${list}).`, where, 'bad-input');
+  }
+  if (kind === 'right' && s[s.length - 1] !== lo) {
+    throw new InputError(`Row ${line}: still running at ${lo}, which must be the unit's last inspection time (its follow-up ended there; ${list}).`, where, 'bad-input');
+  }
 }
 
 /** Today's time + status columns as interval rows: a failure is exact, a suspension is right-censored. */

@@ -147,6 +147,29 @@ export function rightCensoredOf(d: IntervalLifeData): LifeData | null {
   return buildLifeData(times, failed);
 }
 
+/**
+ * Too few failures for any model and a shape given from experience: only Weibayes answers. Said as
+ * the page says it (core/workflow answer and section read the same list): nothing is estimated from
+ * the shape, the shape is assumed, the bound is a bound, and safety practice.
+ */
+export function weibayesOnlyCaution(w: WeibayesResult, n: number): string {
+  const r = w.failures;
+  const pct = `one-sided ${fmt(100 * w.confidence)} %`;
+  const what =
+    r === 0
+      ? `the numbers below are lower bounds (${pct}) on the scale and the B-lives, not estimates of them: with no failure there is no estimate`
+      : `the scale estimate rests on ${r === 1 ? 'one failure' : `${r} failures`} and the assumed shape; rely on its lower bound (${pct}), which is a bound, not an estimate`;
+  return `Only ${r} failure${r === 1 ? '' : 's'} among ${n} units: no model can be fitted and no shape is estimated; the Weibull shape β = ${w.shape} is assumed, so ${what}, and every number holds only if β is right (Weibayes; Nelson 1985). Where it supports a maintenance interval or a safety decision, the bound does not cover a wrong β: check β against earlier failures of the same design.`;
+}
+
+/** With a Weibull fitted by maximum likelihood too: Weibayes named as the alternative it is, the two shapes and B-lives side by side. */
+export function weibayesBesideMl(w: WeibayesResult, ml: Pick<RecordedLifeCandidate, 'parameters' | 'bLives'>): string {
+  const b = w.bLives[0];
+  const mb = b ? ml.bLives.find((x) => x.percent === b.percent) : undefined;
+  const lives = b && mb && b.estimate !== null ? `; B${fmt(b.percent)}: ${fmt(b.estimate)} with β assumed, ${fmt(mb.estimate)} by maximum likelihood` : '';
+  return `Weibayes is an alternative beside maximum likelihood, not an estimate of the shape: it assumes β = ${w.shape}, while maximum likelihood estimates β̂ = ${fmt(ml.parameters.shape as number)} from these ${w.failures} failures${lives}. A β far from β̂ is not supported by these data.`;
+}
+
 function noBounds(estimate: number, confidence: number): { lower: number; upper: number; confidence: number; method: string; boundsFound: false; estimate: number } {
   return { estimate, lower: Number.NaN, upper: Number.NaN, confidence, method: 'no bounds: rank-regression estimate (point value only)', boundsFound: false };
 }
@@ -331,6 +354,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     const wo = { shape: options.assumedShape, confidence, bLifePercents: percents, reliabilityTimes: relTimes };
     wb = rc ? weibayes(rc, wo) : weibayesInterval(data, wo);
     cautions.push(wb.statement);
+    const ml = candidates.find((c) => c.family === 'weibull' && c.estimation === 'ml');
+    if (ml) cautions.push(weibayesBesideMl(wb, ml));
   }
   let modes: CompetingModesReport | null = null;
   if (input.modes) {
@@ -338,7 +363,8 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     modes = input.interval ? analyzeIntervalModes({ interval: input.interval, modes: input.modes }, mo) : analyzeModes({ times: input.times!, failed: input.failed!, modes: input.modes }, mo);
     cautions.push(...modes.cautions.filter((c) => !c.startsWith('Where')));
   }
-  if (data.failures < 10) {
+  if (wb && !candidates.some((c) => c.family !== 'weibull-mixture')) cautions.push(weibayesOnlyCaution(wb, data.n));
+  else if (data.failures < 10) {
     cautions.push(`Only ${data.failures} unit${data.failures === 1 ? '' : 's'} with failure information among ${data.n}: estimates, especially a shape, are uncertain, the bounds rest on large-sample approximations, and the ranking of models is weak (fewer than 10; common practice, no source).`);
   }
   if (data.left + data.interval > 0) {

@@ -18,6 +18,8 @@ export interface IntervalColumns {
   readonly count?: ColumnSelector;
   /** The failure-mode column (blank for a suspension): competing-modes.ts analyzeIntervalModes. */
   readonly mode?: ColumnSelector;
+  /** Each row's inspection times separated by ';' (IntervalLifeInput.inspections). */
+  readonly inspections?: ColumnSelector;
 }
 
 export interface IntervalRowsRead {
@@ -25,7 +27,7 @@ export interface IntervalRowsRead {
   /** Each row's failure mode (null where blank), when a mode column was given. */
   readonly modes?: readonly (string | null)[];
   /** The columns read, by role, with their labels and 1-based indexes. */
-  readonly columns: readonly { readonly role: 'interval start' | 'interval end' | 'count' | 'failure mode'; readonly column: string; readonly index: number }[];
+  readonly columns: readonly { readonly role: 'interval start' | 'interval end' | 'count' | 'failure mode' | 'inspection times'; readonly column: string; readonly index: number }[];
   readonly summary: ReadSummary;
 }
 
@@ -42,6 +44,7 @@ export function readIntervalRows(text: string, cols: IntervalColumns, options: C
   ];
   if (cols.count !== undefined) requests.push({ select: cols.count, kind: 'number' });
   if (cols.mode !== undefined) requests.push({ select: cols.mode, kind: 'text', keepBlank: true });
+  if (cols.inspections !== undefined) requests.push({ select: cols.inspections, kind: 'text', keepBlank: true });
   const t = readColumns(text, requests, options);
   const decimal = options.decimal ?? '.';
   const [s, e] = t.columns as [TextColumn, TextColumn];
@@ -58,15 +61,31 @@ export function readIntervalRows(text: string, cols: IntervalColumns, options: C
     });
   const counts = cols.count !== undefined ? (t.columns[2] as NumberColumn) : undefined;
   const mode = cols.mode !== undefined ? (t.columns[cols.count !== undefined ? 3 : 2] as TextColumn) : undefined;
+  const insp = cols.inspections !== undefined ? (t.columns[t.columns.length - 1] as TextColumn) : undefined;
+  const times = insp
+    ? insp.texts.map((x, i) =>
+        x.trim() === ''
+          ? []
+          : x.split(';').map((part) => {
+              const v = parseStrictNumber(part.trim(), decimal);
+              if (Number.isNaN(v)) {
+                const row = t.rowNumbers[i] as number;
+                throw new InputError(`${file}: row ${row}, column ${JSON.stringify(insp.column)}: ${JSON.stringify(part.trim())} in ${JSON.stringify(x)} is not a number (inspection times are numbers separated by ;)`, { row, column: insp.column, value: x }, 'not-a-number');
+              }
+              return v;
+            }),
+      )
+    : undefined;
   const { columns: _c, rowNumbers, ...summary } = t;
   return {
-    interval: { start: cell(s, 0), end: cell(e, Number.POSITIVE_INFINITY), ...(counts ? { counts: counts.values } : {}), lines: Array.from(rowNumbers) },
+    interval: { start: cell(s, 0), end: cell(e, Number.POSITIVE_INFINITY), ...(counts ? { counts: counts.values } : {}), lines: Array.from(rowNumbers), ...(times ? { inspections: times } : {}) },
     ...(mode ? { modes: mode.texts.map((x) => (x.trim() === '' ? null : x.trim())) } : {}),
     columns: [
       { role: 'interval start', column: s.column, index: s.index },
       { role: 'interval end', column: e.column, index: e.index },
       ...(counts ? [{ role: 'count' as const, column: counts.column, index: counts.index }] : []),
       ...(mode ? [{ role: 'failure mode' as const, column: mode.column, index: mode.index }] : []),
+      ...(insp ? [{ role: 'inspection times' as const, column: insp.column, index: insp.index }] : []),
     ],
     summary,
   };

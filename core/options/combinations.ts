@@ -55,6 +55,7 @@ export const OPTION_COMBINATIONS: readonly OptionCombination[] = [
   { kind: 'needs', option: 'lowerColumn', anyOf: ['grouped'] },
   { kind: 'needs', option: 'upperColumn', anyOf: ['grouped'] },
   { kind: 'needs', option: 'countColumn', anyOf: ['intervalColumns', 'grouped'] },
+  { kind: 'needs', option: 'inspectionTimesColumn', anyOf: ['intervalColumns'], why: 'inspection times go with interval rows' },
   { kind: 'needs', option: 'modeColumn', anyOf: ['statusColumn', 'intervalColumns'], why: 'failure modes need times with a status column, or interval rows' },
   { kind: 'needs', option: 'planTime', anyOf: ['planReliability'], why: 'part of a test plan' },
   { kind: 'needs', option: 'planConfidence', anyOf: ['planReliability'], why: 'part of a test plan' },

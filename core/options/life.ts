@@ -81,6 +81,15 @@ export const LIFE_OPTIONS: readonly OptionSpec[] = [
     group: 'life',
   },
   {
+    name: 'inspectionTimesColumn',
+    cli: '--inspection-times-column',
+    kind: 'column',
+    default: null,
+    appliesTo: ['interval', 'life'],
+    help: "with interval rows: the column holding each row's inspection times separated by ; (e.g. 20; 45; 70), every inspection its unit was due up to the end of its follow-up, also those after it was found failed; empty for an exact time. the goodness-of-fit bootstrap then inspects each unit at exactly its own times (the report states the test's measured size); on the API with \"csv\" only",
+    group: 'life',
+  },
+  {
     name: 'assumedShape',
     cli: '--assumed-shape',
     kind: 'number',

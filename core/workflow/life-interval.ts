@@ -21,7 +21,6 @@ import {
   type IntervalGofHook,
   type IntervalLifeInput,
   type LifeFamilyName,
-  type RecordedLifeReport,
 } from '../life/index.js';
 import { RANKING_RULE } from '../rank.js';
 import type { MethodNote, NotApplicableReport } from '../report.js';
@@ -33,21 +32,6 @@ import type { DatasetCandidate, DatasetOptions, DatasetReport, LifeSection } fro
 
 export const NO_POINTS_WITH_INTERVALS =
   'none: with interval rows a unit’s failure time is known only to its inspection interval, so no failure is drawn as a point; the nonparametric estimate is drawn as Turnbull boxes (recorded-life section), which reduce to Kaplan–Meier steps for exact times';
-
-/** The recorded-life report's "fewer than 10 failures" caution (core/life interval-likelihood-report.ts). */
-const FEW_FAILURES_CAUTION = /^Only \d+ units? with failure information among \d+: estimates, especially a shape, are uncertain/;
-
-/**
- * With too few failures for any fit and a shape given from experience (Weibayes), nothing is
- * estimated: the "estimates, especially a shape, are uncertain" caution would say the shape was
- * estimated. It is replaced by what holds: no model fitted, no shape estimated, the shape assumed.
- */
-export function withFewFailuresCaution(rec: RecordedLifeReport): RecordedLifeReport {
-  const w = rec.weibayes;
-  if (!w || rec.candidates.some((c) => c.family !== 'weibull-mixture')) return rec;
-  const what = `Only ${rec.failures} failure${rec.failures === 1 ? '' : 's'} among ${rec.n} units: no model can be fitted and no shape is estimated; the Weibull shape β = ${w.shape} is assumed, so the bounds below are Weibayes bounds that hold only if β is right (Nelson 1985).`;
-  return { ...rec, cautions: rec.cautions.map((c) => (FEW_FAILURES_CAUTION.test(c) ? what : c)) };
-}
 
 /** `goodnessOfFit`: where the inspection-scheme bootstrap runs (default in-process; core/workflow/pipeline.ts runs it as jobs). */
 export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOptions, settings: WorkflowSettings, goodnessOfFit?: IntervalGofHook): DatasetReport {
@@ -65,7 +49,8 @@ export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOpti
   const bLifePercents = settings.bLifePercents ?? [10];
   const boundMethod = options.boundMethod ?? 'likelihood-ratio';
   const data = prepareIntervalLifeData(rows);
-  const fullRec = analyzeRecordedLife(
+  // Too few failures for a model with a shape assumed: the core's caution says so (weibayesOnlyCaution), as the CLI prints it.
+  const rec = analyzeRecordedLife(
     { interval: rows },
     {
       families: families as LifeFamilyName[],
@@ -81,7 +66,6 @@ export function intervalLifeReport(rows: IntervalLifeInput, options: DatasetOpti
       ...(goodnessOfFit ? { goodnessOfFit } : {}),
     },
   );
-  const rec = withFewFailuresCaution(fullRec);
   const plan =
     options.planReliability != null && options.planTime != null && options.assumedShape != null
       ? planTest({ reliability: options.planReliability, time: options.planTime, confidence: options.planConfidence ?? 0.9, shape: options.assumedShape, failuresAllowed: options.planFailures ?? 0 })

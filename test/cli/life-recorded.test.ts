@@ -4,6 +4,7 @@ import { isRecordedLife, runRecordedLife } from '../../cli/life-recorded.js';
 import { runPlanCommand } from '../../cli/life-plan.js';
 import { cli, root, scratchCsv } from '../helpers/cli.js';
 import { readFixture, rel } from '../helpers/fixtures.js';
+import { STATED_CSV } from '../helpers/stated-schedules.js';
 
 // Fixture: scripts/fixtures/life-interval.py (SciPy CensoredData interval fits refined by mpmath).
 const fx = readFixture('life-interval.json');
@@ -92,5 +93,64 @@ describe('plumbline analyze with life data as recorded', () => {
     const bad = await cli('plan', '--plan-reliability', '0.9', '--plan-time', '1000');
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/needs --assumed-shape/);
+  });
+});
+
+/*
+ * Issue 13's few-failure and stated-schedule parts on the command line:
+ *  - zero failures with --assumed-shape: the caution says what the page says (no shape estimated, the
+ *    shape assumed, the numbers bounds not estimates, safety), not "estimates, especially a shape, are
+ *    uncertain";
+ *  - time + status with r ≥ 2 failures and --assumed-shape: Weibayes beside maximum likelihood, its
+ *    numbers equal to Nelson's (1985, J. Quality Technology 17:140-146) closed form with SciPy's
+ *    chi2.ppf (test/fixtures/life-weibayes.json, scripts/fixtures/life-weibayes.py);
+ *  - --inspection-times-column: every unit inspected at its own stated times in the bootstrap.
+ */
+const wbFx = readFixture('life-weibayes.json');
+const statusCsv = (name: string, times: readonly number[], failed: readonly number[]) => csv(name, `hours,status\n${times.map((t, i) => `${t},${failed[i]}`).join('\n')}\n`);
+
+describe('Weibayes on the command line', () => {
+  it('zero failures: the caution says no shape is estimated, the shape is assumed, the numbers are bounds, and safety', () => {
+    const c = wbFx.weibayes[0];
+    const r = run(statusCsv('zero.csv', c.times, c.failed), '--column', 'hours', '--censor-column', 'status', '--assumed-shape', '2');
+    expect(r.code).toBe(0);
+    const cautions = r.out.slice(r.out.indexOf('\nCautions\n'), r.out.indexOf('\nMethods\n'));
+    expect(cautions).not.toMatch(/especially a shape/);
+    expect(cautions).toContain('Only 0 failures among 12 units: no model can be fitted and no shape is estimated; the Weibull shape β = 2 is assumed, so the numbers below are lower bounds (one-sided 90 %) on the scale and the B-lives, not estimates of them');
+    expect(cautions).toMatch(/the bound does not cover a wrong β/);
+    expect(cautions).toMatch(/licensed practice/);
+    // the bound printed is SciPy's (2E / chi2.ppf(0.9, 2))^(1/2)
+    expect(r.out).toContain(`lower bound (one-sided 90 %): ${Number(c.scaleLower.toPrecision(5))}`);
+  });
+
+  it('r ≥ 2 failures: Weibayes beside the maximum-likelihood fits, as Nelson’s closed form with SciPy chi2.ppf (JSON and text)', () => {
+    const c = wbFx.weibayes[2];
+    expect(c.failed.reduce((a: number, f: number) => a + f, 0)).toBeGreaterThanOrEqual(2);
+    const file = statusCsv('some.csv', c.times, c.failed);
+    const j = JSON.parse(run(file, '--column', 'hours', '--censor-column', 'status', '--assumed-shape', String(c.shape), '--json').out);
+    const w = j.life.weibayes;
+    expect(j.life.candidates.find((x: { family: string }) => x.family === 'weibull').estimation).toBe('ml');
+    expect(w.shapeIs).toBe('assumed');
+    expect(rel(w.scale, c.scale)).toBeLessThan(1e-13);
+    expect(rel(w.scaleLower, c.scaleLower)).toBeLessThan(1e-12);
+    expect(w.degreesOfFreedom).toBe(2 * w.failures + 2);
+    const ml = j.life.candidates.find((x: { family: string }) => x.family === 'weibull').parameters.shape;
+    expect(j.life.cautions).toContain(
+      `Weibayes is an alternative beside maximum likelihood, not an estimate of the shape: it assumes β = 2, while maximum likelihood estimates β̂ = ${Number(ml.toPrecision(4))} from these ${w.failures} failures; B10: ${Number(w.bLives[0].estimate.toPrecision(4))} with β assumed, ${Number(j.life.candidates.find((x: { family: string }) => x.family === 'weibull').bLives[0].estimate.toPrecision(4))} by maximum likelihood. A β far from β̂ is not supported by these data.`,
+    );
+    const text = run(file, '--column', 'hours', '--censor-column', 'status', '--assumed-shape', '2').out;
+    expect(text).toMatch(/Weibayes \(shape β = 2 ASSUMED, not estimated\)/);
+    expect(text).toMatch(/Weibayes is an alternative beside maximum likelihood/);
+  });
+});
+
+describe('--inspection-times-column', () => {
+  it('the bootstrap inspects each unit at its stated times; the scheme is named; a row its times cannot give is refused by row', () => {
+    const file = csv('stated.csv', STATED_CSV + '\n');
+    const j = JSON.parse(run(file, '--interval-columns', 'start,end', '--inspection-times-column', 'seen', '--families', 'weibull', '--replicates', '39', '--json').out);
+    expect(j.life.candidates[0].goodnessOfFit.scheme).toBe('stated');
+    expect(j.life.methods.find((m: { topic: string }) => m.topic === 'goodness of fit').text).toMatch(/exactly the inspection times stated for it/);
+    const bad = csv('bad.csv', ['start,end,seen', '45,70,15; 45; 60; 70'].join('\n') + '\n');
+    expect(() => run(bad, '--interval-columns', 'start,end', '--inspection-times-column', 'seen')).toThrow(/Row 2: running at 45 and found failed at 70, which must be consecutive inspection times of the unit \(15; 45; 60; 70\)/);
   });
 });

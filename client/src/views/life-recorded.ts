@@ -67,7 +67,7 @@ export function recordedBlock(r: RecordedLifeReport, plan: TestPlan | null, u: s
     const tested = r.candidates.filter((c) => c.goodnessOfFit);
     if (tested.length > 0) {
       tables.push({
-        caption: `Does each model fit? Anderson–Darling on the nonparametric estimate, p by a bootstrap that re-inspects every unit at its own recorded times (α = ${n(r.alpha, 3)})`,
+        caption: `Does each model fit? Anderson–Darling on the nonparametric estimate, p by a bootstrap that re-inspects every unit ${tested[0]!.goodnessOfFit!.scheme === 'stated' ? 'at exactly its stated inspection times' : 'at its own recorded times'} (α = ${n(r.alpha, 3)})`,
         head: ['Model', 'A²', 'p', 'Replicates', 'Verdict'],
         rows: tested.map((c) => {
           const g = c.goodnessOfFit!;

@@ -38,6 +38,17 @@ export const lifeSection: SectionView = ({ report: r, selected: c, units: u }) =
     if (c.meanLife !== undefined) lines.push({ kind: 'fact', text: `Mean life under ${c.label}: ${withU(sig(c.meanLife), u)} (no bounds; the mean leans on the tail beyond the test).` });
     for (const w of c.warnings ?? []) lines.push({ kind: 'warning', text: `${c.label}: ${w}` });
   }
+  // A shape given from experience beside the fits (Weibayes, core/life weibayes.ts): named as the alternative it is, here where the maximum-likelihood B-life is.
+  const w = rec?.weibayes;
+  if (w && c) {
+    const b = w.bLives[0];
+    lines.push({
+      kind: 'fact',
+      text: `Alternative with the Weibull shape ASSUMED at β = ${w.shape}, not estimated (Weibayes; Nelson 1985; ${w.failures} failures in ${w.units} units): scale ${w.scale === null ? 'no estimate' : withU(sig(w.scale), u)}, at least ${withU(sig(w.scaleLower), u)}${
+        b ? `; B${sig(b.percent, 3)} ${b.estimate === null ? 'no estimate' : withU(sig(b.estimate), u)}, at least ${withU(sig(b.lower), u)}` : ''
+      } (one-sided ${pct(w.confidence)} lower bounds). The numbers above are by maximum likelihood, which estimates the shape; details under “Life: other estimators, subpopulations and few failures”.`,
+    });
+  }
   lines.push({ kind: 'note', text: `Plotting positions: ${life.plot.description}` });
   for (const w of life.warnings) lines.push({ kind: 'warning', text: w });
   for (const k of life.cautions) lines.push({ kind: 'caution', text: k });
