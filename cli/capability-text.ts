@@ -57,10 +57,13 @@ export function capabilityAnswerLine(c: CapabilitySection): string {
   const a = c.answer;
   if (!a.row) return wrap('No model passes the tests, so no share outside the tolerance is stated with a model behind it; the rejected models below show what each would say.', '  Answer: ', '  ');
   const ppk = a.row.indices.find((i) => i.name === 'Ppk');
-  const withheld = a.intervals && !a.intervals.intervals && a.intervals.note ? ' (no interval, see below)' : '';
-  const idx = ppk ? `Ppk ${f4(ppk.estimate)}${intervalText('Ppk', a.intervals) || withheld}` : '';
+  // why there is no interval, said once: the transformation's own note is printed with it below
+  const t = c.transform;
+  const saidBelow = t.kind !== 'none' && a.intervalNote === t.intervals.note;
+  const idx = ppk ? `Ppk ${f4(ppk.estimate)}${intervalText('Ppk', a.intervals) || (a.intervalNote ? (saidBelow ? ' (no interval, see below)' : ' (no interval)') : '')}` : '';
   const rejected = a.row.passes ? '' : ', which a test rejects';
-  return wrap(`${idx}${idx ? '; ' : ''}ppm out of spec ${f4(a.row.ppmTotal)} under ${a.row.model} (${BASIS_WORDS[a.basis]}${rejected}).`, '  Answer: ', '  ');
+  const line = wrap(`${idx}${idx ? '; ' : ''}ppm out of spec ${f4(a.row.ppmTotal)} under ${a.row.model} (${BASIS_WORDS[a.basis]}${rejected}).`, '  Answer: ', '  ');
+  return a.intervalNote && !saidBelow ? `${line}\n${wrap(a.intervalNote, '  ', '  ')}` : line;
 }
 
 export function capabilityExtensionLines(c: CapabilitySection): string[] {

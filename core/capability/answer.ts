@@ -41,6 +41,22 @@ export interface CapabilityAnswer {
   /** The bootstrap interval of that row's percentile indices, when one was computed for it. */
   readonly intervals: PercentileIntervals | null;
   readonly basis: CapabilityAnswerBasis;
+  /**
+   * Why the answer's Ppk has no interval (null: it has one, or it is the normal row with its
+   * normal-theory bounds): the bootstrap's own note (withheld under a Johnson curve, too much work),
+   * else NO_INTERVAL_NOTE. The safety caution asks for a lower bound; this says when there is none.
+   */
+  readonly intervalNote: string | null;
+}
+
+/** A fitted family's Ppk without an interval: the bootstrap runs for one model only (core/workflow/complete.ts, extensions.ts). */
+export function noIntervalNote(model: string): string {
+  return `No interval for the Ppk under ${model}: the bootstrap interval is computed for one model only (the transformation asked for, else the model of the percentile method when the normal model fails its test), and the normal-theory bounds belong to the normal model. A safety-critical decision needs a lower bound under the model used: ask for the Box–Cox transformation, whose interval is given when it passes its test.`;
+}
+
+function noteFor(row: ComparisonRow | null, intervals: PercentileIntervals | null): string | null {
+  if (!row || row.kind === 'normal' || (intervals?.intervals && intervals.intervals.length > 0)) return null;
+  return intervals?.note ?? noIntervalNote(row.model);
 }
 
 /** The comparison row of a candidate: the normal row for the normal, else the fitted row of the same label. */
@@ -58,13 +74,13 @@ export function capabilityAnswer(cap: CapabilityAnswerSource, candidates: readon
   const passing = cap.comparison.passing;
   const t = cap.transform;
   const transformed = t.kind !== 'none' ? passing.find((r) => r.kind === 'transformation') : undefined;
-  if (transformed && t.kind !== 'none') return { row: transformed, family: null, intervals: t.intervals, basis: 'transformation' };
-  if (passing.length === 0) return { row: null, family: null, intervals: null, basis: 'no passing model' };
+  if (transformed && t.kind !== 'none') return { row: transformed, family: null, intervals: t.intervals, basis: 'transformation', intervalNote: noteFor(transformed, t.intervals) };
+  if (passing.length === 0) return { row: null, family: null, intervals: null, basis: 'no passing model', intervalNote: null };
   const chosen = candidates.find((c) => c.family === selected);
   const own = chosen ? comparisonRowOf(cap.comparison, chosen) : null;
   const row = own ?? passing.find((r) => r.kind === 'normal') ?? (passing[0] as ComparisonRow);
   const basis: CapabilityAnswerBasis = own ? 'selected model' : row.kind === 'normal' ? 'normal' : 'best passing model';
   const family = row.kind === 'normal' ? null : row.kind === 'fitted model' ? (candidates.find((c) => c.label.toLowerCase() === row.model.toLowerCase())?.family ?? null) : null;
   const intervals = family !== null && family === cap.percentileFamily ? cap.percentileIntervals : null;
-  return { row, family, intervals, basis };
+  return { row, family, intervals, basis, intervalNote: noteFor(row, intervals) };
 }

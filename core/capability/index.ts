@@ -53,5 +53,5 @@ export type { RunRule } from './run-rules.js';
 export type { ChartPanel, ChartPoint, RangeChartFactors, StabilityChart } from './control-chart.js';
 export { capabilityExtensions, transformTarget } from './extensions.js';
 export type { BoundHandling, CapabilityExtensions, CapabilityExtensionsInput, ExtensionCandidate, TransformSection } from './extensions.js';
-export { capabilityAnswer, comparisonRowOf } from './answer.js';
+export { capabilityAnswer, comparisonRowOf, noIntervalNote } from './answer.js';
 export type { AnswerCandidate, CapabilityAnswer, CapabilityAnswerBasis, CapabilityAnswerSource } from './answer.js';

@@ -120,6 +120,8 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
         expect(answer).not.toMatch(/Normal/);
         const text = (await page.locator('[data-block="capability"]').textContent()) ?? '';
         expect(text).toMatch(/For comparison only, under the normal model \(overall sd, n − 1\)/);
+        // no bootstrap ran for the Weibull (the normal passes): the section says its Ppk has no interval
+        expect(text).toMatch(/No interval for the Ppk under Weibull:/);
         await showBlock();
         await page.screenshot({ path: join(OUT, 'capability-selected-weibull-1366x768.png') });
       }

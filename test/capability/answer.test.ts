@@ -9,7 +9,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { analyzeDataset, type DatasetReport } from '../../core/index.js';
-import { capabilityAnswer } from '../../core/capability/answer.js';
+import { capabilityAnswer, noIntervalNote } from '../../core/capability/answer.js';
 import { capabilityAnswerLine } from '../../cli/capability-text.js';
 
 const csv = readFileSync(join(process.cwd(), 'datasets', 'pump-seal-wear.csv'), 'utf8');
@@ -58,6 +58,21 @@ describe('capabilityAnswer: the model the capability answer stands on', () => {
     expect([n.basis, n.row!.kind]).toEqual(['normal', 'normal']);
     const all = capabilityAnswer({ ...c, comparison: { ...c.comparison, passing: [], rejected: [...c.comparison.passing, ...c.comparison.rejected] } }, none.candidates, 'weibull');
     expect([all.basis, all.row]).toEqual(['no passing model', null]);
+  });
+
+  it('a Ppk with no interval says why (the safety caution asks for a lower bound): a fitted family the bootstrap did not run for, a Johnson curve; none for the normal row or an interval given', () => {
+    const none = run('none');
+    const w = capabilityAnswer(none.capability!, none.candidates, 'weibull');
+    expect(w.intervals).toBeNull(); // the normal passes here, so no percentile-method bootstrap ran
+    expect(w.intervalNote).toBe(noIntervalNote('Weibull'));
+    expect(capabilityAnswer(none.capability!, none.candidates, 'normal').intervalNote).toBeNull();
+    expect(capabilityAnswer(cap, box.candidates, 'weibull').intervalNote).toBeNull();
+    const j = run('johnson').capability!;
+    expect(j.answer.intervalNote).toMatch(/^No bootstrap interval under a Johnson curve/);
+    expect(j.answer.intervalNote).toBe(j.transform.kind !== 'none' ? j.transform.intervals.note : 'none');
+    // the command line says it under the answer (not twice for the Johnson curve, whose note follows its block)
+    expect(capabilityAnswerLine(none.capability!).replace(/\s+/g, ' ')).toContain(`(no interval); ppm out of spec 404.3 under Weibull (the best-ranked model). ${noIntervalNote('Weibull')}`);
+    expect(capabilityAnswerLine(j)).not.toMatch(/No bootstrap interval under a Johnson curve/);
   });
 
   it('the command line states the answer first, under the transformation, with its Ppk, interval and ppm', () => {

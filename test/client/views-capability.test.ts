@@ -90,6 +90,14 @@ describe('the capability section answers under the model the headline quotes (th
     expect(cmp).toHaveLength(1);
     expect(cmp[0]!.text).toContain(`Ppk ${normalPpk}`);
   });
+  it('with the Weibull selected and no bootstrap run for it: the section and the headline say its Ppk has no interval (the safety caution asks for a lower bound)', () => {
+    const weibull = r.candidates.find((c) => c.family === 'weibull')!;
+    const b = capabilitySection({ report: r, selected: { ...weibull, label: 'Weibull' }, units: 'µm' })!;
+    expect(b.lines.filter((l) => l.kind === 'warning' && l.text.startsWith('No interval for the Ppk under Weibull:'))).toHaveLength(1);
+    expect(answerFor(r, 'weibull', 'µm')!.cautions.some((w) => w.startsWith('No interval for the Ppk under Weibull:') && w.endsWith('the Ppk above is a point estimate (more in “Can it meet the tolerance?”).'))).toBe(true);
+    // the normal answer has its normal-theory bounds: no such line
+    expect(answerFor(r, 'normal', 'µm')!.cautions.some((w) => /^No interval/.test(w))).toBe(false);
+  });
   it('with the normal selected: the normal answer and no comparison line for it', () => {
     const normal = r.candidates.find((c) => c.family === 'normal')!;
     const b = capabilitySection({ report: r, selected: normal, units: 'µm' })!;

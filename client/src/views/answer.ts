@@ -13,6 +13,7 @@ import { end, pct, withU } from './numbers.js';
 import { modesAnswer } from './answer-modes.js';
 import { weibayesAnswer } from './answer-weibayes.js';
 import { testWords } from './test-words.js';
+import { intervalNoteOnPage } from './capability.js';
 
 export interface Answer {
   /** The sentence with the number. */
@@ -147,8 +148,10 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   }
   // A point estimate without an interval (a Johnson curve's is withheld, too much work): why, beside the number.
   // Its first sentence only: the section beside it gives the measured reason in full.
-  const why = viaTransform && capAnswer?.intervals && !capAnswer.intervals.intervals ? capAnswer.intervals.note : null;
-  if (why) cautions.push(`${why.split(/(?<=\.) /)[0]?.replace(/\.$/, '')}; the Ppk above is a point estimate (the reason, measured, in “Can it meet the tolerance?”).`);
+  // (Only where the sentence quotes the answer's own Ppk: the transformation's, or the selected fitted model's row.)
+  const quotesAnswer = viaTransform || (capAnswer?.basis === 'selected model' && capAnswer.family === c.family);
+  const why = quotesAnswer && capAnswer ? intervalNoteOnPage(capAnswer) : null;
+  if (why) cautions.push(`${why.split(/(?<=\.) /)[0]?.replace(/\.$/, '')}; the Ppk above is a point estimate (more in “Can it meet the tolerance?”).`);
   for (const w of own) cautions.push(w);
   if (!viaTransform) for (const w of c.warnings ?? []) cautions.push(`${label}: ${w}`);
   return { sentence: s.text, cautions, change, undermined };

@@ -6,7 +6,7 @@
  * Every number names its model and the spread it uses. Pure: report in, block out.
  */
 import type { ComparisonRow, DatasetReport, PercentileIntervals } from '../../../core/index.js';
-import { capabilityAnswer, comparisonRowOf } from '../../../core/capability/answer.js';
+import { capabilityAnswer, comparisonRowOf, noIntervalNote, type CapabilityAnswer } from '../../../core/capability/answer.js';
 import { RUN_RULE_WORDS } from '../../../core/capability/run-rules.js';
 import { capital, modelLabel } from '../families.js';
 import { sig } from '../format.js';
@@ -58,6 +58,11 @@ function headroom(cap: Cap, row: ComparisonRow | null, u: string): BlockLine[] {
   return lines;
 }
 
+/** Why the answer's Ppk has no interval, with the model named as the page names it (core/capability/answer.ts). */
+export function intervalNoteOnPage(a: CapabilityAnswer): string | null {
+  return a.row && a.intervalNote === noIntervalNote(a.row.model) ? noIntervalNote(modelName(a.row)) : a.intervalNote;
+}
+
 /** A model's one label with its one case (as everywhere on the page); a transformation row keeps its own words. */
 function modelName(row: ComparisonRow): string {
   return row.kind === 'transformation' ? row.model : capital(row.model);
@@ -87,7 +92,9 @@ export const capabilitySection: SectionView = ({ report: r, selected, units: u }
   if (!cap) return null;
   const limits = [cap.lsl !== null ? `LSL ${sig(cap.lsl, 6)}` : 'no lower limit', cap.usl !== null ? `USL ${sig(cap.usl, 6)}` : 'no upper limit', ...(cap.target !== null ? [`target ${sig(cap.target, 6)}`] : [])];
   // The model the answer stands on and its own interval: one decision with the headline (core/capability/answer.ts).
-  const { row, intervals: chosenIntervals } = capabilityAnswer(cap, r.candidates, selected?.family ?? null);
+  const decided = capabilityAnswer(cap, r.candidates, selected?.family ?? null);
+  const { row, intervals: chosenIntervals } = decided;
+  const intervalNote = intervalNoteOnPage(decided);
   const t = cap.transform;
   const ppk = row?.indices.find((i) => i.name === 'Ppk');
   const unstable = cap.stability ? !cap.stability.stable : false;
@@ -107,8 +114,8 @@ export const capabilitySection: SectionView = ({ report: r, selected, units: u }
     lines.push({ kind: 'note', text: `For comparison only, under ${other.kind === 'normal' ? 'the normal model (overall sd, n − 1)' : modelName(other)}${other === selectedRow ? ' (the model selected above)' : ''}: ${shareWords(other.ppmTotal)}${k ? `, Ppk ${sig(k.estimate, 3)}` : ''}; the answer above stands on ${row ? modelName(row) : 'no model'}.` });
   }
   // Why an index has no interval (a Johnson curve's interval is withheld, too much work, ...): said once, beside the answer.
-  const noInterval = [chosenIntervals, t && t.kind !== 'none' ? t.intervals : null].find((iv) => iv && !iv.intervals && iv.note);
-  if (noInterval?.note) lines.push({ kind: 'warning', text: noInterval.note });
+  const transformNote = t && t.kind !== 'none' && !t.intervals.intervals ? t.intervals.note : null;
+  for (const note of new Set([intervalNote, transformNote])) if (note) lines.push({ kind: 'warning', text: note });
   // By how much
   lines.push(...headroom(cap, row, u));
   // What would change it
