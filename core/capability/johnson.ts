@@ -15,8 +15,10 @@
  *       λ = p√(((1 + p/m)(1 + p/n) - 2)² - 4) / (p²/mn - 1),
  *       ξ = (xζ + x₋ζ)/2 - λ/2 + p(p/n - p/m) / (2(p²/mn - 1));
  *   SL: δ = 2ζ / ln(m/p),  γ = δ·ln((m/p - 1) / (p√(m/p))),  ξ = (xζ + x₋ζ)/2 - (p/2)(m/p + 1)/(m/p - 1)
- * (the equations as recalled from the paper [from memory]; each fit is checked in the tests by
- * putting the four quantiles back through z(x), and against SciPy's johnsonsu/johnsonsb).
+ * (the equations as recalled from the paper [from memory]: no readable copy of the paper or of a
+ * worked example from it was found, test/capability/worked-example.test.ts; each fit is checked in
+ * the tests by putting the four quantiles back through z(x), against a numerical solution of the
+ * four percentile equations, and against SciPy's johnsonsu/johnsonsb).
  * Sample quantiles: position nP + ½ with linear interpolation between order statistics (NumPy's
  * 'hazen' rule). ζ = 0.524 (so 3ζ ≈ 1.57 and the outer quantiles are the 5.8 % and 94.2 % points;
  * common practice, no source). SL is chosen when |mn/p² - 1| ≤ SL_TOLERANCE (common practice, no

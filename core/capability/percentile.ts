@@ -1,5 +1,7 @@
 /**
- * Capability of a non-normal fitted model by the percentile method of ISO 22514-2: the 6σ spread
+ * Capability of a non-normal fitted model by the percentile method of ISO 22514-2 (the formulas
+ * below from memory, the standard not read; no worked example of it was found,
+ * test/capability/worked-example.test.ts): the 6σ spread
  * of the normal case is replaced by the distance between the fitted 0.135 % and 99.865 %
  * quantiles, and the mean by the fitted median X50:
  *   Pp  = (USL - LSL) / (X99.865 - X0.135)

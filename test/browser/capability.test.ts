@@ -156,6 +156,9 @@ describe.skipIf(SKIP_BROWSER)('capability section on the page', () => {
     await download.saveAs(file);
     const html = readFileSync(file, 'utf8');
     expect(html).toContain(`Ppk ${ppk} (90 % interval ${lo} to ${hi}) under ${model}, the transformation asked for`);
+    // and the same section answer, with the caution for safety-critical characteristics
+    expect(html).toContain(`under ${model}; Ppk ${ppk} (90 % bootstrap interval ${lo} to ${hi})`);
+    expect(html).toMatch(/For safety-critical characteristics, decide on the lower confidence bound/);
     expect(text).toMatch(/Upper limit only, with a natural lower bound at 0/);
     expect(text).not.toMatch(/Lower side: the 0\.135 % point/);
     expect(text).toMatch(/Upper side: the 99\.865 % point/);

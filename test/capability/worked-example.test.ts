@@ -13,6 +13,17 @@ import { capability, d2, subgroupRangeChart } from '../../core/capability/index.
  * row's largest nor smallest is below the printed precision and is not caught.
  * From memory (not read from a source): the book's σ̂ = R̄/d2 = 0.32521/2.326 = 0.1398 and
  * Ĉp = (2.00 - 1.00)/(6 · 0.1398) = 1.192 ("1.19").
+ *
+ * No worked example of the non-normal methods (searched 2026-12-05 in the stored public pages and
+ * documentation): a published example with readable data and results for the ISO 22514-2
+ * percentile method, a Box–Cox capability study or a Slifker & Shapiro (1980) Johnson fit was not
+ * found. What the search returned were capability products' manuals and screens (not read, by the
+ * project's rule), copies of ISO standards posted without permission (not read), the standards'
+ * catalogue pages (scope only) and blog summaries without data. So those methods are checked
+ * against SciPy and against their defining equations instead (test/capability/transform.test.ts:
+ * λ̂ vs boxcox_normmax to 1e-6, the Johnson fit vs a least_squares solution of the four percentile
+ * equations, the percentile indices vs SciPy quantiles), and the Slifker–Shapiro closed forms and
+ * the ISO 22514-2 formulas stay marked "from memory" in core/capability/johnson.ts and percentile.ts.
  */
 const ROWS: readonly (readonly [number, number, number, number, number, number, number])[] = [
   // five wafers, then the printed x̄ᵢ and Rᵢ

@@ -140,7 +140,7 @@ export function answerFor(r: DatasetReport, selected: string | null, units: stri
   let change = '';
   const which = 'models no test rejects';
   if (row && row.values.length > 1 && row.min > 0 && row.max / row.min >= 1.25) {
-    cautions.push(`Across the ${which} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see “What would change the answer”.`);
+    cautions.push(`Across the ${which} this number runs from ${sig(row.min)} to ${sig(row.max)} (a factor of ${sig(row.max / row.min, 3)}): the choice of model moves it; see ${viaTransform ? '“Can it meet the tolerance?” (the transformation is among those models there)' : '“What would change the answer”'}.`);
   } else if (row && row.values.length > 1) {
     change = `Across the ${row.values.length} ${which} it runs from ${sig(row.min)} to ${sig(row.max)}: the choice among them changes it little.`;
   } else if (row && row.values.length === 1) {
