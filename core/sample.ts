@@ -90,24 +90,9 @@ function sortAscending(a: Float64Array): Float64Array | null {
   const scratch = new Uint32Array(2 * n);
   let dst: Uint32Array = scratch;
   const counts = new Uint32Array(4 * 65536);
-  for (let i = 0; i < n; i++) {
-    let lo = words[2 * i] as number;
-    let hi = words[2 * i + 1] as number;
-    if (hi & 0x80000000) {
-      lo = ~lo >>> 0;
-      hi = ~hi >>> 0;
-    } else hi = (hi | 0x80000000) >>> 0;
-    src[2 * i] = lo;
-    src[2 * i + 1] = hi;
-    const d0 = lo & 0xffff;
-    const d1 = 65536 + (lo >>> 16);
-    const d2 = 131072 + (hi & 0xffff);
-    const d3 = 196608 + (hi >>> 16);
-    counts[d0] = (counts[d0] as number) + 1;
-    counts[d1] = (counts[d1] as number) + 1;
-    counts[d2] = (counts[d2] as number) + 1;
-    counts[d3] = (counts[d3] as number) + 1;
-  }
+  // Each loop is a function of its own: a command runs this sort once, from cold code, and V8 then
+  // compiles each small loop on its own instead of the whole sort once per loop (on-stack replacement).
+  toKeysCounting(words, n, counts);
   for (let pass = 0; pass < 4; pass++) {
     const base = pass * 65536;
     const word = pass >> 1; // 0: lo, 1: hi
@@ -121,19 +106,52 @@ function sortAscending(a: Float64Array): Float64Array | null {
       counts[base + d] = sum;
       sum += c;
     }
-    for (let i = 0; i < n; i++) {
-      const lo = src[2 * i] as number;
-      const hi = src[2 * i + 1] as number;
-      const digit = ((word === 0 ? lo : hi) >>> shift) & 0xffff;
-      const at = counts[base + digit] as number;
-      counts[base + digit] = at + 1;
-      dst[2 * at] = lo;
-      dst[2 * at + 1] = hi;
-    }
+    scatter(src, dst, n, counts, base, word, shift);
     const t = src;
     src = dst;
     dst = t;
   }
+  fromKeys(src, words, n);
+  return new Float64Array(scratch.buffer);
+}
+
+/** Maps each double's words in place to a key whose unsigned order is numeric order, counting its four 16-bit digits. */
+function toKeysCounting(words: Uint32Array, n: number, counts: Uint32Array): void {
+  for (let i = 0; i < n; i++) {
+    let lo = words[2 * i] as number;
+    let hi = words[2 * i + 1] as number;
+    if (hi & 0x80000000) {
+      lo = ~lo >>> 0;
+      hi = ~hi >>> 0;
+    } else hi = (hi | 0x80000000) >>> 0;
+    words[2 * i] = lo;
+    words[2 * i + 1] = hi;
+    const d0 = lo & 0xffff;
+    const d1 = 65536 + (lo >>> 16);
+    const d2 = 131072 + (hi & 0xffff);
+    const d3 = 196608 + (hi >>> 16);
+    counts[d0] = (counts[d0] as number) + 1;
+    counts[d1] = (counts[d1] as number) + 1;
+    counts[d2] = (counts[d2] as number) + 1;
+    counts[d3] = (counts[d3] as number) + 1;
+  }
+}
+
+/** One stable pass: each key of `src` to its digit's next place in `dst` (counts[base + digit], then advanced). */
+function scatter(src: Uint32Array, dst: Uint32Array, n: number, counts: Uint32Array, base: number, word: number, shift: number): void {
+  for (let i = 0; i < n; i++) {
+    const lo = src[2 * i] as number;
+    const hi = src[2 * i + 1] as number;
+    const digit = ((word === 0 ? lo : hi) >>> shift) & 0xffff;
+    const at = counts[base + digit] as number;
+    counts[base + digit] = at + 1;
+    dst[2 * at] = lo;
+    dst[2 * at + 1] = hi;
+  }
+}
+
+/** The keys of `src` back to the doubles' own words, into `words`. */
+function fromKeys(src: Uint32Array, words: Uint32Array, n: number): void {
   for (let i = 0; i < n; i++) {
     let lo = src[2 * i] as number;
     let hi = src[2 * i + 1] as number;
@@ -145,7 +163,6 @@ function sortAscending(a: Float64Array): Float64Array | null {
     words[2 * i] = lo;
     words[2 * i + 1] = hi;
   }
-  return new Float64Array(scratch.buffer);
 }
 
 /**
@@ -241,6 +258,42 @@ function fromSummary(sorted: Float64Array, sm: SampleSummary, logCacheMaxN: numb
   };
 }
 
+/** Index of the first value that is not finite, or -1 (a loop of its own, compiled on its own). */
+function firstNonFinite(values: Float64Array): number {
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i] as number)) return i;
+  return -1;
+}
+
+/**
+ * The one pass over the sorted values (a function of its own, compiled on its own): out = [Σ (x - mean)²
+ * (compensated), count < 0, count = 0, distinct values].
+ */
+function summaryPass(sorted: Float64Array, mean: number, out: Float64Array): void {
+  const n = sorted.length;
+  let s = 0;
+  let c = 0;
+  let negative = 0;
+  let zeros = 0;
+  let distinct = 0;
+  let prev = Number.NaN;
+  for (let i = 0; i < n; i++) {
+    const x = sorted[i] as number;
+    if (x < 0) negative++;
+    else if (x === 0) zeros++;
+    if (x !== prev) distinct++;
+    prev = x;
+    const d = (x - mean) * (x - mean);
+    const t = s + d;
+    if (Math.abs(s) >= Math.abs(d)) c += s - t + d;
+    else c += d - t + s;
+    s = t;
+  }
+  out[0] = s + c;
+  out[1] = negative;
+  out[2] = zeros;
+  out[3] = distinct;
+}
+
 /**
  * Build a Sample. Throws InputError for non-finite values (with the 0-based index in the
  * message as "value #i", 1-based) and for an empty sample. Does not copy `alreadySorted`
@@ -257,11 +310,10 @@ export function prepareSample(values: ArrayLike<number>, opts: PrepareOptions = 
   let room: Float64Array | null = null;
   if (opts.alreadySorted && values instanceof Float64Array) sorted = values;
   else if (opts.inPlace && values instanceof Float64Array) {
-    for (let i = 0; i < n; i++) {
-      const v = values[i] as number;
-      if (!Number.isFinite(v)) {
-        throw new InputError(`Value #${i + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
-      }
+    const bad = firstNonFinite(values);
+    if (bad >= 0) {
+      const v = values[bad] as number;
+      throw new InputError(`Value #${bad + 1} is not a finite number (${String(v)}).`, { value: String(v) }, 'not-a-number');
     }
     sorted = values;
     room = sortAscending(sorted);
@@ -285,25 +337,12 @@ export function prepareSample(values: ArrayLike<number>, opts: PrepareOptions = 
   // The mean lies in [min, max]; the last rounding of sum/n can step just outside (nine values of
   // 1e307 average to 9.999999999999999e306), so it is held there.
   const mean = Math.min(max, Math.max(min, sum / n));
-  let s = 0;
-  let c = 0;
-  let negative = 0;
-  let zeros = 0;
-  let distinct = 0;
-  let prev = Number.NaN;
-  for (let i = 0; i < n; i++) {
-    const x = sorted[i] as number;
-    if (x < 0) negative++;
-    else if (x === 0) zeros++;
-    if (x !== prev) distinct++;
-    prev = x;
-    const d = (x - mean) * (x - mean);
-    const t = s + d;
-    if (Math.abs(s) >= Math.abs(d)) c += s - t + d;
-    else c += d - t + s;
-    s = t;
-  }
-  const sumSqDev = s + c;
+  const pass = new Float64Array(4);
+  summaryPass(sorted, mean, pass);
+  const sumSqDev = pass[0] as number;
+  const negative = pass[1] as number;
+  const zeros = pass[2] as number;
+  const distinct = pass[3] as number;
   const summary: SampleSummary = { min, max, sum, mean, sumSqDev, negative, zeros, distinct };
   // Kept only when it will hold ln x (else it is left to the garbage collector now).
   const logsRoom = room !== null && negative + zeros === 0 && n <= logCacheMaxN ? room : null;

@@ -11,6 +11,7 @@ import { classifyCell, numberHint, REASON_WORDS } from './classify.js';
 import { columnLabel, headerWarnings, resolveColumn } from './columns.js';
 import { detectDelimiter } from './delimiter.js';
 import { parseNumberRange, type NumberFailure } from './number.js';
+import { AT, KEPT, LINE, NEXT_D, NEXT_LF, ROWS_READ, scanPlainRows, type PlainRowState } from './plain-rows.js';
 import { CR, LF, QUOTE, SPACE, TAB, afterQuote, checkText, isBlankRange, isBlankRecord, readRecordStrings, showValue, unquote, unterminated, type Cursor } from './record.js';
 import type { ColumnData, ColumnRequest, CsvOptions, SkipCount, SkipReason, TableResult } from './types.js';
 
@@ -261,6 +262,9 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
   let nextCR = -1;
   let nextQ = -1;
   let nextD = -1;
+  const plain: PlainRowState = new Int32Array(6);
+  /** Where the plain-row loop last stopped (the row there is read below). */
+  let plainStop = -1;
 
   while (i < n) {
     if (nextLF < i) {
@@ -274,6 +278,25 @@ export function scanTablePiece(text: string, plan: RequestPlan, options: CsvOpti
     if (nextQ < i) {
       nextQ = text.indexOf('"', i);
       if (nextQ < 0) nextQ = n;
+    }
+    // The common rows in a loop of their own (core/csv/plain-rows.ts); back here at the first other row.
+    if (single && i !== plainStop) {
+      plain[AT] = i;
+      plain[KEPT] = kept;
+      plain[LINE] = line;
+      plain[ROWS_READ] = rowsRead;
+      plain[NEXT_LF] = nextLF;
+      plain[NEXT_D] = nextD;
+      scanPlainRows(text, plain, nextCR < nextQ ? nextCR : nextQ, delimChar, slotField[0] as number, expectedFields, decimalCode, numbers[0] as Float64Array, cap, keepRows ? rowNumbers : null, failure);
+      const moved = (plain[AT] as number) !== i;
+      i = plain[AT] as number;
+      kept = plain[KEPT] as number;
+      line = plain[LINE] as number;
+      rowsRead = plain[ROWS_READ] as number;
+      nextLF = plain[NEXT_LF] as number;
+      nextD = plain[NEXT_D] as number;
+      plainStop = i;
+      if (moved) continue;
     }
     const lineEnd = nextLF < nextCR ? nextLF : nextCR;
     if (lineEnd === i) {
