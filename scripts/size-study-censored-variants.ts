@@ -7,6 +7,7 @@
  *
  *   npx tsx scripts/size-study-censored-variants.ts fixed|staggered q R B VARIANT...
  *   e.g. nice -n 10 npx tsx scripts/size-study-censored-variants.ts staggered 0.3 2000 99 cur cur+old truecens+old
+ *   FROM=2000 ... runs samples 2000 .. 2000 + R − 1 of the same streams (a second, disjoint pilot)
  *
  * VARIANT = censoring[+r][+old]:
  *   cur          each unit's censoring time from the Kaplan–Meier estimate of the censoring
@@ -25,7 +26,8 @@
  *   +fdb         fast double bootstrap p-value (Davidson & MacKinnon 2007, Comput. Stat. Data Anal.
  *                51:3259-3281 [from memory]): each replicate j also draws one second-level sample from its
  *                own fit and censoring estimate (same scheme), giving A²**_j; with p̂ = #{A²*_j > A²}/B
- *                and Q the (1 − p̂) quantile of the A²**, p = #{A²*_j > Q}/B (unrefittable replicates dropped)
+ *                and Q the (1 − p̂) quantile of the A²**, p = #{A²*_j > Q}/B (unrefittable replicates dropped);
+ *                cur+stud+r+fdb is the product's staggered test since 2026-12-05 (core/life/fast-double-bootstrap.ts)
  *   +old         the statistic before 2026-12-05: after a last failure of censored data it integrated
  *                (1 − u)/u on to u = 1 (core/life/anderson-darling.ts explains why that was dropped)
  *   +trunc       the data (and every replicate) truncated at their last withdrawal: units still running
@@ -354,6 +356,8 @@ function modelMean(dist: Distribution, data: LifeData): number {
   return total;
 }
 
+// FROM=S (environment): start at sample S instead of 0 (the same streams, later samples).
+const FROM = Number(process.env.FROM ?? 0);
 const [kind = 'staggered', qs = '0.3', Rs = '200', Bs = '99', ...variants] = process.argv.slice(2);
 const q = Number(qs);
 const R = Number(Rs);
@@ -362,7 +366,7 @@ const w = kind === 'fixed' ? fixedTime(q) : staggeredWidth(q);
 const res = new Map(variants.map((v) => [v, { rej5: 0, rej10: 0, psum: 0, unrefit: 0 }]));
 let done = 0;
 const started = Date.now();
-for (let s = 0; s < R; s++) {
+for (let s = FROM; s < FROM + R; s++) {
   const rng = createRng(SEED + (kind === 'fixed' ? 0 : 100) + Math.round(q * 10), s);
   const life = fam.random(TRUTH, rng, N);
   const times: number[] = [];

@@ -81,6 +81,13 @@ export interface BootstrapCounts {
    * 1e-9; X² on equiprobable bins takes few distinct values at small n, so ties are common).
    */
   readonly chiSquareTies?: number;
+  /**
+   * Fast double bootstrap jobs only (the censored A² under staggered withdrawals,
+   * core/life/fast-double-bootstrap.ts): each replicate's statistic and the statistic of its one
+   * second-level replicate, in replicate order, NaN where a replicate could not be drawn or refitted.
+   */
+  readonly firstLevel?: readonly number[];
+  readonly secondLevel?: readonly number[];
 }
 
 /** Anything with an `aborted` flag, e.g. an AbortSignal. */
@@ -221,6 +228,10 @@ export function combineBootstrapCounts(parts: readonly BootstrapCounts[]): Boots
   let cancelled = false;
   let chiExceed: number | null = null;
   let chiTies = 0;
+  // Fast double bootstrap statistics: concatenated in replicate order (the ranges tile, sorted by start).
+  const paired = sorted.some((c) => c.firstLevel !== undefined);
+  const firstLevel: number[] = [];
+  const secondLevel: number[] = [];
   for (const c of sorted) {
     if (c.start !== end) throw new PlumblineError('not-computable', `Bootstrap ranges do not tile: a range starts at ${c.start}, expected ${end}.`);
     end = c.end;
@@ -231,8 +242,23 @@ export function combineBootstrapCounts(parts: readonly BootstrapCounts[]): Boots
     cancelled ||= c.cancelled;
     if (c.chiSquareExceed !== undefined) chiExceed = (chiExceed ?? 0) + c.chiSquareExceed;
     chiTies += c.chiSquareTies ?? 0;
+    if (paired) {
+      if (c.firstLevel === undefined || c.secondLevel === undefined) throw new PlumblineError('not-computable', 'Bootstrap ranges of different kinds cannot be combined.');
+      for (const x of c.firstLevel) firstLevel.push(x ?? Number.NaN);
+      for (const x of c.secondLevel) secondLevel.push(x ?? Number.NaN);
+    }
   }
-  return { start: first.start, end, completed, valid, exceed, failed, cancelled, ...(chiExceed !== null ? { chiSquareExceed: chiExceed, chiSquareTies: chiTies } : {}) };
+  return {
+    start: first.start,
+    end,
+    completed,
+    valid,
+    exceed,
+    failed,
+    cancelled,
+    ...(chiExceed !== null ? { chiSquareExceed: chiExceed, chiSquareTies: chiTies } : {}),
+    ...(paired ? { firstLevel, secondLevel } : {}),
+  };
 }
 
 export interface BootstrapPValue {

@@ -5,7 +5,7 @@
  */
 import { getFamily } from '../families/index.js';
 import { informationCriteria, rankCandidates } from '../rank.js';
-import { censoredGofBootstrap, censoringDesign, CENSORED_AD_METHOD, STAGGERED_SIZE_WARNING } from './bootstrap.js';
+import { censoredGofBootstrap, CENSORED_AD_METHOD } from './bootstrap.js';
 import { bLife, parameterInterval, reliabilityAt, type BoundMethod } from './bounds.js';
 import { lifeCurves, logGrid } from './curves.js';
 import { prepareLifeData, type LifeInput } from './data.js';
@@ -103,7 +103,6 @@ export function analyzeLife(input: LifeInput, options: LifeOptions = {}): LifeRe
       cautions.push(`The Weibull shape interval (${fmt(s.lower)} to ${fmt(s.upper)}, ${fmt(100 * confidence)} %) is wide: the shape, and with it every extrapolated B-life, is poorly determined.`);
     }
   }
-  if (B > 0 && fits.length > 0 && censoringDesign(data) === 'staggered') warnings.push(STAGGERED_SIZE_WARNING);
   if (data.suspensions > data.failures) {
     warnings.push(`${data.suspensions} of ${data.n} units are suspensions: the upper tail is extrapolated beyond the last failure at ${fmt(lastFailure)}.`);
   }

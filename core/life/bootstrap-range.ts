@@ -6,7 +6,12 @@
  * complete samples). The method and its sources are described in bootstrap.ts.
  *
  * p = (1 + #{A²_b ≥ A²_obs} + #{unrefittable}) / (1 + B), unrefittable replicates counted as
- * exceeding (conservative), with its binomial Monte Carlo standard error.
+ * exceeding (conservative), with its binomial Monte Carlo standard error. Under staggered
+ * withdrawals each replicate also carries one second-level replicate and the range returns both
+ * levels' statistics (BootstrapCounts.firstLevel/secondLevel, concatenated when ranges are
+ * combined); the p-value is then the fast double bootstrap's (fast-double-bootstrap.ts), and the
+ * standard error beside it is the binomial one of that p-value (an approximation: p** depends on
+ * both levels' draws).
  */
 import { getFamily, type Parameters } from '../families/index.js';
 import type { BootstrapCounts } from '../gof/index.js';
@@ -15,6 +20,7 @@ import { CENSORED_AD_METHOD, censoredGofStatistic, censoringDesign, censoringDis
 import { buildLifeData, prepareLifeData, type LifeData } from './data.js';
 import { fitCensored } from './fit.js';
 import type { LifeFamilyName } from './models.js';
+import { fastDoubleBootstrapPValue } from './fast-double-bootstrap.js';
 import { countReplicates, type ReplicateRangeOptions } from './replicate-counts.js';
 
 /** A serialisable range of censored bootstrap replicates (structured-clone safe). */
@@ -48,18 +54,49 @@ export function runCensoredReplicates(
 ): BootstrapCounts {
   const fam = getFamily(family);
   const n = data.n;
+  const design = censoringDesign(data);
   const draw = censoredReplicateDrawer(family, parameters, data);
   // The observed design fixes the statistic for every replicate (bootstrap.ts censoredGofStatistic).
-  const statistic = censoredGofStatistic(censoringDesign(data));
+  const statistic = censoredGofStatistic(design);
   const t = new Float64Array(n);
   const f = new Uint8Array(n);
-  return countReplicates(start, end, observed, (b) => {
-    // A replicate that could not be drawn with the observed number of failures counts as unrefittable (exceeding).
-    if (!draw(createRng(seed, b), t, f)) return Number.NaN;
+  /** The statistic of a replicate drawn into t, f, against its own refit (NaN when it cannot be refitted); the refit's parameters with it. */
+  const refit = (warmStart: Parameters): { stat: number; sim: LifeData; parameters: Parameters | null } => {
     const sim = buildLifeData(t, f);
-    const rf = fitCensored(family, sim, { warmStart: parameters });
-    return rf.ok && Number.isFinite(rf.logLikelihood) ? statistic(fam.make(rf.parameters), sim) : Number.NaN;
+    const rf = fitCensored(family, sim, { warmStart });
+    return rf.ok && Number.isFinite(rf.logLikelihood) ? { stat: statistic(fam.make(rf.parameters), sim), sim, parameters: rf.parameters } : { stat: Number.NaN, sim, parameters: null };
+  };
+  if (design !== 'staggered') {
+    return countReplicates(start, end, observed, (b) => {
+      // A replicate that could not be drawn with the observed number of failures counts as unrefittable (exceeding).
+      if (!draw(createRng(seed, b), t, f)) return Number.NaN;
+      return refit(parameters).stat;
+    }, opts);
+  }
+  // Staggered withdrawals: the fast double bootstrap (fast-double-bootstrap.ts). After replicate b
+  // (statistic τ*_b), the same random stream draws one second-level replicate from the replicate's
+  // own refit and its own Kaplan–Meier censoring estimate, by the same staggered scheme with the same
+  // number of failures, and refits it (τ**_b). NaN where either level cannot be drawn or refitted.
+  const firstLevel: number[] = [];
+  const secondLevel: number[] = [];
+  const counts = countReplicates(start, end, observed, (b) => {
+    const rng = createRng(seed, b);
+    if (!draw(rng, t, f)) {
+      firstLevel.push(Number.NaN);
+      secondLevel.push(Number.NaN);
+      return Number.NaN;
+    }
+    const one = refit(parameters);
+    firstLevel.push(one.stat);
+    let two = Number.NaN;
+    if (one.parameters !== null && Number.isFinite(one.stat)) {
+      const drawTwo = censoredReplicateDrawer(family, one.parameters, one.sim, 'staggered');
+      if (drawTwo(rng, t, f)) two = refit(one.parameters).stat;
+    }
+    secondLevel.push(two);
+    return one.stat;
   }, opts);
+  return { ...counts, firstLevel, secondLevel };
 }
 
 /**
@@ -94,13 +131,20 @@ export const MAX_REPLICATE_ATTEMPTS = 1000;
  *   MAX_REPLICATE_ATTEMPTS; false when the draw budget runs out). Measured on the study's samples
  *   (R = 2000, B = 99, with the studentized statistic): 5.40 → 5.15 % at 30 % censored and
  *   4.20 → 4.50 % at 70 % (scripts/size-study-censored-variants.ts cur+stud, cur+stud+r); at
- *   R = 10,000 5.52 % and 3.95 % (docs/size-study.md: 70 % is still below the 5 ± 0.5 band).
+ *   R = 10,000 5.52 % and 3.95 % for this single bootstrap, 5.40 % and 4.90 % for the fast double
+ *   bootstrap built on it (runCensoredReplicates; docs/size-study.md).
  * Returns whether the replicate was drawn.
  */
-export function censoredReplicateDrawer(family: LifeFamilyName, parameters: Parameters, data: LifeData): (rng: Rng, t: Float64Array, f: Uint8Array) => boolean {
+export function censoredReplicateDrawer(
+  family: LifeFamilyName,
+  parameters: Parameters,
+  data: LifeData,
+  /** The scheme to draw by (the second level of the fast double bootstrap keeps the observed data's); by default the data's own design. */
+  scheme: CensoringDesign = censoringDesign(data),
+): (rng: Rng, t: Float64Array, f: Uint8Array) => boolean {
   const fam = getFamily(family);
   const n = data.n;
-  const design: CensoringDesign = censoringDesign(data);
+  const design: CensoringDesign = scheme;
   if (design === 'complete') {
     // A complete sample: complete replicates (no observation end to reproduce).
     return (rng, t, f) => {
@@ -149,8 +193,8 @@ export function censoredReplicateDrawer(family: LifeFamilyName, parameters: Para
   };
 }
 
-/** How the report names the staggered-withdrawal statistic (anderson-darling.ts studentizedCensoredAndersonDarling). */
-export const STUDENTIZED_LABEL = 'studentized censored A² (A² over its Greenwood-estimated mean)';
+/** How the report names the staggered-withdrawal statistic (anderson-darling.ts studentizedCensoredAndersonDarling) and its p-value. */
+export const STUDENTIZED_LABEL = 'studentized censored A² (A² over its Greenwood-estimated mean; p-value by fast double bootstrap)';
 
 /** Run one job's range. Pure: same job, same counts. */
 export function runCensoredGofRange(job: CensoredGofJob, opts: CensoredRangeOptions = {}): BootstrapCounts {
@@ -162,9 +206,12 @@ export function runCensoredGofRange(job: CensoredGofJob, opts: CensoredRangeOpti
 export function censoredGofFromCounts(observed: number, counts: BootstrapCounts, design?: CensoringDesign): CensoredGofResult {
   // Unrefittable replicates count as exceeding (conservative), so B is every replicate run.
   const b = counts.completed;
-  const p = (1 + counts.exceed + counts.failed) / (1 + b);
+  // Staggered withdrawals: the fast double bootstrap p-value from both levels' statistics.
+  const fdb = design === 'staggered' && counts.firstLevel !== undefined && counts.secondLevel !== undefined ? fastDoubleBootstrapPValue(observed, counts.firstLevel, counts.secondLevel) : null;
+  const p = fdb ? fdb.pValue : (1 + counts.exceed + counts.failed) / (1 + b);
   return {
     ...(design === 'staggered' ? { testLabel: STUDENTIZED_LABEL } : {}),
+    ...(fdb ? { firstLevelPValue: fdb.firstLevelPValue } : {}),
     statistic: observed,
     pValue: p,
     replicates: b,
