@@ -278,11 +278,23 @@ export function capabilityBootstrapIntervals(
  * at both n = 50 and 125. So the report gives the Johnson point estimates without an interval.
  */
 export const JOHNSON_INTERVAL_WITHHELD =
-  'No bootstrap interval under a Johnson curve: its coverage could not be calibrated. In a seeded simulation of a Johnson SU process (n = 50 and 125, 1000 samples each) the percentile fit picked the bounded SB curve for 30-37 % of the samples, and for those the true index lay below the interval\'s lower end in 5.8-18.8 % of cases instead of 2.5 %; none of the interval rules tried (bias-corrected, calibrated double bootstrap, resampling the data) came within 1.5 points of the nominal 95 % at both sizes. The Johnson indices are point estimates only; for an interval use the Box–Cox transformation or a fitted family (their intervals covered within 1.5 points of 95 % in the same kind of simulation: Box–Cox on a lognormal process, a Weibull fitted to a Weibull process).';
+  'No bootstrap interval under a Johnson curve: its coverage could not be calibrated. In a seeded simulation of a Johnson SU process (n = 50 and 125, 1000 samples each) the percentile fit picked the bounded SB curve for 30-37 % of the samples, and for those the true index lay below the interval\'s lower end in 5.8-18.8 % of cases instead of 2.5 %; none of the interval rules tried (bias-corrected, calibrated double bootstrap, resampling the data) came within 1.5 points of the nominal 95 % at both sizes. The Johnson indices are point estimates only; for an interval use the Box–Cox transformation or a fitted family (in the same kind of simulation their intervals covered within 1.5 points of 95 %: Box–Cox on a lognormal process, Weibull and gamma fitted to their own processes; the Ppk interval of a fitted lognormal covered up to 96.6 %, somewhat wide).';
 
-/** Why no interval is offered for `model` (a sentence for the report), or null when it is. */
-export function intervalWithheld(model: ModelSpec): string | null {
-  return model.kind === 'johnson' ? JOHNSON_INTERVAL_WITHHELD : null;
+/**
+ * An exponential model with both limits: Ppk = min(Ppu, Ppl), and the one-parameter model pins Ppl
+ * (≈ ln 2/(ln 2 - ln(1/(1 - 0.00135))) whatever the rate), so the bootstrap distribution of the
+ * minimum is kinked and its interval sits too high (scripts/capability-coverage.ts --exponential,
+ * test/fixtures/capability-coverage-families.json). With one limit there is no minimum: Ppu covered
+ * 96.0 and 95.2 % in the same runs, and the interval is offered.
+ */
+export const EXPONENTIAL_INTERVAL_WITHHELD =
+  'No bootstrap interval under the exponential model with both limits: in a seeded simulation of an exponential process (n = 50 and 125, 1000 samples each) the interval of Ppk, the smaller of its two sides, covered 89.5 and 90.1 % instead of 95 %, with the true Ppk below the lower end in 8.1 and 7.0 % of samples instead of 2.5 % (it overstates capability). The exponential indices are point estimates only here; with a single limit the interval is offered, and for two limits use the Box–Cox transformation or another fitted family.';
+
+/** Why no interval is offered for `model` under `limits` (a sentence for the report), or null when it is. */
+export function intervalWithheld(model: ModelSpec, limits: SpecLimits | null = null): string | null {
+  if (model.kind === 'johnson') return JOHNSON_INTERVAL_WITHHELD;
+  if (model.kind === 'family' && model.family === 'exponential' && limits !== null && limits.lsl !== null && limits.usl !== null) return EXPONENTIAL_INTERVAL_WITHHELD;
+  return null;
 }
 
 /** Largest n·B run inline (on the calling thread); beyond it the interval is not computed and the report says so. */
@@ -327,7 +339,7 @@ export function percentileIntervals(
   replicates: number,
   ran: CapabilityBootstrapValues | null = null,
 ): PercentileIntervals {
-  const withheld = intervalWithheld(model);
+  const withheld = intervalWithheld(model, limits);
   if (withheld !== null) return { intervals: null, seed, note: withheld };
   return bootstrapPercentileIntervals(model, sorted, limits, alpha, seed, replicates, ran);
 }

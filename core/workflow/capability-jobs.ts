@@ -85,7 +85,9 @@ export function planCapabilityJobs(p: CompletePlan): CapabilityJob[] {
     if (family === 'normal') continue;
     const settled = c.table !== null && c.chiSquareBootstrapReason === null;
     const passes = settled && !tableRejects(c.table as AdPValue, alpha) && !(c.chiSquare.computable && c.chiSquare.rejected);
-    if (first || !settled || passes) jobs.push(job({ kind: 'family', family, parameters: c.fit.parameters }, n, limits, seed, replicates));
+    const spec: ModelSpec = { kind: 'family', family, parameters: c.fit.parameters };
+    // no job for a model whose interval is withheld (an exponential with both limits: bootstrap.ts intervalWithheld)
+    if ((first || !settled || passes) && intervalWithheld(spec, limits) === null) jobs.push(job(spec, n, limits, seed, replicates));
     first = false;
     if (passes) break;
   }
