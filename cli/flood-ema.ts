@@ -7,16 +7,14 @@
  */
 import {
   DEFAULT_EMA_REPLICATES,
-  emaCautions,
   InputError,
-  EMA_INTERVAL_STREAM,
-  createRng,
   emaCandidateFields,
-  emaReturnLevels,
-  fitEma,
+  fitFloodRecord,
+  looksLikePeakFile,
   optionNamed,
   readColumns,
-  readPeakFile,
+  readFloodRecord,
+  regionalSkewOf,
   type CodeSummary,
   type EmaCandidateFields,
   type EmaRecord,
@@ -30,18 +28,10 @@ export interface FloodCliIo {
   out(s: string): void;
 }
 
-const DEFAULT_PERIODS = [2, 5, 10, 25, 50, 100, 200, 500];
-
 /** Whether this run is a log-Pearson III / EMA flood run. */
 export function isFloodEma(args: AnalyzeArgs): boolean {
   const o = args.options;
   return o.get('estimation') === 'ema' || o.has('regionalSkew') || o.has('regionalSkewMse');
-}
-
-/** A peak file has '#' comment lines or the peak columns in its header. */
-function looksLikePeakFile(text: string): boolean {
-  const first = text.split(/\r?\n/, 1)[0] ?? '';
-  return first.startsWith('#') || /(^|\t)peak_va(\t|$)/.test(first);
 }
 
 export interface FloodEmaJson {
@@ -57,13 +47,19 @@ export interface FloodEmaJson {
   readonly cautions: readonly string[];
 }
 
+/**
+ * The run: a peak file read, or one CSV column taken as a systematic record, then the one fit and
+ * return levels of core/workflow/flood-record.ts (the server's peak-file analysis uses the same
+ * reading, pairing rule, defaults, seed and stream, so this JSON and the API's agree).
+ */
 export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
   const file = args.file === '-' ? 'standard input' : args.file;
   const o = args.options;
   const num = (name: string): number | undefined => (typeof o.get(name) === 'number' ? (o.get(name) as number) : undefined);
-  const g = num('regionalSkew');
-  const mse = num('regionalSkewMse');
-  if ((g === undefined) !== (mse === undefined)) {
+  let regionalSkew: ReturnType<typeof regionalSkewOf>;
+  try {
+    regionalSkew = regionalSkewOf(num('regionalSkew'), num('regionalSkewMse'));
+  } catch {
     throw new InputError('--regional-skew and --regional-skew-mse go together: the weighting needs both the regional skew and its mean square error', {}, 'bad-option');
   }
   const text = readInputText(args.file).text;
@@ -73,9 +69,7 @@ export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
   let historicalPeriod: FloodEmaJson['input']['historicalPeriod'] = null;
   const warnings: string[] = [];
   if (looksLikePeakFile(text)) {
-    const pt = num('perceptionThreshold');
-    const hs = num('historicalStart');
-    const f = readPeakFile(text, { ...(pt !== undefined ? { perceptionThreshold: pt } : {}), ...(hs !== undefined ? { historicalStart: hs } : {}) });
+    const { file: f } = readFloodRecord(text, { perceptionThreshold: num('perceptionThreshold') ?? null, historicalStart: num('historicalStart') ?? null });
     record = f.record;
     format = 'peak file';
     codes = f.codes;
@@ -87,23 +81,22 @@ export function runFloodEmaJson(args: AnalyzeArgs): FloodEmaJson {
     record = { peaks: Array.from((t.columns[0] as NumberColumn).values) };
     format = 'csv column';
   }
-  if (g !== undefined && mse !== undefined) record = { ...record, regionalSkew: { skew: g, mse } };
-  const fit = fitEma(record);
-  if (!fit.converged) warnings.push(`the EMA iteration did not settle in ${fit.iterations} steps; the moments are the last step's`);
-  const periods = (o.get('returnPeriods') as readonly number[] | undefined) ?? DEFAULT_PERIODS;
-  const confidence = num('confidence') ?? 0.9;
-  const replicates = num('replicates') ?? DEFAULT_EMA_REPLICATES;
-  // One default seed and one stream with the page and the API (the option table's seed; core/workflow EMA_INTERVAL_STREAM).
-  const seed = num('seed') ?? (optionNamed('seed')?.default as number);
-  const returnLevels = emaReturnLevels(record, fit, periods, { confidence, replicates, rng: createRng(seed, EMA_INTERVAL_STREAM) });
+  const periods = o.get('returnPeriods') as readonly number[] | undefined;
+  const run = fitFloodRecord(record, {
+    regionalSkew,
+    ...(periods !== undefined ? { periods } : {}),
+    confidence: num('confidence') ?? 0.9,
+    replicates: num('replicates') ?? DEFAULT_EMA_REPLICATES,
+    // The option table's seed when none is given: the API and the page use the same.
+    seed: num('seed') ?? (optionNamed('seed')?.default as number),
+  });
+  if (run.notConverged) warnings.push(run.notConverged);
   return {
     dataKind: 'flood-ema',
     input: { file, format, codes, historicalPeriod },
-    candidates: [
-      { ...emaCandidateFields(fit), returnLevels },
-    ],
+    candidates: [{ ...emaCandidateFields(run.fit), returnLevels: run.returnLevels }],
     warnings,
-    cautions: emaCautions(fit),
+    cautions: run.cautions,
   };
 }
 

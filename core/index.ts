@@ -49,6 +49,7 @@ export type * from './api-types.js';
 export { DEFAULT_CONFIDENCE, DEFAULT_LIFE_REPLICATES, GROUPED_DOF_RULE, analyzeDataset, analyzeDatasetAsync, planDataset, finishDataset, censoredBootstrapWork, runDatasetJob, combineDatasetJobResults, jobSampleSize, splitDatasetJob, POOL_CAPABILITY_WORK } from './workflow/index.js';
 export { POT_CAUTIONS, POT_DEFAULT_PERIODS, POT_DEFAULT_SEPARATION, POT_DIAGNOSTICS_RULE, diagnosticThresholds, potSection } from './workflow/index.js';
 export { readFailureModes, readIntervalModes } from './workflow/index.js';
+export { FLOOD_RECORD_PERIODS, PEAK_COLUMN, fitFloodRecord, floodRecordReport, looksLikePeakFile, peakFileMakeUp, readFloodRecord, regionalSkewOf } from './workflow/index.js';
 export * from './batch/index.js';
 export * from './options/index.js';
 export { formatPValue, pValueText, testNames } from './format/index.js';

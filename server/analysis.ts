@@ -28,6 +28,9 @@ import {
   readColumn,
   readIntervalRows,
   dayNumbers,
+  looksLikePeakFile,
+  readFloodRecord,
+  PEAK_COLUMN,
   columnSelector,
   SKIP_REASON_WORDS,
   type DatasetJobResult,
@@ -80,6 +83,8 @@ export function requestValues(req: AnalyzeRequest): { values: ArrayLike<number>;
  * request. Status cells must read 1 or 0; the error names the file row, column and cell.
  */
 export function requestDataset(req: AnalyzeRequest): { dataset: DatasetInput; input: InputSummary } {
+  // A peak file is recognised before any CSV header is parsed (its first lines are '#' comments).
+  if (req.values === undefined && req.csv !== undefined && looksLikePeakFile(req.csv)) return peakFileDataset(req, req.csv);
   if (req.intervalColumns) return intervalDataset(req, req.intervalColumns);
   if (req.dateColumn !== undefined) return datedDataset(req, req.dateColumn);
   const wf = req.workflow;
@@ -222,6 +227,55 @@ function datedDataset(req: AnalyzeRequest, dateColumn: string | number): { datas
       header: summary.header,
       warnings: summary.warnings,
       otherColumns: [{ role: 'date', column: date.column }],
+    },
+  };
+}
+
+/**
+ * A peak file (core/workflow/flood-record.ts): read by the core's peak-file reader as the CLI reads
+ * it, with the historical-period options; its columns are taken by name, so no column role applies
+ * (each one given is refused, naming it) and the value column, when sent, must be the peak column.
+ */
+function peakFileDataset(req: AnalyzeRequest, text: string): { dataset: DatasetInput; input: InputSummary } {
+  const wf = req.workflow;
+  const roles: [string, unknown][] = [
+    ['statusColumn', wf?.statusColumn ?? wf?.status],
+    ['subgroupColumn', wf?.subgroupColumn ?? wf?.subgroups],
+    ['orderColumn', wf?.orderColumn ?? wf?.order],
+    ['grouped', wf?.grouped],
+    ['intervalColumns', req.intervalColumns],
+    ['countColumn', req.countColumn],
+    ['inspectionTimesColumn', req.inspectionTimesColumn],
+    ['dateColumn', req.dateColumn],
+    ['modeColumn', req.modeColumn],
+  ];
+  for (const [field, v] of roles) {
+    if (v !== undefined && v !== null) {
+      throw new InputError(`The file is a peak file (tab-separated, '#' comments, columns ${PEAK_COLUMN}, peak_dt, peak_cd read by name): ${field} does not apply to it.`, { column: field }, 'bad-option');
+    }
+  }
+  const read = readFloodRecord(text, { perceptionThreshold: req.options.perceptionThreshold ?? null, historicalStart: req.options.historicalStart ?? null });
+  const columns = read.file.columns;
+  const peakIndex = columns.indexOf(PEAK_COLUMN) + 1;
+  if (req.column !== undefined && req.column !== PEAK_COLUMN && req.column !== peakIndex) {
+    throw new InputError(
+      `The file is a peak file: its peaks are column ${PEAK_COLUMN} (${peakIndex}); column ${JSON.stringify(req.column)} cannot be analysed as the peaks.`,
+      { column: String(req.column), value: String(req.column) },
+      'bad-option',
+    );
+  }
+  return {
+    dataset: { floodRecord: read },
+    input: {
+      source: 'csv',
+      n: read.makeUp.peaks,
+      column: PEAK_COLUMN,
+      columnIndex: peakIndex,
+      rowsRead: read.makeUp.peaks,
+      delimiter: '\t',
+      delimiterDetected: true,
+      header: columns,
+      warnings: [read.makeUp.text],
     },
   };
 }

@@ -1,11 +1,12 @@
 /**
- * The demo datasets: the `*.csv` files directly in `datasets/` (invented scenarios, documented in
+ * The demo datasets: the `*.csv` files directly in `datasets/`, and its tab-separated peak files
+ * (`*.txt`, read as flood records) (invented scenarios, documented in
  * datasets/README.md). Only names found by listing that folder are served, so a request can never
  * reach another file (no path traversal). Files are read on request; nothing is written.
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { readColumn, type DemoEntry, type DemoSettings } from '../core/index.js';
+import { PEAK_COLUMN, looksLikePeakFile, readColumn, readFloodRecord, type DemoEntry, type DemoSettings } from '../core/index.js';
 
 /** The shapes of the demo endpoints are the shared contract (core/api-types.ts). */
 export type { DemoEntry, DemoSettings };
@@ -43,6 +44,12 @@ export const DEMO_SETTINGS: Readonly<Record<string, DemoSettings>> = {
     column: 'hours',
     fields: { statusColumn: 'status', modeColumn: 'mode', bLifePercents: [10, 50], confidence: 0.9 },
     description: 'column hours; status column status (1 = failed, 0 = removed unfailed); failure-mode column mode (leak or crack): each mode fitted with the other as suspensions, the seal as the earlier of the two; B10 and B50 lives per mode and for the seal; two-sided 90 % bounds',
+  },
+  'invented-gauge-peaks': {
+    column: PEAK_COLUMN,
+    fields: { regionalSkew: -0.1, regionalSkewMse: 0.12, returnPeriods: [2, 5, 10, 25, 50, 100, 200, 500], confidence: 0.9 },
+    description:
+      'a peak file (tab-separated, # comments, qualification codes) read as one flood record: log-Pearson III by expected moments with the historic peaks, the peaks known only below or above a value and the low outliers; invented regional skew −0.10 with mean square error 0.12; return periods 2 to 500 years; 90 % intervals',
   },
   'pump-seal-wear': {
     column: 'wear_um',
@@ -109,8 +116,10 @@ export class DemoStore {
       return out;
     }
     for (const f of files.sort()) {
-      if (!f.endsWith('.csv')) continue;
+      // CSV files, and the tab-separated peak files (.txt) of a flood record.
+      if (!f.endsWith('.csv') && !f.endsWith('.txt')) continue;
       const name = f.slice(0, -4);
+      if (out.has(name)) continue;
       if (!NAME_RE.test(name)) continue;
       try {
         const st = statSync(join(this.dir, f));
@@ -144,7 +153,9 @@ export class DemoStore {
     }
     let meta: { columns: string[]; defaultColumn: string };
     try {
-      meta = guessValueColumn(csv);
+      if (looksLikePeakFile(csv)) meta = { columns: [...readFloodRecord(csv).file.columns], defaultColumn: PEAK_COLUMN };
+      else if (file.endsWith('.txt')) return null; // a text file that is not a peak file is not a demo
+      else meta = guessValueColumn(csv);
     } catch {
       meta = { columns: [], defaultColumn: '#1' };
     }

@@ -114,11 +114,11 @@ export function readPeakFile(text: string, opts: PeakFileOptions = {}): PeakFile
     }
     const date = (cells[di] ?? '').trim();
     const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
-    if (!m) throw new InputError(`line ${lineNo}: the date "${date}" is not YYYY-MM-DD`, { row: lineNo }, 'bad-input');
+    if (!m) throw new InputError(`line ${lineNo}, column ${dateName}: the date "${date}" is not YYYY-MM-DD`, { row: lineNo, column: dateName, value: date }, 'bad-input');
     const peakText = (cells[pi] ?? '').trim();
     if (peakText === '') return; // a year with a stage but no discharge: not a peak-flow observation
     const peak = Number(peakText);
-    if (!Number.isFinite(peak) || peak < 0) throw new InputError(`line ${lineNo}: the peak "${peakText}" is not a flow ≥ 0`, { row: lineNo }, 'not-a-number');
+    if (!Number.isFinite(peak) || peak < 0) throw new InputError(`line ${lineNo}, column ${peakName}: the peak "${peakText}" is not a flow ≥ 0`, { row: lineNo, column: peakName, value: peakText }, 'not-a-number');
     const codeText = ci >= 0 ? (cells[ci] ?? '').trim() : '';
     const codes = codeText === '' ? [] : codeText.split(',').map((c) => c.trim()).filter((c) => c !== '');
     rows.push({ line: lineNo, date, year: Number(m[1]), peak, codes });

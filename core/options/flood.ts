@@ -71,7 +71,6 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     appliesTo: ['flood'],
     help: 'flow above which every peak of the historical period would have been noticed (peak files with historic peaks; default the smallest historic peak)',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'historicalStart',
@@ -83,7 +82,6 @@ export const FLOOD_OPTIONS: readonly OptionSpec[] = [
     appliesTo: ['flood'],
     help: 'first year of the historical period (peak files with historic peaks; default the year of the first historic peak)',
     group: 'flood',
-    surfaces: ['cli'],
   },
   {
     name: 'threshold',

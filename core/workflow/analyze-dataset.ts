@@ -16,6 +16,7 @@ import { lifeReport } from './life.js';
 import { intervalLifeReport } from './life-interval.js';
 import { withIntervalModes } from './life-modes.js';
 import { potReport } from './flood-pot.js';
+import { floodRecordReport } from './flood-record-report.js';
 import { workflowSettings, type WorkflowSettings } from './options.js';
 import type { AnyDatasetReport, DatasetInput, DatasetOptions, DatasetReport, GroupedDatasetReport } from './types.js';
 
@@ -24,12 +25,20 @@ export type Route =
   | { readonly kind: 'grouped'; readonly run: () => GroupedDatasetReport }
   | { readonly kind: 'interval'; readonly run: (goodnessOfFit?: IntervalGofHook) => DatasetReport }
   | { readonly kind: 'pot'; readonly run: () => DatasetReport }
+  | { readonly kind: 'flood-record'; readonly run: () => DatasetReport }
   | { readonly kind: 'life'; readonly run: (goodnessOfFit?: CensoredGofHook) => DatasetReport; readonly times: ArrayLike<number>; readonly status: ArrayLike<number> }
   | { readonly kind: 'complete'; readonly input: CompleteInput };
 
 export function route(input: DatasetInput, options: DatasetOptions, settings: WorkflowSettings): Route {
   if (input.modes && !input.status && !input.interval) {
     throw new InputError('A failure-mode column needs times with a status column (1 = failed, 0 = still running or removed unfailed), or interval rows.', {}, 'bad-option');
+  }
+  if (input.floodRecord) {
+    if (input.values || input.status || input.grouped || input.subgroups || input.order || input.interval || input.dates || input.modes) {
+      throw new InputError('A peak file comes alone: its columns are read by their names (peak_dt, peak_va, peak_cd); no value, status, subgroup, order, interval, date or failure-mode column with it.', {}, 'bad-option');
+    }
+    const read = input.floodRecord;
+    return { kind: 'flood-record', run: () => floodRecordReport(read, options, settings) };
   }
   if (input.interval) {
     if (input.values || input.status || input.grouped || input.subgroups || input.order) {

@@ -21,10 +21,10 @@
  */
 import { InputError } from '../errors.js';
 import { getFamily, type FamilyName } from '../families/index.js';
-import { DEFAULT_EMA_REPLICATES, EMA_INTERVAL_STREAM, emaCautions, emaCandidateFields, emaReturnLevels, fitEma, type EmaCandidateFields, type EmaFit, type EmaRecord } from '../flood/index.js';
+import { EMA_INTERVAL_STREAM, emaCautions, emaCandidateFields, type EmaCandidateFields, type EmaFit, type EmaReturnLevel } from '../flood/index.js';
 import { fitByLMoments, LMOMENT_FAMILIES, ratioDiagram, sampleLMoments, type LMomentFamily, type RatioDiagram } from '../lmoments/index.js';
-import { createRng } from '../random/index.js';
 import type { MethodNote } from '../report.js';
+import { fitFloodRecord, regionalSkewOf, type FloodRecordFit } from './flood-record.js';
 
 export { EMA_INTERVAL_STREAM };
 
@@ -106,21 +106,27 @@ function emaBlock(values: ArrayLike<number>, s: FloodEstimatorSettings, warnings
   for (let i = 0; i < values.length; i++) {
     if (!((values[i] as number) >= 0)) return { applicable: false, reason: `log-Pearson III describes flows of 0 or more; value ${i + 1} is ${String(values[i])}` };
   }
-  const record: EmaRecord = { peaks: Array.from(values), ...(s.regionalSkew ? { regionalSkew: s.regionalSkew } : {}) };
-  let fit: EmaFit;
+  let run: FloodRecordFit;
   try {
-    fit = fitEma(record);
+    run = fitFloodRecord({ peaks: Array.from(values) }, { regionalSkew: s.regionalSkew ?? null, periods: s.periods, confidence: s.confidence, seed: s.seed, ...(s.replicates !== undefined ? { replicates: s.replicates } : {}) });
   } catch (e) {
     if (e instanceof InputError && e.code === 'bad-option') throw e;
     return { applicable: false, reason: reasonOf(e) };
   }
-  if (!fit.converged) warnings.push(`Log-Pearson III (EMA): the iteration did not settle in ${fit.iterations} steps; the moments are the last step's.`);
-  const replicates = s.replicates ?? DEFAULT_EMA_REPLICATES;
-  const levels = emaReturnLevels(record, fit, s.periods, { confidence: s.confidence, replicates, rng: createRng(s.seed, EMA_INTERVAL_STREAM) });
+  if (run.notConverged) warnings.push(`Log-Pearson III (EMA): ${run.notConverged}.`);
+  return emaBlockOf(run.fit, run.returnLevels, run.confidence);
+}
+
+/**
+ * The EMA block of the report from a fit and its return levels (core/flood emaReturnLevels): the
+ * one shape the flood section of annual maxima and the flood record of a peak file
+ * (flood-record.ts) both report, so the page draws both with one renderer.
+ */
+export function emaBlockOf(fit: EmaFit, levels: readonly EmaReturnLevel[], confidence: number): FloodEmaBlock {
   return {
     applicable: true,
     ...emaCandidateFields(fit),
-    confidence: s.confidence,
+    confidence,
     intervalMethod: levels[0]?.method ?? 'none',
     bootstrapMethod: levels[0]?.bootstrap?.method ?? 'none',
     returnLevels: levels.map((l) => ({
@@ -195,11 +201,9 @@ export function floodEstimatorsFor(
   run: { readonly periods: readonly number[]; readonly confidence: number; readonly seed: number },
 ): { readonly section: FloodEstimators; readonly methods: readonly MethodNote[] } | undefined {
   checkFloodEstimation(options, run.periods);
-  const g = options.regionalSkew ?? null;
-  const mse = options.regionalSkewMse ?? null;
   const estimation = options.estimation;
   if (estimation !== 'ema' && estimation !== 'lmoments') return undefined;
-  const section = floodEstimators(values, { estimation, periods: run.periods, confidence: run.confidence, seed: run.seed, regionalSkew: g !== null && mse !== null ? { skew: g, mse } : null });
+  const section = floodEstimators(values, { estimation, periods: run.periods, confidence: run.confidence, seed: run.seed, regionalSkew: regionalSkewOf(options.regionalSkew, options.regionalSkewMse) });
   const methods: MethodNote[] = [
     {
       topic: 'L-moment fits',
@@ -231,9 +235,7 @@ export function checkFloodEstimation(
   const e = options.estimation;
   const g = options.regionalSkew ?? null;
   const mse = options.regionalSkewMse ?? null;
-  if ((g === null) !== (mse === null)) {
-    throw new InputError('A regional skew and its mean square error go together: the weighting needs both.', {}, 'bad-option');
-  }
+  regionalSkewOf(g, mse);
   if (g !== null && e !== 'ema') {
     throw new InputError(
       `A regional skew weights the log-Pearson III skew of the expected moments algorithm: ask for estimation ema${e === 'lmoments' ? ', not lmoments' : ' too'}.`,

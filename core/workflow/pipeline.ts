@@ -111,7 +111,7 @@ export function jobSampleSize(job: DatasetJob): number {
 export function planDataset(input: DatasetInput, options: DatasetOptions = {}): DatasetPlan {
   const settings = workflowSettings(options);
   const r = route(input, options, settings);
-  if (r.kind === 'grouped' || r.kind === 'pot') return { kind: 'done', report: r.run() };
+  if (r.kind === 'grouped' || r.kind === 'pot' || r.kind === 'flood-record') return { kind: 'done', report: r.run() };
   if (r.kind === 'interval') {
     const jobs: IntervalGofJob[] = [];
     // As for the status column: the fits and bounds run here once to learn each family's job; the

@@ -17,6 +17,8 @@ import type { AnalysisReport, CandidateReport, CandidateScores, FitRun, MethodNo
 import type { TrendResult } from '../trend/index.js';
 import type { FloodEstimators } from './flood-estimators.js';
 import type { PotSection } from './flood-pot.js';
+import type { FloodRecordSection } from './flood-record-report.js';
+import type { FloodRecordRead } from './flood-record.js';
 
 /** What the data are: decides which candidates and sections the report carries. */
 export type DataKind = 'complete' | 'censored' | 'grouped';
@@ -41,6 +43,8 @@ export interface DatasetInput {
   readonly interval?: IntervalLifeInput | null;
   /** A dated series (peaks over a threshold): the day of each value, days since 1970-01-01 (core/workflow/flood-pot.ts); values and dates come alone. */
   readonly dates?: ArrayLike<number> | null;
+  /** A peak file read for log-Pearson III by EMA (core/workflow/flood-record.ts); it comes alone. */
+  readonly floodRecord?: FloodRecordRead | null;
   /**
    * The caller gives up `values` (a Float64Array whose order it does not need back): a complete
    * sample without order or subgroups is then sorted where it is instead of copied (8 bytes per
@@ -78,6 +82,9 @@ export interface DatasetOptions extends Omit<AnalyzeOptions, 'onProgress' | 'sig
   /** Log-Pearson III by EMA (`estimation: 'ema'`): a regional skew of log10 peaks and its mean square error, weighted with the station skew. */
   readonly regionalSkew?: number | null;
   readonly regionalSkewMse?: number | null;
+  /** A peak file's historical period: the flow above which every peak would have been noticed, and its first year (defaults in core/gauge readPeakFile). */
+  readonly perceptionThreshold?: number | null;
+  readonly historicalStart?: number | null;
   /** Peaks over a threshold (a dated series): the threshold, and the minimum separation in days of independent events (default 3). */
   readonly threshold?: number | null;
   readonly minSeparation?: number | null;
@@ -250,6 +257,8 @@ export interface DatasetReport extends AnalysisReport {
   readonly trend?: TrendSection;
   /** Peaks over a threshold of a dated series (core/workflow/flood-pot.ts); such a report has no ranked candidates. */
   readonly pot?: PotSection;
+  /** A peak file's record by log-Pearson III and EMA (core/workflow/flood-record-report.ts); such a report has no ranked candidates. */
+  readonly floodRecord?: FloodRecordSection;
   /** Present when any decision number was asked for (B-life, reliability, return level, ppm). */
   readonly sensitivity?: readonly SensitivityRow[];
 }

@@ -43,8 +43,10 @@ describe('demo datasets', () => {
     // Demos without fields (the class counts) are read by the page's data card alone.
     const withFields = Object.entries(DEMO_SETTINGS).filter(([, settings]) => Object.keys(settings.fields).length > 0);
     expect(withFields.length).toBeGreaterThanOrEqual(5);
+    const files = new Map<string, string>((await request(app).get('/api/demo')).body.datasets.map((d: { name: string; file: string }) => [d.name, d.file]));
     for (const [name, settings] of withFields) {
-      const csv = readFileSync(join(REPO_ROOT, 'datasets', `${name}.csv`), 'utf8');
+      // The file the demo list names (a CSV, or the tab-separated peak file of the flood record).
+      const csv = readFileSync(join(REPO_ROOT, 'datasets', files.get(name) ?? `${name}.csv`), 'utf8');
       const body = { csv, column: settings.column, ...settings.fields };
       const res = await request(app).post('/api/analyze').send(body);
       expect(res.status, `${name}: ${JSON.stringify(res.body.error ?? null)}`).toBe(200);
