@@ -231,6 +231,15 @@ export function sizeTable(root: string): string {
     '|---|---|---|---|---|---|---|---|',
   ];
   for (const c of ad.cells) rows.push(`| A² | ${design[c.scheme]} | 2 | 50 | ${c.samples} (${c.skipped}) | ${c.rejected} | ${pc(c.size)}${mark(c)} | ${(100 * c.standardError).toFixed(2)} |`);
+  // Stated schedules (scripts/life-interval-stated-size.ts): the bootstrap inspects each unit at its listed times.
+  const statedDesign: Record<string, string> = {
+    ownk: 'own schedule, first U(5, 50), gaps U(20, 60) to 250; every time stated (inspection-times column)',
+    case2: 'own two times, U ~ U(20, 120), V = U + U(10, 60); both stated (inspection-times column)',
+  };
+  for (const c of read('life-interval-stated-size.json').cells) {
+    const [d, b] = c.scheme.split('-');
+    rows.push(`| A² | ${statedDesign[d!]} | ${b} | 50 | ${c.samples} (${c.skipped}) | ${c.rejected} | ${pc(c.size)}${mark(c)} | ${(100 * c.standardError).toFixed(2)} |`);
+  }
   for (const c of lr.cells) {
     const a2 = c.scheme.startsWith('a2-');
     const [d, b, n] = (a2 ? c.scheme.slice(3) : c.scheme).split('-');
@@ -239,7 +248,7 @@ export function sizeTable(root: string): string {
   return [
     ...rows,
     '',
-    `Scale 100; α = 0.05, B = ${lr.replicates} (A² cells B = ${ad.replicates}); reject at p ≤ α. SE = √(0.05·0.95/samples), the Monte Carlo error if the size were 5 %. ⚠ marks a size more than 0.5 points from 5 %. A sample whose Weibull fit has no maximum is left out (counted in brackets).`,
+    `Scale 100; α = 0.05, B = ${lr.replicates} (A² cells B = ${ad.replicates}; stated-schedule cells B = ${read('life-interval-stated-size.json').replicates}); reject at p ≤ α. SE = √(0.05·0.95/samples), the Monte Carlo error if the size were 5 %. ⚠ marks a size more than 0.5 points from 5 %. A sample whose Weibull fit has no maximum is left out (counted in brackets).`,
   ].join('\n');
 }
 

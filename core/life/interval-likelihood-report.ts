@@ -25,8 +25,8 @@ import { turnbull, type TurnbullEstimate } from './turnbull.js';
 import { weibayes, type WeibayesResult } from './weibayes.js';
 import { weibayesInterval } from './weibayes-interval.js';
 import { intervalGofBootstrap, type IntervalGofHook, type IntervalGofResult } from './interval-bootstrap.js';
-import { INTERVAL_GOF_DEFAULT_STATISTIC, INTERVAL_GOF_METHOD } from './interval-gof-design.js';
-import { inspectionSchemeText } from './interval-inspection-scheme.js';
+import { INTERVAL_GOF_DEFAULT_STATISTIC, INTERVAL_GOF_METHOD, INTERVAL_GOF_SIZE } from './interval-gof-design.js';
+import { inspectionSchemeKind, inspectionSchemeText } from './interval-inspection-scheme.js';
 
 /** Default replicates of the inspection-scheme bootstrap: α(B + 1) whole at α = 0.05 and 0.01 (Monte Carlo SE of p near 0.05: 0.015). */
 export const INTERVAL_GOF_REPLICATES = 199;
@@ -397,7 +397,7 @@ export function analyzeRecordedLife(input: RecordedLifeInput, options: RecordedL
     },
     { topic: 'nonparametric', text: np.method, source: np.source },
     ...(gofReplicates > 0
-      ? [{ topic: 'goodness of fit', text: `${INTERVAL_GOF_METHOD[INTERVAL_GOF_DEFAULT_STATISTIC]}; inspection scheme of these rows: ${inspectionSchemeText(data)}; ${gofReplicates} replicates, seed ${options.seed ?? 20261201} + 7919 × the family's index; reject at p ≤ ${fmt(alpha)}`, source: 'Turnbull 1976; Ren 2003, Scand. J. Statist. 30:211-226 [from memory]; Davison & Hinkley 1997 §4.2.5 [from memory]; size: test/fixtures/life-interval-size.json, life-interval-lr-size.json' }]
+      ? [{ topic: 'goodness of fit', text: `${INTERVAL_GOF_METHOD[INTERVAL_GOF_DEFAULT_STATISTIC]}; inspection scheme of these rows: ${inspectionSchemeText(data)}; ${INTERVAL_GOF_SIZE[inspectionSchemeKind(data)].text}; ${gofReplicates} replicates, seed ${options.seed ?? 20261201} + 7919 × the family's index; reject at p ≤ ${fmt(alpha)}`, source: 'Turnbull 1976; Ren 2003, Scand. J. Statist. 30:211-226 [from memory]; Davison & Hinkley 1997 §4.2.5 [from memory]; size: test/fixtures/life-interval-size.json, life-interval-lr-size.json, life-interval-stated-size.json' }]
       : []),
   ];
   return {

@@ -8,10 +8,13 @@
  * Size of the test that then decides: test/fixtures/life-interval-stated-size.json
  * (scripts/life-interval-stated-size.ts), checked below.
  */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../../core/families/index.js';
 import { createRng } from '../../core/random/index.js';
 import {
+  INTERVAL_GOF_SIZE,
   analyzeRecordedLife,
   fitInterval,
   inspectionScheme,
@@ -23,7 +26,7 @@ import {
   readIntervalRows,
   runIntervalGofRange,
 } from '../../core/life/index.js';
-import { statedSample } from '../../scripts/life-interval-stated-size.js';
+import { statedPValue, statedSample, type StatedCell } from '../../scripts/life-interval-stated-size.js';
 
 const INF = Number.POSITIVE_INFINITY;
 const weibull = getFamily('weibull').make({ shape: 2, scale: 100 });
@@ -126,5 +129,33 @@ describe('the bootstrap inspects each unit at exactly its own stated times', () 
     const r = analyzeRecordedLife({ interval: ROWS }, { families: ['weibull'], replicates: 19, mixture: false });
     expect(r.methods.find((m) => m.topic === 'goodness of fit')!.text).toMatch(/exactly the inspection times stated for it/);
     expect(r.candidates[0]!.goodnessOfFit!.scheme).toBe('stated');
+  });
+});
+
+describe('size with stated schedules (scripts/life-interval-stated-size.ts, committed seeded run)', () => {
+  const fx = JSON.parse(readFileSync(join(process.cwd(), 'test', 'fixtures', 'life-interval-stated-size.json'), 'utf8')) as {
+    alpha: number;
+    replicates: number;
+    cells: { scheme: StatedCell; samples: number; skipped: number; rejected: number; size: number; standardError: number; pValues: (number | null)[] }[];
+  };
+
+  it('each cell’s rate is its stored p-values’; the report quotes every cell and lets stated schedules decide only if each is within 5 ± 1.5 points', () => {
+    expect(fx.replicates).toBeGreaterThanOrEqual(39);
+    const words = INTERVAL_GOF_SIZE.stated;
+    for (const c of fx.cells) {
+      const ok = c.pValues.filter((p): p is number => p !== null);
+      expect(ok.length).toBe(c.samples);
+      expect(ok.filter((p) => p <= fx.alpha).length).toBe(c.rejected);
+      expect(c.standardError).toBeCloseTo(Math.sqrt((0.05 * 0.95) / c.samples), 12);
+      expect(words.text).toContain(`${c.rejected} of ${c.samples}`);
+      expect(words.text).toContain(`${(100 * c.size).toFixed(1)} %, SE ${(100 * c.standardError).toFixed(2)}`);
+    }
+    // the issue's design: Weibull n = 50, each unit on its own schedule, at least 1000 samples
+    expect(fx.cells.find((c) => c.scheme === 'ownk-2')!.samples).toBeGreaterThanOrEqual(1000);
+    expect(words.calibrated).toBe(fx.cells.every((c) => Math.abs(c.size - 0.05) <= 0.015));
+  });
+
+  it('the committed run is reproduced: the first sample of each cell gives the same p-value', { timeout: 120_000 }, () => {
+    for (const c of fx.cells) expect(statedPValue(c.scheme, 0, fx.replicates)).toBe(c.pValues[0]);
   });
 });
