@@ -3,7 +3,7 @@
  * and the CLI use), so the page offers exactly the columns the analysis will see. Only the
  * header and the first rows are read here; the values themselves are read by the server.
  */
-import { parseStrictNumber, readColumns } from '../../core/index.js';
+import { PEAK_COLUMN, looksLikePeakFile, parseStrictNumber, readColumns } from '../../core/index.js';
 
 export interface ColumnChoice {
   /** 1-based index, sent to the server (unambiguous even when names repeat). */
@@ -52,6 +52,12 @@ export function isRowNumbers(values: ArrayLike<number>): boolean {
 }
 
 export function scanColumns(text: string, options: { header: boolean; decimal: '.' | ',' }): ColumnScan {
+  // A peak file (tab-separated, '#' comments): its columns are named by the header after the comments, the peaks are peak_va.
+  if (looksLikePeakFile(text)) {
+    const line = head(text, 200).split(/\r?\n/).find((l) => !l.startsWith('#') && l.trim() !== '') ?? '';
+    const columns = line.split('\t').map((name, j) => ({ index: j + 1, label: name.trim() !== '' ? name.trim() : `#${j + 1}` }));
+    return { columns, suggested: columns.find((c) => c.label === PEAK_COLUMN)?.index ?? 1 };
+  }
   const sample = head(text, 200);
   const probe = readColumns(sample, [{ select: 1, kind: 'text' }], { header: true, decimal: options.decimal, skipInvalid: true });
   const fieldCount = Math.max(1, probe.header.length);

@@ -10,6 +10,7 @@ import { drawSlot } from './decision-charts.js';
 import type { LifeScale } from '../charts/life-probability.js';
 import { byId, clear, el } from './dom.js';
 import { ROLE_FIELDS, roleApplies } from './page-options.js';
+import { peakFileNote } from './peak-file-note.js';
 import { noteCensoring, noteSeries, unusedModeColumn, unusedStatusColumn } from './source-notes.js';
 import { binsTableRows, drawEvidence, evidenceFor } from './evidence-render.js';
 import { capital, modelLabel } from './families.js';
@@ -71,7 +72,8 @@ export function renderSource(st: PageState): void {
   const dn = $('decimal-note');
   const g = reading.decimalGuess;
   clear(dn);
-  dn.hidden = !(g.example !== '' && (g.mark === ',' || g.ambiguous));
+  // A peak file's numbers are read with a point; its comma separates qualification codes ("2,6"), not decimals.
+  dn.hidden = peakFileNote(source.csv) !== null || !(g.example !== '' && (g.mark === ',' || g.ambiguous));
   if (!dn.hidden) {
     const other = reading.decimal === ',' ? '.' : ',';
     dn.append(
@@ -95,7 +97,14 @@ export function renderSource(st: PageState): void {
     const box = document.querySelector<HTMLElement>(`[data-role-field="${f.name}"]`);
     if (box) box.hidden = !roleApplies(f, reading.shape);
   }
-  $('roles').hidden = !ROLE_FIELDS.some((f) => roleApplies(f, reading.shape));
+  // A peak file's columns are read by name (peak_dt, peak_va, peak_cd): no column role applies; the page says what it holds.
+  const peak = peakFileNote(source.csv);
+  $('roles').hidden = peak !== null || !ROLE_FIELDS.some((f) => roleApplies(f, reading.shape));
+  const pn = document.getElementById('peak-file-note');
+  if (pn) {
+    pn.hidden = peak === null;
+    pn.textContent = peak ?? '';
+  }
   $('roles-hint').hidden = reading.shape !== 'values';
   $('roles-interval-hint').hidden = reading.shape !== 'interval';
   const fill = (id: string, chosen: number): void => {
@@ -204,7 +213,9 @@ export function renderAnswer(st: PageState): void {
       ? 'Class counts: this page shows the fits and the chi-square on the classes; B-lives, return levels and capability need individual values.'
       : resp?.pot
         ? 'Peaks over a threshold: the return levels, with their intervals and cautions, are in the section “Peaks over a threshold” below, from the generalized Pareto fit of the event excesses; the models of the whole series are not fitted.'
-        : empty.dataset['hint'];
+        : resp?.floodRecord
+          ? 'Peak file: the flood levels by return period, with their intervals and cautions, are in the section “Flood record” below; column roles do not apply to a peak file.'
+          : empty.dataset['hint'];
   $('answer').classList.toggle('is-undermined', a?.undermined === true);
   // A failed / still-running column left unused undermines every fit on screen: said where the answer is read, not only beside the column.
   const flag = st.result ? unusedStatusColumn(st) : undefined;
@@ -400,6 +411,8 @@ export function doneLine(st: PageState): string {
   // Peaks over a threshold: the models are the section's own (generalized Pareto on the event excesses).
   const pot = isGrouped(resp) ? undefined : resp.pot;
   if (pot) return `Done: peaks over a threshold of ${sig(pot.threshold)}: ${pot.clusters} events in ${sig(pot.years, 3)} years of ${res.column} from ${res.source}.`;
+  const record = isGrouped(resp) ? undefined : resp.floodRecord;
+  if (record) return `Done: log-Pearson III by expected moments on the ${record.makeUp.text}, from ${res.source}.`;
   const weibayes = isGrouped(resp) ? null : resp.life?.recorded?.report?.weibayes;
   if (n === 0 && weibayes) return `Done: no model could be fitted (${weibayes.failures} failure${weibayes.failures === 1 ? '' : 's'} in ${weibayes.units} units); Weibayes bounds with the shape assumed, from ${res.source}.`;
   if (n === 0) return 'No model could be fitted to these values.';

@@ -5,7 +5,7 @@
  * Every setting is checked by its option in the core's table with the API's own JSON parser
  * (core/options parseJsonOption), so the page refuses exactly what the API refuses.
  */
-import { OPTION_COMBINATIONS, checkCombinations, optionNamed, parseFormOption, parseJsonOption, parseStrictNumber, type OptionSpec, type OptionValue } from '../../core/index.js';
+import { OPTION_COMBINATIONS, checkCombinations, looksLikePeakFile, optionNamed, parseFormOption, parseJsonOption, parseStrictNumber, type OptionSpec, type OptionValue } from '../../core/index.js';
 import type { AnalyzeRequest, GroupedRequest } from './api.js';
 import { readGroupedClasses } from './grouped-view.js';
 import { PAGE_FIELDS, ROLE_FIELDS, pageField, roleApplies, type DataShape, type PageField } from './page-options.js';
@@ -192,6 +192,24 @@ export function buildRequest(state: PageState): RequestOutcome {
   }
   if (problems.length > 0) return { ok: false, problems };
   if (wf.size > 0 && typeof confidence === 'number') wf.set('confidence', confidence);
+  if (looksLikePeakFile(source.csv)) {
+    // A peak file is one flood record read by its column names: no value column, column roles or chi-square bins are sent
+    // (the server refuses a role), and its evidence is the section's own.
+    for (const k of [...wf.keys()]) if (optionNamed(k)?.kind === 'column') wf.delete(k);
+    if (typeof confidence === 'number') wf.set('confidence', confidence);
+    const request: AnalyzeRequest = {
+      csv: source.csv,
+      csvOptions: { decimal: '.', header: true, skipInvalid: false },
+      families: [...s.families],
+      alpha: alpha ?? 0.05,
+      pMethod: s.pMethod,
+      evidence: false,
+      ...(typeof seed === 'number' ? { seed } : {}),
+      ...(typeof replicates === 'number' ? { replicates } : {}),
+      ...Object.fromEntries(wf),
+    };
+    return { ok: true, built: { kind: 'values', request, column, requestedBins: null } };
+  }
   // Interval rows name their columns in intervalColumns (in wf); there is no value column and no bins.
   const values = reading.shape !== 'interval';
   const request: AnalyzeRequest = {

@@ -7,6 +7,7 @@
 import { sig } from '../format.js';
 import type { BlockLine, BlockTable, SectionView } from './block.js';
 import { end, pct, withU } from './numbers.js';
+import type { FloodEmaBlock } from '../../../core/workflow/flood-estimators.js';
 
 export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => {
   const f = r.flood;
@@ -21,52 +22,10 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
   const top = f.periods[f.periods.length - 1];
 
   if (ema && ema.applicable) {
-    const s = ema.skew;
-    const last = ema.returnLevels[ema.returnLevels.length - 1];
-    if (est.requested === 'ema' && last) {
-      answer = `${sig(last.period)}-year flow by log-Pearson III (expected moments): ${withU(sig(last.estimate), u)}, ${pct(ema.confidence)} interval ${end(last.lower, 'not computed')} to ${end(last.upper, 'not computed')}.`;
-    }
-    lines.push({
-      kind: 'fact',
-      text: `Log-Pearson III on log10 of the ${ema.counts.years} annual maxima, by the expected moments algorithm: mean ${sig(ema.parameters.mean, 5)}, standard deviation ${sig(ema.parameters.sd, 4)}, skew ${sig(ema.parameters.skew, 3)}${ema.converged ? '' : ' (the iteration did not settle)'}.`,
-    });
-    lines.push({
-      kind: 'fact',
-      text:
-        s.regionalSkew !== null
-          ? `Skew weighted by mean square errors: station ${sig(s.stationSkew, 3)} (MSE ${sig(s.stationSkewMse, 3)}) with weight ${sig(s.stationWeight, 3)}, regional ${sig(s.regionalSkew, 3)} (MSE ${sig(s.regionalSkewMse, 3)}) with weight ${sig(s.regionalWeight, 3)}, giving ${sig(s.weightedSkew, 3)}.`
-          : `Station skew ${sig(s.stationSkew, 3)} (MSE ${sig(s.stationSkewMse, 3)}), not weighted: no regional skew was given.`,
-    });
-    lines.push({
-      kind: 'fact',
-      text:
-        ema.lowOutliers.count > 0
-          ? `Low outliers: ${ema.lowOutliers.count} peaks below ${withU(sig(ema.lowOutliers.threshold), u)} are treated as known only to lie below it (${ema.lowOutliers.method ?? ''}).`
-          : `Low outliers: none found (${ema.lowOutliers.method ?? 'no test'}).`,
-    });
-    lines.push({ kind: 'note', text: `Station-skew MSE: ${s.mseMethod}.` });
-    if (ema.effectiveRecordLength !== null) {
-      lines.push({
-        kind: 'fact',
-        text: `Effective record length of the skew: ${sig(ema.effectiveRecordLength, 3)} years of the ${ema.counts.years} (the years of a record with no censored years whose skew would be as precise).`,
-      });
-    }
-    lines.push({
-      kind: 'note',
-      text: `Intervals: ${ema.intervalMethod}; exact for a normal record with the skew held and no censored years, otherwise an approximation (in a seeded simulation a nominal 90 % interval covered 86–96 % over ten record designs, short and censored records furthest off). The variance is derived here after Cohn, Lane & Stedinger (2001); the Bulletin's own text was not at hand, so agreement with its tables is not claimed. Beside them: ${ema.bootstrapMethod}.`,
-    });
-    tables.push({
-      caption: `Log-Pearson III by expected moments: flows by return period with two-sided ${pct(ema.confidence)} intervals (EMA variance; bootstrap beside).`,
-      head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, `${pct(ema.confidence)} interval`, 'Equivalent years', 'Bootstrap interval'],
-      rows: ema.returnLevels.map((x) => [
-        sig(x.period),
-        sig(1 / x.period, 3),
-        sig(x.estimate),
-        x.lower !== null && x.upper !== null ? `${sig(x.lower)} to ${sig(x.upper)}` : 'not computed',
-        sig(x.equivalentYears, 3),
-        x.bootstrapLower !== null && x.bootstrapUpper !== null ? `${sig(x.bootstrapLower)} to ${sig(x.bootstrapUpper)}` : 'not computed',
-      ]),
-    });
+    const shown = emaLines(ema, u);
+    if (est.requested === 'ema') answer = shown.answer;
+    lines.push(...shown.lines);
+    tables.push(...shown.tables);
   } else if (ema && !ema.applicable) {
     lines.push({ kind: 'warning', text: `Log-Pearson III by expected moments was not fitted: ${ema.reason}.` });
   }
@@ -112,3 +71,63 @@ export const floodEstimatorsSection: SectionView = ({ report: r, units: u }) => 
     terms: ['return'],
   };
 };
+
+/**
+ * The log-Pearson III / EMA block in words and one table: the moments, the weighted skew with the
+ * station and regional skews and weights, the low outliers with their test, the effective record
+ * length, the intervals' method and the return levels. Shared by this section and the flood record
+ * of a peak file (flood-record.ts).
+ */
+export function emaLines(ema: FloodEmaBlock, u: string): { answer: string | undefined; lines: BlockLine[]; tables: BlockTable[] } {
+  const lines: BlockLine[] = [];
+  const tables: BlockTable[] = [];
+  const unitHead = u ? ` [${u}]` : '';
+  let answer: string | undefined;
+  const s = ema.skew;
+  const last = ema.returnLevels[ema.returnLevels.length - 1];
+  if (last) {
+    answer = `${sig(last.period)}-year flow by log-Pearson III (expected moments): ${withU(sig(last.estimate), u)}, ${pct(ema.confidence)} interval ${end(last.lower, 'not computed')} to ${end(last.upper, 'not computed')}.`;
+  }
+  lines.push({
+    kind: 'fact',
+    text: `Log-Pearson III on log10 of the ${ema.counts.years} annual maxima, by the expected moments algorithm: mean ${sig(ema.parameters.mean, 5)}, standard deviation ${sig(ema.parameters.sd, 4)}, skew ${sig(ema.parameters.skew, 3)}${ema.converged ? '' : ' (the iteration did not settle)'}.`,
+  });
+  lines.push({
+    kind: 'fact',
+    text:
+      s.regionalSkew !== null
+        ? `Skew weighted by mean square errors: station ${sig(s.stationSkew, 3)} (MSE ${sig(s.stationSkewMse, 3)}) with weight ${sig(s.stationWeight, 3)}, regional ${sig(s.regionalSkew, 3)} (MSE ${sig(s.regionalSkewMse, 3)}) with weight ${sig(s.regionalWeight, 3)}, giving ${sig(s.weightedSkew, 3)}.`
+        : `Station skew ${sig(s.stationSkew, 3)} (MSE ${sig(s.stationSkewMse, 3)}), not weighted: no regional skew was given.`,
+  });
+  lines.push({
+    kind: 'fact',
+    text:
+      ema.lowOutliers.count > 0
+        ? `Low outliers: ${ema.lowOutliers.count} peaks below ${withU(sig(ema.lowOutliers.threshold), u)} are treated as known only to lie below it (${ema.lowOutliers.method ?? ''}).`
+        : `Low outliers: none found (${ema.lowOutliers.method ?? 'no test'}).`,
+  });
+  lines.push({ kind: 'note', text: `Station-skew MSE: ${s.mseMethod}.` });
+  if (ema.effectiveRecordLength !== null) {
+    lines.push({
+      kind: 'fact',
+      text: `Effective record length of the skew: ${sig(ema.effectiveRecordLength, 3)} years of the ${ema.counts.years} (the years of a record with no censored years whose skew would be as precise).`,
+    });
+  }
+  lines.push({
+    kind: 'note',
+    text: `Intervals: ${ema.intervalMethod}; exact for a normal record with the skew held and no censored years, otherwise an approximation (in a seeded simulation a nominal 90 % interval covered 86–96 % over ten record designs, short and censored records furthest off). The variance is derived here after Cohn, Lane & Stedinger (2001); the Bulletin's own text was not at hand, so agreement with its tables is not claimed. Beside them: ${ema.bootstrapMethod}.`,
+  });
+  tables.push({
+    caption: `Log-Pearson III by expected moments: flows by return period with two-sided ${pct(ema.confidence)} intervals (EMA variance; bootstrap beside).`,
+    head: ['Return period T [years]', 'Chance per year', `Flow${unitHead}`, `${pct(ema.confidence)} interval`, 'Equivalent years', 'Bootstrap interval'],
+    rows: ema.returnLevels.map((x) => [
+      sig(x.period),
+      sig(1 / x.period, 3),
+      sig(x.estimate),
+      x.lower !== null && x.upper !== null ? `${sig(x.lower)} to ${sig(x.upper)}` : 'not computed',
+      sig(x.equivalentYears, 3),
+      x.bootstrapLower !== null && x.bootstrapUpper !== null ? `${sig(x.bootstrapLower)} to ${sig(x.bootstrapUpper)}` : 'not computed',
+    ]),
+  });
+  return { answer, lines, tables };
+}

@@ -9,6 +9,7 @@ import { capabilitySection } from './capability.js';
 import { floodSection } from './flood.js';
 import { floodEstimatorsSection } from './flood-estimators.js';
 import { floodPotSection } from './flood-pot.js';
+import { floodRecordSection } from './flood-record.js';
 import { lifeSection } from './life.js';
 import { lifeRecordedSection } from './life-recorded.js';
 import { modesSection } from './modes.js';
@@ -22,6 +23,7 @@ export const SECTIONS: readonly { readonly key: string; readonly view: SectionVi
   { key: 'flood', view: floodSection },
   { key: 'flood-estimators', view: floodEstimatorsSection },
   { key: 'pot', view: floodPotSection },
+  { key: 'flood-record', view: floodRecordSection },
   { key: 'capability', view: capabilitySection },
   { key: 'trend', view: trendSection },
   { key: 'sensitivity', view: sensitivitySection },
