@@ -86,7 +86,7 @@ export const LIFE_OPTIONS: readonly OptionSpec[] = [
     kind: 'column',
     default: null,
     appliesTo: ['interval', 'life'],
-    help: "with interval rows: the column holding each row's inspection times separated by ; (e.g. 20; 45; 70), every inspection its unit was due up to the end of its follow-up, also those after it was found failed; empty for an exact time. the goodness-of-fit bootstrap then inspects each unit at exactly its own times (measured conservative, 2.5-4.0 % at α = 5 %, so shown for information); on the API with \"csv\" only",
+    help: "with interval rows: the column holding each row's inspection times separated by ; (e.g. 20; 45; 70), every inspection its unit was due up to the end of its follow-up, also those after it was found failed; empty for an exact time. the goodness-of-fit bootstrap then inspects each unit at exactly its own times (measured conservative, 2.5-4.3 % at α = 5 %, so shown for information); on the API with \"csv\" only",
     group: 'life',
   },
   {
